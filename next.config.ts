@@ -3,6 +3,7 @@ import type { NextConfig } from "next";
 const nextConfig: NextConfig = {
   poweredByHeader: false,
   serverExternalPackages: ["bcryptjs", "smtp-server", "mailparser", "nodemailer"],
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

@@ -1,0 +1,80 @@
+"use server";
+
+import { z } from "zod";
+import { formAction } from "@/lib/actions/form-action";
+import { addMember, removeMember } from "@/lib/services/memberships";
+import { createToken, revokeToken } from "@/lib/services/tokens";
+import { createUser, updateUser } from "@/lib/services/users";
+import { createUserInput, email, role, structureCode, tokenName } from "@/lib/validation";
+
+const userId = z.coerce.number().int().positive();
+
+export const addUserAction = formAction(
+  createUserInput,
+  async (input, user) => {
+    await createUser(user, input);
+    return { message: `${input.name} can now sign in as ${input.email}.` };
+  },
+  "/admin/users",
+);
+
+export const changeRoleAction = formAction(
+  z.object({ userId, role }),
+  async ({ userId, role }, user) => {
+    await updateUser(user, userId, { role });
+    return { message: `Role changed to ${role}.` };
+  },
+  "/admin/users",
+);
+
+export const setActiveAction = formAction(
+  z.object({ userId, active: z.enum(["true", "false"]).transform((value) => value === "true") }),
+  async ({ userId, active }, user) => {
+    await updateUser(user, userId, { active });
+    return { message: active ? "Account reactivated." : "Account deactivated: its sessions and tokens stop working." };
+  },
+  "/admin/users",
+);
+
+const membership = z.object({ email, structure: structureCode });
+
+export const addMemberAction = formAction(
+  membership,
+  async ({ email, structure }, user) => {
+    await addMember(user, email, structure);
+    return { message: `${email} added to ${structure}.` };
+  },
+  "/admin/members",
+);
+
+export const removeMemberAction = formAction(
+  membership,
+  async ({ email, structure }, user) => {
+    await removeMember(user, email, structure);
+    return { message: `${email} removed from ${structure}.` };
+  },
+  "/admin/members",
+);
+
+export const createTokenAction = formAction(
+  z.discriminatedUnion("kind", [
+    z.object({ kind: z.literal("user"), email, name: tokenName }),
+    z.object({ kind: z.literal("logger"), structure: structureCode, name: tokenName }),
+  ]),
+  async (input, user) => {
+    const owner = input.kind === "user" ? { kind: "user" as const, email: input.email } : { kind: "logger" as const, structureCode: input.structure };
+    const issued = await createToken(user, owner, input.name);
+    return { message: "Token created. Copy it now: it is not shown again.", secret: issued.token };
+  },
+  "/admin/tokens",
+);
+
+export const revokeTokenAction = formAction(
+  z.object({ tokenId: z.coerce.number().int().positive() }),
+  async ({ tokenId }, user) => {
+    await revokeToken(user, tokenId);
+    return { message: "Token revoked." };
+  },
+  "/admin/tokens",
+);
+

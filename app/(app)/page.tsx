@@ -1,0 +1,64 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { EmptyState } from "@/components/ui/empty-state";
+import { PageHeader } from "@/components/ui/page-header";
+import { buttonClass, cardClass } from "@/components/ui/styles";
+import { MonitoringCaution } from "@/components/ui/caution";
+import { roleAllows } from "@/lib/auth/permissions";
+import { requireUser } from "@/lib/auth/session";
+import { listStructuresFor } from "@/lib/services/structures";
+
+export const metadata: Metadata = { title: "Structures" };
+
+export default async function StructuresPage() {
+  const user = await requireUser();
+  const structures = await listStructuresFor(user);
+  const canCreate = roleAllows(user.role, "structure:create");
+  return (
+    <>
+      <PageHeader
+        title="Structures"
+        subtitle={user.role === "admin" ? "Every structure in this installation." : "The structures you are a member of."}
+        actions={
+          canCreate && (
+            <Link href="/structures/new" className={buttonClass()}>
+              New structure
+            </Link>
+          )
+        }
+      />
+      {structures.length === 0 ? (
+        <EmptyState title="No structures to show yet">
+          {canCreate ? (
+            <p>
+              Create the first structure, then register its gauges and give its data logger a token. Readings,
+              stress and alerts appear here once data arrives.
+            </p>
+          ) : (
+            <p>You are not a member of any structure. Ask an administrator to add you to the structures you work on.</p>
+          )}
+        </EmptyState>
+      ) : (
+        <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="Structures">
+          {structures.map((structure) => (
+            <li key={structure.id}>
+              <Link
+                href={`/structures/${structure.code}`}
+                className={`${cardClass} block h-full p-4 transition hover:border-accent hover:shadow-md`}
+                data-testid="structure-card"
+              >
+                <p className="font-mono text-xs text-slate-500 dark:text-slate-400">{structure.code}</p>
+                <p className="mt-1 font-semibold">{structure.name}</p>
+                {structure.location && <p className="mt-1 text-sm text-slate-600 dark:text-slate-400">{structure.location}</p>}
+                <p className="mt-3 text-xs text-slate-500 dark:text-slate-400">Local time zone: {structure.timezone}</p>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+      <div className="mt-8">
+        <MonitoringCaution />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,19 @@
+/** The cautions every screen with results on it must carry (see the trade brief). */
+export function MonitoringCaution() {
+  return (
+    <aside
+      aria-label="Caution"
+      className="rounded-md border border-amber-300 bg-amber-50 px-4 py-3 text-sm text-amber-950 dark:border-amber-700 dark:bg-amber-950/40 dark:text-amber-100"
+    >
+      <p className="font-semibold">Read with care</p>
+      <ul className="mt-1 list-disc space-y-0.5 pl-5">
+        <li>Monitoring supplements inspection; it never replaces it.</li>
+        <li>
+          Limits and what they mean are the responsibility of a licensed engineer under local codes; the
+          product&apos;s defaults are examples only.
+        </li>
+        <li>Alerts can be delayed by logger, network or mail failures: check when data last arrived.</li>
+      </ul>
+    </aside>
+  );
+}

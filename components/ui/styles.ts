@@ -1,0 +1,27 @@
+/** Class lists shared by controls, so every form looks and behaves the same. */
+
+const buttonBase =
+  "inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-60";
+
+const buttonVariants = {
+  primary: "bg-accent text-white hover:bg-accent-strong",
+  secondary:
+    "border border-slate-300 bg-white text-ink hover:bg-slate-100 dark:border-slate-600 dark:bg-slate-900 dark:text-slate-100 dark:hover:bg-slate-800",
+  danger: "border border-red-300 bg-white text-critical hover:bg-red-50 dark:border-red-800 dark:bg-slate-900 dark:hover:bg-red-950",
+} as const;
+
+export type ButtonVariant = keyof typeof buttonVariants;
+
+export function buttonClass(variant: ButtonVariant = "primary"): string {
+  return `${buttonBase} ${buttonVariants[variant]}`;
+}
+
+export const inputClass =
+  "block w-full rounded-md border border-slate-300 bg-white px-3 py-2 text-base text-ink shadow-sm placeholder:text-slate-400 focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30 aria-[invalid=true]:border-critical sm:text-sm dark:border-slate-600 dark:bg-slate-900 dark:text-slate-100";
+
+export const cardClass =
+  "rounded-lg border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900";
+
+export const tableClass = "min-w-full divide-y divide-slate-200 text-sm dark:divide-slate-800";
+export const thClass = "px-3 py-2 text-left text-xs font-semibold uppercase tracking-wide text-slate-500 dark:text-slate-400";
+export const tdClass = "px-3 py-2 align-middle";

@@ -1,0 +1,21 @@
+"use client";
+
+import { useFormStatus } from "react-dom";
+import { buttonClass, type ButtonVariant } from "./styles";
+
+export function SubmitButton({
+  children,
+  pendingLabel,
+  variant = "primary",
+}: {
+  children: React.ReactNode;
+  pendingLabel: string;
+  variant?: ButtonVariant;
+}) {
+  const { pending } = useFormStatus();
+  return (
+    <button type="submit" className={buttonClass(variant)} disabled={pending} aria-busy={pending}>
+      {pending ? pendingLabel : children}
+    </button>
+  );
+}

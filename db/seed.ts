@@ -1,0 +1,62 @@
+import type { Role } from "./schema";
+import { createStructure, findStructureByCode } from "@/lib/services/structures";
+import { addMember } from "@/lib/services/memberships";
+import { createUser, findUserByEmail } from "@/lib/services/users";
+import { isUniqueViolation } from "./client";
+import { AppError } from "@/lib/errors";
+
+/**
+ * The demo scenario, invented from end to end: the Brennock Valley Transport Trust owns a
+ * steel truss footbridge and a post-tensioned concrete parking deck, watched by one
+ * engineer and one technician.
+ */
+export const DEMO_USERS: { email: string; name: string; role: Role; password: string; structures: string[] }[] = [
+  { email: "admin@hookeline.example", name: "Morgan Hale", role: "admin", password: "admin-demo", structures: [] },
+  { email: "engineer@hookeline.example", name: "Priya Venn", role: "engineer", password: "engineer-demo", structures: ["MILL-FB", "ORCH-PD"] },
+  { email: "technician@hookeline.example", name: "Tomas Reed", role: "technician", password: "technician-demo", structures: ["MILL-FB"] },
+  { email: "owner@hookeline.example", name: "Iris Calder", role: "owner", password: "owner-demo", structures: ["MILL-FB", "ORCH-PD"] },
+];
+
+export const DEMO_STRUCTURES = [
+  {
+    code: "MILL-FB",
+    name: "Millrace Footbridge",
+    location: "Kestrel Lane, Brennock",
+    timezone: "Europe/London",
+    description:
+      "Steel Warren-truss footbridge, 42 m span, over the Brennock millrace. Owner: Brennock Valley Transport Trust. " +
+      "Monitored after a 2026 repair of the lower chord.",
+  },
+  {
+    code: "ORCH-PD",
+    name: "Orchard Street Parking Deck",
+    location: "Orchard Street, Brennock",
+    timezone: "Europe/London",
+    description:
+      "Four-level post-tensioned concrete parking deck. Owner: Brennock Valley Transport Trust. " +
+      "Monitored while cracked level-2 slabs wait for strengthening.",
+  },
+];
+
+async function ignoreExisting(work: Promise<unknown>) {
+  try {
+    await work;
+  } catch (error) {
+    if (error instanceof AppError && error.code === "conflict") return;
+    if (isUniqueViolation(error)) return;
+    throw error;
+  }
+}
+
+/** Creates what is missing of the demo scenario; running it again changes nothing. */
+export async function seedDemo(): Promise<void> {
+  for (const structure of DEMO_STRUCTURES) {
+    if (!(await findStructureByCode(structure.code))) await createStructure(null, structure);
+  }
+  for (const user of DEMO_USERS) {
+    if (!(await findUserByEmail(user.email))) {
+      await createUser(null, { email: user.email, name: user.name, role: user.role, password: user.password });
+    }
+    for (const code of user.structures) await ignoreExisting(addMember(null, user.email, code));
+  }
+}

@@ -1,0 +1,106 @@
+import { z } from "zod";
+import { AppError } from "@/lib/errors";
+import type { Actor } from "@/lib/auth/actor";
+import { actorForToken, bearerFrom } from "@/lib/auth/tokens";
+
+const DEFAULT_JSON_LIMIT_BYTES = 1_000_000;
+
+export function json(data: unknown, status = 200): Response {
+  return Response.json(data, { status });
+}
+
+export function errorBody(error: AppError) {
+  return { error: { code: error.code, message: error.message, ...(error.details === undefined ? {} : { details: error.details }) } };
+}
+
+/** Turns any thrown value into the contract's error format; unexpected ones are logged, never shown. */
+export function errorResponse(error: unknown): Response {
+  if (error instanceof AppError) return json(errorBody(error), error.status);
+  console.error("Unexpected error in an API route", error);
+  return json({ error: { code: "internal_error", message: "Something went wrong on the server; it has been logged." } }, 500);
+}
+
+/** Zod's issues as the per-field list the API and forms report. */
+export function issuesOf(error: z.ZodError) {
+  return error.issues.map((issue) => ({ path: issue.path.join("."), message: issue.message }));
+}
+
+export function validationError(error: z.ZodError): AppError {
+  const issues = issuesOf(error);
+  const first = issues[0];
+  const summary = first ? `${first.path ? `${first.path}: ` : ""}${first.message}` : "The request is invalid.";
+  return new AppError("validation_failed", summary, { issues });
+}
+
+export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) throw validationError(result.error);
+  return result.data;
+}
+
+function requireContentType(request: Request, expected: string) {
+  const type = request.headers.get("content-type")?.split(";")[0]?.trim().toLowerCase();
+  if (type !== expected) {
+    throw new AppError("unsupported_media_type", `Send the body as ${expected} (Content-Type: ${expected}).`);
+  }
+}
+
+/** Reads the body as text, refusing it as soon as it grows past the limit. */
+export async function readBodyText(request: Request, limitBytes: number): Promise<string> {
+  const declared = Number(request.headers.get("content-length"));
+  if (declared > limitBytes) throw tooLarge(limitBytes);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let received = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    received += value.byteLength;
+    if (received > limitBytes) {
+      await reader.cancel();
+      throw tooLarge(limitBytes);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString("utf8");
+}
+
+function tooLarge(limitBytes: number) {
+  return new AppError("payload_too_large", `The body is over the limit of ${(limitBytes / 1_000_000).toFixed(0)} MB.`);
+}
+
+/** A JSON object body validated by `schema`. */
+export async function readJson<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+  limitBytes = DEFAULT_JSON_LIMIT_BYTES,
+): Promise<z.output<S>> {
+  requireContentType(request, "application/json");
+  const text = await readBodyText(request, limitBytes);
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    throw new AppError("invalid_json", "The body is not valid JSON.");
+  }
+  if (typeof body !== "object" || body === null || Array.isArray(body)) {
+    throw new AppError("bad_request", "The body must be a JSON object.");
+  }
+  return parseWith(schema, body);
+}
+
+type RouteContext<P> = { params: Promise<P> };
+type ApiHandler<P> = (call: { request: Request; params: P; actor: Actor }) => Promise<Response>;
+
+/** Wraps an /api/v1 handler: bearer authentication first, every error in the contract's format. */
+export function apiRoute<P>(handler: ApiHandler<P>) {
+  return async (request: Request, context: RouteContext<P>): Promise<Response> => {
+    try {
+      const actor = await actorForToken(bearerFrom(request.headers.get("authorization")));
+      return await handler({ request, params: await context.params, actor });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

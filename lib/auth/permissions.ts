@@ -1,0 +1,64 @@
+import type { Role } from "@/db/schema";
+
+/** Everything someone may ask to do. Structure-scoped actions also need membership (admins excepted). */
+export const ACTIONS = {
+  "structure:view": "See a structure, its gauges, data and alerts",
+  "structure:create": "Create a structure",
+  "gauge:register": "Register and edit gauges, photos and drawings",
+  "zero:record": "Record a zero (reference) reading",
+  "readings:ingest": "Send or upload readings",
+  "limits:edit": "Change limits",
+  "alert:acknowledge": "Acknowledge and clear alerts",
+  "token:manage": "Create and revoke logger tokens of the structure",
+  "audit:view": "Read the audit trail",
+  "users:manage": "Add, change and deactivate users",
+  "members:manage": "Add and remove structure members",
+  "mail:read": "Read the mail caught by the local mail server",
+} as const;
+
+export type Action = keyof typeof ACTIONS;
+
+/** Actions that concern one structure, as opposed to the whole installation. */
+const STRUCTURE_SCOPED: ReadonlySet<Action> = new Set<Action>([
+  "structure:view",
+  "gauge:register",
+  "zero:record",
+  "readings:ingest",
+  "limits:edit",
+  "alert:acknowledge",
+  "token:manage",
+  "audit:view",
+]);
+
+const EVERY_ACTION = Object.keys(ACTIONS) as Action[];
+
+/** The permission matrix. README.md prints it; tests/unit/permissions.test.ts checks it cell by cell. */
+export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
+  admin: new Set(EVERY_ACTION),
+  engineer: new Set<Action>([
+    "structure:view",
+    "structure:create",
+    "gauge:register",
+    "zero:record",
+    "readings:ingest",
+    "limits:edit",
+    "alert:acknowledge",
+    "token:manage",
+    "audit:view",
+  ]),
+  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "readings:ingest"]),
+  owner: new Set<Action>(["structure:view"]),
+};
+
+export function roleAllows(role: Role, action: Action): boolean {
+  return PERMISSIONS[role].has(action);
+}
+
+export function isStructureScoped(action: Action): boolean {
+  return STRUCTURE_SCOPED.has(action);
+}
+
+/** Admins see every structure; everyone else only those they are members of. */
+export function seesAllStructures(role: Role): boolean {
+  return role === "admin";
+}

@@ -1,0 +1,81 @@
+import { and, asc, eq } from "drizzle-orm";
+import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
+import { structureMembers, structures, users } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+import { requirePermission } from "@/lib/auth/authorize";
+import { AppError, notFound } from "@/lib/errors";
+import { recordAudit } from "./audit";
+import { findStructureByCode } from "./structures";
+import { findUserByEmail } from "./users";
+
+export type MembershipView = {
+  structureCode: string;
+  structureName: string;
+  userId: number;
+  email: string;
+  name: string;
+  role: string;
+};
+
+export function listMemberships(): Promise<MembershipView[]> {
+  return getDb()
+    .select({
+      structureCode: structures.code,
+      structureName: structures.name,
+      userId: users.id,
+      email: users.email,
+      name: users.name,
+      role: users.role,
+    })
+    .from(structureMembers)
+    .innerJoin(structures, eq(structures.id, structureMembers.structureId))
+    .innerJoin(users, eq(users.id, structureMembers.userId))
+    .orderBy(asc(structures.code), asc(users.name));
+}
+
+async function resolveMembership(email: string, structureCode: string) {
+  const user = await findUserByEmail(email);
+  if (!user) throw notFound(`User ${email}`);
+  const structure = await findStructureByCode(structureCode);
+  if (!structure) throw notFound(`Structure "${structureCode}"`);
+  return { user, structure };
+}
+
+export async function addMember(actor: Actor | null, email: string, structureCode: string): Promise<void> {
+  if (actor) await requirePermission(actor, "members:manage");
+  const { user, structure } = await resolveMembership(email, structureCode);
+  await writeTransaction(async (tx) => {
+    await tx.insert(structureMembers).values({ structureId: structure.id, userId: user.id });
+    await recordAudit(tx, {
+      actor,
+      action: "member.add",
+      entityType: "membership",
+      entityKey: `${structure.code}/${user.email}`,
+      structureId: structure.id,
+      after: { email: user.email, structure: structure.code },
+    });
+  }).catch((error: unknown) => {
+    if (isUniqueViolation(error)) {
+      throw new AppError("conflict", `${user.email} is already a member of ${structure.code}.`);
+    }
+    throw error;
+  });
+}
+
+export async function removeMember(actor: Actor, email: string, structureCode: string): Promise<void> {
+  await requirePermission(actor, "members:manage");
+  const { user, structure } = await resolveMembership(email, structureCode);
+  await writeTransaction(async (tx) => {
+    await tx
+      .delete(structureMembers)
+      .where(and(eq(structureMembers.structureId, structure.id), eq(structureMembers.userId, user.id)));
+    await recordAudit(tx, {
+      actor,
+      action: "member.remove",
+      entityType: "membership",
+      entityKey: `${structure.code}/${user.email}`,
+      structureId: structure.id,
+      before: { email: user.email, structure: structure.code },
+    });
+  });
+}

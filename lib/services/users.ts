@@ -1,0 +1,83 @@
+import { asc, eq } from "drizzle-orm";
+import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
+import { users, type Role, type User } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+import { requirePermission } from "@/lib/auth/authorize";
+import { hashPassword } from "@/lib/auth/passwords";
+import { AppError, notFound } from "@/lib/errors";
+import type { CreateUserInput } from "@/lib/validation";
+import { recordAudit } from "./audit";
+
+/** What of a user may leave the server: never the password hash. */
+export type UserView = Pick<User, "id" | "email" | "name" | "role" | "active" | "createdAt">;
+
+const userViewColumns = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  role: users.role,
+  active: users.active,
+  createdAt: users.createdAt,
+};
+
+export function listUsers(): Promise<UserView[]> {
+  return getDb().select(userViewColumns).from(users).orderBy(asc(users.name));
+}
+
+export async function findUserByEmail(email: string): Promise<User | undefined> {
+  const [row] = await getDb().select().from(users).where(eq(users.email, email.trim().toLowerCase())).limit(1);
+  return row;
+}
+
+export async function getUserById(id: number): Promise<User | undefined> {
+  const [row] = await getDb().select().from(users).where(eq(users.id, id)).limit(1);
+  return row;
+}
+
+async function requireUserById(id: number): Promise<User> {
+  const user = await getUserById(id);
+  if (!user) throw notFound("User");
+  return user;
+}
+
+/** `actor` is null when the command line or the seed acts. */
+export async function createUser(actor: Actor | null, input: CreateUserInput): Promise<UserView> {
+  if (actor) await requirePermission(actor, "users:manage");
+  const passwordHash = await hashPassword(input.password);
+  return writeTransaction(async (tx) => {
+    const [created] = await tx
+      .insert(users)
+      .values({ email: input.email, name: input.name, role: input.role, passwordHash })
+      .returning(userViewColumns);
+    await recordAudit(tx, {
+      actor,
+      action: "user.create",
+      entityType: "user",
+      entityKey: input.email,
+      after: { name: input.name, role: input.role },
+    });
+    return created!;
+  }).catch((error: unknown) => {
+    if (isUniqueViolation(error)) {
+      throw new AppError("conflict", `A user with e-mail ${input.email} already exists.`, { field: "email" });
+    }
+    throw error;
+  });
+}
+
+type UserChange = { role?: Role; active?: boolean };
+
+export async function updateUser(actor: Actor, userId: number, change: UserChange): Promise<void> {
+  await requirePermission(actor, "users:manage");
+  const user = await requireUserById(userId);
+  if (actor.kind === "user" && actor.id === userId) {
+    // Locking yourself out of administration is never what was meant.
+    throw new AppError("bad_request", "You cannot change your own role or deactivate yourself.");
+  }
+  const before = { role: user.role, active: user.active };
+  const after = { ...before, ...change };
+  await writeTransaction(async (tx) => {
+    await tx.update(users).set(change).where(eq(users.id, userId));
+    await recordAudit(tx, { actor, action: "user.update", entityType: "user", entityKey: user.email, before, after });
+  });
+}

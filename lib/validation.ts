@@ -1,0 +1,59 @@
+import { z } from "zod";
+import { ROLES } from "@/db/schema";
+import { MIN_PASSWORD_LENGTH } from "@/lib/auth/passwords";
+
+/** Schemas shared by server actions, the API and the command line. */
+
+export function isTimeZone(name: string): boolean {
+  try {
+    new Intl.DateTimeFormat("en", { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `Keep it under ${max} characters.`)
+    .optional()
+    .transform((value) => (value ? value : undefined));
+
+export const structureCode = z
+  .string()
+  .regex(/^[A-Za-z0-9_-]{2,32}$/, "Use 2 to 32 letters, digits, '-' or '_' (no spaces).");
+
+export const timeZone = z
+  .string()
+  .trim()
+  .refine(isTimeZone, "Use an IANA time zone name such as Europe/Paris or America/Chicago.");
+
+export const createStructureInput = z.object({
+  code: structureCode.meta({ description: "Short unique code, 2–32 of A-Z a-z 0-9 - _", example: "FB-01" }),
+  name: z.string().trim().min(1, "Give the structure a name.").max(200, "Keep the name under 200 characters."),
+  location: optionalText(200),
+  timezone: timeZone.optional().default("UTC").meta({ description: "IANA time zone, default UTC" }),
+  description: optionalText(2000),
+});
+export type CreateStructureInput = z.infer<typeof createStructureInput>;
+
+export const email = z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address."));
+
+export const role = z.enum(ROLES, { error: `Choose one of: ${ROLES.join(", ")}.` });
+
+export const password = z
+  .string()
+  .min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters.`)
+  .max(200, "Keep the password under 200 characters.");
+
+export const createUserInput = z.object({
+  email,
+  name: z.string().trim().min(1, "Enter the person's name.").max(200),
+  role,
+  password,
+});
+export type CreateUserInput = z.infer<typeof createUserInput>;
+
+export const tokenName = z.string().trim().min(1, "Name the token after what will use it.").max(100);
