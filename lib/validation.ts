@@ -4,6 +4,14 @@ import { MIN_PASSWORD_LENGTH } from "@/lib/auth/passwords";
 
 /** Schemas shared by server actions, the API and the command line. */
 
+// Say what to fix when a field is missing or of the wrong type, instead of zod's generic wording.
+z.config({
+  customError: (issue) => {
+    if (issue.code !== "invalid_type") return undefined;
+    return issue.input === undefined ? "This field is required." : `Expected ${issue.expected}.`;
+  },
+});
+
 export function isTimeZone(name: string): boolean {
   try {
     new Intl.DateTimeFormat("en", { timeZone: name });
@@ -18,8 +26,8 @@ const optionalText = (max: number) =>
     .string()
     .trim()
     .max(max, `Keep it under ${max} characters.`)
-    .optional()
-    .transform((value) => (value ? value : undefined));
+    .transform((value) => value || undefined)
+    .optional();
 
 export const structureCode = z
   .string()

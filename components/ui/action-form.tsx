@@ -1,21 +1,22 @@
 "use client";
 
-import { createContext, useActionState, useContext } from "react";
+import { createContext, startTransition, useActionState, useContext, useEffect, useRef } from "react";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import { FormMessage } from "./form-message";
 
 type FormActionFn = (previous: ActionState, formData: FormData) => Promise<ActionState>;
 
-const ActionFormState = createContext<ActionState>(IDLE);
+const ActionFormContext = createContext<{ state: ActionState; pending: boolean }>({ state: IDLE, pending: false });
 
-/** The outcome of the enclosing ActionForm's last submission. */
-export function useActionFormState(): ActionState {
-  return useContext(ActionFormState);
+/** The outcome of the enclosing ActionForm's last submission, and whether one is under way. */
+export function useActionForm() {
+  return useContext(ActionFormContext);
 }
 
 /**
- * A form bound to a server action. Fields inside it pick their errors from its state,
- * and the outcome message shows at the end of the form.
+ * A form bound to a server action. Fields inside it pick their errors from its state and the
+ * outcome message shows at the end. What was typed stays after an error (React would clear it
+ * when the action is passed as `action`), and the form is cleared after a success.
  */
 export function ActionForm({
   action,
@@ -28,20 +29,31 @@ export function ActionForm({
   className?: string;
   label?: string;
 }) {
-  const [state, formAction] = useActionState(action, IDLE);
+  const [state, dispatch, pending] = useActionState(action, IDLE);
+  const form = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (state.status === "ok") form.current?.reset();
+  }, [state]);
+
+  function submit(event: React.FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    startTransition(() => dispatch(data));
+  }
+
   return (
-    <ActionFormState.Provider value={state}>
-      <form action={formAction} className={className} aria-label={label} noValidate>
+    <ActionFormContext.Provider value={{ state, pending }}>
+      <form ref={form} onSubmit={submit} className={className} aria-label={label} aria-busy={pending} noValidate>
         {children}
         <FormMessage state={state} />
       </form>
-    </ActionFormState.Provider>
+    </ActionFormContext.Provider>
   );
 }
 
 /** A value the server shows once (a new token), with a copy button. */
 export function SecretOnce({ label }: { label: string }) {
-  const { secret } = useActionFormState();
+  const { secret } = useActionForm().state;
   if (!secret) return null;
   return (
     <div className="space-y-1 rounded-md border border-accent/40 bg-accent/5 p-3">

@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionFormState } from "./action-form";
+import { useActionForm } from "./action-form";
 import { inputClass } from "./styles";
 
 type FieldProps = {
@@ -15,7 +15,7 @@ type FieldProps = {
  * Inside an ActionForm the errors come from the form's last answer.
  */
 export function Field({ name, label, hint, children, ...inputProps }: FieldProps) {
-  const fieldErrors = useActionFormState().fieldErrors?.[name];
+  const fieldErrors = useActionForm().state.fieldErrors?.[name];
   const hintId = hint ? `${name}-hint` : undefined;
   const errorId = fieldErrors?.length ? `${name}-error` : undefined;
   return (

@@ -1,6 +1,6 @@
 "use client";
 
-import { useFormStatus } from "react-dom";
+import { useActionForm } from "./action-form";
 import { buttonClass, type ButtonVariant } from "./styles";
 
 export function SubmitButton({
@@ -12,7 +12,7 @@ export function SubmitButton({
   pendingLabel: string;
   variant?: ButtonVariant;
 }) {
-  const { pending } = useFormStatus();
+  const { pending } = useActionForm();
   return (
     <button type="submit" className={buttonClass(variant)} disabled={pending} aria-busy={pending}>
       {pending ? pendingLabel : children}
