@@ -43,7 +43,7 @@ export function temperatureIn(unit: TemperatureUnit, celsius: number): number {
   return unit === "°F" ? celsiusToFahrenheit(celsius) : celsius;
 }
 
-/** "1 234 µε": whole microstrain is the resolution gauges are read to in the field (common practice). */
+/** "1,234 µε": whole microstrain is the resolution gauges are read to in the field (common practice). */
 export function formatMicrostrain(microstrain: number, fractionDigits = 0): string {
   return `${microstrain.toLocaleString("en-US", {
     minimumFractionDigits: fractionDigits,
