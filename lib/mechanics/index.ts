@@ -1,3 +1,13 @@
+/**
+ * Mechanics core: raw gauge readings to strain and stress. Pure functions, no I/O.
+ *
+ *   const gauge = prepareGauge(config);          // once per gauge (per batch)
+ *   if (!gauge.ok) reject(gauge.code, gauge.message);
+ *   const result = gauge.convert(value, temperature);
+ *   if (result.ok) store(result.strain, result.stress, flagWords(result.flags));
+ *
+ * The success object of `convert` is reused by the next call on the same gauge.
+ */
 export * from "./gauge-config";
 export { prepareGauge, type Conversion, type ConversionResult, type GaugeConverter, type PrepareOptions } from "./convert";
 export type { GaugeConfigErrorCode, ReadingErrorCode } from "./errors";
