@@ -1,0 +1,52 @@
+import { failure } from "./result";
+import type { MaterialErrorCode } from "./materials";
+import type { ThermalErrorCode } from "./thermal";
+
+export type GaugeConfigErrorCode =
+  | "unknown-kind"
+  | "unknown-input"
+  | "unknown-bridge"
+  | "invalid-gauge-factor"
+  | "invalid-logger-gauge-factor"
+  | "invalid-batch-factor"
+  | "invalid-polarity"
+  | "invalid-resistance"
+  | "invalid-zero"
+  | "invalid-initial-stress"
+  | "invalid-rated-range"
+  | "invalid-linear-limit-ratio"
+  | ThermalErrorCode
+  | MaterialErrorCode;
+
+export type ReadingErrorCode =
+  | "non-finite-value"
+  | "non-finite-temperature"
+  | "temperature-required"
+  | "non-positive-frequency"
+  | "non-positive-digits"
+  | "impossible-bridge-output";
+
+/** Shared, frozen failures: refusing a reading allocates nothing. */
+export const READING_FAILURES = {
+  nonFiniteValue: failure("non-finite-value", "The reading's value is not a finite number; send the raw value as a number."),
+  nonFiniteTemperature: failure(
+    "non-finite-temperature",
+    "The reading's temperature is not a finite number; send it in °C or leave it out.",
+  ),
+  temperatureRequired: failure(
+    "temperature-required",
+    "This gauge's temperature compensation needs the temperature at each reading; send it in °C with the reading.",
+  ),
+  nonPositiveFrequency: failure(
+    "non-positive-frequency",
+    "A vibrating-wire frequency must be above 0 Hz; check the gauge, its cable and the logger channel.",
+  ),
+  nonPositiveDigits: failure(
+    "non-positive-digits",
+    "A vibrating-wire reading in digits must be above 0; check the gauge, its cable and the logger channel.",
+  ),
+  impossibleBridgeOutput: failure(
+    "impossible-bridge-output",
+    "No bridge of this arrangement can produce this output change; check the wiring, the bridge type and the zero reading.",
+  ),
+} as const;

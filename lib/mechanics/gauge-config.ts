@@ -1,0 +1,83 @@
+/**
+ * A gauge as the API describes it (see the Gauges section of the API contract). Plain types only:
+ * request validation lives with the API; `prepareGauge` re-checks what the physics depends on.
+ */
+
+export const GAUGE_KINDS = ["foil", "vibrating-wire"] as const;
+export type GaugeKind = (typeof GAUGE_KINDS)[number];
+
+export const FOIL_INPUTS = ["microstrain", "mV/V"] as const;
+export type FoilInput = (typeof FOIL_INPUTS)[number];
+
+export const VIBRATING_WIRE_INPUTS = ["Hz", "digits"] as const;
+export type VibratingWireInput = (typeof VIBRATING_WIRE_INPUTS)[number];
+
+export type GaugeInput = FoilInput | VibratingWireInput;
+
+export const BRIDGES = [
+  "quarter",
+  "half-bending",
+  "half-poisson",
+  "full-bending",
+  "full-poisson",
+  "full-axial-poisson",
+] as const;
+export type Bridge = (typeof BRIDGES)[number];
+
+export const THERMAL_METHODS = ["none", "polynomial", "cte"] as const;
+export type ThermalMethod = (typeof THERMAL_METHODS)[number];
+
+export type ThermalCompensation =
+  | { method: "none" }
+  /** Thermal output P(T) = A0 + A1·T + … + A4·T⁴ in µε, T in °C; missing higher terms are zero. */
+  | { method: "polynomial"; coefficients: readonly number[] }
+  /**
+   * Expansion coefficient (µε/°C) the foil gauge is matched to (required), or of the vibrating wire
+   * (defaults to the steel wire's 12.2).
+   */
+  | { method: "cte"; gaugeCte?: number | null };
+
+/** Host material. E in MPa, alpha in µε/°C, yield in MPa. */
+export interface Material {
+  name?: string;
+  E: number;
+  nu: number;
+  alpha: number;
+  yield?: number | null;
+}
+
+/** The reference reading: strain is measured from this state. */
+export interface ZeroReading {
+  /** Raw value in the gauge's input unit. */
+  value: number;
+  /** °C; required whenever the thermal compensation uses temperature. */
+  temperature?: number | null;
+  time?: string | Date;
+}
+
+export interface GaugeConfig {
+  kind: GaugeKind;
+  input: GaugeInput;
+  /** Required for foil `mV/V`; for foil `microstrain` only `quarter` matters (lead correction). */
+  bridge?: Bridge | null;
+  /** Foil: gauge factor GF. Vibrating wire: gauge constant G in µε per digit. */
+  gaugeFactor: number;
+  /** Foil `microstrain`: the GF the logger assumed; defaults to `gaugeFactor`. */
+  loggerGaugeFactor?: number | null;
+  /** Vibrating wire: batch calibration factor B; defaults to 1. */
+  batchFactor?: number | null;
+  /** Defaults to 1; -1 for a gauge wired the other way round. */
+  polarity?: 1 | -1;
+  /** Ohms in series with the gauge in its arm (both leads for 2-wire, one for 3-wire). */
+  leadResistance?: number | null;
+  /** Ohms. */
+  gaugeResistance?: number | null;
+  /** Defaults to `none` for foil and to `cte` with the steel wire's 12.2 µε/°C for vibrating wire. */
+  thermal?: ThermalCompensation | null;
+  material: Material;
+  /** MPa added to the computed stress: the dead-load stress present when the gauge was zeroed. */
+  initialStress?: number | null;
+  zero: ZeroReading;
+  /** µε the gauge can measure away from its zero reading, when the maker states it. */
+  ratedRange?: number | null;
+}

@@ -1,0 +1,98 @@
+import { isFiniteNumber, isPositive } from "./checks";
+import { bridgeFormula, leadWireCorrection, loggerGaugeFactorCorrection, millivoltsPerVoltToRatio } from "./bridge";
+import { READING_FAILURES, type GaugeConfigErrorCode, type ReadingErrorCode } from "./errors";
+import type { GaugeConfig } from "./gauge-config";
+import { failure, type Failure } from "./result";
+import { MICRO } from "./stress";
+import { apparentStrain, digitsFromFrequency } from "./vibrating-wire";
+
+/**
+ * Turns a raw reading into the gauge's strain change since its zero reading, in µε, before
+ * polarity and temperature. NaN marks a value the input kind cannot produce.
+ */
+export interface RawReader {
+  readonly ok: true;
+  readonly toStrain: (value: number) => number;
+  /** What to tell the sender when `toStrain` returns NaN. */
+  readonly impossibleValue: Failure<ReadingErrorCode>;
+}
+
+type ConfigFailure = Failure<GaugeConfigErrorCode>;
+
+export function prepareRawReader(config: GaugeConfig): RawReader | ConfigFailure {
+  if (!isPositive(config.gaugeFactor)) {
+    return failure("invalid-gauge-factor", "The gauge factor (or vibrating-wire gauge constant) must be a positive number.");
+  }
+  if (!isFiniteNumber(config.zero?.value)) {
+    return failure("invalid-zero", "The zero reading needs a finite raw value in the gauge's input unit.");
+  }
+  switch (config.kind) {
+    case "foil":
+      return foilReader(config);
+    case "vibrating-wire":
+      return vibratingWireReader(config);
+    default:
+      return failure("unknown-kind", "Unknown gauge kind; use foil or vibrating-wire.");
+  }
+}
+
+function foilReader(config: GaugeConfig): RawReader | ConfigFailure {
+  const bridge = config.bridge == null ? undefined : bridgeFormula(config.bridge);
+  if (config.bridge != null && !bridge) {
+    return failure(
+      "unknown-bridge",
+      "Unknown bridge; use quarter, half-bending, half-poisson, full-bending, full-poisson or full-axial-poisson.",
+    );
+  }
+  const lead = quarterBridgeLeadCorrection(config);
+  if (typeof lead !== "number") return lead;
+  const zero = config.zero.value;
+  if (config.input === "microstrain") {
+    const loggerGaugeFactor = config.loggerGaugeFactor ?? config.gaugeFactor;
+    if (!isPositive(loggerGaugeFactor)) {
+      return failure("invalid-logger-gauge-factor", "The logger's gauge factor, when given, must be a positive number.");
+    }
+    const scale = lead * loggerGaugeFactorCorrection(loggerGaugeFactor, config.gaugeFactor);
+    return { ok: true, toStrain: (value) => scale * (value - zero), impossibleValue: READING_FAILURES.nonFiniteValue };
+  }
+  if (config.input !== "mV/V") return failure("unknown-input", "A foil gauge's input is microstrain or mV/V.");
+  if (!bridge) return failure("unknown-bridge", "A foil gauge read in mV/V needs its bridge arrangement.");
+  const { gaugeFactor } = config;
+  const poisson = config.material.nu;
+  const scale = lead / MICRO;
+  return {
+    ok: true,
+    toStrain: (value) => scale * bridge(millivoltsPerVoltToRatio(value - zero), gaugeFactor, poisson),
+    impossibleValue: READING_FAILURES.impossibleBridgeOutput,
+  };
+}
+
+/** The API applies the lead correction to quarter bridges when both resistances are known. */
+function quarterBridgeLeadCorrection(config: GaugeConfig): number | ConfigFailure {
+  const { leadResistance, gaugeResistance } = config;
+  if (config.bridge !== "quarter" || leadResistance == null || gaugeResistance == null) return 1;
+  if (!isFiniteNumber(leadResistance) || leadResistance < 0 || !isPositive(gaugeResistance)) {
+    return failure("invalid-resistance", "Lead resistance must be 0 Ω or more and gauge resistance above 0 Ω.");
+  }
+  return leadWireCorrection(leadResistance, gaugeResistance);
+}
+
+function vibratingWireReader(config: GaugeConfig): RawReader | ConfigFailure {
+  const batchFactor = config.batchFactor ?? 1;
+  if (!isPositive(batchFactor)) return failure("invalid-batch-factor", "The batch factor, when given, must be a positive number.");
+  const fromHz = config.input === "Hz";
+  if (!fromHz && config.input !== "digits") {
+    return failure("unknown-input", "A vibrating-wire gauge's input is Hz or digits.");
+  }
+  if (!(config.zero.value > 0)) {
+    return failure("invalid-zero", `The zero reading of a vibrating-wire gauge must be above 0 ${config.input}.`);
+  }
+  const toDigits = fromHz ? digitsFromFrequency : (digits: number) => digits;
+  const zeroDigits = toDigits(config.zero.value);
+  const { gaugeFactor } = config;
+  return {
+    ok: true,
+    toStrain: (value) => (value > 0 ? apparentStrain(gaugeFactor, batchFactor, toDigits(value), zeroDigits) : Number.NaN),
+    impossibleValue: fromHz ? READING_FAILURES.nonPositiveFrequency : READING_FAILURES.nonPositiveDigits,
+  };
+}
