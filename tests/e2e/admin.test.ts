@@ -84,18 +84,17 @@ describe("administration", () => {
     await saveScreenshot(admin, "admin-tokens");
   });
 
-  it("lets an engineer create a structure and explains a bad code", async () => {
-    const engineer = await (await newContext(browser)).newPage();
-    await new SignInPage(engineer).signInAs("engineer");
-    await engineer.getByRole("link", { name: "New structure" }).click();
-    const form = engineer.getByRole("form", { name: "New structure" });
+  it("creates a structure from the form and explains a bad code", async () => {
+    await admin.goto("/");
+    await admin.getByRole("link", { name: "New structure" }).click();
+    const form = admin.getByRole("form", { name: "New structure" });
     await form.getByLabel("Code").fill("bad code!");
     await form.getByLabel("Name", { exact: true }).fill("Quarry conveyor gantry");
     await form.getByRole("button", { name: "Create structure" }).click();
     await form.getByText("Use 2 to 32 letters").waitFor();
     await form.getByLabel("Code").fill("QG-7");
     await form.getByRole("button", { name: "Create structure" }).click();
-    await engineer.waitForURL((url) => url.pathname === "/structures/QG-7");
-    await engineer.getByRole("heading", { name: "Quarry conveyor gantry" }).waitFor();
+    await admin.waitForURL((url) => url.pathname === "/structures/QG-7");
+    await admin.getByRole("heading", { name: "Quarry conveyor gantry" }).waitFor();
   });
 });
