@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, primaryKey, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 
 export const ROLES = ["admin", "engineer", "technician", "owner"] as const;
 export type Role = (typeof ROLES)[number];
@@ -98,3 +98,171 @@ export type Structure = typeof structures.$inferSelect;
 export type ApiToken = typeof apiTokens.$inferSelect;
 export type AuditEntry = typeof auditLog.$inferSelect;
 
+
+export const GAUGE_STATUSES = ["active", "retired"] as const;
+export type GaugeStatus = (typeof GAUGE_STATUSES)[number];
+
+/** Host material as stored with a gauge (E and yield MPa, alpha µε/°C). */
+export type StoredMaterial = { name?: string; E: number; nu: number; alpha: number; yield?: number | null };
+export type StoredThermal =
+  | { method: "none" }
+  | { method: "polynomial"; coefficients: number[] }
+  | { method: "cte"; gaugeCte: number | null };
+
+export const gauges = sqliteTable(
+  "gauges",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    tag: text("tag").notNull(),
+    label: text("label"),
+    member: text("member"),
+    kind: text("kind").notNull(),
+    input: text("input").notNull(),
+    bridge: text("bridge"),
+    gaugeFactor: real("gauge_factor").notNull(),
+    loggerGaugeFactor: real("logger_gauge_factor"),
+    batchFactor: real("batch_factor"),
+    polarity: integer("polarity").notNull().default(1),
+    leadResistance: real("lead_resistance"),
+    gaugeResistance: real("gauge_resistance"),
+    thermal: text("thermal", { mode: "json" }).$type<StoredThermal>().notNull(),
+    material: text("material", { mode: "json" }).$type<StoredMaterial>().notNull(),
+    initialStress: real("initial_stress").notNull().default(0),
+    /** The reference reading in force; its history is in zero_readings. */
+    zeroValue: real("zero_value").notNull(),
+    zeroTemperature: real("zero_temperature"),
+    zeroTime: integer("zero_time", { mode: "timestamp_ms" }).notNull(),
+    expectedInterval: integer("expected_interval"),
+    /** µε either side of zero the gauge is rated for, when known. */
+    ratedRange: real("rated_range"),
+    status: text("status", { enum: GAUGE_STATUSES }).notNull().default("active"),
+    retiredAt: integer("retired_at", { mode: "timestamp_ms" }),
+    /** The failed gauge this one replaced at the same location, so the location's record reads as one. */
+    replacesGaugeId: integer("replaces_gauge_id"),
+    drawingId: integer("drawing_id"),
+    /** Position on the drawing as fractions of its width and height (0–1). */
+    drawingX: real("drawing_x"),
+    drawingY: real("drawing_y"),
+    createdAt: createdAt(),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [uniqueIndex("gauges_structure_tag").on(t.structureId, t.tag)],
+);
+
+export const zeroReadings = sqliteTable(
+  "zero_readings",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    value: real("value").notNull(),
+    temperature: real("temperature"),
+    /** When the reference state was read on site. */
+    time: integer("time", { mode: "timestamp_ms" }).notNull(),
+    reason: text("reason").notNull(),
+    /** "typed", or "average of the last N readings". */
+    source: text("source").notNull(),
+    setById: integer("set_by_id").references(() => users.id, { onDelete: "set null" }),
+    setByLabel: text("set_by_label").notNull(),
+    setAt: createdAt(),
+  },
+  (t) => [index("zero_readings_gauge").on(t.gaugeId, t.setAt)],
+);
+
+export const ROSETTE_LAYOUTS = ["rectangular", "delta"] as const;
+
+export const rosettes = sqliteTable(
+  "rosettes",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    tag: text("tag").notNull(),
+    layout: text("layout", { enum: ROSETTE_LAYOUTS }).notNull(),
+    gaugeAId: integer("gauge_a_id").notNull().references(() => gauges.id),
+    gaugeBId: integer("gauge_b_id").notNull().references(() => gauges.id),
+    gaugeCId: integer("gauge_c_id").notNull().references(() => gauges.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("rosettes_structure_tag").on(t.structureId, t.tag)],
+);
+
+export const FILE_KINDS = ["photo", "drawing"] as const;
+export type FileKind = (typeof FILE_KINDS)[number];
+
+/** Uploaded images; the bytes live in the storage folder under a key the server made. */
+export const files = sqliteTable(
+  "files",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id").references(() => gauges.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: FILE_KINDS }).notNull(),
+    title: text("title").notNull(),
+    storageKey: text("storage_key").notNull().unique(),
+    contentType: text("content_type").notNull(),
+    bytes: integer("bytes").notNull(),
+    width: integer("width"),
+    height: integer("height"),
+    uploadedById: integer("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("files_structure").on(t.structureId, t.kind), index("files_gauge").on(t.gaugeId)],
+);
+
+/**
+ * One row per gauge and time (epoch ms), converted on ingest so reads never recompute.
+ * Created WITHOUT ROWID in the migration: the primary key is the storage order, so a gauge's
+ * readings over a range are one contiguous scan.
+ */
+export const readings = sqliteTable(
+  "readings",
+  {
+    gaugeId: integer("gauge_id").notNull(),
+    time: integer("t").notNull(),
+    value: real("value").notNull(),
+    temperature: real("temperature"),
+    /** Stress-producing strain, µε. */
+    strain: real("strain").notNull(),
+    /** MPa, including the gauge's initial stress. */
+    stress: real("stress").notNull(),
+    /** Bitmask of lib/mechanics Flag. */
+    flags: integer("flags").notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
+);
+
+/** Hourly and daily min/max/sum/count per gauge, kept up to date as readings arrive (WITHOUT ROWID). */
+export const rollups = sqliteTable(
+  "rollups",
+  {
+    gaugeId: integer("gauge_id").notNull(),
+    /** Bucket width in ms: 3 600 000 (hour) or 86 400 000 (day). */
+    resolution: integer("resolution").notNull(),
+    bucket: integer("bucket").notNull(),
+    count: integer("count").notNull(),
+    strainMin: real("strain_min").notNull(),
+    strainMax: real("strain_max").notNull(),
+    strainSum: real("strain_sum").notNull(),
+    stressMin: real("stress_min").notNull(),
+    stressMax: real("stress_max").notNull(),
+    stressSum: real("stress_sum").notNull(),
+    temperatureCount: integer("temperature_count").notNull(),
+    temperatureMin: real("temperature_min"),
+    temperatureMax: real("temperature_max"),
+    temperatureSum: real("temperature_sum"),
+  },
+  (t) => [primaryKey({ columns: [t.gaugeId, t.resolution, t.bucket] })],
+);
+
+export type Gauge = typeof gauges.$inferSelect;
+export type ZeroReadingRow = typeof zeroReadings.$inferSelect;
+export type Rosette = typeof rosettes.$inferSelect;
+export type StoredFile = typeof files.$inferSelect;

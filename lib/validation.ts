@@ -21,7 +21,7 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
-const optionalText = (max: number) =>
+export const optionalText = (max: number) =>
   z
     .string()
     .trim()

@@ -1,0 +1,55 @@
+import type { Gauge } from "@/db/schema";
+import type { GaugeConfig } from "@/lib/mechanics";
+import type { GaugeFields } from "./schema";
+
+/** Columns of a gauge row from validated fields (zero and status are handled by their own steps). */
+export function gaugeColumns(fields: Omit<GaugeFields, "tag" | "zero">) {
+  return {
+    label: fields.label ?? null,
+    member: fields.member ?? null,
+    kind: fields.kind,
+    input: fields.input,
+    bridge: fields.bridge,
+    gaugeFactor: fields.gaugeFactor,
+    loggerGaugeFactor: fields.loggerGaugeFactor,
+    batchFactor: fields.batchFactor,
+    polarity: fields.polarity,
+    leadResistance: fields.leadResistance,
+    gaugeResistance: fields.gaugeResistance,
+    thermal: fields.thermal ?? { method: "none" as const },
+    material: fields.material,
+    initialStress: fields.initialStress,
+    expectedInterval: fields.expectedInterval,
+    ratedRange: fields.ratedRange,
+  };
+}
+
+/** A stored gauge as the API shows it (the contract's field names). */
+export function gaugeFieldsOf(row: Gauge): GaugeFields {
+  return {
+    tag: row.tag,
+    label: row.label ?? undefined,
+    member: row.member ?? undefined,
+    kind: row.kind as GaugeFields["kind"],
+    input: row.input as GaugeFields["input"],
+    bridge: row.bridge as GaugeFields["bridge"],
+    gaugeFactor: row.gaugeFactor,
+    loggerGaugeFactor: row.loggerGaugeFactor,
+    batchFactor: row.batchFactor,
+    polarity: row.polarity === -1 ? -1 : 1,
+    leadResistance: row.leadResistance,
+    gaugeResistance: row.gaugeResistance,
+    thermal: row.thermal,
+    material: { ...row.material, name: row.material.name ?? undefined, yield: row.material.yield ?? null },
+    initialStress: row.initialStress,
+    zero: { value: row.zeroValue, temperature: row.zeroTemperature, time: row.zeroTime.toISOString() },
+    expectedInterval: row.expectedInterval,
+    ratedRange: row.ratedRange,
+  };
+}
+
+/** The stored gauge as the mechanics core converts with it. */
+export function gaugeConfigOf(row: Gauge): GaugeConfig {
+  const fields = gaugeFieldsOf(row);
+  return { ...fields, zero: { value: row.zeroValue, temperature: row.zeroTemperature, time: row.zeroTime } };
+}

@@ -1,0 +1,150 @@
+import { z } from "zod";
+import {
+  BRIDGES,
+  FOIL_INPUTS,
+  GAUGE_KINDS,
+  VIBRATING_WIRE_INPUTS,
+  prepareGauge,
+  type GaugeConfigErrorCode,
+} from "@/lib/mechanics";
+import { optionalText } from "@/lib/validation";
+
+/** Gauge fields as the API contract names them, shared by the API and the gauge form. */
+
+const number = z.number({ error: "Enter a number." }).refine(Number.isFinite, "Enter a finite number.");
+const positive = number.refine((v) => v > 0, "Must be greater than zero.");
+const optional = <T extends z.ZodType>(schema: T) => schema.nullish().transform((v) => v ?? null);
+
+export const gaugeTag = z
+  .string({ error: "Give the gauge a tag." })
+  .regex(/^[A-Za-z0-9_.-]{1,32}$/, "Use 1 to 32 letters, digits, '-', '_' or '.' (no spaces).");
+
+export const isoTime = z.iso.datetime({ offset: true, error: "Use an ISO-8601 time with an offset or Z, e.g. 2026-05-01T08:30:00Z." });
+
+export const materialInput = z.object({
+  name: optionalText(100),
+  E: positive.meta({ description: "Young's modulus, MPa" }),
+  nu: number.refine((v) => v > 0 && v < 0.5, "Poisson's ratio lies between 0 and 0.5 for structural materials."),
+  alpha: number.refine((v) => Math.abs(v) < 100, "Expansion coefficient in µε/°C; structural materials lie well under 100."),
+  yield: optional(positive).meta({ description: "Yield or proportional limit, MPa" }),
+});
+
+export const thermalInput = z.discriminatedUnion(
+  "method",
+  [
+    z.object({ method: z.literal("none") }),
+    z.object({
+      method: z.literal("polynomial"),
+      coefficients: z.array(number).min(1, "Give at least A0.").max(5, "Give at most five coefficients, A0 to A4."),
+    }),
+    z.object({ method: z.literal("cte"), gaugeCte: optional(number).meta({ description: "µε/°C" }) }),
+  ],
+  { error: "Choose the compensation method: none, polynomial or cte." },
+);
+
+export const zeroInput = z.object({
+  value: number.meta({ description: "Raw reading in the gauge's input unit" }),
+  temperature: optional(number).meta({ description: "°C" }),
+  time: isoTime.optional(),
+});
+
+const INPUTS = [...FOIL_INPUTS, ...VIBRATING_WIRE_INPUTS] as const;
+
+export const gaugeFields = z.object({
+  tag: gaugeTag,
+  label: optionalText(200),
+  member: optionalText(200),
+  kind: z.enum(GAUGE_KINDS, { error: "Choose foil or vibrating-wire." }),
+  input: z.enum(INPUTS, { error: `Choose the logger's output: ${INPUTS.join(", ")}.` }),
+  bridge: optional(z.enum(BRIDGES, { error: `Choose the bridge: ${BRIDGES.join(", ")}.` })),
+  gaugeFactor: positive.meta({ description: "Foil: gauge factor GF. Vibrating wire: gauge constant G, µε per digit" }),
+  loggerGaugeFactor: optional(positive),
+  batchFactor: optional(positive),
+  polarity: z.union([z.literal(1), z.literal(-1)], { error: "Polarity is 1 or -1." }).default(1),
+  leadResistance: optional(number.refine((v) => v >= 0, "Resistance cannot be negative.")).meta({ description: "Ω" }),
+  gaugeResistance: optional(positive).meta({ description: "Ω" }),
+  thermal: optional(thermalInput),
+  material: materialInput,
+  initialStress: number.default(0).meta({ description: "MPa" }),
+  zero: zeroInput,
+  expectedInterval: optional(z.number().int("Whole seconds.").positive("Must be greater than zero.")).meta({
+    description: "Seconds between readings, for stale-data detection",
+  }),
+  ratedRange: optional(positive).meta({ description: "µε either side of zero the gauge is rated for" }),
+});
+
+export type GaugeFields = z.output<typeof gaugeFields>;
+
+/** Which field a configuration problem found by the mechanics core belongs to. */
+const FIELD_OF_PROBLEM: Partial<Record<GaugeConfigErrorCode, string>> = {
+  "unknown-bridge": "bridge",
+  "invalid-gauge-factor": "gaugeFactor",
+  "invalid-logger-gauge-factor": "loggerGaugeFactor",
+  "invalid-batch-factor": "batchFactor",
+  "invalid-resistance": "gaugeResistance",
+  "invalid-zero": "zero.value",
+  "zero-temperature-required": "zero.temperature",
+  "invalid-thermal": "thermal",
+  "invalid-material": "material",
+  "invalid-rated-range": "ratedRange",
+  "invalid-initial-stress": "initialStress",
+};
+
+function checkConsistency(gauge: GaugeFields, ctx: z.RefinementCtx) {
+  const inputs: readonly string[] = gauge.kind === "foil" ? FOIL_INPUTS : VIBRATING_WIRE_INPUTS;
+  if (!inputs.includes(gauge.input)) {
+    ctx.addIssue({ code: "custom", path: ["input"], message: `A ${gauge.kind} gauge reads ${inputs.join(" or ")}.` });
+    return;
+  }
+  if (gauge.kind === "foil" && gauge.input === "mV/V" && !gauge.bridge) {
+    ctx.addIssue({ code: "custom", path: ["bridge"], message: "A gauge read in mV/V needs its bridge arrangement." });
+    return;
+  }
+  if (gauge.kind === "vibrating-wire" && gauge.bridge) {
+    ctx.addIssue({ code: "custom", path: ["bridge"], message: "Vibrating-wire gauges have no bridge; leave it empty." });
+    return;
+  }
+  // The mechanics core has the last word on what it can convert.
+  const prepared = prepareGauge(toGaugeConfig(gauge));
+  if (!prepared.ok) {
+    ctx.addIssue({ code: "custom", path: (FIELD_OF_PROBLEM[prepared.code] ?? "").split(".").filter(Boolean), message: prepared.message });
+  }
+}
+
+/** The gauge as the mechanics core takes it. */
+export function toGaugeConfig(gauge: GaugeFields) {
+  return {
+    kind: gauge.kind,
+    input: gauge.input,
+    bridge: gauge.bridge,
+    gaugeFactor: gauge.gaugeFactor,
+    loggerGaugeFactor: gauge.loggerGaugeFactor,
+    batchFactor: gauge.batchFactor,
+    polarity: gauge.polarity,
+    leadResistance: gauge.leadResistance,
+    gaugeResistance: gauge.gaugeResistance,
+    thermal: gauge.thermal,
+    material: gauge.material,
+    initialStress: gauge.initialStress,
+    zero: gauge.zero,
+    ratedRange: gauge.ratedRange,
+  };
+}
+
+export const gaugeInput = gaugeFields.superRefine(checkConsistency);
+export type GaugeInput = z.output<typeof gaugeInput>;
+
+/** PATCH: any fields but the tag; the result is checked whole again after merging with what is stored. */
+export const gaugePatch = gaugeFields.omit({ tag: true }).partial().extend({ reason: optionalText(500) });
+
+export const zeroRequest = z.union([
+  z.object({ fromReadings: z.number().int("A whole number of readings.").min(1).max(10_000), reason: optionalText(500) }),
+  zeroInput.extend({ reason: optionalText(500) }),
+]);
+export type ZeroRequest = z.output<typeof zeroRequest>;
+
+export const rosetteInput = z.object({
+  tag: gaugeTag,
+  layout: z.enum(["rectangular", "delta"], { error: "Choose rectangular (0/45/90°) or delta (0/60/120°)." }),
+  gauges: z.tuple([gaugeTag, gaugeTag, gaugeTag], { error: "Give three gauge tags: a, b and c." }),
+});
