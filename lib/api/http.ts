@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { Actor } from "@/lib/auth/actor";
+import { userForSessionCookie } from "@/lib/auth/request-session";
 import { actorForToken, bearerFrom } from "@/lib/auth/tokens";
 
 const DEFAULT_JSON_LIMIT_BYTES = 1_000_000;
@@ -93,11 +94,21 @@ export async function readJson<S extends z.ZodType>(
 type RouteContext<P> = { params: Promise<P> };
 type ApiHandler<P> = (call: { request: Request; params: P; actor: Actor }) => Promise<Response>;
 
-/** Wraps an /api/v1 handler: bearer authentication first, every error in the contract's format. */
+/** Who calls: a bearer token (loggers, scripts), or else the app's own pages with the browser's session. */
+async function authenticate(request: Request): Promise<Actor> {
+  const authorization = request.headers.get("authorization");
+  if (!authorization) {
+    const user = await userForSessionCookie(request);
+    if (user) return user;
+  }
+  return actorForToken(bearerFrom(authorization));
+}
+
+/** Wraps an /api/v1 handler: authentication first, every error in the contract's format. */
 export function apiRoute<P>(handler: ApiHandler<P>) {
   return async (request: Request, context: RouteContext<P>): Promise<Response> => {
     try {
-      const actor = await actorForToken(bearerFrom(request.headers.get("authorization")));
+      const actor = await authenticate(request);
       return await handler({ request, params: await context.params, actor });
     } catch (error) {
       return errorResponse(error);

@@ -35,7 +35,11 @@ const vibratingWire = {
   zero: { value: 800, temperature: 12, time: "2026-11-30T09:00:00Z" },
 };
 
-const at = (code: string, tag?: string) => params(tag ? { code, tag } : { code });
+function at(code: string): { params: Promise<{ code: string }> };
+function at(code: string, tag: string): { params: Promise<{ code: string; tag: string }> };
+function at(code: string, tag?: string) {
+  return params(tag ? { code, tag } : { code });
+}
 
 beforeAll(async () => {
   engineer = await makeUser("engineer");
