@@ -8,3 +8,11 @@
  *   const years = yearsToReachDamage(damageRatePerYear(damage, periodSeconds));
  */
 export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
+export {
+  DETAIL_CATEGORIES,
+  DETAIL_CATEGORY_VALUES,
+  cyclesToFailure,
+  snCurveLimits,
+  type DetailCategory,
+  type SnCurveLimits,
+} from "./sn-curve";
