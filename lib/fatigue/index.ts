@@ -16,3 +16,4 @@ export {
   type DetailCategory,
   type SnCurveLimits,
 } from "./sn-curve";
+export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "./damage";
