@@ -8,6 +8,7 @@
  *   const years = yearsToReachDamage(damageRatePerYear(damage, periodSeconds));
  */
 export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
+export { binRanges, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
 export {
   DETAIL_CATEGORIES,
   DETAIL_CATEGORY_VALUES,
@@ -17,3 +18,4 @@ export {
   type SnCurveLimits,
 } from "./sn-curve";
 export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "./damage";
+export { fatigueSummary, type FatigueSummary } from "./summary";

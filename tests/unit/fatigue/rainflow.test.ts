@@ -1,9 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { createRainflowCounter, rainflow, type Cycle } from "@/lib/fatigue";
-
-// ASTM E1049-85 (reapproved 2017), rainflow counting example (5.4.4), as given in domain.md.
-const ASTM_EXAMPLE = [-2, 1, -3, 5, -1, 3, -4, 4, -2];
+import { ASTM_EXAMPLE } from "./fixtures";
 
 function countsByRange(cycles: readonly Cycle[]): Record<number, number> {
   const counts: Record<number, number> = {};
