@@ -43,7 +43,7 @@ export function createRainflowCounter(): RainflowCounter {
       const yStart = stack[n - 3]!;
       const yEnd = stack[n - 2]!;
       const xEnd = stack[n - 1]!;
-      // Step 3: a range still growing (X < Y) may close later, so Y waits.
+      // Step 3: while X < Y, a later, larger range may still enclose Y, so Y waits.
       if (Math.abs(xEnd - yEnd) < Math.abs(yEnd - yStart)) break;
       if (n === 3) {
         // Step 5: Y holds S, so only its first half is closed; S moves to Y's second point.
