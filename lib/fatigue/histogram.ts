@@ -1,0 +1,94 @@
+import type { Cycle } from "./rainflow";
+
+export interface RangeBin {
+  /** Upper edge of the bin: the bin holds ranges in (range − width, range]. */
+  range: number;
+  count: number;
+}
+
+export interface RainflowMatrix {
+  /** Row labels: upper edges of the range bins, ascending, every bin between the extremes. */
+  rangeUpperEdges: number[];
+  /** Column labels: centres of the mean bins, ascending, every bin between the extremes. */
+  meanCentres: number[];
+  /** counts[row][column], cycles with half cycles as 0.5. */
+  counts: number[][];
+}
+
+// Differences of sampled values carry rounding noise; without this slack a range meant to sit on
+// a bin edge could spill into the next bin up.
+const EDGE_TOLERANCE = 1e-9;
+
+function checkWidth(width: number) {
+  if (!(Number.isFinite(width) && width > 0)) throw new RangeError(`A bin width must be positive, got ${width}`);
+}
+
+/**
+ * Range bins are labelled by their upper edge so that damage computed from a binned histogram
+ * errs on the safe side (a larger range does more damage). A range of exactly k·width belongs to
+ * bin k.
+ */
+function rangeBinIndex(range: number, width: number): number {
+  return Math.max(1, Math.ceil(range / width - EDGE_TOLERANCE));
+}
+
+/**
+ * Mean bins are centred on multiples of the width, so a mean of zero sits mid-bin; a mean on a
+ * boundary goes to the bin above. Adding 0 turns −0 into 0, which would otherwise label a column.
+ */
+function meanBinIndex(mean: number, width: number): number {
+  return Math.round(mean / width) + 0;
+}
+
+/** Sum of counts, with half cycles as 0.5: the number of cycles a histogram represents. */
+export function totalCycleCount(cycles: Iterable<{ count: number }>): number {
+  let total = 0;
+  for (const { count } of cycles) total += count;
+  return total;
+}
+
+/** Histogram of ranges: only occupied bins, ascending by range. */
+export function binRanges(cycles: Iterable<Cycle>, binWidth: number): RangeBin[] {
+  checkWidth(binWidth);
+  const countsByBin = new Map<number, number>();
+  for (const { range, count } of cycles) {
+    const bin = rangeBinIndex(range, binWidth);
+    countsByBin.set(bin, (countsByBin.get(bin) ?? 0) + count);
+  }
+  return [...countsByBin]
+    .sort(([a], [b]) => a - b)
+    .map(([bin, count]) => ({ range: bin * binWidth, count }));
+}
+
+/** Every index from the lowest to the highest given; a loop, as spreading a year of cycles into Math.min overflows the stack. */
+function indexSpan(indices: readonly number[]): number[] {
+  let low = Infinity;
+  let high = -Infinity;
+  for (const index of indices) {
+    low = Math.min(low, index);
+    high = Math.max(high, index);
+  }
+  return indices.length === 0 ? [] : Array.from({ length: high - low + 1 }, (_, offset) => low + offset);
+}
+
+/**
+ * Range × mean matrix for export. The grid is dense between the occupied extremes, so a narrow
+ * width over a wide spread makes a large matrix: the caller picks widths to suit.
+ */
+export function rainflowMatrix(cycles: readonly Cycle[], rangeBinWidth: number, meanBinWidth: number): RainflowMatrix {
+  checkWidth(rangeBinWidth);
+  checkWidth(meanBinWidth);
+  const rangeBins = cycles.map(({ range }) => rangeBinIndex(range, rangeBinWidth));
+  const meanBins = cycles.map(({ mean }) => meanBinIndex(mean, meanBinWidth));
+  const rows = indexSpan(rangeBins);
+  const columns = indexSpan(meanBins);
+  const counts = rows.map(() => columns.map(() => 0));
+  cycles.forEach(({ count }, i) => {
+    counts[rangeBins[i]! - rows[0]!]![meanBins[i]! - columns[0]!]! += count;
+  });
+  return {
+    rangeUpperEdges: rows.map((bin) => bin * rangeBinWidth),
+    meanCentres: columns.map((bin) => bin * meanBinWidth),
+    counts,
+  };
+}

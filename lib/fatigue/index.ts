@@ -1,0 +1,21 @@
+/**
+ * Fatigue core: rainflow counting, S-N curves by detail category, Miner damage. Pure functions,
+ * no I/O. Streaming over a long stress history (MPa):
+ *
+ *   const counter = createRainflowCounter();
+ *   for each page of readings: page.forEach(counter.push); damage += minerDamage(counter.takeCounted(), 71);
+ *   damage += minerDamage(counter.finish(), 71);
+ *   const years = yearsToReachDamage(damageRatePerYear(damage, periodSeconds));
+ */
+export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
+export { binRanges, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
+export {
+  DETAIL_CATEGORIES,
+  DETAIL_CATEGORY_VALUES,
+  cyclesToFailure,
+  snCurveLimits,
+  type DetailCategory,
+  type SnCurveLimits,
+} from "./sn-curve";
+export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "./damage";
+export { fatigueSummary, type FatigueSummary } from "./summary";

@@ -1,0 +1,89 @@
+import { createReversalFilter } from "./reversals";
+
+/** One counted cycle (count 1) or half cycle (count 0.5), in the units of the history. */
+export interface Cycle {
+  range: number;
+  mean: number;
+  count: number;
+}
+
+export interface RainflowCounter {
+  push(value: number): void;
+  /**
+   * Hands over the cycles counted so far and forgets them, so a caller paging through a long
+   * history can aggregate page by page and keep memory bounded.
+   */
+  takeCounted(): Cycle[];
+  /**
+   * Ends the history: returns the cycles not yet taken, followed by the residue as half cycles.
+   * The counter is then empty and may count a new history.
+   */
+  finish(): Cycle[];
+  /** Reversals waiting for a match: the only state that grows with the history. */
+  readonly unmatchedReversals: number;
+}
+
+function cycleBetween(from: number, to: number, count: number): Cycle {
+  return { range: Math.abs(to - from), mean: (from + to) / 2, count };
+}
+
+/**
+ * Rainflow counting per ASTM E1049-85 (reapproved 2017), 5.4.4, for a history not assumed to be
+ * periodic. The stack holds the unmatched reversals; its bottom is the starting point S.
+ * Memory is the stack plus the cycles not yet taken, never the samples.
+ */
+export function createRainflowCounter(): RainflowCounter {
+  const stack: number[] = [];
+  let counted: Cycle[] = [];
+
+  function countAgainstStack(reversal: number) {
+    stack.push(reversal);
+    while (stack.length >= 3) {
+      const n = stack.length;
+      const yStart = stack[n - 3]!;
+      const yEnd = stack[n - 2]!;
+      const xEnd = stack[n - 1]!;
+      // Step 3: while X < Y, a later, larger range may still enclose Y, so Y waits.
+      if (Math.abs(xEnd - yEnd) < Math.abs(yEnd - yStart)) break;
+      if (n === 3) {
+        // Step 5: Y holds S, so only its first half is closed; S moves to Y's second point.
+        counted.push(cycleBetween(yStart, yEnd, 0.5));
+        stack.shift();
+      } else {
+        // Step 4: Y is enclosed by X, a full cycle.
+        counted.push(cycleBetween(yStart, yEnd, 1));
+        stack.splice(n - 3, 2);
+      }
+    }
+  }
+
+  function takeCounted(): Cycle[] {
+    const taken = counted;
+    counted = [];
+    return taken;
+  }
+
+  const reversals = createReversalFilter(countAgainstStack);
+
+  return {
+    push: (value) => reversals.push(value),
+    takeCounted,
+    finish() {
+      reversals.flush();
+      // Step 6: every range left between unmatched reversals is a half cycle.
+      for (let i = 1; i < stack.length; i++) counted.push(cycleBetween(stack[i - 1]!, stack[i]!, 0.5));
+      stack.length = 0;
+      return takeCounted();
+    },
+    get unmatchedReversals() {
+      return stack.length;
+    },
+  };
+}
+
+/** Counts a whole history at once; the values are read one at a time, never stored. */
+export function rainflow(values: Iterable<number>): Cycle[] {
+  const counter = createRainflowCounter();
+  for (const value of values) counter.push(value);
+  return counter.finish();
+}
