@@ -1,0 +1,86 @@
+"use server";
+
+import { z } from "zod";
+import { formAction, objectAction } from "@/lib/actions/form-action";
+import type { ActionState } from "@/lib/actions/action-state";
+import { gaugeInput, gaugePatch, zeroInput } from "@/lib/gauges/schema";
+import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
+import { optionalText } from "@/lib/validation";
+import { parseWith } from "@/lib/api/http";
+
+const structurePath = (code: string) => `/structures/${code}`;
+
+export async function registerGaugeAction(code: string, payload: unknown): Promise<ActionState> {
+  return objectAction(
+    gaugeInput,
+    payload,
+    async (input, user) => {
+      await createGauge(user, code, input);
+      return { message: `Gauge ${input.tag} registered.` };
+    },
+    structurePath(code),
+  );
+}
+
+export async function editGaugeAction(code: string, tag: string, payload: unknown): Promise<ActionState> {
+  return objectAction(
+    gaugePatch,
+    payload,
+    async (patch, user) => {
+      await updateGauge(user, code, tag, patch);
+      return { message: `Gauge ${tag} saved.` };
+    },
+    structurePath(code),
+  );
+}
+
+export async function replaceGaugeAction(code: string, oldTag: string, payload: unknown): Promise<ActionState> {
+  return objectAction(
+    gaugeInput.and(z.object({ reason: z.string().trim().min(1, "Say why the gauge is replaced.").max(500) })),
+    payload,
+    async (input, user) => {
+      await replaceGauge(user, code, oldTag, input, input.reason);
+      return { message: `Gauge ${oldTag} replaced by ${input.tag}.` };
+    },
+    structurePath(code),
+  );
+}
+
+const zeroForm = z.object({
+  code: z.string(),
+  tag: z.string(),
+  source: z.enum(["typed", "readings"]),
+  value: z.coerce.number().optional(),
+  temperature: z.string().optional(),
+  time: z.string().optional(),
+  fromReadings: z.coerce.number().optional(),
+  reason: optionalText(500),
+});
+
+const readingCount = z.number({ error: "Give how many readings to average." }).int("A whole number of readings.").min(1);
+
+/** The zero form offers a typed value or the average of the last readings. */
+export const recordZeroAction = formAction(
+  zeroForm,
+  async ({ code, tag, source, fromReadings, value, temperature, time, reason }, user) => {
+    const request =
+      source === "readings"
+        ? { fromReadings: parseWith(readingCount, fromReadings), reason }
+        : {
+            ...parseWith(zeroInput, { value, temperature: temperature?.trim() ? Number(temperature) : null, time: time || undefined }),
+            reason,
+          };
+    await recordZero(user, code, tag, request);
+    return { message: "New zero recorded; earlier results keep the zero they were computed with." };
+  },
+  "/structures",
+);
+
+export const retireGaugeAction = formAction(
+  z.object({ code: z.string(), tag: z.string(), reason: z.string().trim().min(1, "Say why the gauge is retired.").max(500) }),
+  async ({ code, tag, reason }, user) => {
+    await retireGauge(user, code, tag, reason);
+    return { message: `Gauge ${tag} retired; it accepts no more readings.` };
+  },
+  "/structures",
+);
