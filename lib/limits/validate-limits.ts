@@ -76,8 +76,8 @@ function boundsProblem({ upper, lower }: LimitInput): FieldProblem | null {
 }
 
 /**
- * The brief refuses a dead band wider than the span; but a value must sit hysteresis inside *both*
- * bounds to clear, so any dead band over half the span already leaves an alert that can never clear.
+ * Refusing only a dead band wider than the span is not enough: a value must sit hysteresis inside
+ * *both* bounds to clear, so any dead band over half the span leaves an alert that can never clear.
  */
 function hysteresisProblem({ upper, lower, hysteresis = 0 }: LimitInput): FieldProblem | null {
   if (hysteresis < 0) {
