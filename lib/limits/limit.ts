@@ -1,0 +1,36 @@
+/** What a limit bounds, as named by the API contract; `utilisation` is |stress| / yield. */
+export const QUANTITIES = ["stress", "strain", "utilisation"] as const;
+export type Quantity = (typeof QUANTITIES)[number];
+
+/** Alert levels from the mildest to the most severe; the order is what "escalate" means. */
+export const LEVELS = ["watch", "warning", "critical"] as const;
+export type Level = (typeof LEVELS)[number];
+
+/** A limit as the engineer proposes it (the API's body): defaults not yet applied. */
+export interface LimitInput {
+  readonly quantity: Quantity;
+  readonly level: Level;
+  readonly upper?: number;
+  readonly lower?: number;
+  readonly hysteresis?: number;
+  readonly persistence?: number;
+}
+
+/** A validated limit with its defaults applied: hysteresis 0, persistence 1. */
+export interface Limit {
+  readonly quantity: Quantity;
+  readonly level: Level;
+  readonly upper?: number;
+  readonly lower?: number;
+  readonly hysteresis: number;
+  readonly persistence: number;
+}
+
+export function levelRank(level: Level): number {
+  return LEVELS.indexOf(level);
+}
+
+/** Mildest level first, so "the lowest level" is always element 0. */
+export function byLevel<Item extends { readonly level: Level }>(items: readonly Item[]): Item[] {
+  return [...items].sort((a, b) => levelRank(a.level) - levelRank(b.level));
+}

@@ -1,0 +1,178 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import {
+  checkStale,
+  evaluateReadings,
+  initialEpisodeState,
+  initialSensorHealthState,
+  inspectReadings,
+  stepFlatLine,
+  stepJump,
+  stepSensorRange,
+  type DetectorStep,
+  type FlatLineState,
+  type FlatLineThresholds,
+  type JumpState,
+  type Sample,
+  type SensorFinding,
+  type SensorHealthThresholds,
+} from "@/lib/limits";
+import { MINUTE, limitSet } from "./fixtures";
+
+// The four sensor faults are those of domain.md "Alerts as the trade uses them" (common practice):
+// no data for too long, a flat line, a jump no structure can make, a reading outside the sensor's range.
+// Thresholds here are examples chosen for the tests, not recommendations.
+
+function samples(raws: readonly number[], start = 0): Sample[] {
+  return raws.map((raw, index) => ({ time: start + index * MINUTE, raw, value: raw }));
+}
+
+/** Runs one detector over samples from its initial state, collecting findings and fault flags. */
+function scan<State>(step: (state: State, sample: Sample) => DetectorStep<State>, initial: State, raws: number[]) {
+  let state = initial;
+  const findings: string[] = [];
+  const faults: boolean[] = [];
+  for (const sample of samples(raws)) {
+    const result = step(state, sample);
+    state = result.state;
+    faults.push(result.fault);
+    if (result.finding) findings.push(`${result.finding.code} ${result.finding.event} @${sample.time / MINUTE}`);
+  }
+  return { findings, faults };
+}
+
+describe("stale data", () => {
+  const thresholds = { expectedIntervalMs: 10 * MINUTE, intervals: 3 };
+
+  it("tolerates silence up to k × the expected interval", () => {
+    expect(checkStale(thresholds, 0, 30 * MINUTE)).toBeNull();
+  });
+
+  it("is raised beyond it, saying how long and that values are not current", () => {
+    const finding = checkStale(thresholds, 0, 30 * MINUTE + 1);
+    expect(finding).toMatchObject({ kind: "sensor", code: "stale", event: "raised", time: 30 * MINUTE + 1 });
+    expect(finding!.message).toContain("No reading for 30 minutes, more than 3 × the expected interval of 10 minutes");
+    expect(finding!.message).toContain("not current");
+  });
+
+  it("describes long silences in days", () => {
+    expect(checkStale(thresholds, 0, 3 * 24 * 60 * MINUTE)!.message).toContain("No reading for 3 days");
+  });
+});
+
+describe("flat line", () => {
+  const flatLine = (thresholds: FlatLineThresholds) => (state: FlatLineState, sample: Sample) => stepFlatLine(thresholds, state, sample);
+  const identical = flatLine({ readings: 4, epsilon: 0 });
+  const initial: FlatLineState = { active: false, recent: [] };
+
+  it("is raised once after N identical raw values and resolved when they vary again", () => {
+    const { findings, faults } = scan(identical, initial, [5, 7, 7, 7, 7, 7, 7, 8, 8]);
+    expect(findings).toEqual(["flat-line raised @4", "flat-line resolved @7"]);
+    expect(faults).toEqual([false, false, false, false, true, true, true, false, false]);
+  });
+
+  it("N − 1 identical values are not a flat line", () => {
+    expect(scan(identical, initial, [7, 7, 7, 8, 8, 8]).findings).toEqual([]);
+  });
+
+  it("with an epsilon, a range at most epsilon over the window counts as flat", () => {
+    expect(scan(flatLine({ readings: 3, epsilon: 1 }), initial, [100, 100.5, 101, 102, 105]).findings).toEqual(["flat-line raised @2", "flat-line resolved @3"]);
+  });
+
+  it("keeps no more raw values than the window", () => {
+    const { state } = stepFlatLine({ readings: 3, epsilon: 0 }, { active: false, recent: [1, 2, 3] }, samples([4])[0]!);
+    expect(state.recent).toEqual([2, 3, 4]);
+  });
+});
+
+describe("jump", () => {
+  const jump = (state: JumpState, sample: Sample) => stepJump({ maxStep: 100 }, state, sample);
+  const initial: JumpState = { previous: null };
+
+  it("flags a change larger than the plausible maximum, not one equal to it", () => {
+    const { findings, faults } = scan(jump, initial, [0, 100, 201]);
+    expect(findings).toEqual(["jump raised @2"]);
+    expect(faults).toEqual([false, false, true]);
+  });
+
+  it("shows a single spike as a jump out and a jump back", () => {
+    expect(scan(jump, initial, [0, 500, 0, 10]).findings).toEqual(["jump raised @1", "jump raised @2"]);
+  });
+
+  it("after a lasting offset the new level becomes the reference", () => {
+    expect(scan(jump, initial, [0, 500, 510, 520]).findings).toEqual(["jump raised @1"]);
+  });
+
+  it("states the change and the threshold in its message", () => {
+    const { finding } = stepJump({ maxStep: 100 }, { previous: 20 }, { time: 0, raw: 0, value: -230 });
+    expect(finding!.message).toContain("changed by -250 from one reading to the next, more than the 100");
+  });
+});
+
+describe("out of sensor range", () => {
+  const range = (state: { active: boolean }, sample: Sample) => stepSensorRange({ min: -5, max: 5 }, state, sample);
+
+  it("is raised once while raw values stay outside, resolved when back, and every reading outside is a fault", () => {
+    const { findings, faults } = scan(range, { active: false }, [0, 5, 6, -7, -5, 0]);
+    expect(findings).toEqual(["out-of-range raised @2", "out-of-range resolved @4"]);
+    expect(faults).toEqual([false, false, true, true, false, false]);
+  });
+
+  it("treats a non-finite raw value as outside the range", () => {
+    expect(scan(range, { active: false }, [Number.NaN]).faults).toEqual([true]);
+  });
+});
+
+describe("inspecting a batch", () => {
+  const thresholds: SensorHealthThresholds = {
+    range: { min: -1000, max: 1000 },
+    jump: { maxStep: 100 },
+    flatLine: { readings: 5, epsilon: 0 },
+  };
+
+  function codes(findings: SensorFinding[]): string[] {
+    return findings.map((finding) => `${finding.code} ${finding.event} @${finding.time / MINUTE}`);
+  }
+
+  it("does not feed a reading outside the sensor's range to the jump detector", () => {
+    const { findings, readings } = inspectReadings(thresholds, initialSensorHealthState(), samples([0, 9999, 10]));
+    expect(codes(findings)).toEqual(["out-of-range raised @1", "out-of-range resolved @2"]);
+    expect(readings.map((reading) => reading.fault)).toEqual([false, true, false]);
+  });
+
+  it("skips detectors whose thresholds are not given", () => {
+    const { findings } = inspectReadings({}, initialSensorHealthState(), samples([0, 9999, 0, 0, 0, 0, 0]));
+    expect(findings).toEqual([]);
+  });
+
+  it("ignores repeated and late samples, as limit evaluation does", () => {
+    const first = inspectReadings(thresholds, initialSensorHealthState(), samples([0, 10]));
+    const again = inspectReadings(thresholds, first.state, [...samples([0, 10]), { time: 30_000, raw: 500, value: 500 }]);
+    expect(again).toEqual({ state: first.state, findings: [], readings: [] });
+  });
+
+  it("finds the same faults whatever the batch sizes, with the state stored as JSON between batches", () => {
+    const rawArb = fc.array(fc.constantFrom(0, 0, 0, 50, 200, 5000), { maxLength: 60 });
+    fc.assert(
+      fc.property(rawArb, fc.integer({ min: 1, max: 10 }), (raws, size) => {
+        const all = samples(raws);
+        const whole = inspectReadings(thresholds, initialSensorHealthState(), all);
+        let stored = JSON.stringify(initialSensorHealthState());
+        const findings: SensorFinding[] = [];
+        for (let start = 0; start < all.length; start += size) {
+          const batch = inspectReadings(thresholds, JSON.parse(stored), all.slice(start, start + size));
+          findings.push(...batch.findings);
+          stored = JSON.stringify(batch.state);
+        }
+        expect(findings).toEqual(whole.findings);
+      }),
+    );
+  });
+
+  it("keeps a spike no structure can make from opening a structural alert", () => {
+    const health = inspectReadings(thresholds, initialSensorHealthState(), samples([20, 30, 800, 25, 30]));
+    const limits = limitSet({ level: "watch", upper: 150 });
+    expect(codes(health.findings)).toEqual(["jump raised @2", "jump raised @3"]);
+    expect(evaluateReadings(limits, initialEpisodeState(), health.readings).events).toEqual([]);
+  });
+});
