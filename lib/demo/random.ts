@@ -22,9 +22,12 @@ export function gaussian(random: Random): number {
 }
 
 /**
- * Seeds for independent streams from one seed (a Weyl step by the golden ratio, common
- * practice), so adding a gauge to the demo leaves the other gauges' data unchanged.
+ * The seed of a named stream (a gauge's tag) drawn from one demo seed: FNV-1a over the name
+ * (common practice), mixed with the seed. Streams follow names rather than positions, so adding,
+ * removing or reordering gauges leaves the other gauges' data unchanged.
  */
-export function streamSeed(seed: number, stream: number): number {
-  return (seed + Math.imul(stream + 1, 0x9e3779b9)) >>> 0;
+export function streamSeed(seed: number, name: string): number {
+  let hash = 0x811c9dc5 ^ seed;
+  for (let i = 0; i < name.length; i++) hash = Math.imul(hash ^ name.charCodeAt(i), 0x01000193);
+  return hash >>> 0;
 }
