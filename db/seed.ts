@@ -4,6 +4,10 @@ import { addMember } from "@/lib/services/memberships";
 import { createUser, findUserByEmail } from "@/lib/services/users";
 import { isUniqueViolation } from "./client";
 import { AppError } from "@/lib/errors";
+import type { UserActor } from "@/lib/auth/actor";
+import { createGauge, listGauges } from "@/lib/services/gauges";
+import { createRosette } from "@/lib/services/rosettes";
+import { DEMO_GAUGES, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 
 /**
  * The demo scenario, invented from end to end: the Brennock Valley Transport Trust owns a
@@ -48,8 +52,33 @@ async function ignoreExisting(work: Promise<unknown>) {
   }
 }
 
+async function actorFor(email: string): Promise<UserActor> {
+  const user = await findUserByEmail(email);
+  if (!user) throw new Error(`Demo user ${email} is missing`);
+  return { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role };
+}
+
+/** The technician registered the footbridge's gauges; the engineer those of the parking deck. */
+async function seedGauges(now: number) {
+  const installedAt = new Date(demoPeriod(now).start - 86_400_000).toISOString();
+  const installers: Record<string, UserActor> = {
+    "MILL-FB": await actorFor("technician@hookeline.example"),
+    "ORCH-PD": await actorFor("engineer@hookeline.example"),
+  };
+  for (const { structure, input } of DEMO_GAUGES) {
+    const installer = installers[structure]!;
+    const existing = await listGauges(installer, structure);
+    if (existing.some((gauge) => gauge.tag === input.tag)) continue;
+    await createGauge(installer, structure, { ...input, zero: { ...input.zero, time: installedAt } });
+  }
+  for (const rosette of DEMO_ROSETTES) {
+    const engineer = await actorFor("engineer@hookeline.example");
+    await ignoreExisting(createRosette(engineer, rosette.structure, rosette));
+  }
+}
+
 /** Creates what is missing of the demo scenario; running it again changes nothing. */
-export async function seedDemo(): Promise<void> {
+export async function seedDemo(now = Date.now()): Promise<void> {
   for (const structure of DEMO_STRUCTURES) {
     if (!(await findStructureByCode(structure.code))) await createStructure(null, structure);
   }
@@ -59,4 +88,5 @@ export async function seedDemo(): Promise<void> {
     }
     for (const code of user.structures) await ignoreExisting(addMember(null, user.email, code));
   }
+  await seedGauges(now);
 }

@@ -1,0 +1,192 @@
+import type { GaugeStory } from "@/lib/demo";
+import type { GaugeInput } from "@/lib/gauges/schema";
+import { MATERIALS, normalWeightConcrete } from "@/lib/mechanics";
+
+/**
+ * The invented demo installation. Each gauge has a story that the synthetic readings tell:
+ * traffic, restraint against thermal movement, a drift, spikes, a logger outage and a planted
+ * overload, so that the demo shows every kind of behaviour the product must make visible.
+ */
+
+const DAY_MS = 86_400_000;
+const INTERVAL_MS = 600_000;
+export const DEMO_DAYS = 90;
+
+/** The demo's 90 days of readings end at the last whole 10 minutes before `now`. */
+export function demoPeriod(now: number) {
+  const end = Math.floor(now / INTERVAL_MS) * INTERVAL_MS;
+  return { start: end - DEMO_DAYS * DAY_MS, end, interval: INTERVAL_MS };
+}
+const steel = { ...MATERIALS["structural-steel-eu"] };
+const concrete = { ...normalWeightConcrete(40), yield: null };
+
+type DemoGauge = { structure: string; input: GaugeInput; story: (start: number) => GaugeStory };
+
+const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "gaugeFactor">): GaugeInput => ({
+  kind: "foil",
+  bridge: null,
+  loggerGaugeFactor: null,
+  batchFactor: null,
+  polarity: 1,
+  leadResistance: null,
+  gaugeResistance: null,
+  thermal: { method: "none" },
+  material: steel,
+  initialStress: 0,
+  zero: { value: 0, temperature: 11.5 },
+  expectedInterval: 600,
+  ratedRange: 3000,
+  ...fields,
+});
+
+const vibratingWire = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "zero">): GaugeInput => ({
+  kind: "vibrating-wire",
+  gaugeFactor: 3.304,
+  bridge: null,
+  loggerGaugeFactor: null,
+  batchFactor: 0.97,
+  polarity: 1,
+  leadResistance: null,
+  gaugeResistance: null,
+  thermal: { method: "cte", gaugeCte: 12.2 },
+  material: concrete,
+  initialStress: 0,
+  expectedInterval: 600,
+  ratedRange: 3000,
+  ...fields,
+});
+
+/** Outage of the footbridge logger: a day and a half, a month into the period. */
+const footbridgeOutage = (start: number) => ({ from: start + 31 * DAY_MS + 7 * 3_600_000, to: start + 32 * DAY_MS + 19 * 3_600_000 });
+
+export const DEMO_GAUGES: DemoGauge[] = [
+  {
+    structure: "MILL-FB",
+    input: foil({
+      tag: "LC-M1",
+      label: "Lower chord, midspan, bottom face",
+      member: "Lower chord, north truss",
+      input: "mV/V",
+      bridge: "quarter",
+      gaugeFactor: 2.1,
+      leadResistance: 0.9,
+      gaugeResistance: 350,
+      zero: { value: 0.0123, temperature: 11.5 },
+      initialStress: 38,
+    }),
+    story: (start) => ({
+      trafficAmplitude: 55,
+      thermalRestraint: 0.15,
+      offline: footbridgeOutage(start),
+      spikes: [{ time: start + 12 * DAY_MS + 14 * 3_600_000, strain: 420 }],
+    }),
+  },
+  {
+    structure: "MILL-FB",
+    input: foil({
+      tag: "LC-Q1",
+      label: "Lower chord, quarter span",
+      member: "Lower chord, north truss",
+      input: "mV/V",
+      bridge: "full-axial-poisson",
+      gaugeFactor: 2.05,
+      zero: { value: -0.0041, temperature: 11.5 },
+      initialStress: 31,
+    }),
+    story: (start) => ({
+      trafficAmplitude: 40,
+      thermalRestraint: 0.1,
+      offline: footbridgeOutage(start),
+      // A maintenance vehicle parked on the deck over a weekend it was not rated for.
+      sustainedLoad: { from: start + 61 * DAY_MS + 9 * 3_600_000, to: start + 61 * DAY_MS + 15 * 3_600_000, strain: 610 },
+    }),
+  },
+  {
+    structure: "MILL-FB",
+    input: foil({
+      tag: "DG-3",
+      label: "Diagonal D3, mid-length",
+      member: "Diagonal D3, south truss",
+      input: "mV/V",
+      bridge: "half-bending",
+      gaugeFactor: 2.08,
+      zero: { value: 0.0007, temperature: 11.5 },
+    }),
+    // A slowly debonding gauge: its reading creeps away from the member's real strain.
+    story: (start) => ({ trafficAmplitude: 30, driftPerDay: 1.6, offline: footbridgeOutage(start) }),
+  },
+  {
+    structure: "MILL-FB",
+    input: foil({
+      tag: "TC-M1",
+      label: "Top chord, midspan, top face",
+      member: "Top chord, north truss",
+      input: "microstrain",
+      gaugeFactor: 2.12,
+      loggerGaugeFactor: 2,
+      // Thermal output of the gauge lot, as printed on its data sheet (µε, T in °C).
+      thermal: { method: "polynomial", coefficients: [-29.5, 2.61, -0.062, 0.00041] },
+      zero: { value: 4.2, temperature: 11.5 },
+      initialStress: -27,
+    }),
+    story: (start) => ({ trafficAmplitude: -45, thermalRestraint: 0.2, offline: footbridgeOutage(start) }),
+  },
+  ...(["a", "b", "c"] as const).map((leg, i) => ({
+    structure: "MILL-FB",
+    input: foil({
+      tag: `GP-R1${leg}`,
+      label: `Gusset plate G2, rosette R1 gauge ${leg} (${[0, 45, 90][i]}°)`,
+      member: "Gusset plate G2, lower chord joint",
+      input: "microstrain" as const,
+      gaugeFactor: 2.09,
+      zero: { value: 0, temperature: 11.5 },
+    }),
+    story: (start: number) => ({ trafficAmplitude: [60, 25, -18][i], offline: footbridgeOutage(start) }),
+  })),
+  {
+    structure: "ORCH-PD",
+    input: vibratingWire({
+      tag: "L2-S1",
+      label: "Level 2 slab, bay C4, bottom, east-west",
+      member: "Level 2 slab, bay C4",
+      input: "Hz",
+      zero: { value: 812.4, temperature: 9.8 },
+    }),
+    story: () => ({ trafficAmplitude: 18, thermalRestraint: 0.45 }),
+  },
+  {
+    structure: "ORCH-PD",
+    input: vibratingWire({
+      tag: "L2-S2",
+      label: "Level 2 slab, bay C4, bottom, north-south",
+      member: "Level 2 slab, bay C4",
+      input: "Hz",
+      zero: { value: 798.1, temperature: 9.8 },
+    }),
+    story: () => ({ trafficAmplitude: 14, thermalRestraint: 0.45, driftPerDay: -0.8 }),
+  },
+  {
+    structure: "ORCH-PD",
+    input: vibratingWire({
+      tag: "L2-B7",
+      label: "Beam B7, midspan soffit",
+      member: "Post-tensioned beam B7",
+      input: "digits",
+      zero: { value: 671.3, temperature: 9.8 },
+    }),
+    story: (start) => ({ trafficAmplitude: 22, thermalRestraint: 0.3, spikes: [{ time: start + 47 * DAY_MS + 3 * 3_600_000, strain: -350 }] }),
+  },
+  {
+    structure: "ORCH-PD",
+    input: vibratingWire({
+      tag: "L3-C2",
+      label: "Column C2 at level 3, north face",
+      member: "Column C2",
+      input: "digits",
+      zero: { value: 702.9, temperature: 9.8 },
+    }),
+    story: () => ({ trafficAmplitude: -9, thermalRestraint: 0.2 }),
+  },
+];
+
+export const DEMO_ROSETTES = [{ structure: "MILL-FB", tag: "R1", layout: "rectangular" as const, gauges: ["GP-R1a", "GP-R1b", "GP-R1c"] as [string, string, string] }];
