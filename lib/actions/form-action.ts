@@ -41,7 +41,7 @@ async function runAction<S extends z.ZodType>(schema: S, raw: unknown, run: Run<
   if (!parsed.success) return { status: "error", message: "Check the highlighted fields.", fieldErrors: fieldErrorsOf(issuesOf(parsed.error)) };
   try {
     const outcome = await run(parsed.data, user);
-    revalidatePath(revalidate);
+    revalidatePath(revalidate, "layout");
     return { status: "ok", ...outcome };
   } catch (error) {
     if (error instanceof AppError) return errorState(error);

@@ -3,9 +3,8 @@
 import { z } from "zod";
 import { formAction } from "@/lib/actions/form-action";
 import { addMember, removeMember } from "@/lib/services/memberships";
-import { createToken, revokeToken } from "@/lib/services/tokens";
 import { createUser, updateUser } from "@/lib/services/users";
-import { createUserInput, email, role, structureCode, tokenName } from "@/lib/validation";
+import { createUserInput, email, role, structureCode } from "@/lib/validation";
 
 const userId = z.coerce.number().int().positive();
 
@@ -55,26 +54,3 @@ export const removeMemberAction = formAction(
   },
   "/admin/members",
 );
-
-export const createTokenAction = formAction(
-  z.discriminatedUnion("kind", [
-    z.object({ kind: z.literal("user"), email, name: tokenName }),
-    z.object({ kind: z.literal("logger"), structure: structureCode, name: tokenName }),
-  ]),
-  async (input, user) => {
-    const owner = input.kind === "user" ? { kind: "user" as const, email: input.email } : { kind: "logger" as const, structureCode: input.structure };
-    const issued = await createToken(user, owner, input.name);
-    return { message: "Token created. Copy it now: it is not shown again.", secret: issued.token };
-  },
-  "/admin/tokens",
-);
-
-export const revokeTokenAction = formAction(
-  z.object({ tokenId: z.coerce.number().int().positive() }),
-  async ({ tokenId }, user) => {
-    await revokeToken(user, tokenId);
-    return { message: "Token revoked." };
-  },
-  "/admin/tokens",
-);
-

@@ -1,11 +1,23 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { GaugeList } from "@/components/gauges/gauge-list";
+import { RosetteSection } from "@/components/gauges/rosette-section";
+import { TokenTable } from "@/components/tokens/token-table";
+import { ActionForm, SecretOnce } from "@/components/ui/action-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { MonitoringCaution } from "@/components/ui/caution";
+import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
-import { cardClass } from "@/components/ui/styles";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { buttonClass, cardClass } from "@/components/ui/styles";
+import { createTokenAction } from "@/lib/actions/token-actions";
+import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
+import { listGauges } from "@/lib/services/gauges";
+import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
+import { listLoggerTokens } from "@/lib/services/tokens";
 
 type Props = { params: Promise<{ code: string }> };
 
@@ -13,12 +25,33 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: (await params).code };
 }
 
+function Section({ title, id, children, actions }: { title: string; id: string; children: React.ReactNode; actions?: React.ReactNode }) {
+  return (
+    <section className="space-y-3" aria-labelledby={id}>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id={id} className="text-lg font-semibold">
+          {title}
+        </h2>
+        {actions}
+      </div>
+      {children}
+    </section>
+  );
+}
+
 export default async function StructurePage({ params }: Props) {
   const { code } = await params;
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
+  const [gauges, rosettes, canRegister, canManageTokens] = await Promise.all([
+    listGauges(user, code),
+    listRosettes(user, code),
+    may(user, "gauge:register", structure),
+    may(user, "token:manage", structure),
+  ]);
+  const tokens = canManageTokens ? await listLoggerTokens(user, code) : [];
   return (
-    <>
+    <div className="space-y-8">
       <PageHeader
         title={structure.name}
         subtitle={
@@ -28,18 +61,49 @@ export default async function StructurePage({ params }: Props) {
           </>
         }
       />
-      {structure.description && <p className="mb-6 max-w-prose text-sm">{structure.description}</p>}
-      <section className={`${cardClass} p-4`} aria-labelledby="gauges-heading">
-        <h2 id="gauges-heading" className="mb-3 font-semibold">
-          Gauges
-        </h2>
-        <EmptyState title="No gauges registered on this structure yet">
-          <p>Once gauges are registered and their logger sends readings, their strain, stress and state show here.</p>
-        </EmptyState>
-      </section>
-      <div className="mt-6">
-        <MonitoringCaution />
-      </div>
-    </>
+      {structure.description && <p className="-mt-4 max-w-prose text-sm">{structure.description}</p>}
+      <Section
+        title="Gauges"
+        id="gauges-heading"
+        actions={
+          canRegister && (
+            <Link href={`/structures/${code}/gauges/new`} className={buttonClass()}>
+              Register a gauge
+            </Link>
+          )
+        }
+      >
+        {gauges.length === 0 ? (
+          <EmptyState title="No gauges registered on this structure yet">
+            <p>Register each gauge as it is installed; once its logger sends readings, its strain, stress and state show here.</p>
+          </EmptyState>
+        ) : (
+          <GaugeList structureCode={code} gauges={gauges} />
+        )}
+      </Section>
+      <Section title="Rosettes" id="rosettes-heading">
+        <div className={`${cardClass} p-4`}>
+          <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} />
+        </div>
+      </Section>
+      {canManageTokens && (
+        <Section title="Logger tokens" id="tokens-heading">
+          <p className="text-sm text-slate-600 dark:text-slate-400">
+            A logger token may only send readings to {structure.code}. Create one per logger; revoke it when the logger is removed.
+          </p>
+          <div className="grid gap-4 lg:grid-cols-[1fr_20rem]">
+            {tokens.length === 0 ? <EmptyState title="No logger tokens yet" /> : <TokenTable tokens={tokens} />}
+            <ActionForm action={createTokenAction} className={`${cardClass} h-fit space-y-3 p-4`} label="Create a logger token">
+              <input type="hidden" name="kind" value="logger" />
+              <input type="hidden" name="structure" value={structure.code} />
+              <Field name="name" label="Logger name" required hint="e.g. “logger at pier 2”" />
+              <SubmitButton pendingLabel="Creating…">Create logger token</SubmitButton>
+              <SecretOnce label="The new token (shown only now):" />
+            </ActionForm>
+          </div>
+        </Section>
+      )}
+      <MonitoringCaution />
+    </div>
   );
 }

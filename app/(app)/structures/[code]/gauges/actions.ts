@@ -3,7 +3,8 @@
 import { z } from "zod";
 import { formAction, objectAction } from "@/lib/actions/form-action";
 import type { ActionState } from "@/lib/actions/action-state";
-import { gaugeInput, gaugePatch, zeroInput } from "@/lib/gauges/schema";
+import { gaugeInput, gaugePatch, rosetteInput, zeroInput } from "@/lib/gauges/schema";
+import { createRosette } from "@/lib/services/rosettes";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
 import { optionalText } from "@/lib/validation";
 import { parseWith } from "@/lib/api/http";
@@ -50,12 +51,15 @@ const zeroForm = z.object({
   code: z.string(),
   tag: z.string(),
   source: z.enum(["typed", "readings"]),
-  value: z.coerce.number().optional(),
+  value: z.string().optional(),
   temperature: z.string().optional(),
   time: z.string().optional(),
-  fromReadings: z.coerce.number().optional(),
+  fromReadings: z.string().optional(),
   reason: optionalText(500),
 });
+
+/** A blank form field is "not given", not zero. */
+const numberOrBlank = (text: string | undefined) => (text?.trim() ? Number(text.replace(",", ".")) : undefined);
 
 const readingCount = z.number({ error: "Give how many readings to average." }).int("A whole number of readings.").min(1);
 
@@ -65,11 +69,8 @@ export const recordZeroAction = formAction(
   async ({ code, tag, source, fromReadings, value, temperature, time, reason }, user) => {
     const request =
       source === "readings"
-        ? { fromReadings: parseWith(readingCount, fromReadings), reason }
-        : {
-            ...parseWith(zeroInput, { value, temperature: temperature?.trim() ? Number(temperature) : null, time: time || undefined }),
-            reason,
-          };
+        ? { fromReadings: parseWith(readingCount, numberOrBlank(fromReadings)), reason }
+        : { ...parseWith(zeroInput, { value: numberOrBlank(value), temperature: numberOrBlank(temperature) ?? null, time: time || undefined }), reason };
     await recordZero(user, code, tag, request);
     return { message: "New zero recorded; earlier results keep the zero they were computed with." };
   },
@@ -81,6 +82,16 @@ export const retireGaugeAction = formAction(
   async ({ code, tag, reason }, user) => {
     await retireGauge(user, code, tag, reason);
     return { message: `Gauge ${tag} retired; it accepts no more readings.` };
+  },
+  "/structures",
+);
+
+export const createRosetteAction = formAction(
+  z.object({ code: z.string(), tag: z.string(), layout: z.string(), a: z.string(), b: z.string(), c: z.string() }),
+  async ({ code, tag, layout, a, b, c }, user) => {
+    const input = parseWith(rosetteInput, { tag, layout, gauges: [a, b, c] });
+    await createRosette(user, code, input);
+    return { message: `Rosette ${tag} grouped.` };
   },
   "/structures",
 );

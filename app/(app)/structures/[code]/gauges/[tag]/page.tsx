@@ -1,0 +1,204 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { format } from "date-fns";
+import { GaugeSummary } from "@/components/gauges/gauge-summary";
+import { ZeroForm } from "@/components/gauges/zero-form";
+import { ActionForm } from "@/components/ui/action-form";
+import { MonitoringCaution } from "@/components/ui/caution";
+import { Field } from "@/components/ui/field";
+import { PageHeader } from "@/components/ui/page-header";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { buttonClass, cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { may } from "@/lib/auth/authorize";
+import { pageGuard } from "@/lib/auth/page-guard";
+import { requireUser } from "@/lib/auth/session";
+import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
+import { getVisibleStructure } from "@/lib/services/structures";
+import { retireGaugeAction } from "../actions";
+
+type Props = { params: Promise<{ code: string; tag: string }> };
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { code, tag } = await params;
+  return { title: `${decodeURIComponent(tag)} · ${code}` };
+}
+
+const RAW_UNIT: Record<string, string> = { microstrain: "µε", "mV/V": "mV/V", Hz: "Hz", digits: "digits" };
+const when = (date: Date | string) => format(typeof date === "string" ? new Date(date) : date, "yyyy-MM-dd HH:mm");
+
+function changeText(before: unknown, after: unknown): string {
+  const show = (value: unknown) => (value && typeof value === "object" ? JSON.stringify(value) : String(value ?? "—"));
+  if (!before || typeof before !== "object") return after ? show(after) : "";
+  const b = before as Record<string, unknown>;
+  const a = (after ?? {}) as Record<string, unknown>;
+  return Object.keys({ ...b, ...a })
+    .map((key) => `${key}: ${show(b[key])} → ${show(a[key])}`)
+    .join("; ");
+}
+
+export default async function GaugePage({ params }: Props) {
+  const { code, tag: rawTag } = await params;
+  const tag = decodeURIComponent(rawTag);
+  const user = await requireUser();
+  const structure = await pageGuard(getVisibleStructure(user, code));
+  const gauge = await pageGuard(getGauge(user, code, tag));
+  const [canEdit, canZero, canAudit] = await Promise.all([
+    may(user, "gauge:register", structure),
+    may(user, "zero:record", structure),
+    may(user, "audit:view", structure),
+  ]);
+  const [zeros, audit] = await Promise.all([zeroHistory(user, code, tag), canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([])]);
+  const active = gauge.status === "active";
+  const base = `/structures/${code}/gauges`;
+  return (
+    <>
+      <PageHeader
+        title={`Gauge ${gauge.tag}`}
+        subtitle={
+          <>
+            {[gauge.label, gauge.member].filter(Boolean).join(" · ") || "No location recorded"} ·{" "}
+            <Link href={`/structures/${code}`} className="text-accent underline">
+              {structure.name}
+            </Link>
+          </>
+        }
+        actions={
+          active &&
+          canEdit && (
+            <>
+              <Link href={`${base}/${encodeURIComponent(tag)}/edit`} className={buttonClass("secondary")}>
+                Edit
+              </Link>
+              <Link href={`${base}/${encodeURIComponent(tag)}/replace`} className={buttonClass("secondary")}>
+                Replace
+              </Link>
+            </>
+          )
+        }
+      />
+      <div className="mb-6 flex flex-wrap gap-2 text-sm" data-testid="gauge-status">
+        <span className={`rounded-full px-2.5 py-0.5 font-medium ${active ? "bg-emerald-100 text-emerald-900 dark:bg-emerald-950 dark:text-emerald-200" : "bg-slate-200 text-slate-700 dark:bg-slate-800 dark:text-slate-300"}`}>
+          {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt) : ""}`}
+        </span>
+        {gauge.replaces && (
+          <span>
+            Replaced gauge{" "}
+            <Link className="text-accent underline" href={`${base}/${encodeURIComponent(gauge.replaces)}`}>
+              {gauge.replaces}
+            </Link>{" "}
+            at this location on {when(gauge.createdAt)}.
+          </span>
+        )}
+        {gauge.replacedBy && (
+          <span>
+            Replaced by{" "}
+            <Link className="text-accent underline" href={`${base}/${encodeURIComponent(gauge.replacedBy)}`}>
+              {gauge.replacedBy}
+            </Link>
+            .
+          </span>
+        )}
+      </div>
+      <div className="grid gap-6 lg:grid-cols-2">
+        <section className={`${cardClass} p-4`} aria-labelledby="configuration">
+          <h2 id="configuration" className="mb-3 font-semibold">
+            Configuration
+          </h2>
+          <GaugeSummary gauge={gauge} />
+        </section>
+        <section className={`${cardClass} space-y-4 p-4`} aria-labelledby="zero">
+          <h2 id="zero" className="font-semibold">
+            Zero reading
+          </h2>
+          <p className="text-sm">
+            In force: <span className="font-mono">{gauge.zero.value} {RAW_UNIT[gauge.input]}</span>
+            {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!)}. Strain is measured from this state;
+            stress already present then is the initial stress above.
+          </p>
+          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={RAW_UNIT[gauge.input] ?? ""} />}
+          <div className="overflow-x-auto">
+            <table className={tableClass} aria-label="Zero history">
+              <thead>
+                <tr>
+                  <th className={thClass}>Set</th>
+                  <th className={thClass}>Value</th>
+                  <th className={thClass}>Temp.</th>
+                  <th className={thClass}>Why</th>
+                </tr>
+              </thead>
+              <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+                {zeros.map((zero) => (
+                  <tr key={zero.id} data-testid="zero-row">
+                    <td className={tdClass}>
+                      {when(zero.setAt)}
+                      <span className="block text-xs text-slate-500">{zero.setByLabel}</span>
+                    </td>
+                    <td className={`${tdClass} font-mono`}>
+                      {zero.value.toLocaleString("en-US", { maximumFractionDigits: 6 })} {RAW_UNIT[gauge.input]}
+                      <span className="block font-sans text-xs text-slate-500">read {when(zero.time)}</span>
+                    </td>
+                    <td className={tdClass}>{zero.temperature != null ? `${zero.temperature.toFixed(1)} °C` : "—"}</td>
+                    <td className={tdClass}>
+                      {zero.reason}
+                      <span className="block text-xs text-slate-500">{zero.source}</span>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </section>
+      </div>
+      {canAudit && (
+        <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
+          <h2 id="audit" className="mb-3 font-semibold">
+            Changes to this location&apos;s gauges
+          </h2>
+          <div className="overflow-x-auto">
+            <table className={tableClass}>
+              <thead>
+                <tr>
+                  <th className={thClass}>When</th>
+                  <th className={thClass}>Who</th>
+                  <th className={thClass}>What</th>
+                  <th className={thClass}>Old → new</th>
+                </tr>
+              </thead>
+              <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+                {audit.map((entry) => (
+                  <tr key={entry.id} data-testid="audit-row">
+                    <td className={`${tdClass} whitespace-nowrap`}>{when(entry.at)}</td>
+                    <td className={tdClass}>{entry.actorLabel}</td>
+                    <td className={tdClass}>
+                      {entry.action} <span className="font-mono text-xs">{entry.entityKey.split("/")[1]}</span>
+                    </td>
+                    <td className={`${tdClass} max-w-md break-words font-mono text-xs`}>{changeText(entry.before, entry.after)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </section>
+      )}
+      {active && canEdit && (
+        <section className={`${cardClass} mt-6 p-4`} aria-labelledby="retire">
+          <h2 id="retire" className="mb-2 font-semibold">
+            Retire this gauge
+          </h2>
+          <p className="mb-3 text-sm text-slate-600 dark:text-slate-400">
+            A retired gauge accepts no more readings; its record and data are kept. To put a new gauge in its place, use Replace instead.
+          </p>
+          <ActionForm action={retireGaugeAction} className="flex flex-wrap items-end gap-3" label="Retire gauge">
+            <input type="hidden" name="code" value={code} />
+            <input type="hidden" name="tag" value={tag} />
+            <Field name="reason" label="Why" required />
+            <SubmitButton variant="danger" pendingLabel="Retiring…">Retire</SubmitButton>
+          </ActionForm>
+        </section>
+      )}
+      <div className="mt-6">
+        <MonitoringCaution />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,46 @@
+import type { GaugeView } from "@/lib/services/gauges";
+
+const num = (value: number | null | undefined, unit = "") => (value === null || value === undefined ? "—" : `${value.toLocaleString("en-US")}${unit ? ` ${unit}` : ""}`);
+
+function thermalText(gauge: GaugeView): string {
+  const thermal = gauge.thermal ?? { method: "none" };
+  if (thermal.method === "polynomial") {
+    return `Thermal-output polynomial: ${thermal.coefficients.map((a, i) => `A${i} = ${a}`).join(", ")} (µε, T in °C)`;
+  }
+  if (thermal.method === "cte") {
+    return `${gauge.kind === "foil" ? "Gauge matched to" : "Wire coefficient"} ${num(thermal.gaugeCte ?? 12.2, "µε/°C")}`;
+  }
+  return "None (self-compensated)";
+}
+
+/** A gauge's configuration as label → value with units, as the engineer checks it. */
+export function GaugeSummary({ gauge }: { gauge: GaugeView }) {
+  const foil = gauge.kind === "foil";
+  const rows: [string, string][] = [
+    ["Kind", foil ? "Foil (resistance)" : "Vibrating wire"],
+    ["Logger output", gauge.input],
+    ...(gauge.bridge ? [["Bridge", gauge.bridge] as [string, string]] : []),
+    [foil ? "Gauge factor" : "Gauge constant G", foil ? num(gauge.gaugeFactor) : num(gauge.gaugeFactor, "µε/digit")],
+    ...(gauge.loggerGaugeFactor ? [["Logger gauge factor", num(gauge.loggerGaugeFactor)] as [string, string]] : []),
+    ...(!foil ? [["Batch factor B", num(gauge.batchFactor ?? 1)] as [string, string]] : []),
+    ["Polarity", gauge.polarity === -1 ? "Reversed (−1)" : "Normal (+1)"],
+    ...(gauge.leadResistance != null ? [["Lead / gauge resistance", `${num(gauge.leadResistance, "Ω")} / ${num(gauge.gaugeResistance, "Ω")}`] as [string, string]] : []),
+    ["Temperature compensation", thermalText(gauge)],
+    ["Material", gauge.material.name ?? "—"],
+    ["E / ν / α", `${num(gauge.material.E, "MPa")} / ${num(gauge.material.nu)} / ${num(gauge.material.alpha, "µε/°C")}`],
+    ["Yield", num(gauge.material.yield, "MPa")],
+    ["Initial stress", num(gauge.initialStress, "MPa")],
+    ["Rated range", gauge.ratedRange ? `± ${num(gauge.ratedRange, "µε")}` : "—"],
+    ["Expected interval", num(gauge.expectedInterval, "s")],
+  ];
+  return (
+    <dl className="grid grid-cols-1 gap-x-6 gap-y-2 text-sm sm:grid-cols-[auto_1fr]">
+      {rows.map(([label, value]) => (
+        <div key={label} className="contents">
+          <dt className="text-slate-500 dark:text-slate-400">{label}</dt>
+          <dd className="font-medium">{value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
