@@ -19,8 +19,9 @@ export function buttonClass(variant: ButtonVariant = "primary"): string {
 export const inputClass =
   "block w-full rounded-md border border-slate-300 bg-white px-3 py-2 text-base text-ink shadow-sm placeholder:text-slate-400 focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30 aria-[invalid=true]:border-critical sm:text-sm dark:border-slate-600 dark:bg-slate-900 dark:text-slate-100";
 
+// min-w-0: a card in a grid must not grow to its widest table; the table scrolls inside it instead.
 export const cardClass =
-  "rounded-lg border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900";
+  "min-w-0 rounded-lg border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900";
 
 export const tableClass = "min-w-full divide-y divide-slate-200 text-sm dark:divide-slate-800";
 export const thClass = "px-3 py-2 text-left text-xs font-semibold uppercase tracking-wide text-slate-500 dark:text-slate-400";
