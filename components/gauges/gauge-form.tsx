@@ -267,7 +267,20 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
             <div className="grid gap-4 sm:grid-cols-3">
               {input("zero.value", "Raw value at zero", { unit: rawUnit, required: true })}
               {input("zero.temperature", "Temperature at zero", { unit: "°C" })}
-              {input("zero.time", "Time of the zero reading", { hint: "ISO time with offset, e.g. 2026-05-01T08:30:00Z; empty for now." })}
+              <div className="space-y-1">
+                <label htmlFor="gauge-zero-time" className="block text-sm font-medium">
+                  Time of the zero reading <span className="font-normal text-slate-500">(your device&apos;s time)</span>
+                </label>
+                <input
+                  id="gauge-zero-time"
+                  type="datetime-local"
+                  className={inputClass}
+                  onChange={(event) =>
+                    setValues((previous) => ({ ...previous, "zero.time": event.target.value ? new Date(event.target.value).toISOString() : "" }))
+                  }
+                />
+                <p className="text-xs text-slate-500 dark:text-slate-400">Empty for now.</p>
+              </div>
             </div>,
           )}
         {mode === "replace" && (
@@ -280,14 +293,8 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
             {errors.reason && <p className="text-xs text-critical">{errors.reason.join(" ")}</p>}
           </fieldset>
         )}
-        <div className="flex flex-wrap items-center gap-3">
-          <button type="submit" className={buttonClass()} disabled={pending}>
-            {pending ? "Saving…" : mode === "register" ? "Register gauge" : mode === "edit" ? "Save changes" : "Replace gauge"}
-          </button>
-          <FormMessage state={state} />
-        </div>
       </div>
-      <aside className={`${cardClass} h-fit space-y-3 p-4 lg:sticky lg:top-4`} aria-label="Conversion preview">
+      <aside className={`${cardClass} h-fit space-y-3 p-4 lg:sticky lg:top-4 lg:col-start-2 lg:row-start-1`} aria-label="Conversion preview">
         <h2 className="font-semibold">Check before the first data</h2>
         <p className="text-xs text-slate-600 dark:text-slate-400">
           Type a raw reading as the logger would send it: the result below uses exactly the conversion applied to real data.
@@ -337,6 +344,12 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
         </div>
         <p className="text-xs text-slate-500">Tension is positive. A sign you did not expect usually means the polarity or the bridge is wrong.</p>
       </aside>
+      <div className="flex flex-wrap items-center gap-3 lg:col-start-1">
+        <button type="submit" className={buttonClass()} disabled={pending}>
+          {pending ? "Saving…" : mode === "register" ? "Register gauge" : mode === "edit" ? "Save changes" : "Replace gauge"}
+        </button>
+        <FormMessage state={state} />
+      </div>
     </form>
   );
 }
