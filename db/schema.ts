@@ -266,3 +266,88 @@ export type Gauge = typeof gauges.$inferSelect;
 export type ZeroReadingRow = typeof zeroReadings.$inferSelect;
 export type Rosette = typeof rosettes.$inferSelect;
 export type StoredFile = typeof files.$inferSelect;
+
+export const LIMIT_QUANTITIES = ["stress", "strain", "utilisation"] as const;
+export const ALERT_LEVELS = ["watch", "warning", "critical"] as const;
+export type AlertLevel = (typeof ALERT_LEVELS)[number];
+
+/** The engineer's limits of a gauge; a PUT replaces the whole set. */
+export const gaugeLimits = sqliteTable(
+  "gauge_limits",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    quantity: text("quantity", { enum: LIMIT_QUANTITIES }).notNull(),
+    level: text("level", { enum: ALERT_LEVELS }).notNull(),
+    upper: real("upper"),
+    lower: real("lower"),
+    hysteresis: real("hysteresis").notNull().default(0),
+    persistence: integer("persistence").notNull().default(1),
+  },
+  (t) => [uniqueIndex("gauge_limits_level").on(t.gaugeId, t.quantity, t.level)],
+);
+
+/** Where each gauge's limit and sensor-health evaluation stands between ingestion batches (plain JSON). */
+export const evaluationStates = sqliteTable("evaluation_states", {
+  gaugeId: integer("gauge_id")
+    .primaryKey()
+    .references(() => gauges.id, { onDelete: "cascade" }),
+  lastTime: integer("last_time"),
+  /** lib/services/alert-raising's state and its checkpoints. */
+  state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+});
+
+export const ALERT_KINDS = ["limit", "sensor"] as const;
+
+export const alerts = sqliteTable(
+  "alerts",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: ALERT_KINDS }).notNull(),
+    level: text("level", { enum: ALERT_LEVELS }).notNull(),
+    /** For limit alerts: stress, strain or utilisation. */
+    quantity: text("quantity"),
+    /** For sensor alerts: stale, flat-line, jump or out-of-range. */
+    code: text("code"),
+    message: text("message"),
+    openedAt: integer("opened_at", { mode: "timestamp_ms" }).notNull(),
+    bound: real("bound"),
+    peak: real("peak"),
+    clearedAt: integer("cleared_at", { mode: "timestamp_ms" }),
+    acknowledgedAt: integer("acknowledged_at", { mode: "timestamp_ms" }),
+    acknowledgedById: integer("acknowledged_by_id").references(() => users.id, { onDelete: "set null" }),
+    comment: text("comment"),
+  },
+  (t) => [index("alerts_structure").on(t.structureId, t.openedAt), index("alerts_gauge").on(t.gaugeId, t.kind, t.clearedAt)],
+);
+
+/** What happened to an alert: opened, escalated, cleared, acknowledged, note. */
+export const alertEvents = sqliteTable(
+  "alert_events",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    alertId: integer("alert_id")
+      .notNull()
+      .references(() => alerts.id, { onDelete: "cascade" }),
+    type: text("type").notNull(),
+    at: integer("at", { mode: "timestamp_ms" }).notNull(),
+    level: text("level"),
+    value: real("value"),
+    byId: integer("by_id").references(() => users.id, { onDelete: "set null" }),
+    byLabel: text("by_label"),
+    text: text("text"),
+  },
+  (t) => [index("alert_events_alert").on(t.alertId, t.at)],
+);
+
+export type GaugeLimit = typeof gaugeLimits.$inferSelect;
+export type Alert = typeof alerts.$inferSelect;
+export type AlertEvent = typeof alertEvents.$inferSelect;

@@ -1,0 +1,102 @@
+import {
+  evaluateReadings,
+  initialEpisodeState,
+  initialSensorHealthState,
+  inspectReadings,
+  type EpisodeEvent,
+  type EpisodeState,
+  type Limit,
+  type Quantity,
+  type SensorFinding,
+  type SensorHealthState,
+  type SensorHealthThresholds,
+} from "@/lib/limits";
+import { Flag } from "@/lib/mechanics";
+
+/**
+ * One gauge's alert evaluation over converted readings: sensor health first (a faulty reading
+ * must not raise a structural alert), then each limited quantity's episode machine. Live
+ * ingestion and the limits editor's backtest both run exactly this.
+ */
+
+/** A stored reading: raw value in the gauge's input unit, strain µε, stress MPa, mechanics flags. */
+export type EvaluatedReading = { time: number; raw: number; strain: number; stress: number; flags: number };
+
+export type GaugeEvaluationState = { episodes: Partial<Record<Quantity, EpisodeState>>; health: SensorHealthState };
+
+export type QuantityEvent = EpisodeEvent & { quantity: Quantity };
+
+export type GaugeAlertSetup = {
+  limits: readonly Limit[];
+  /** MPa; utilisation is |σ| / yield. */
+  yieldStress: number | null;
+  health: SensorHealthThresholds;
+};
+
+export function initialGaugeEvaluationState(): GaugeEvaluationState {
+  return { episodes: {}, health: initialSensorHealthState() };
+}
+
+export function quantityValue(reading: EvaluatedReading, quantity: Quantity, yieldStress: number | null): number {
+  switch (quantity) {
+    case "stress":
+      return reading.stress;
+    case "strain":
+      return reading.strain;
+    case "utilisation":
+      return yieldStress ? Math.abs(reading.stress) / yieldStress : Number.NaN;
+  }
+}
+
+/** Raw ranges no healthy gauge of each input reports (example values, common practice from memory). */
+const RAW_RANGE: Record<string, { min: number; max: number }> = {
+  "mV/V": { min: -10, max: 10 },
+  microstrain: { min: -15_000, max: 15_000 },
+  Hz: { min: 300, max: 6_000 },
+  digits: { min: 90, max: 36_000 },
+};
+
+/**
+ * Example sensor-health thresholds: six hours of identical raw values at 10-minute intervals is
+ * a stuck channel; 1 500 µε between two readings is more than a structure in service moves.
+ * They are defaults only, like the limits themselves.
+ */
+export function defaultHealthThresholds(input: string): SensorHealthThresholds {
+  return { flatLine: { readings: 36, epsilon: 0 }, jump: { maxStep: 1_500 }, range: RAW_RANGE[input] };
+}
+
+function quantitiesOf(limits: readonly Limit[]): Quantity[] {
+  return [...new Set(limits.map((limit) => limit.quantity))];
+}
+
+export function evaluateGauge(
+  setup: GaugeAlertSetup,
+  state: GaugeEvaluationState,
+  readings: readonly EvaluatedReading[],
+): { state: GaugeEvaluationState; events: QuantityEvent[]; findings: SensorFinding[] } {
+  const inspection = inspectReadings(
+    setup.health,
+    state.health,
+    readings.map((reading) => ({ time: reading.time, raw: reading.raw, value: reading.strain })),
+  );
+  const outOfRange = new Set(readings.filter((reading) => reading.flags & Flag.outOfRange).map((reading) => reading.time));
+  const byTime = new Map(readings.map((reading) => [reading.time, reading]));
+  const episodes: Partial<Record<Quantity, EpisodeState>> = { ...state.episodes };
+  const events: QuantityEvent[] = [];
+  for (const quantity of quantitiesOf(setup.limits)) {
+    const limits = setup.limits.filter((limit) => limit.quantity === quantity);
+    const evaluation = evaluateReadings(
+      limits,
+      episodes[quantity] ?? initialEpisodeState(),
+      inspection.readings.map((checked) => ({
+        time: checked.time,
+        value: quantityValue(byTime.get(checked.time)!, quantity, setup.yieldStress),
+        fault: checked.fault || outOfRange.has(checked.time),
+      })),
+    );
+    episodes[quantity] = evaluation.state;
+    events.push(...evaluation.events.map((event) => ({ ...event, quantity })));
+  }
+  events.sort((a, b) => a.time - b.time);
+  return { state: { episodes, health: inspection.state }, events, findings: inspection.findings };
+}

@@ -1,0 +1,180 @@
+import { and, asc, eq, gt, isNull } from "drizzle-orm";
+import type { Database } from "@/db/client";
+import { alertEvents, alerts, evaluationStates, gaugeLimits, readings, type Gauge } from "@/db/schema";
+import {
+  defaultHealthThresholds,
+  evaluateGauge,
+  initialGaugeEvaluationState,
+  type EvaluatedReading,
+  type GaugeEvaluationState,
+  type QuantityEvent,
+} from "@/lib/alerting/evaluate-gauge";
+import type { Limit, SensorFinding } from "@/lib/limits";
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+export type AlertCounts = { opened: number; escalated: number; cleared: number };
+
+/** A state saved after a batch, so a late reading can be evaluated from the state just before it. */
+type Checkpoint = { time: number; state: GaugeEvaluationState };
+type StoredState = { current: GaugeEvaluationState; checkpoints: Checkpoint[] };
+
+const CHECKPOINT_SPACING_MS = 3_600_000;
+/** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
+const CHECKPOINTS_KEPT = 72;
+
+async function loadState(tx: Tx, gaugeId: number): Promise<StoredState> {
+  const [row] = await tx.select().from(evaluationStates).where(eq(evaluationStates.gaugeId, gaugeId)).limit(1);
+  if (!row) return { current: initialGaugeEvaluationState(), checkpoints: [] };
+  return row.state as StoredState;
+}
+
+async function saveState(tx: Tx, gaugeId: number, stored: StoredState, lastTime: number | null) {
+  const value = { gaugeId, lastTime, state: stored };
+  await tx.insert(evaluationStates).values(value).onConflictDoUpdate({ target: evaluationStates.gaugeId, set: value });
+}
+
+function withCheckpoint(stored: StoredState, state: GaugeEvaluationState, time: number | null): StoredState {
+  const last = stored.checkpoints.at(-1);
+  if (time === null || (last && time - last.time < CHECKPOINT_SPACING_MS)) return { current: state, checkpoints: stored.checkpoints };
+  return { current: state, checkpoints: [...stored.checkpoints, { time, state }].slice(-CHECKPOINTS_KEPT) };
+}
+
+async function limitsFor(tx: Tx, gaugeId: number): Promise<Limit[]> {
+  const rows = await tx.select().from(gaugeLimits).where(eq(gaugeLimits.gaugeId, gaugeId));
+  return rows.map(({ quantity, level, upper, lower, hysteresis, persistence }) => ({
+    quantity,
+    level,
+    hysteresis,
+    persistence,
+    ...(upper === null ? {} : { upper }),
+    ...(lower === null ? {} : { lower }),
+  }));
+}
+
+async function openAlertOf(tx: Tx, gaugeId: number, match: { kind: "limit"; quantity: string } | { kind: "sensor"; code: string }) {
+  const condition = match.kind === "limit" ? eq(alerts.quantity, match.quantity) : eq(alerts.code, match.code);
+  const [row] = await tx
+    .select()
+    .from(alerts)
+    .where(and(eq(alerts.gaugeId, gaugeId), eq(alerts.kind, match.kind), isNull(alerts.clearedAt), condition))
+    .limit(1);
+  return row;
+}
+
+async function alreadyRecorded(tx: Tx, gaugeId: number, event: QuantityEvent): Promise<boolean> {
+  const rows = await tx
+    .select({ id: alertEvents.id })
+    .from(alertEvents)
+    .innerJoin(alerts, eq(alerts.id, alertEvents.alertId))
+    .where(and(eq(alerts.gaugeId, gaugeId), eq(alerts.quantity, event.quantity), eq(alertEvents.type, event.type), eq(alertEvents.at, new Date(event.time))))
+    .limit(1);
+  return rows.length > 0;
+}
+
+/** An alert whose e-mails must go out, with what happened to it. */
+export type Notification = { alertId: number; type: "opened" | "escalated" | "cleared" };
+
+async function applyLimitEvent(tx: Tx, gauge: Gauge, event: QuantityEvent, notifications: Notification[], counts: AlertCounts) {
+  const at = new Date(event.time);
+  let alertId: number | undefined;
+  if (event.type === "opened") {
+    const [created] = await tx
+      .insert(alerts)
+      .values({ structureId: gauge.structureId, gaugeId: gauge.id, kind: "limit", level: event.level, quantity: event.quantity, openedAt: at, bound: event.bound, peak: event.peak })
+      .returning({ id: alerts.id });
+    alertId = created!.id;
+  } else {
+    const open = await openAlertOf(tx, gauge.id, { kind: "limit", quantity: event.quantity });
+    if (!open) return;
+    alertId = open.id;
+    await tx
+      .update(alerts)
+      .set(event.type === "escalated" ? { level: event.level, bound: event.bound, peak: event.peak } : { clearedAt: at, peak: event.peak })
+      .where(eq(alerts.id, open.id));
+  }
+  await tx.insert(alertEvents).values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" });
+  counts[event.type] += 1;
+  notifications.push({ alertId, type: event.type });
+}
+
+async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
+  const at = new Date(finding.time);
+  const open = await openAlertOf(tx, gauge.id, { kind: "sensor", code: finding.code });
+  if (finding.event === "resolved") {
+    if (!open) return;
+    await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
+    await tx.insert(alertEvents).values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message });
+    notifications.push({ alertId: open.id, type: "cleared" });
+    return;
+  }
+  // A sensor already under an open alert for the same fault is not alerted again.
+  if (open) return;
+  const [created] = await tx
+    .insert(alerts)
+    .values({ structureId: gauge.structureId, gaugeId: gauge.id, kind: "sensor", level: "warning", code: finding.code, message: finding.message, openedAt: at })
+    .returning({ id: alerts.id });
+  await tx.insert(alertEvents).values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message });
+  notifications.push({ alertId: created!.id, type: "opened" });
+}
+
+async function storedReadingsAfter(tx: Tx, gaugeId: number, after: number): Promise<EvaluatedReading[]> {
+  return tx
+    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
+    .from(readings)
+    .where(and(eq(readings.gaugeId, gaugeId), gt(readings.time, after)))
+    .orderBy(asc(readings.time));
+}
+
+/**
+ * Evaluates a gauge's newly stored readings against its limits and sensor health, inside the
+ * ingestion transaction, and records what opened, escalated or cleared. Readings older than the
+ * last evaluated one are taken in by replaying from the checkpoint before them; events recorded
+ * before are not raised twice.
+ */
+export async function evaluateInsertedReadings(
+  tx: Tx,
+  gauge: Gauge,
+  inserted: readonly EvaluatedReading[],
+): Promise<{ counts: AlertCounts; notifications: Notification[] }> {
+  const counts: AlertCounts = { opened: 0, escalated: 0, cleared: 0 };
+  const notifications: Notification[] = [];
+  if (inserted.length === 0) return { counts, notifications };
+  const limits = await limitsFor(tx, gauge.id);
+  const setup = { limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
+  const stored = await loadState(tx, gauge.id);
+  const lastTime = stored.current.health.lastTime;
+  const earliest = Math.min(...inserted.map((reading) => reading.time));
+  const late = lastTime !== null && earliest <= lastTime;
+  const checkpoint = late ? stored.checkpoints.findLast((saved) => saved.time < earliest) : undefined;
+  if (late && !checkpoint) {
+    // Too late to re-evaluate: keep only the new readings beyond what was evaluated.
+    const fresh = [...inserted].filter((reading) => reading.time > lastTime).sort((a, b) => a.time - b.time);
+    return applyEvaluation(tx, gauge, setup, stored, fresh, counts, notifications);
+  }
+  const start = checkpoint ?? { time: Number.NEGATIVE_INFINITY, state: stored.current };
+  const batch = late ? await storedReadingsAfter(tx, gauge.id, start.time) : [...inserted].sort((a, b) => a.time - b.time);
+  const base = { current: start.state, checkpoints: stored.checkpoints.filter((saved) => saved.time <= start.time) };
+  return applyEvaluation(tx, gauge, setup, base, batch, counts, notifications, late);
+}
+
+async function applyEvaluation(
+  tx: Tx,
+  gauge: Gauge,
+  setup: Parameters<typeof evaluateGauge>[0],
+  stored: StoredState,
+  batch: EvaluatedReading[],
+  counts: AlertCounts,
+  notifications: Notification[],
+  replayed = false,
+) {
+  const result = evaluateGauge(setup, stored.current, batch);
+  for (const event of result.events) {
+    if (replayed && (await alreadyRecorded(tx, gauge.id, event))) continue;
+    await applyLimitEvent(tx, gauge, event, notifications, counts);
+  }
+  for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
+  const lastTime = result.state.health.lastTime;
+  await saveState(tx, gauge.id, withCheckpoint(stored, result.state, lastTime), lastTime);
+  return { counts, notifications };
+}

@@ -1,0 +1,90 @@
+import { and, asc, eq, gte, lt } from "drizzle-orm";
+import type { z } from "zod";
+import { getDb, writeTransaction } from "@/db/client";
+import { gaugeLimits, readings, type Gauge } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+import { episodesOf, type AlertEpisode } from "@/lib/alerting/episodes";
+import { defaultHealthThresholds, evaluateGauge, initialGaugeEvaluationState } from "@/lib/alerting/evaluate-gauge";
+import type { limitInput } from "@/lib/alerting/schema";
+import { AppError } from "@/lib/errors";
+import { validateLimits, type Limit } from "@/lib/limits";
+import { recordAudit } from "./audit";
+import { resolveGauge } from "./gauges";
+
+type LimitInput = z.output<typeof limitInput>;
+
+export function limitsOfGauge(gaugeId: number): Promise<Limit[]> {
+  return getDb()
+    .select({
+      quantity: gaugeLimits.quantity,
+      level: gaugeLimits.level,
+      upper: gaugeLimits.upper,
+      lower: gaugeLimits.lower,
+      hysteresis: gaugeLimits.hysteresis,
+      persistence: gaugeLimits.persistence,
+    })
+    .from(gaugeLimits)
+    .where(eq(gaugeLimits.gaugeId, gaugeId))
+    .orderBy(asc(gaugeLimits.quantity), asc(gaugeLimits.id))
+    .then((rows) => rows.map(({ upper, lower, ...rest }) => ({ ...rest, ...(upper === null ? {} : { upper }), ...(lower === null ? {} : { lower }) })));
+}
+
+/** Validates a proposed set, answering per limit and field what to fix. */
+function checkedLimits(gauge: Gauge, inputs: LimitInput[]): Limit[] {
+  const checked = validateLimits(inputs);
+  if (!checked.ok) {
+    const issues = checked.problems.map((problem) => ({ path: `limits.${problem.index}.${problem.field}`, message: problem.message }));
+    throw new AppError("validation_failed", issues[0]!.message, { issues });
+  }
+  const utilisationIndex = checked.limits.findIndex((limit) => limit.quantity === "utilisation");
+  if (utilisationIndex >= 0 && !gauge.material.yield) {
+    throw new AppError("validation_failed", "Utilisation limits need the material's yield; give the gauge's material a yield first.", {
+      issues: [{ path: `limits.${utilisationIndex}.quantity`, message: "This gauge's material has no yield." }],
+    });
+  }
+  return checked.limits;
+}
+
+export async function getLimits(actor: Actor, code: string, tag: string): Promise<Limit[]> {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  return limitsOfGauge(gauge.id);
+}
+
+/** Replaces the gauge's whole limit set; an open alert stays open and clears against the new bounds. */
+export async function replaceLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[]): Promise<Limit[]> {
+  const { structure, gauge } = await resolveGauge(actor, code, tag, "limits:edit");
+  const limits = checkedLimits(gauge, inputs);
+  const before = await limitsOfGauge(gauge.id);
+  await writeTransaction(async (tx) => {
+    await tx.delete(gaugeLimits).where(eq(gaugeLimits.gaugeId, gauge.id));
+    if (limits.length > 0) {
+      await tx.insert(gaugeLimits).values(limits.map((limit) => ({ gaugeId: gauge.id, upper: null, lower: null, ...limit })));
+    }
+    await recordAudit(tx, {
+      actor,
+      action: "limits.replace",
+      entityType: "gauge",
+      entityKey: `${structure.code}/${gauge.tag}`,
+      structureId: structure.id,
+      before: { limits: before },
+      after: { limits },
+    });
+  });
+  return limitsOfGauge(gauge.id);
+}
+
+export type BacktestResult = { from: number; to: number; readingsChecked: number; episodes: AlertEpisode[] };
+
+/** What the proposed limits would have raised over a past period, by the same code as live ingestion. */
+export async function backtestLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[], from: number, to: number): Promise<BacktestResult> {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  const limits = checkedLimits(gauge, inputs);
+  const history = await getDb()
+    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
+    .from(readings)
+    .where(and(eq(readings.gaugeId, gauge.id), gte(readings.time, from), lt(readings.time, to)))
+    .orderBy(asc(readings.time));
+  const setup = { limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
+  const { events } = evaluateGauge(setup, initialGaugeEvaluationState(), history);
+  return { from, to, readingsChecked: history.length, episodes: episodesOf(events) };
+}
