@@ -20,6 +20,9 @@ export const ACCEPT_ATTRIBUTE = Object.keys(IMAGE_TYPES).join(",");
 
 export const megabytes = (bytes: number) => `${Number((bytes / 1_000_000).toFixed(1))} MB`;
 
+// Rounded up, so a file just over the limit never reads as equal to it.
+const sizeOver = (bytes: number) => `${Math.ceil(bytes / 10_000) / 100} MB`;
+
 /** One line for forms: what may be uploaded as this kind. */
 export function uploadRule(kind: FileKind): string {
   return `${ACCEPTED_TYPE_NAMES} image, at most ${megabytes(UPLOAD_LIMIT_BYTES[kind])}.`;
@@ -29,7 +32,7 @@ export function uploadRule(kind: FileKind): string {
 export function checkUpload(bytes: Uint8Array, kind: FileKind): ImageInfo {
   const limit = UPLOAD_LIMIT_BYTES[kind];
   if (bytes.byteLength > limit) {
-    throw new AppError("payload_too_large", `${KIND_NAMES[kind]} may be at most ${megabytes(limit)}; this file is ${megabytes(bytes.byteLength)}.`, {
+    throw new AppError("payload_too_large", `${KIND_NAMES[kind]} may be at most ${megabytes(limit)}; this file is ${sizeOver(bytes.byteLength)}.`, {
       field: "file",
       limitBytes: limit,
     });
