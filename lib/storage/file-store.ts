@@ -13,8 +13,9 @@ import { IMAGE_TYPES, type ImageType } from "./image-type";
 const DEFAULT_FOLDER = path.join("data", "files");
 const KEY_PATTERN = /^[0-9a-f]{32}\.(png|jpg|webp)$/;
 
+// The folder is chosen at run time, so the bundler is told not to trace it as a source folder.
 function storageFolder(): string {
-  return path.resolve(process.env.FILE_STORAGE_DIR || DEFAULT_FOLDER);
+  return path.resolve(/*turbopackIgnore: true*/ process.env.FILE_STORAGE_DIR || DEFAULT_FOLDER);
 }
 
 export function isStorageKey(key: string): boolean {
@@ -23,7 +24,7 @@ export function isStorageKey(key: string): boolean {
 
 function pathOf(key: string): string {
   if (!isStorageKey(key)) throw new Error(`Refusing a storage key of unexpected shape: ${JSON.stringify(key)}`);
-  return path.join(storageFolder(), key);
+  return path.join(/*turbopackIgnore: true*/ storageFolder(), key);
 }
 
 export async function saveFile(bytes: Uint8Array, contentType: ImageType): Promise<string> {

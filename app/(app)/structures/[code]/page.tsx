@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { StructureDrawings } from "@/components/drawings/structure-drawings";
 import { EmptyState } from "@/components/ui/empty-state";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
@@ -37,6 +38,7 @@ export default async function StructurePage({ params }: Props) {
           <p>Once gauges are registered and their logger sends readings, their strain, stress and state show here.</p>
         </EmptyState>
       </section>
+      <StructureDrawings user={user} structure={structure} />
       <div className="mt-6">
         <MonitoringCaution />
       </div>
