@@ -47,7 +47,7 @@ function requireContentType(request: Request, expected: string) {
 }
 
 /** Reads the body, refusing it by its declared length first and as soon as it grows past the limit. */
-async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer> {
+async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
   const declared = Number(request.headers.get("content-length"));
   if (declared > limitBytes) throw tooLarge(limitBytes);
   if (!request.body) return Buffer.alloc(0);
@@ -103,7 +103,7 @@ export async function readFormData(request: Request, limitBytes: number): Promis
   requireContentType(request, "multipart/form-data");
   const body = await readBodyBytes(request, limitBytes);
   try {
-    return await new Response(new Uint8Array(body), { headers: { "content-type": request.headers.get("content-type")! } }).formData();
+    return await new Response(body, { headers: { "content-type": request.headers.get("content-type")! } }).formData();
   } catch {
     throw new AppError("bad_request", "The body is not valid multipart/form-data; let the client set the Content-Type with its boundary.");
   }

@@ -4,6 +4,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { PHONE, SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
+import { foilGaugeBody } from "../fixtures/gauges";
 import { TEXT_FILE, pngImage } from "../fixtures/images";
 
 let browser: Browser;
@@ -16,17 +17,7 @@ afterAll(async () => {
   fs.rmSync(folder, { recursive: true, force: true });
 });
 
-// A foil quarter-bridge gauge as in tests/integration/api-gauges.test.ts, under a tag no other test uses.
-const GAUGE = {
-  tag: "E2E-PLACE-1",
-  label: "Lower chord, panel 3",
-  kind: "foil",
-  input: "mV/V",
-  bridge: "quarter",
-  gaugeFactor: 2.1,
-  material: { name: "S355", E: 210000, nu: 0.3, alpha: 12, yield: 355 },
-  zero: { value: 0.012, temperature: 14.5, time: "2026-11-30T09:00:00Z" },
-};
+const TAG = "E2E-PLACE-1";
 
 /** A pale elevation sketch: a frame and a truss-like zigzag, so the screenshot shows where the marker sits. */
 function elevationSketch(width: number, height: number) {
@@ -107,7 +98,7 @@ describe("drawings on a phone", () => {
   it("a technician uploads a drawing, places a gauge by tapping it, and finds the marker there after reloading", async () => {
     const page = await (await newContext(browser, PHONE)).newPage();
     await new SignInPage(page).signInAs("technician");
-    const created = await page.request.post("/api/v1/structures/MILL-FB/gauges", { data: GAUGE });
+    const created = await page.request.post("/api/v1/structures/MILL-FB/gauges", { data: foilGaugeBody(TAG) });
     expect(created.status()).toBe(201);
 
     const drawings = new StructureDrawings(page);
@@ -121,17 +112,17 @@ describe("drawings on a phone", () => {
     await drawings.openDrawing("South elevation");
 
     const drawing = new DrawingPage(page);
-    await drawing.chooseGauge(GAUGE.tag);
+    await drawing.chooseGauge(TAG);
     await drawing.tapAt(0.3, 0.6);
-    await page.getByText(`${GAUGE.tag} placed at`).waitFor();
+    await page.getByText(`${TAG} placed at`).waitFor();
 
     await page.reload();
-    await drawing.marker(GAUGE.tag).waitFor();
-    const placed = await drawing.markerPosition(GAUGE.tag);
+    await drawing.marker(TAG).waitFor();
+    const placed = await drawing.markerPosition(TAG);
     // Within one CSS pixel of where the tap landed.
     expect(Math.abs(placed.x - 0.3) * placed.canvas.width).toBeLessThan(1.5);
     expect(Math.abs(placed.y - 0.6) * placed.canvas.height).toBeLessThan(1.5);
-    await expect(drawing.marker(GAUGE.tag).getAttribute("data-state")).resolves.toBe("unassessed");
+    await expect(drawing.marker(TAG).getAttribute("data-state")).resolves.toBe("unassessed");
     await saveScreenshot(page, "drawing-placement-phone");
   });
 });

@@ -16,29 +16,24 @@ import { createGauge, gaugeAuditTrail, getGauge } from "@/lib/services/gauges";
 import { uploadDrawing } from "@/lib/services/files";
 import { UPLOAD_LIMIT_BYTES } from "@/lib/storage/upload-rules";
 import { SVG_DRAWING, TEXT_FILE, jpegImage, pngImage } from "../fixtures/images";
-import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
+import { foilGaugeBody } from "../fixtures/gauges";
+import { apiRequest, makeStructure, makeTeam, params } from "./helpers";
 
 const storage = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-files-"));
 process.env.FILE_STORAGE_DIR = storage;
 afterAll(() => fs.rmSync(storage, { recursive: true, force: true }));
 const storedFiles = () => fs.readdirSync(storage);
 
-const tokens: Record<string, string> = {};
+let tokens: Record<"engineer" | "technician" | "owner", string>;
 let engineer: UserActor;
 
-// A foil quarter-bridge gauge, as in api-gauges.test.ts.
-const gauge = (tag: string) =>
-  parseWith(gaugeInput, { tag, kind: "foil", input: "mV/V", bridge: "quarter", gaugeFactor: 2.1, material: { E: 210000, nu: 0.3, alpha: 12 }, zero: { value: 0 } });
-
 beforeAll(async () => {
-  engineer = await makeUser("engineer");
-  const technician = await makeUser("technician");
-  const owner = await makeUser("owner");
-  await makeStructure("BR", [engineer, technician, owner]);
+  const team = await makeTeam("BR");
+  ({ tokens } = team);
+  engineer = team.users.engineer;
   await makeStructure("OTHER", [engineer]);
-  await createGauge(engineer, "BR", gauge("G1"));
-  await createGauge(engineer, "OTHER", gauge("G9"));
-  for (const user of [engineer, technician, owner]) tokens[user.role] = await userToken(user.email);
+  await createGauge(engineer, "BR", parseWith(gaugeInput, foilGaugeBody("G1")));
+  await createGauge(engineer, "OTHER", parseWith(gaugeInput, foilGaugeBody("G9")));
 });
 
 type Part = { bytes: Uint8Array; name: string; type: string };
@@ -78,7 +73,7 @@ describe("uploading", () => {
     const list = await (await drawingsRoute.GET(apiRequest("/structures/BR/drawings", { token: tokens.owner }), params({ code: "BR" }))).json();
     expect(list.drawings.map((d: { id: number }) => d.id)).toEqual([drawingId]);
 
-    const served = await getFile(tokens.owner!, drawingId);
+    const served = await getFile(tokens.owner, drawingId);
     expect(served.status).toBe(200);
     expect(served.headers.get("content-type")).toBe("image/png");
     expect(served.headers.get("x-content-type-options")).toBe("nosniff");
@@ -142,10 +137,10 @@ describe("uploading", () => {
     expect((await postPhoto(tokens.owner, jpeg)).status).toBe(403);
     expect((await postDrawing(tokens.technician, png, undefined, "OTHER")).status).toBe(404);
     const hidden = await uploadDrawing(engineer, "OTHER", { bytes: png.bytes, fields: { title: "Plan" } });
-    const response = await getFile(tokens.technician!, hidden.id);
+    const response = await getFile(tokens.technician, hidden.id);
     expect(response.status).toBe(404);
     expect((await errorOf(response)).message).toBe(`File ${hidden.id} was not found.`);
-    expect((await getFile(tokens.engineer!, hidden.id)).status).toBe(200);
+    expect((await getFile(tokens.engineer, hidden.id)).status).toBe(200);
   });
 });
 
@@ -179,14 +174,14 @@ describe("nothing half-saved", () => {
 
 describe("placing gauges on drawings", () => {
   it("places a gauge, records old → new, and takes it off again", async () => {
-    const response = await place(tokens.technician!, { drawingId, x: 0.25, y: 0.75 });
+    const response = await place(tokens.technician, { drawingId, x: 0.25, y: 0.75 });
     expect(response.status).toBe(200);
     expect((await response.json()).drawing).toEqual({ id: drawingId, x: 0.25, y: 0.75 });
-    await place(tokens.technician!, { drawingId, x: 0.5, y: 0.5 });
+    await place(tokens.technician, { drawingId, x: 0.5, y: 0.5 });
     const [moved] = await gaugeAuditTrail(engineer, "BR", "G1");
     expect(moved).toMatchObject({ action: "gauge.place", entityKey: "BR/G1", before: { drawing: { id: drawingId, x: 0.25, y: 0.75 } }, after: { drawing: { id: drawingId, x: 0.5, y: 0.5 } } });
 
-    const removed = await place(tokens.technician!, { drawingId: null });
+    const removed = await place(tokens.technician, { drawingId: null });
     expect((await removed.json()).drawing).toBeNull();
   });
 
@@ -195,32 +190,32 @@ describe("placing gauges on drawings", () => {
     [{ drawingId: 1, x: 0.2, y: -0.1 }, "y is a fraction of the drawing's height: use 0 to 1."],
     [{ x: 0.2, y: 0.1 }, "Send { drawingId, x, y }"],
   ])("refuses a bad placement with 400 saying what to fix: %#", async (body, message) => {
-    const response = await place(tokens.technician!, body);
+    const response = await place(tokens.technician, body);
     expect(response.status).toBe(400);
     expect((await errorOf(response)).message).toContain(message);
   });
 
   it("refuses a drawing of another structure with 400, without saying whether it exists", async () => {
     const [other] = await getDb().select({ id: files.id }).from(files).where(eq(files.title, "Plan"));
-    const response = await place(tokens.engineer!, { drawingId: other!.id, x: 0.5, y: 0.5 });
+    const response = await place(tokens.engineer, { drawingId: other!.id, x: 0.5, y: 0.5 });
     expect(response.status).toBe(400);
     expect((await errorOf(response)).message).toBe(`Structure BR has no drawing ${other!.id}; choose one of its own drawings.`);
   });
 
   it("refuses an owner with 403", async () => {
-    expect((await place(tokens.owner!, { drawingId, x: 0.5, y: 0.5 })).status).toBe(403);
+    expect((await place(tokens.owner, { drawingId, x: 0.5, y: 0.5 })).status).toBe(403);
   });
 });
 
 describe("deleting", () => {
   it("refuses an owner, then deletes a drawing: its bytes go and gauges placed on it come off, with audit rows", async () => {
-    await place(tokens.technician!, { drawingId, x: 0.1, y: 0.2 });
+    await place(tokens.technician, { drawingId, x: 0.1, y: 0.2 });
     const del = (token: string) => fileRoute.DELETE(apiRequest(`/files/${drawingId}`, { token, method: "DELETE" }), params({ id: String(drawingId) }));
-    expect((await del(tokens.owner!)).status).toBe(403);
+    expect((await del(tokens.owner)).status).toBe(403);
     const storedBefore = storedFiles().length;
-    expect((await del(tokens.technician!)).status).toBe(204);
+    expect((await del(tokens.technician)).status).toBe(204);
     expect(storedFiles()).toHaveLength(storedBefore - 1);
-    expect((await getFile(tokens.technician!, drawingId)).status).toBe(404);
+    expect((await getFile(tokens.technician, drawingId)).status).toBe(404);
     expect((await getGauge(engineer, "BR", "G1")).drawing).toBeNull();
 
     const actions = (await getDb().select({ action: auditLog.action }).from(auditLog)).map((row) => row.action);
