@@ -97,7 +97,7 @@ export async function readJson<S extends z.ZodType>(
 
 /**
  * A multipart/form-data body. It is read within the limit before it is parsed, so an oversized
- * upload is refused without being held in memory whole, whether or not it declared its length.
+ * upload is refused as soon as it passes the limit, whether or not it declared its length.
  */
 export async function readFormData(request: Request, limitBytes: number): Promise<FormData> {
   requireContentType(request, "multipart/form-data");
