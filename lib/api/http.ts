@@ -46,11 +46,11 @@ function requireContentType(request: Request, expected: string) {
   }
 }
 
-/** Reads the body as text, refusing it as soon as it grows past the limit. */
-export async function readBodyText(request: Request, limitBytes: number): Promise<string> {
+/** Reads the body, refusing it by its declared length first and as soon as it grows past the limit. */
+async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
   const declared = Number(request.headers.get("content-length"));
   if (declared > limitBytes) throw tooLarge(limitBytes);
-  if (!request.body) return "";
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let received = 0;
@@ -64,7 +64,11 @@ export async function readBodyText(request: Request, limitBytes: number): Promis
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString("utf8");
+  return Buffer.concat(chunks);
+}
+
+export async function readBodyText(request: Request, limitBytes: number): Promise<string> {
+  return (await readBodyBytes(request, limitBytes)).toString("utf8");
 }
 
 function tooLarge(limitBytes: number) {
@@ -89,6 +93,20 @@ export async function readJson<S extends z.ZodType>(
     throw new AppError("bad_request", "The body must be a JSON object.");
   }
   return parseWith(schema, body);
+}
+
+/**
+ * A multipart/form-data body. It is read within the limit before it is parsed, so an oversized
+ * upload is refused as soon as it passes the limit, whether or not it declared its length.
+ */
+export async function readFormData(request: Request, limitBytes: number): Promise<FormData> {
+  requireContentType(request, "multipart/form-data");
+  const body = await readBodyBytes(request, limitBytes);
+  try {
+    return await new Response(body, { headers: { "content-type": request.headers.get("content-type")! } }).formData();
+  } catch {
+    throw new AppError("bad_request", "The body is not valid multipart/form-data; let the client set the Content-Type with its boundary.");
+  }
 }
 
 type RouteContext<P> = { params: Promise<P> };

@@ -1,12 +1,29 @@
 import { z } from "zod";
+import { placementInput } from "@/lib/files/schema";
+import type { FileKind } from "@/db/schema";
+import { IMAGE_TYPES } from "@/lib/storage/image-type";
+import { uploadRule } from "@/lib/storage/upload-rules";
 import { createStructureInput } from "@/lib/validation";
-import { errorSchema, structureDetailSchema, structureListSchema, structureSchema } from "./schemas";
+import {
+  drawingListSchema,
+  errorSchema,
+  fileSchema,
+  gaugeSchema,
+  photoListSchema,
+  structureDetailSchema,
+  structureListSchema,
+  structureSchema,
+} from "./schemas";
+
+/** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
+type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
 
 type Operation = {
   summary: string;
   roles?: string;
   request?: z.ZodType;
-  response: { status: number; schema: z.ZodType; description: string };
+  multipart?: MultipartRequest;
+  response: { status: number; schema?: z.ZodType; description: string; contentTypes?: string[] };
   errors: number[];
   parameters?: { name: string; in: "path" | "query"; description: string }[];
 };
@@ -22,6 +39,15 @@ const ERROR_MEANING: Record<number, string> = {
 };
 
 const codeParameter = { name: "code", in: "path" as const, description: "Structure code" };
+const tagParameter = { name: "tag", in: "path" as const, description: "Gauge tag" };
+
+const imageUpload = (kind: FileKind, title: { description: string; required: boolean }): MultipartRequest => ({
+  fields: {
+    file: { description: `${uploadRule(kind)} The type is read from the content, not the name.`, binary: true },
+    title: { description: title.description },
+  },
+  required: title.required ? ["file", "title"] : ["file"],
+});
 
 const OPERATIONS: Record<string, Record<string, Operation>> = {
   "/structures": {
@@ -46,12 +72,93 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [401, 404],
     },
   },
+  "/structures/{code}/drawings": {
+    get: {
+      summary: "Drawings (elevations, plans) of a structure",
+      parameters: [codeParameter],
+      response: { status: 200, schema: drawingListSchema, description: "The drawings, oldest first" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Upload a drawing",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      multipart: imageUpload("drawing", { description: "What the drawing shows, e.g. North elevation", required: true }),
+      response: { status: 201, schema: fileSchema, description: "The stored drawing" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/photos": {
+    get: {
+      summary: "Installation photos of a gauge",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: photoListSchema, description: "The photos, oldest first" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Upload an installation photo of a gauge",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      multipart: imageUpload("photo", { description: "Caption; defaults to \"Installation photo of {tag}\"", required: false }),
+      response: { status: 201, schema: fileSchema, description: "The stored photo" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/placement": {
+    put: {
+      summary: "Place a gauge on a drawing of its structure (x, y: fractions of width and height from the top left), or take it off",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      request: placementInput,
+      response: { status: 200, schema: gaugeSchema, description: "The gauge" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/files/{id}": {
+    get: {
+      summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
+      parameters: [{ name: "id", in: "path", description: "File id" }],
+      response: { status: 200, description: "The image", contentTypes: Object.keys(IMAGE_TYPES) },
+      errors: [400, 401, 404],
+    },
+    delete: {
+      summary: "Delete a photo or drawing; gauges placed on a deleted drawing come off it",
+      roles: "admin, engineer, technician",
+      parameters: [{ name: "id", in: "path", description: "File id" }],
+      response: { status: 204, description: "Deleted" },
+      errors: [400, 401, 403, 404],
+    },
+  },
 };
+
+function multipartSchema(request: MultipartRequest) {
+  const properties = Object.fromEntries(
+    Object.entries(request.fields).map(([name, field]) => [
+      name,
+      field.binary ? { type: "string", format: "binary", description: field.description } : { type: "string", description: field.description },
+    ]),
+  );
+  return { type: "object", properties, required: request.required };
+}
+
+function requestBodyOf(operation: Operation) {
+  if (operation.multipart) return { required: true, content: { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } };
+  if (operation.request) return { required: true, content: { "application/json": { schema: jsonSchema(operation.request, "input") } } };
+  return undefined;
+}
+
+function successContent(response: Operation["response"]) {
+  if (response.contentTypes) return Object.fromEntries(response.contentTypes.map((type) => [type, { schema: { type: "string", format: "binary" } }]));
+  if (response.schema) return { "application/json": { schema: jsonSchema(response.schema, "output") } };
+  return undefined;
+}
 
 const jsonSchema = (schema: z.ZodType, io: "input" | "output") =>
   z.toJSONSchema(schema, { target: "draft-2020-12", io, unrepresentable: "any" });
 
 function describeOperation(operation: Operation) {
+  const requestBody = requestBodyOf(operation);
+  const content = successContent(operation.response);
   const errorResponses = Object.fromEntries(
     operation.errors.map((status) => [
       String(status),
@@ -64,14 +171,9 @@ function describeOperation(operation: Operation) {
     ...(operation.parameters
       ? { parameters: operation.parameters.map((p) => ({ ...p, required: p.in === "path", schema: { type: "string" } })) }
       : {}),
-    ...(operation.request
-      ? { requestBody: { required: true, content: { "application/json": { schema: jsonSchema(operation.request, "input") } } } }
-      : {}),
+    ...(requestBody ? { requestBody } : {}),
     responses: {
-      [String(operation.response.status)]: {
-        description: operation.response.description,
-        content: { "application/json": { schema: jsonSchema(operation.response.schema, "output") } },
-      },
+      [String(operation.response.status)]: { description: operation.response.description, ...(content ? { content } : {}) },
       ...errorResponses,
     },
   };

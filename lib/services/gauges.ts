@@ -77,7 +77,7 @@ export async function getGauge(actor: Actor, code: string, tag: string): Promise
   return viewsOf(await gaugeRowsOf(structure.id)).find((view) => view.tag === gauge.tag)!;
 }
 
-const gaugeKey = (structure: Structure, tag: string) => `${structure.code}/${tag}`;
+export const gaugeKey = (structure: Pick<Structure, "code">, tag: string) => `${structure.code}/${tag}`;
 
 async function insertGauge(tx: Tx, actor: Actor, structure: Structure, input: GaugeInput, replaces: Gauge | null, reason: string) {
   const zeroTime = input.zero.time ? new Date(input.zero.time) : new Date();

@@ -48,6 +48,7 @@ export default async function setup(project: TestProject) {
   const env = {
     ...process.env,
     DATABASE_URL: `file:${path.join(folder, "e2e.db")}`,
+    FILE_STORAGE_DIR: path.join(folder, "files"),
     NEXTAUTH_SECRET: "browser-test-secret",
     NEXTAUTH_URL: baseUrl,
   };

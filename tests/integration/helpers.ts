@@ -41,3 +41,18 @@ export function apiRequest(path: string, init: Init = {}): Request {
 
 export const noParams = { params: Promise.resolve({}) };
 export const params = <P>(value: P) => ({ params: Promise.resolve(value) });
+
+const TEAM_ROLES = ["engineer", "technician", "owner"] as const;
+type TeamRole = (typeof TEAM_ROLES)[number];
+
+/** An engineer, a technician and an owner, all members of a new structure `code`, each with an API token. */
+export async function makeTeam(code: string) {
+  const users = {} as Record<TeamRole, UserActor>;
+  const tokens = {} as Record<TeamRole, string>;
+  for (const role of TEAM_ROLES) {
+    users[role] = await makeUser(role);
+    tokens[role] = await userToken(users[role].email);
+  }
+  await makeStructure(code, Object.values(users));
+  return { users, tokens };
+}

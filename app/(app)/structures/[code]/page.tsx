@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { StructureDrawings } from "@/components/drawings/structure-drawings";
 import { GaugeList } from "@/components/gauges/gauge-list";
 import { RosetteSection } from "@/components/gauges/rosette-section";
 import { TokenTable } from "@/components/tokens/token-table";
@@ -81,6 +82,7 @@ export default async function StructurePage({ params }: Props) {
           <GaugeList structureCode={code} gauges={gauges} />
         )}
       </Section>
+      <StructureDrawings user={user} structure={structure} />
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>
           <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} />

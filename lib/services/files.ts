@@ -1,0 +1,224 @@
+import { and, asc, eq } from "drizzle-orm";
+import { getDb, writeTransaction } from "@/db/client";
+import { files, gauges, structures, type FileKind, type Gauge, type StoredFile, type Structure } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+import { may, requirePermission } from "@/lib/auth/authorize";
+import { parseWith } from "@/lib/api/http";
+import { AppError } from "@/lib/errors";
+import { drawingFields, photoFields, type PlacementInput } from "@/lib/files/schema";
+import { deleteFile, readFile, saveFile } from "@/lib/storage/file-store";
+import type { ImageInfo } from "@/lib/storage/image-type";
+import { checkUpload } from "@/lib/storage/upload-rules";
+import { recordAudit } from "./audit";
+import { gaugeKey, getGauge, resolveGauge, type GaugeView } from "./gauges";
+import { getVisibleStructure } from "./structures";
+
+/** An uploaded image as the API and the pages show it; the bytes are at `url`. */
+export type FileView = {
+  id: number;
+  kind: FileKind;
+  title: string;
+  contentType: string;
+  bytes: number;
+  width: number | null;
+  height: number | null;
+  /** Tag of the gauge a photo shows; null for drawings. */
+  gauge: string | null;
+  url: string;
+  createdAt: string;
+};
+
+/** What a route handler read from a multipart upload. */
+export type UploadRequest = { bytes: Uint8Array; fields: Record<string, string> };
+
+type Tx = Parameters<Parameters<typeof writeTransaction>[0]>[0];
+
+const fileUrl = (id: number) => `/api/v1/files/${id}`;
+
+function toFileView(row: StoredFile, gaugeTag: string | null): FileView {
+  return {
+    id: row.id,
+    kind: row.kind,
+    title: row.title,
+    contentType: row.contentType,
+    bytes: row.bytes,
+    width: row.width,
+    height: row.height,
+    gauge: gaugeTag,
+    url: fileUrl(row.id),
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+const auditedFile = (row: StoredFile) => ({ id: row.id, title: row.title, contentType: row.contentType, bytes: row.bytes, width: row.width, height: row.height });
+
+type NewFile = { structure: Structure; gauge: Gauge | null; kind: FileKind; title: string };
+
+/**
+ * Checks the content, stores the bytes, then records the row and its audit entry. Nothing is
+ * left half-saved: a failed write leaves no row, and a failed insert removes the stored bytes.
+ */
+async function storeUpload(actor: Actor, target: NewFile, bytes: Uint8Array, audit: (tx: Tx, row: StoredFile) => Promise<unknown>) {
+  const image: ImageInfo = checkUpload(bytes, target.kind);
+  const storageKey = await saveFile(bytes, image.type);
+  try {
+    return await writeTransaction(async (tx) => {
+      const [row] = await tx
+        .insert(files)
+        .values({
+          structureId: target.structure.id,
+          gaugeId: target.gauge?.id ?? null,
+          kind: target.kind,
+          title: target.title,
+          storageKey,
+          contentType: image.type,
+          bytes: bytes.byteLength,
+          width: image.width,
+          height: image.height,
+          uploadedById: actor.kind === "user" ? actor.id : null,
+        })
+        .returning();
+      await audit(tx, row!);
+      return row!;
+    });
+  } catch (error) {
+    await deleteFile(storageKey);
+    throw error;
+  }
+}
+
+export async function uploadDrawing(actor: Actor, code: string, upload: UploadRequest): Promise<FileView> {
+  const structure = await getVisibleStructure(actor, code);
+  await requirePermission(actor, "gauge:register", structure);
+  const { title } = parseWith(drawingFields, upload.fields);
+  const row = await storeUpload(actor, { structure, gauge: null, kind: "drawing", title }, upload.bytes, (tx, row) =>
+    recordAudit(tx, { actor, action: "structure.drawing.upload", entityType: "structure", entityKey: structure.code, structureId: structure.id, after: auditedFile(row) }),
+  );
+  return toFileView(row, null);
+}
+
+export async function uploadGaugePhoto(actor: Actor, code: string, tag: string, upload: UploadRequest): Promise<FileView> {
+  const { structure, gauge } = await resolveGauge(actor, code, tag, "gauge:register");
+  const title = parseWith(photoFields, upload.fields).title ?? `Installation photo of ${gauge.tag}`;
+  const row = await storeUpload(actor, { structure, gauge, kind: "photo", title }, upload.bytes, (tx, row) =>
+    recordAudit(tx, { actor, action: "gauge.photo.upload", entityType: "gauge", entityKey: gaugeKey(structure, gauge.tag), structureId: structure.id, after: auditedFile(row) }),
+  );
+  return toFileView(row, gauge.tag);
+}
+
+export async function listDrawings(actor: Actor, code: string): Promise<FileView[]> {
+  const structure = await getVisibleStructure(actor, code);
+  await requirePermission(actor, "structure:view", structure);
+  const rows = await getDb()
+    .select()
+    .from(files)
+    .where(and(eq(files.structureId, structure.id), eq(files.kind, "drawing")))
+    .orderBy(asc(files.createdAt), asc(files.id));
+  return rows.map((row) => toFileView(row, null));
+}
+
+/** A gauge's installation photos, oldest first; pages may call it to hand GaugePhotos its first list. */
+export async function listGaugePhotos(actor: Actor, code: string, tag: string): Promise<FileView[]> {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  const rows = await getDb()
+    .select()
+    .from(files)
+    .where(and(eq(files.gaugeId, gauge.id), eq(files.kind, "photo")))
+    .orderBy(asc(files.createdAt), asc(files.id));
+  return rows.map((row) => toFileView(row, gauge.tag));
+}
+
+const fileNotFound = (id: number) => new AppError("not_found", `File ${id} was not found.`);
+
+/** The file and its structure, if the actor may see that structure; otherwise the same 404 as a missing file. */
+async function visibleFile(actor: Actor, id: number) {
+  const [found] = await getDb()
+    .select({ file: files, structure: structures, gaugeTag: gauges.tag })
+    .from(files)
+    .innerJoin(structures, eq(structures.id, files.structureId))
+    .leftJoin(gauges, eq(gauges.id, files.gaugeId))
+    .where(eq(files.id, id))
+    .limit(1);
+  if (!found || !(await may(actor, "structure:view", found.structure))) throw fileNotFound(id);
+  return found;
+}
+
+/** One drawing of the structure, for the drawing page. */
+export async function getDrawing(actor: Actor, code: string, id: number): Promise<FileView> {
+  const { file, structure } = await visibleFile(actor, id);
+  if (file.kind !== "drawing" || structure.code !== code) throw fileNotFound(id);
+  return toFileView(file, null);
+}
+
+/** The stored bytes of a file the actor may see, with what to serve them as. */
+export async function openFile(actor: Actor, id: number) {
+  const { file } = await visibleFile(actor, id);
+  const stream = await readFile(file.storageKey);
+  if (!stream) throw new AppError("not_found", `The image of file ${id} is missing from storage; upload it again.`);
+  return { contentType: file.contentType, bytes: file.bytes, stream };
+}
+
+type Placement = { id: number; x: number; y: number } | null;
+
+const placementOf = (gauge: Gauge): Placement =>
+  gauge.drawingId != null && gauge.drawingX != null && gauge.drawingY != null ? { id: gauge.drawingId, x: gauge.drawingX, y: gauge.drawingY } : null;
+
+async function writePlacement(tx: Tx, actor: Actor, structure: Pick<Structure, "id" | "code">, gauge: Gauge, after: Placement, reason?: string) {
+  await tx
+    .update(gauges)
+    .set({ drawingId: after?.id ?? null, drawingX: after?.x ?? null, drawingY: after?.y ?? null, updatedAt: new Date() })
+    .where(eq(gauges.id, gauge.id));
+  await recordAudit(tx, {
+    actor,
+    action: "gauge.place",
+    entityType: "gauge",
+    entityKey: gaugeKey(structure, gauge.tag),
+    structureId: structure.id,
+    before: { drawing: placementOf(gauge) },
+    after: { drawing: after, ...(reason ? { reason } : {}) },
+  });
+}
+
+/** Deletes a photo or a drawing; gauges placed on a deleted drawing come off it, each with its own audit entry. */
+export async function removeFile(actor: Actor, id: number): Promise<void> {
+  const { file, structure, gaugeTag } = await visibleFile(actor, id);
+  await requirePermission(actor, "gauge:register", structure);
+  await writeTransaction(async (tx) => {
+    await tx.delete(files).where(eq(files.id, file.id));
+    if (file.kind === "drawing") {
+      const placed = await tx.select().from(gauges).where(eq(gauges.drawingId, file.id));
+      for (const gauge of placed) await writePlacement(tx, actor, structure, gauge, null, `drawing "${file.title}" deleted`);
+    }
+    const subject = gaugeTag
+      ? { action: "gauge.photo.delete", entityType: "gauge", entityKey: gaugeKey(structure, gaugeTag) }
+      : { action: "structure.drawing.delete", entityType: "structure", entityKey: structure.code };
+    await recordAudit(tx, { actor, ...subject, structureId: structure.id, before: auditedFile(file) });
+  });
+  // The row is gone first, so no reader can be sent to missing bytes; a leftover file is harmless.
+  await deleteFile(file.storageKey).catch((error: unknown) => console.error(`Could not remove stored file ${file.storageKey}`, error));
+}
+
+/** Puts a gauge on one of its structure's drawings at fractions of the drawing's width and height, or takes it off. */
+export async function placeGauge(actor: Actor, code: string, tag: string, input: PlacementInput): Promise<GaugeView> {
+  const { structure, gauge } = await resolveGauge(actor, code, tag, "gauge:register");
+  const after: Placement = input.drawingId === null ? null : { id: input.drawingId, x: input.x, y: input.y };
+  if (JSON.stringify(after) === JSON.stringify(placementOf(gauge))) return getGauge(actor, code, tag);
+  await writeTransaction(async (tx) => {
+    if (after) {
+      // Checked inside the transaction so a drawing deleted meanwhile cannot be pointed at.
+      const [drawing] = await tx
+        .select({ id: files.id })
+        .from(files)
+        .where(and(eq(files.id, after.id), eq(files.structureId, structure.id), eq(files.kind, "drawing")))
+        .limit(1);
+      if (!drawing) {
+        throw new AppError("validation_failed", `Structure ${structure.code} has no drawing ${after.id}; choose one of its own drawings.`, {
+          field: "drawingId",
+          issues: [{ path: "drawingId", message: `Structure ${structure.code} has no drawing ${after.id}.` }],
+        });
+      }
+    }
+    await writePlacement(tx, actor, structure, gauge, after);
+  });
+  return getGauge(actor, code, tag);
+}
