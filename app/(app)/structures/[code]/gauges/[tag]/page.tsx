@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { format } from "date-fns";
+import { GaugePhotos } from "@/components/gauges/gauge-photos";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ZeroForm } from "@/components/gauges/zero-form";
 import { ActionForm } from "@/components/ui/action-form";
@@ -12,6 +13,7 @@ import { buttonClass, cardClass, tableClass, tdClass, thClass } from "@/componen
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
+import { listGaugePhotos } from "@/lib/services/files";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { retireGaugeAction } from "../actions";
@@ -47,7 +49,11 @@ export default async function GaugePage({ params }: Props) {
     may(user, "zero:record", structure),
     may(user, "audit:view", structure),
   ]);
-  const [zeros, audit] = await Promise.all([zeroHistory(user, code, tag), canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([])]);
+  const [zeros, audit, photos] = await Promise.all([
+    zeroHistory(user, code, tag),
+    canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
+    listGaugePhotos(user, code, tag),
+  ]);
   const active = gauge.status === "active";
   const base = `/structures/${code}/gauges`;
   return (
@@ -148,6 +154,9 @@ export default async function GaugePage({ params }: Props) {
             </table>
           </div>
         </section>
+      </div>
+      <div className="mt-6">
+        <GaugePhotos structureCode={code} tag={tag} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
       {canAudit && (
         <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
