@@ -7,6 +7,8 @@ import { AppError } from "@/lib/errors";
 import type { UserActor } from "@/lib/auth/actor";
 import { createGauge, listGauges } from "@/lib/services/gauges";
 import { createRosette } from "@/lib/services/rosettes";
+import { listDrawings, placeGauge, uploadDrawing } from "@/lib/services/files";
+import { DEMO_DRAWINGS } from "./demo-drawings";
 import { DEMO_GAUGES, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 
 /**
@@ -77,6 +79,18 @@ async function seedGauges(now: number) {
   }
 }
 
+/** Each structure gets its drawing once, with the demo gauges placed where they are installed. */
+async function seedDrawings() {
+  const engineer = await actorFor("engineer@hookeline.example");
+  for (const drawing of DEMO_DRAWINGS) {
+    if ((await listDrawings(engineer, drawing.structure)).length > 0) continue;
+    const uploaded = await uploadDrawing(engineer, drawing.structure, { bytes: drawing.png(), fields: { title: drawing.title } });
+    for (const [tag, [x, y]] of Object.entries(drawing.placements)) {
+      await placeGauge(engineer, drawing.structure, tag, { drawingId: uploaded.id, x, y });
+    }
+  }
+}
+
 /** Creates what is missing of the demo scenario; running it again changes nothing. */
 export async function seedDemo(now = Date.now()): Promise<void> {
   for (const structure of DEMO_STRUCTURES) {
@@ -89,4 +103,5 @@ export async function seedDemo(now = Date.now()): Promise<void> {
     for (const code of user.structures) await ignoreExisting(addMember(null, user.email, code));
   }
   await seedGauges(now);
+  await seedDrawings();
 }
