@@ -147,15 +147,14 @@ export async function evaluateInsertedReadings(
   const earliest = Math.min(...inserted.map((reading) => reading.time));
   const late = lastTime !== null && earliest <= lastTime;
   const checkpoint = late ? stored.checkpoints.findLast((saved) => saved.time < earliest) : undefined;
-  if (late && !checkpoint) {
-    // Too late to re-evaluate: keep only the new readings beyond what was evaluated.
-    const fresh = [...inserted].filter((reading) => reading.time > lastTime).sort((a, b) => a.time - b.time);
-    return applyEvaluation(tx, gauge, setup, stored, fresh, counts, notifications);
+  if (!checkpoint) {
+    // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
+    const batch = [...inserted].sort((a, b) => a.time - b.time);
+    return applyEvaluation(tx, gauge, setup, stored, batch, counts, notifications);
   }
-  const start = checkpoint ?? { time: Number.NEGATIVE_INFINITY, state: stored.current };
-  const batch = late ? await storedReadingsAfter(tx, gauge.id, start.time) : [...inserted].sort((a, b) => a.time - b.time);
-  const base = { current: start.state, checkpoints: stored.checkpoints.filter((saved) => saved.time <= start.time) };
-  return applyEvaluation(tx, gauge, setup, base, batch, counts, notifications, late);
+  const replayed = await storedReadingsAfter(tx, gauge.id, checkpoint.time);
+  const fromCheckpoint = { current: checkpoint.state, checkpoints: stored.checkpoints.filter((saved) => saved.time <= checkpoint.time) };
+  return applyEvaluation(tx, gauge, setup, fromCheckpoint, replayed, counts, notifications, true);
 }
 
 async function applyEvaluation(
