@@ -7,6 +7,7 @@ const ROLE_NAMES = { admin: "Administrator", engineer: "Engineer", technician: "
 export function AppHeader({ user }: { user: UserActor }) {
   const links = [
     { href: "/", label: "Structures" },
+    { href: "/alerts", label: "Alerts" },
     ...(roleAllows(user.role, "users:manage")
       ? [
           { href: "/admin/users", label: "Users" },

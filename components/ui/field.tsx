@@ -1,5 +1,6 @@
 "use client";
 
+import { useId } from "react";
 import { useActionForm } from "./action-form";
 import { inputClass } from "./styles";
 
@@ -14,18 +15,21 @@ type FieldProps = {
  * A labelled input with its hint and its errors, tied together for screen readers.
  * Inside an ActionForm the errors come from the form's last answer.
  */
-export function Field({ name, label, hint, children, ...inputProps }: FieldProps) {
+export function Field({ name, label, hint, children, id, ...inputProps }: FieldProps) {
   const fieldErrors = useActionForm().state.fieldErrors?.[name];
-  const hintId = hint ? `${name}-hint` : undefined;
-  const errorId = fieldErrors?.length ? `${name}-error` : undefined;
+  // Several forms on one page may have a field of the same name: ids must stay unique.
+  const unique = useId();
+  const inputId = id ?? (children ? name : `${name}-${unique}`);
+  const hintId = hint ? `${inputId}-hint` : undefined;
+  const errorId = fieldErrors?.length ? `${inputId}-error` : undefined;
   return (
     <div className="space-y-1">
-      <label htmlFor={name} className="block text-sm font-medium">
+      <label htmlFor={inputId} className="block text-sm font-medium">
         {label}
       </label>
       {children ?? (
         <input
-          id={name}
+          id={inputId}
           name={name}
           className={inputClass}
           aria-invalid={errorId ? true : undefined}

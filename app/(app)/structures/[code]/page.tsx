@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { AlertTable } from "@/components/alerts/alert-table";
 import { StructureDrawings } from "@/components/drawings/structure-drawings";
 import { GaugeList } from "@/components/gauges/gauge-list";
 import { RosetteSection } from "@/components/gauges/rosette-section";
@@ -15,6 +16,7 @@ import { createTokenAction } from "@/lib/actions/token-actions";
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
+import { listAlerts } from "@/lib/services/alerts";
 import { listGauges } from "@/lib/services/gauges";
 import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
@@ -44,9 +46,10 @@ export default async function StructurePage({ params }: Props) {
   const { code } = await params;
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [gauges, rosettes, canRegister, canManageTokens] = await Promise.all([
+  const [gauges, rosettes, recentAlerts, canRegister, canManageTokens] = await Promise.all([
     listGauges(user, code),
     listRosettes(user, code),
+    listAlerts(user, code, "all", 8),
     may(user, "gauge:register", structure),
     may(user, "token:manage", structure),
   ]);
@@ -81,6 +84,17 @@ export default async function StructurePage({ params }: Props) {
         ) : (
           <GaugeList structureCode={code} gauges={gauges} />
         )}
+      </Section>
+      <Section
+        title="Recent alerts"
+        id="alerts-heading"
+        actions={
+          <Link href={`/alerts?state=all`} className="text-sm font-medium text-accent underline">
+            All alerts
+          </Link>
+        }
+      >
+        <AlertTable alerts={recentAlerts} timeZones={{ [structure.code]: structure.timezone }} />
       </Section>
       <StructureDrawings user={user} structure={structure} />
       <Section title="Rosettes" id="rosettes-heading">

@@ -5,6 +5,8 @@ import { formAction, objectAction } from "@/lib/actions/form-action";
 import type { ActionState } from "@/lib/actions/action-state";
 import { gaugeInput, gaugePatch, rosetteInput, zeroInput } from "@/lib/gauges/schema";
 import { createRosette } from "@/lib/services/rosettes";
+import { limitsBody } from "@/lib/alerting/schema";
+import { replaceLimits } from "@/lib/services/limits";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
 import { optionalText } from "@/lib/validation";
 import { parseWith } from "@/lib/api/http";
@@ -95,3 +97,15 @@ export const createRosetteAction = formAction(
   },
   "/structures",
 );
+
+export async function saveLimitsAction(code: string, tag: string, payload: unknown): Promise<ActionState> {
+  return objectAction(
+    limitsBody,
+    payload,
+    async ({ limits }, user) => {
+      await replaceLimits(user, code, tag, limits);
+      return { message: limits.length ? `${limits.length} limits saved for ${tag}.` : `All limits of ${tag} removed.` };
+    },
+    structurePath(code),
+  );
+}

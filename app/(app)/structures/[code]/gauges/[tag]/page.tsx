@@ -69,8 +69,11 @@ export default async function GaugePage({ params }: Props) {
           </>
         }
         actions={
-          active &&
-          canEdit && (
+          <>
+            <Link href={`${base}/${encodeURIComponent(tag)}/limits`} className={buttonClass("secondary")}>
+              Limits
+            </Link>
+            {active && canEdit && (
             <>
               <Link href={`${base}/${encodeURIComponent(tag)}/edit`} className={buttonClass("secondary")}>
                 Edit
@@ -79,7 +82,8 @@ export default async function GaugePage({ params }: Props) {
                 Replace
               </Link>
             </>
-          )
+            )}
+          </>
         }
       />
       <div className="mb-6 flex flex-wrap gap-2 text-sm" data-testid="gauge-status">

@@ -1,0 +1,96 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { LevelBadge, StateBadge, alertSummary } from "@/components/alerts/alert-badges";
+import { ActionForm } from "@/components/ui/action-form";
+import { MonitoringCaution } from "@/components/ui/caution";
+import { Field } from "@/components/ui/field";
+import { PageHeader } from "@/components/ui/page-header";
+import { SubmitButton } from "@/components/ui/submit-button";
+import { cardClass, inputClass } from "@/components/ui/styles";
+import { may } from "@/lib/auth/authorize";
+import { pageGuard } from "@/lib/auth/page-guard";
+import { requireUser } from "@/lib/auth/session";
+import { getAlert } from "@/lib/services/alerts";
+import { getVisibleStructure } from "@/lib/services/structures";
+import { handleAlertAction } from "../actions";
+
+type Props = { params: Promise<{ id: string }> };
+
+export const metadata: Metadata = { title: "Alert" };
+
+export default async function AlertPage({ params }: Props) {
+  const id = Number((await params).id);
+  const user = await requireUser();
+  const { alert, history } = await pageGuard(Number.isInteger(id) ? getAlert(user, id) : Promise.reject(new Error("bad id")));
+  const structure = await pageGuard(getVisibleStructure(user, alert.structure));
+  const canHandle = await may(user, "alert:acknowledge", structure);
+  const local = (date: Date | string) =>
+    new Intl.DateTimeFormat("en-GB", { timeZone: structure.timezone, dateStyle: "medium", timeStyle: "medium" }).format(new Date(date));
+  return (
+    <>
+      <PageHeader
+        title={`Alert on ${alert.gauge}`}
+        subtitle={
+          <>
+            <Link className="text-accent underline" href={`/structures/${structure.code}`}>
+              {structure.name}
+            </Link>{" "}
+            · opened {local(alert.openedAt)} ({structure.timezone})
+          </>
+        }
+      />
+      <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
+        <section className={`${cardClass} space-y-4 p-4`} aria-labelledby="what">
+          <h2 id="what" className="flex items-center gap-2 font-semibold">
+            <LevelBadge level={alert.level} /> <StateBadge alert={alert} />
+          </h2>
+          <p>{alertSummary(alert)}</p>
+          <p className="text-sm">
+            <Link className="text-accent underline" href={`/structures/${structure.code}/gauges/${encodeURIComponent(alert.gauge)}`}>
+              Open gauge {alert.gauge}
+            </Link>
+          </p>
+          <h3 className="font-semibold">History</h3>
+          <ol className="space-y-2 text-sm" aria-label="Alert history">
+            {history.map((event) => (
+              <li key={event.id} data-testid="alert-event" className="border-l-2 border-slate-300 pl-3 dark:border-slate-600">
+                <span className="font-medium">{event.type}</span> {event.level && <>at {event.level} </>}· {local(event.at)}
+                {event.byLabel && <span className="text-slate-500"> · {event.byLabel}</span>}
+                {event.text && <p className="mt-0.5">{event.text}</p>}
+              </li>
+            ))}
+          </ol>
+        </section>
+        <aside className="space-y-4">
+          {!alert.clearedAt && canHandle && !alert.acknowledgedAt && (
+            <ActionForm action={handleAlertAction} className={`${cardClass} space-y-3 p-4`} label="Acknowledge">
+              <input type="hidden" name="alertId" value={alert.id} />
+              <input type="hidden" name="handling" value="acknowledged" />
+              <Field name="text" label="Acknowledge with a comment" hint="What was checked, and what happens next." required />
+              <SubmitButton pendingLabel="Saving…">Acknowledge</SubmitButton>
+            </ActionForm>
+          )}
+          <ActionForm action={handleAlertAction} className={`${cardClass} space-y-3 p-4`} label="Add a note">
+            <input type="hidden" name="alertId" value={alert.id} />
+            <input type="hidden" name="handling" value="note" />
+            <Field name="text" label="Note" id="alert-note">
+              <textarea id="alert-note" name="text" rows={3} className={inputClass} />
+            </Field>
+            <SubmitButton variant="secondary" pendingLabel="Saving…">Add note</SubmitButton>
+          </ActionForm>
+          {!alert.clearedAt && canHandle && (
+            <ActionForm action={handleAlertAction} className={`${cardClass} space-y-3 p-4`} label="Clear by hand">
+              <input type="hidden" name="alertId" value={alert.id} />
+              <input type="hidden" name="handling" value="cleared" />
+              <Field name="text" label="Clear by hand" hint="For a repaired sensor or a cause dealt with; limit alerts also clear by themselves." required />
+              <SubmitButton variant="danger" pendingLabel="Clearing…">Clear</SubmitButton>
+            </ActionForm>
+          )}
+        </aside>
+      </div>
+      <div className="mt-6">
+        <MonitoringCaution />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,44 @@
+import type { AlertView } from "@/lib/services/alerts";
+
+const LEVEL_STYLE: Record<string, { className: string; symbol: string }> = {
+  watch: { className: "border-watch/50 bg-yellow-50 text-watch dark:bg-yellow-950/40 dark:text-yellow-200", symbol: "◆" },
+  warning: { className: "border-warning/50 bg-orange-50 text-warning dark:bg-orange-950/40 dark:text-orange-200", symbol: "▲" },
+  critical: { className: "border-critical/50 bg-red-50 text-critical dark:bg-red-950/40 dark:text-red-200", symbol: "■" },
+};
+
+/** Level as a word and a shape, so it reads without colour. */
+export function LevelBadge({ level }: { level: string }) {
+  const style = LEVEL_STYLE[level] ?? LEVEL_STYLE.watch!;
+  return (
+    <span className={`inline-flex items-center gap-1 rounded border px-1.5 py-0.5 text-xs font-semibold ${style.className}`}>
+      <span aria-hidden>{style.symbol}</span>
+      {level}
+    </span>
+  );
+}
+
+export function alertStateOf(alert: Pick<AlertView, "clearedAt" | "acknowledgedAt">): "open" | "acknowledged" | "cleared" {
+  if (alert.clearedAt) return "cleared";
+  return alert.acknowledgedAt ? "acknowledged" : "open";
+}
+
+export function StateBadge({ alert }: { alert: Pick<AlertView, "clearedAt" | "acknowledgedAt"> }) {
+  const state = alertStateOf(alert);
+  const className =
+    state === "open"
+      ? "bg-slate-900 text-white dark:bg-white dark:text-slate-900"
+      : state === "acknowledged"
+        ? "bg-slate-200 text-slate-800 dark:bg-slate-700 dark:text-slate-100"
+        : "text-slate-500";
+  return <span className={`rounded px-1.5 py-0.5 text-xs font-medium ${className}`}>{state}</span>;
+}
+
+const QUANTITY_UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "× yield" };
+
+/** What crossed what: "stress 231.4 MPa beyond 200 MPa", or the sensor finding. */
+export function alertSummary(alert: Pick<AlertView, "kind" | "quantity" | "peak" | "bound" | "code" | "message">): string {
+  if (alert.kind === "sensor") return `Sensor: ${alert.code}${alert.message ? ` — ${alert.message}` : ""}`;
+  const unit = QUANTITY_UNIT[alert.quantity ?? ""] ?? "";
+  const digits = alert.quantity === "utilisation" ? 3 : 1;
+  return `${alert.quantity} reached ${alert.peak?.toFixed(digits)} ${unit} (bound ${alert.bound?.toFixed(digits)} ${unit})`;
+}

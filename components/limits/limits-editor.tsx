@@ -1,0 +1,214 @@
+"use client";
+
+import { useState, useTransition } from "react";
+import { FormMessage } from "@/components/ui/form-message";
+import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import type { ActionState } from "@/lib/actions/action-state";
+import type { AlertEpisode } from "@/lib/alerting/episodes";
+import { LEVELS, QUANTITIES, type Limit } from "@/lib/limits";
+
+const UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
+const DAY = 86_400_000;
+
+type Row = { quantity: string; level: string; upper: string; lower: string; hysteresis: string; persistence: string };
+
+const rowOf = (limit: Limit): Row => ({
+  quantity: limit.quantity,
+  level: limit.level,
+  upper: limit.upper?.toString() ?? "",
+  lower: limit.lower?.toString() ?? "",
+  hysteresis: String(limit.hysteresis),
+  persistence: String(limit.persistence),
+});
+
+function numberOrText(text: string): number | string | undefined {
+  const trimmed = text.trim().replace(",", ".");
+  if (trimmed === "") return undefined;
+  return Number.isFinite(Number(trimmed)) ? Number(trimmed) : trimmed;
+}
+
+const payloadOf = (rows: Row[]) => ({
+  limits: rows.map((row) => ({
+    quantity: row.quantity,
+    level: row.level,
+    upper: numberOrText(row.upper),
+    lower: numberOrText(row.lower),
+    hysteresis: numberOrText(row.hysteresis),
+    persistence: numberOrText(row.persistence),
+  })),
+});
+
+type Backtest = { readingsChecked: number; episodes: AlertEpisode[] } | { error: string };
+
+/** The engineer's limit set, with a check of what it would have raised before it is saved. */
+export function LimitsEditor({
+  structureCode,
+  tag,
+  timeZone,
+  initial,
+  canEdit,
+  save,
+}: {
+  structureCode: string;
+  tag: string;
+  timeZone: string;
+  initial: Limit[];
+  canEdit: boolean;
+  save: (payload: unknown) => Promise<ActionState>;
+}) {
+  const [rows, setRows] = useState<Row[]>(initial.map(rowOf));
+  const [state, setState] = useState<ActionState>({ status: "idle" });
+  const [days, setDays] = useState("30");
+  const [backtest, setBacktest] = useState<Backtest | null>(null);
+  const [pending, startTransition] = useTransition();
+  const errors = state.fieldErrors ?? {};
+  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
+
+  const update = (index: number, field: keyof Row, value: string) => setRows((all) => all.map((row, i) => (i === index ? { ...row, [field]: value } : row)));
+
+  async function runBacktest() {
+    const to = Date.now();
+    const response = await fetch(`/api/v1/structures/${structureCode}/gauges/${encodeURIComponent(tag)}/limits/backtest`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ ...payloadOf(rows), from: new Date(to - Number(days) * DAY).toISOString(), to: new Date(to).toISOString() }),
+    });
+    const body = await response.json();
+    setBacktest(response.ok ? body : { error: body.error?.message ?? "The check failed." });
+  }
+
+  function submit() {
+    startTransition(async () => setState(await save(payloadOf(rows))));
+  }
+
+  const cell = (index: number, field: keyof Row, label: string) => {
+    const problem = errors[`limits.${index}.${field}`];
+    return (
+      <td className={tdClass}>
+        <input
+          aria-label={`${label}, limit ${index + 1}`}
+          className={`${inputClass} w-24`}
+          inputMode="decimal"
+          value={rows[index]![field]}
+          disabled={!canEdit}
+          aria-invalid={problem ? true : undefined}
+          onChange={(event) => update(index, field, event.target.value)}
+        />
+        {problem && <p className="mt-1 max-w-48 text-xs text-critical">{problem.join(" ")}</p>}
+      </td>
+    );
+  };
+
+  return (
+    <div className="space-y-6">
+      <div className={`${cardClass} overflow-x-auto`}>
+        <table className={tableClass} aria-label="Limits">
+          <thead>
+            <tr>
+              <th className={thClass}>Quantity</th>
+              <th className={thClass}>Level</th>
+              <th className={thClass}>Upper</th>
+              <th className={thClass}>Lower</th>
+              <th className={thClass}>Dead band</th>
+              <th className={thClass}>Readings in a row</th>
+              <th className={thClass}>
+                <span className="sr-only">Remove</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+            {rows.map((row, index) => (
+              <tr key={index} data-testid="limit-row">
+                <td className={tdClass}>
+                  <select aria-label={`Quantity, limit ${index + 1}`} className={inputClass} value={row.quantity} disabled={!canEdit} onChange={(e) => update(index, "quantity", e.target.value)}>
+                    {QUANTITIES.map((quantity) => (
+                      <option key={quantity} value={quantity}>
+                        {quantity} ({UNIT[quantity]})
+                      </option>
+                    ))}
+                  </select>
+                </td>
+                <td className={tdClass}>
+                  <select aria-label={`Level, limit ${index + 1}`} className={inputClass} value={row.level} disabled={!canEdit} onChange={(e) => update(index, "level", e.target.value)}>
+                    {LEVELS.map((level) => (
+                      <option key={level}>{level}</option>
+                    ))}
+                  </select>
+                  {errors[`limits.${index}.level`] && <p className="mt-1 max-w-48 text-xs text-critical">{errors[`limits.${index}.level`]!.join(" ")}</p>}
+                </td>
+                {cell(index, "upper", "Upper bound")}
+                {cell(index, "lower", "Lower bound")}
+                {cell(index, "hysteresis", "Dead band")}
+                {cell(index, "persistence", "Readings in a row")}
+                <td className={tdClass}>
+                  {canEdit && (
+                    <button type="button" className="text-sm text-critical underline" onClick={() => setRows((all) => all.filter((_, i) => i !== index))}>
+                      Remove
+                    </button>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {rows.length === 0 && <p className="p-4 text-sm text-slate-600">No limits: this gauge raises no limit alerts (sensor faults are still reported).</p>}
+      </div>
+      <p className="text-xs text-slate-600 dark:text-slate-400">
+        Bounds in the quantity&apos;s unit: stress MPa (including the initial stress), strain µε, utilisation as a fraction of yield (0.6 = 60 %). An alert opens after the given
+        number of readings in a row beyond a bound and clears after as many back inside it by the dead band.
+      </p>
+      {canEdit && (
+        <div className="flex flex-wrap items-center gap-3">
+          <button
+            type="button"
+            className={buttonClass("secondary")}
+            onClick={() => setRows((all) => [...all, { quantity: "stress", level: LEVELS[Math.min(all.length, 2)]!, upper: "", lower: "", hysteresis: "0", persistence: "1" }])}
+          >
+            Add a limit
+          </button>
+          <button type="button" className={buttonClass()} onClick={submit} disabled={pending}>
+            {pending ? "Saving…" : "Save limits"}
+          </button>
+          <FormMessage state={state} />
+        </div>
+      )}
+      <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
+        <h2 id="backtest-heading" className="font-semibold">
+          What these limits would have raised
+        </h2>
+        <div className="flex flex-wrap items-end gap-3">
+          <label className="flex flex-col gap-1 text-sm font-medium">
+            Over the last
+            <select className={`${inputClass} w-36`} value={days} onChange={(e) => setDays(e.target.value)}>
+              <option value="7">7 days</option>
+              <option value="30">30 days</option>
+              <option value="90">90 days</option>
+              <option value="365">year</option>
+            </select>
+          </label>
+          <button type="button" className={buttonClass("secondary")} onClick={runBacktest}>
+            Check against stored data
+          </button>
+        </div>
+        <div aria-live="polite" data-testid="backtest-result">
+          {backtest && "error" in backtest && <p className="text-sm text-critical">{backtest.error}</p>}
+          {backtest && "episodes" in backtest && (
+            <>
+              <p className="text-sm">
+                {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")} readings.
+              </p>
+              <ul className="mt-2 space-y-1 text-sm">
+                {backtest.episodes.map((episode) => (
+                  <li key={`${episode.quantity}-${episode.openedAt}`}>
+                    {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {UNIT[episode.quantity]},{" "}
+                    {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
+                  </li>
+                ))}
+              </ul>
+            </>
+          )}
+        </div>
+      </section>
+    </div>
+  );
+}
