@@ -7,12 +7,16 @@ import { MonitoringCaution } from "@/components/ui/caution";
 import { roleAllows } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { listStructuresFor } from "@/lib/services/structures";
+import { structureSummary } from "@/lib/services/status";
+import { StructureGlance } from "@/components/alerts/structure-glance";
 
 export const metadata: Metadata = { title: "Structures" };
 
 export default async function StructuresPage() {
   const user = await requireUser();
   const structures = await listStructuresFor(user);
+  const now = Date.now();
+  const summaries = await Promise.all(structures.map((structure) => structureSummary(structure, now)));
   const canCreate = roleAllows(user.role, "structure:create");
   return (
     <>
@@ -40,7 +44,7 @@ export default async function StructuresPage() {
         </EmptyState>
       ) : (
         <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="Structures">
-          {structures.map((structure) => (
+          {structures.map((structure, index) => (
             <li key={structure.id}>
               <Link
                 href={`/structures/${structure.code}`}
@@ -50,7 +54,7 @@ export default async function StructuresPage() {
                 <p className="font-mono text-xs text-slate-500 dark:text-slate-400">{structure.code}</p>
                 <p className="mt-1 font-semibold">{structure.name}</p>
                 {structure.location && <p className="mt-1 text-sm text-slate-600 dark:text-slate-400">{structure.location}</p>}
-                <p className="mt-3 text-xs text-slate-500 dark:text-slate-400">Local time zone: {structure.timezone}</p>
+                <StructureGlance summary={summaries[index]!} timeZone={structure.timezone} />
               </Link>
             </li>
           ))}

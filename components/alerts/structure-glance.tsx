@@ -1,0 +1,38 @@
+import { formatDistanceStrict } from "date-fns";
+import type { StructureSummary } from "@/lib/services/status";
+import { GaugeStateBadge } from "./state-badge";
+
+/** What an owner needs at a glance: the worst state, what is open, how hard it worked, how fresh the data are. */
+export function StructureGlance({ summary, timeZone }: { summary: StructureSummary; timeZone: string }) {
+  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
+  const open = summary.openAlerts;
+  return (
+    <div className="mt-3 space-y-2 text-sm" data-testid="structure-glance">
+      <div className="flex flex-wrap items-center gap-2">
+        <GaugeStateBadge state={summary.state} />
+        {summary.stale && (
+          <span className="text-xs font-semibold text-critical" data-testid="stale-mark">
+            Data stopped arriving — this is not an all clear
+          </span>
+        )}
+      </div>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-xs">
+        <dt className="text-slate-500 dark:text-slate-400">Open alerts</dt>
+        <dd>
+          {open.critical + open.warning + open.watch === 0 ? "none" : `${open.critical} critical, ${open.warning} warning, ${open.watch} watch`}
+          {summary.sensorAlerts > 0 && `; ${summary.sensorAlerts} sensor`}
+        </dd>
+        <dt className="text-slate-500 dark:text-slate-400">Peak, last 24 h</dt>
+        <dd>{summary.peakUtilisation24h === null ? "—" : `${(summary.peakUtilisation24h * 100).toFixed(0)} % of yield`}</dd>
+        <dt className="text-slate-500 dark:text-slate-400">Last reading</dt>
+        <dd>
+          {summary.lastReadingAt === null
+            ? "none yet"
+            : `${local(summary.lastReadingAt)} (${formatDistanceStrict(summary.lastReadingAt, Date.now(), { addSuffix: true })})`}
+        </dd>
+        <dt className="text-slate-500 dark:text-slate-400">Gauges</dt>
+        <dd>{summary.gaugeCount} active · times in {timeZone}</dd>
+      </dl>
+    </div>
+  );
+}
