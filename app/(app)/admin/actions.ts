@@ -4,8 +4,9 @@ import { z } from "zod";
 import { formAction } from "@/lib/actions/form-action";
 import { addMember, removeMember } from "@/lib/services/memberships";
 import { createToken, revokeToken } from "@/lib/services/tokens";
+import { inviteUser } from "@/lib/services/accounts";
 import { createUser, updateUser } from "@/lib/services/users";
-import { createUserInput, email, role, structureCode, tokenName } from "@/lib/validation";
+import { createUserInput, email, inviteUserInput, role, structureCode, tokenName } from "@/lib/validation";
 
 const userId = z.coerce.number().int().positive();
 
@@ -14,6 +15,15 @@ export const addUserAction = formAction(
   async (input, user) => {
     await createUser(user, input);
     return { message: `${input.name} can now sign in as ${input.email}.` };
+  },
+  "/admin/users",
+);
+
+export const inviteUserAction = formAction(
+  inviteUserInput,
+  async (input, user) => {
+    await inviteUser(user, input);
+    return { message: `Invitation to ${input.email} queued: ${input.name} chooses a password from the e-mailed link.` };
   },
   "/admin/users",
 );

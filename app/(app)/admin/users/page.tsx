@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
 import { format } from "date-fns";
+import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { ROLES } from "@/db/schema";
 import { requirePermission } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
@@ -20,7 +21,11 @@ export default async function UsersPage() {
   const users = await listUsers();
   return (
     <>
-      <PageHeader title="Users" subtitle="Who can sign in, and with which role. Deactivating an account stops its sessions and API tokens at once." />
+      <PageHeader
+        title="Users"
+        subtitle="Who can sign in, and with which role. Deactivating an account stops its sessions and API tokens at once."
+        actions={<Link href="/admin/users/invite" className={buttonClass("secondary")}>Invite by e-mail</Link>}
+      />
       <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
         <div className={`${cardClass} overflow-x-auto`}>
           <table className={tableClass}>
