@@ -50,6 +50,9 @@ export default async function setup(project: TestProject) {
     DATABASE_URL: `file:${path.join(folder, "e2e.db")}`,
     NEXTAUTH_SECRET: "browser-test-secret",
     NEXTAUTH_URL: baseUrl,
+    SMTP_URL: "",
+    // The server's own mail catcher, on a port of its own so a demo running on 2525 is not disturbed.
+    LOCAL_SMTP_PORT: String(await freePort()),
   };
   const seeded = spawnSync("npx", ["tsx", "scripts/seed.ts"], { env, encoding: "utf8" });
   if (seeded.status !== 0) throw new Error(`Seeding failed:\n${seeded.stdout}\n${seeded.stderr}`);
