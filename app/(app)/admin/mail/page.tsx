@@ -37,7 +37,7 @@ function RouteNotice() {
 
 function CaughtList({ messages, openId }: { messages: CaughtMailSummary[]; openId: number | null }) {
   return (
-    <ul className={`${cardClass} divide-y divide-slate-100 overflow-hidden dark:divide-slate-800`} aria-label="Caught messages">
+    <ul className={`${cardClass} h-fit divide-y divide-slate-100 overflow-hidden dark:divide-slate-800`} aria-label="Caught messages">
       {messages.map((m) => (
         <li key={m.id}>
           <Link
