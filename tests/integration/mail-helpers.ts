@@ -1,21 +1,8 @@
-import net from "node:net";
 import { asc, eq } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { caughtMail, mailOutbox } from "@/db/schema";
 import { queueMail, type QueuedMail } from "@/lib/mail/outbox";
 import { startLocalSmtpServer, type LocalSmtpOptions, type LocalSmtpServer } from "@/lib/mail/local-smtp-server";
-
-/** A port nobody listens on right now: for "the relay is down", and to start the relay there later. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
-}
 
 /** Starts the real SMTP catcher and points the app's transport at it, as the demo does. */
 export async function startCatcher(options: Partial<LocalSmtpOptions> = {}): Promise<LocalSmtpServer> {
@@ -55,3 +42,5 @@ export async function clearMail() {
   await getDb().delete(caughtMail);
   await getDb().delete(mailOutbox);
 }
+
+export { freePort } from "../free-port";

@@ -5,6 +5,7 @@ import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
+import { NewUserFields } from "@/components/users/new-user-fields";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { ROLES } from "@/db/schema";
 import { requirePermission } from "@/lib/auth/authorize";
@@ -81,15 +82,7 @@ export default async function UsersPage() {
         </div>
         <ActionForm action={addUserAction} className={`${cardClass} h-fit space-y-3 p-4`} label="Add a user">
               <h2 className="font-semibold">Add a user</h2>
-              <Field name="name" label="Name" required />
-              <Field name="email" label="E-mail" type="email" required />
-              <Field name="role" label="Role">
-                <select id="role" name="role" className={inputClass} defaultValue="technician">
-                  {ROLES.map((role) => (
-                    <option key={role}>{role}</option>
-                  ))}
-                </select>
-              </Field>
+              <NewUserFields defaultRole="technician" />
               <Field name="password" label="First password" type="password" required hint="At least 8 characters; tell it to the person privately." />
               <SubmitButton pendingLabel="Adding…">Add user</SubmitButton>
         </ActionForm>

@@ -1,11 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
-import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { cardClass, inputClass } from "@/components/ui/styles";
-import { ROLES } from "@/db/schema";
+import { cardClass } from "@/components/ui/styles";
+import { NewUserFields } from "@/components/users/new-user-fields";
 import { LINK_LIFETIME_MS } from "@/lib/auth/account-links";
 import { requirePermission } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
@@ -25,15 +24,7 @@ export default async function InviteUserPage() {
         subtitle={`The person gets an e-mail with a link to choose their own password; the link works once, within ${days} days. Until then the account cannot be used.`}
       />
       <ActionForm action={inviteUserAction} className={`${cardClass} max-w-md space-y-3 p-4`} label="Invite by e-mail">
-        <Field name="name" label="Name" required />
-        <Field name="email" label="E-mail" type="email" required />
-        <Field name="role" label="Role">
-          <select id="role" name="role" className={inputClass} defaultValue="owner">
-            {ROLES.map((role) => (
-              <option key={role}>{role}</option>
-            ))}
-          </select>
-        </Field>
+        <NewUserFields defaultRole="owner" />
         <SubmitButton pendingLabel="Inviting…">Send invitation</SubmitButton>
       </ActionForm>
       <p className="mt-4 text-sm">
