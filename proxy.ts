@@ -6,5 +6,5 @@ import { withAuth } from "next-auth/middleware";
 export default withAuth({ pages: { signIn: "/signin" } });
 
 export const config = {
-  matcher: ["/((?!api/|_next/|signin|signout|favicon.ico|icon.svg).*)"],
+  matcher: ["/((?!api/|_next/|signin|signout|reset|welcome|favicon.ico|icon.svg).*)"],
 };

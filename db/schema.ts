@@ -4,10 +4,13 @@ import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from
 export const ROLES = ["admin", "engineer", "technician", "owner"] as const;
 export type Role = (typeof ROLES)[number];
 
-const createdAt = () =>
-  integer("created_at", { mode: "timestamp_ms" })
+/** A millisecond timestamp column that defaults to the moment the row is written. */
+const writtenAt = (name: string) =>
+  integer(name, { mode: "timestamp_ms" })
     .notNull()
     .default(sql`(cast(unixepoch('subsec') * 1000 as integer))`);
+
+const createdAt = () => writtenAt("created_at");
 
 export const users = sqliteTable("users", {
   id: integer("id").primaryKey({ autoIncrement: true }),
@@ -29,6 +32,9 @@ export const structures = sqliteTable("structures", {
   createdAt: createdAt(),
 });
 
+export const ALERT_MAIL_MODES = ["immediate", "digest"] as const;
+export type AlertMailMode = (typeof ALERT_MAIL_MODES)[number];
+
 export const structureMembers = sqliteTable(
   "structure_members",
   {
@@ -38,6 +44,11 @@ export const structureMembers = sqliteTable(
     userId: integer("user_id")
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
+    /**
+     * How this member wants alert e-mails about this structure: one e-mail per alert event, or
+     * one summary a day. Kept on the membership because the choice is per structure.
+     */
+    alertMail: text("alert_mail", { enum: ALERT_MAIL_MODES }).notNull().default("immediate"),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.structureId, t.userId] }), index("structure_members_user").on(t.userId)],
@@ -351,3 +362,79 @@ export const alertEvents = sqliteTable(
 export type GaugeLimit = typeof gaugeLimits.$inferSelect;
 export type Alert = typeof alerts.$inferSelect;
 export type AlertEvent = typeof alertEvents.$inferSelect;
+
+export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report"] as const;
+export type MailKind = (typeof MAIL_KINDS)[number];
+
+export const MAIL_STATES = ["queued", "sending", "sent", "failed"] as const;
+export type MailState = (typeof MAIL_STATES)[number];
+
+/** A file sent with a message, carried in the outbox row itself. */
+export type MailAttachment = { filename: string; contentType: string; contentBase64: string };
+
+/**
+ * Messages waiting for, or done with, the outbox sender (jobs/outbox-sender.ts). Rows are written
+ * in the transaction of whatever caused the message, so the two commit or roll back together.
+ */
+export const mailOutbox = sqliteTable(
+  "mail_outbox",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    toAddress: text("to_address").notNull(),
+    toUserId: integer("to_user_id").references(() => users.id, { onDelete: "set null" }),
+    kind: text("kind", { enum: MAIL_KINDS }).notNull(),
+    /** Names the message for its purpose and recipient: queuing the same key again is a no-op. */
+    dedupeKey: text("dedupe_key").notNull().unique(),
+    subject: text("subject").notNull(),
+    text: text("text").notNull(),
+    html: text("html").notNull(),
+    attachments: text("attachments", { mode: "json" }).$type<MailAttachment[]>(),
+    state: text("state", { enum: MAIL_STATES }).notNull().default("queued"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: writtenAt("next_attempt_at"),
+    /** The SMTP server's answer to the last failed attempt, or why the attempt could not be made. */
+    lastError: text("last_error"),
+    /** Which sender holds the message and until when: another sender may take it only after that. */
+    claimedBy: text("claimed_by"),
+    claimedUntil: integer("claimed_until", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+    sentAt: integer("sent_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("mail_outbox_due").on(t.state, t.nextAttemptAt), index("mail_outbox_created").on(t.createdAt)],
+);
+
+/** What a caught message carried as files: their description only, not their bytes. */
+export type CaughtAttachment = { filename: string | null; contentType: string; size: number };
+
+/** Messages received by the local SMTP server (lib/mail/local-smtp-server.ts), for admins to read. */
+export const caughtMail = sqliteTable(
+  "caught_mail",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    receivedAt: writtenAt("received_at"),
+    envelopeFrom: text("envelope_from"),
+    envelopeTo: text("envelope_to", { mode: "json" }).$type<string[]>().notNull(),
+    messageId: text("message_id"),
+    subject: text("subject"),
+    text: text("text"),
+    html: text("html"),
+    rawSize: integer("raw_size").notNull(),
+    attachments: text("attachments", { mode: "json" }).$type<CaughtAttachment[]>().notNull(),
+  },
+  (t) => [index("caught_mail_received").on(t.receivedAt)],
+);
+
+/** One row per background job: who may run it until when, so several app instances run it once. */
+export const jobLeases = sqliteTable("job_leases", {
+  name: text("name").primaryKey(),
+  holder: text("holder").notNull(),
+  leaseUntil: integer("lease_until", { mode: "timestamp_ms" }).notNull(),
+  lastStartedAt: integer("last_started_at", { mode: "timestamp_ms" }),
+  lastFinishedAt: integer("last_finished_at", { mode: "timestamp_ms" }),
+  /** "ok: …" with the job's own summary, or "error: …". */
+  lastOutcome: text("last_outcome"),
+});
+
+export type OutboxMessage = typeof mailOutbox.$inferSelect;
+export type CaughtMail = typeof caughtMail.$inferSelect;
+export type JobLease = typeof jobLeases.$inferSelect;

@@ -1,9 +1,20 @@
 import { migrateDatabase } from "@/db/migrate";
+import { startMailCatcher } from "@/lib/mail/local-smtp-server";
+import { startJobs } from "./registry";
 
 const globalForStart = globalThis as unknown as { hookelineStarted?: Promise<void> };
 
-/** Runs once per server process: brings the database schema up to date before the first request. */
+async function start() {
+  await migrateDatabase();
+  await startMailCatcher();
+  startJobs();
+}
+
+/**
+ * Runs once per server process: brings the database schema up to date before the first request,
+ * then starts the local mail catcher (when SMTP_URL is unset) and the background jobs.
+ */
 export function startServerServices(): Promise<void> {
-  globalForStart.hookelineStarted ??= migrateDatabase();
+  globalForStart.hookelineStarted ??= start();
   return globalForStart.hookelineStarted;
 }

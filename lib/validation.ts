@@ -65,3 +65,6 @@ export const createUserInput = z.object({
 export type CreateUserInput = z.infer<typeof createUserInput>;
 
 export const tokenName = z.string().trim().min(1, "Name the token after what will use it.").max(100);
+
+export const inviteUserInput = createUserInput.omit({ password: true });
+export type InviteUserInput = z.infer<typeof inviteUserInput>;

@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { signIn } from "next-auth/react";
 import { useState } from "react";
 import { Field } from "@/components/ui/field";
@@ -42,6 +43,9 @@ export function SignInForm() {
       <button type="submit" className={`${buttonClass()} w-full`} disabled={pending} aria-busy={pending}>
         {pending ? "Signing in…" : "Sign in"}
       </button>
+      <Link href="/reset" className="block text-center text-sm font-medium text-accent underline">
+        Forgot your password?
+      </Link>
     </form>
   );
 }

@@ -15,6 +15,7 @@ export function AppHeader({ user }: { user: UserActor }) {
           { href: "/admin/tokens", label: "API tokens" },
         ]
       : []),
+    ...(roleAllows(user.role, "mail:read") ? [{ href: "/admin/mail", label: "Mail" }] : []),
   ];
   return (
     <header className="border-b border-slate-200 bg-white dark:border-slate-800 dark:bg-slate-900">

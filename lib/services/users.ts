@@ -40,10 +40,20 @@ async function requireUserById(id: number): Promise<User> {
   return user;
 }
 
-/** `actor` is null when the command line or the seed acts. */
-export async function createUser(actor: Actor | null, input: CreateUserInput): Promise<UserView> {
-  if (actor) await requirePermission(actor, "users:manage");
-  const passwordHash = await hashPassword(input.password);
+type Transaction = Parameters<Parameters<typeof writeTransaction>[0]>[0];
+type NewUser = Pick<CreateUserInput, "email" | "name" | "role">;
+
+/**
+ * Inserts a user with its audit row, and runs `alongside` in the same transaction (the
+ * invitation e-mail), so the account and what goes with it commit together.
+ */
+export async function insertUser(
+  actor: Actor | null,
+  input: NewUser,
+  passwordHash: string,
+  action: "user.create" | "user.invite",
+  alongside?: (tx: Transaction, user: UserView) => Promise<unknown>,
+): Promise<UserView> {
   return writeTransaction(async (tx) => {
     const [created] = await tx
       .insert(users)
@@ -51,11 +61,12 @@ export async function createUser(actor: Actor | null, input: CreateUserInput): P
       .returning(userViewColumns);
     await recordAudit(tx, {
       actor,
-      action: "user.create",
+      action,
       entityType: "user",
       entityKey: input.email,
       after: { name: input.name, role: input.role },
     });
+    await alongside?.(tx, created!);
     return created!;
   }).catch((error: unknown) => {
     if (isUniqueViolation(error)) {
@@ -63,6 +74,12 @@ export async function createUser(actor: Actor | null, input: CreateUserInput): P
     }
     throw error;
   });
+}
+
+/** `actor` is null when the command line or the seed acts. */
+export async function createUser(actor: Actor | null, input: CreateUserInput): Promise<UserView> {
+  if (actor) await requirePermission(actor, "users:manage");
+  return insertUser(actor, input, await hashPassword(input.password), "user.create");
 }
 
 type UserChange = { role?: Role; active?: boolean };

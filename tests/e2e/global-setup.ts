@@ -1,26 +1,15 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
-import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
+import { freePort } from "../free-port";
 
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     databaseUrl: string;
   }
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
 }
 
 async function waitForServer(url: string, server: ChildProcess, log: () => string) {
@@ -51,6 +40,9 @@ export default async function setup(project: TestProject) {
     FILE_STORAGE_DIR: path.join(folder, "files"),
     NEXTAUTH_SECRET: "browser-test-secret",
     NEXTAUTH_URL: baseUrl,
+    SMTP_URL: "",
+    // The server's own mail catcher, on a port of its own so a demo running on 2525 is not disturbed.
+    LOCAL_SMTP_PORT: String(await freePort()),
   };
   const seeded = spawnSync("npx", ["tsx", "scripts/seed.ts"], { env, encoding: "utf8" });
   if (seeded.status !== 0) throw new Error(`Seeding failed:\n${seeded.stdout}\n${seeded.stderr}`);

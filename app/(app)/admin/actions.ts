@@ -3,8 +3,9 @@
 import { z } from "zod";
 import { formAction } from "@/lib/actions/form-action";
 import { addMember, removeMember } from "@/lib/services/memberships";
+import { inviteUser } from "@/lib/services/accounts";
 import { createUser, updateUser } from "@/lib/services/users";
-import { createUserInput, email, role, structureCode } from "@/lib/validation";
+import { createUserInput, email, inviteUserInput, role, structureCode } from "@/lib/validation";
 
 const userId = z.coerce.number().int().positive();
 
@@ -13,6 +14,15 @@ export const addUserAction = formAction(
   async (input, user) => {
     await createUser(user, input);
     return { message: `${input.name} can now sign in as ${input.email}.` };
+  },
+  "/admin/users",
+);
+
+export const inviteUserAction = formAction(
+  inviteUserInput,
+  async (input, user) => {
+    await inviteUser(user, input);
+    return { message: `Invitation to ${input.email} queued: ${input.name} chooses a password from the e-mailed link.` };
   },
   "/admin/users",
 );

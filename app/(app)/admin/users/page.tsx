@@ -1,10 +1,12 @@
 import type { Metadata } from "next";
 import { format } from "date-fns";
+import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { NewUserFields } from "@/components/users/new-user-fields";
+import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { ROLES } from "@/db/schema";
 import { requirePermission } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
@@ -20,7 +22,11 @@ export default async function UsersPage() {
   const users = await listUsers();
   return (
     <>
-      <PageHeader title="Users" subtitle="Who can sign in, and with which role. Deactivating an account stops its sessions and API tokens at once." />
+      <PageHeader
+        title="Users"
+        subtitle="Who can sign in, and with which role. Deactivating an account stops its sessions and API tokens at once."
+        actions={<Link href="/admin/users/invite" className={buttonClass("secondary")}>Invite by e-mail</Link>}
+      />
       <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
         <div className={`${cardClass} overflow-x-auto`}>
           <table className={tableClass}>
@@ -76,15 +82,7 @@ export default async function UsersPage() {
         </div>
         <ActionForm action={addUserAction} className={`${cardClass} h-fit space-y-3 p-4`} label="Add a user">
               <h2 className="font-semibold">Add a user</h2>
-              <Field name="name" label="Name" required />
-              <Field name="email" label="E-mail" type="email" required />
-              <Field name="role" label="Role">
-                <select id="role" name="role" className={inputClass} defaultValue="technician">
-                  {ROLES.map((role) => (
-                    <option key={role}>{role}</option>
-                  ))}
-                </select>
-              </Field>
+              <NewUserFields defaultRole="technician" />
               <Field name="password" label="First password" type="password" required hint="At least 8 characters; tell it to the person privately." />
               <SubmitButton pendingLabel="Adding…">Add user</SubmitButton>
         </ActionForm>

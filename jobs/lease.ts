@@ -1,0 +1,92 @@
+import { randomBytes } from "node:crypto";
+import os from "node:os";
+import { and, eq, lt, or } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { jobLeases } from "@/db/schema";
+
+/** Who this process is in lease rows: readable in the admin's eyes, unique across restarts. */
+export const PROCESS_HOLDER = `${os.hostname()}:${process.pid}:${randomBytes(3).toString("hex")}`;
+
+/** Renew well before the lease runs out, so a slow database round trip never lets it lapse. */
+export function renewEveryMs(ttlMs: number): number {
+  return Math.max(1_000, Math.floor(ttlMs / 3));
+}
+
+/** Runs under way in this process, by job and holder: the lease row cannot tell two runs of one holder apart. */
+const running = new Set<string>();
+
+/**
+ * Takes the lease `name` in one statement: a new row, or the existing one when its lease has
+ * run out or is already ours. SQLite runs the statement under its write lock, so of two
+ * processes racing here exactly one gets the row back.
+ */
+async function acquire(name: string, holder: string, ttlMs: number): Promise<boolean> {
+  const now = Date.now();
+  const taken = await getDb()
+    .insert(jobLeases)
+    .values({ name, holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now) })
+    .onConflictDoUpdate({
+      target: jobLeases.name,
+      set: { holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now) },
+      setWhere: or(lt(jobLeases.leaseUntil, new Date(now)), eq(jobLeases.holder, holder)),
+    })
+    .returning({ name: jobLeases.name });
+  return taken.length > 0;
+}
+
+async function renew(name: string, holder: string, ttlMs: number): Promise<boolean> {
+  const renewed = await getDb()
+    .update(jobLeases)
+    .set({ leaseUntil: new Date(Date.now() + ttlMs) })
+    .where(and(eq(jobLeases.name, name), eq(jobLeases.holder, holder)))
+    .returning({ name: jobLeases.name });
+  return renewed.length > 0;
+}
+
+async function release(name: string, holder: string, outcome: string) {
+  const now = new Date();
+  await getDb()
+    .update(jobLeases)
+    .set({ leaseUntil: now, lastFinishedAt: now, lastOutcome: outcome })
+    .where(and(eq(jobLeases.name, name), eq(jobLeases.holder, holder)));
+}
+
+/**
+ * Runs `fn` only if this process holds the database lease `name`, so that of several app
+ * instances only one runs a job at a time. The lease is renewed while `fn` runs; if it is lost
+ * anyway (the database was unreachable longer than the lease), `signal` aborts and `fn` should
+ * stop at its next safe point. Answers `fn`'s summary, or null when another holder has the lease.
+ */
+export async function withLease(
+  name: string,
+  ttlMs: number,
+  fn: (signal: AbortSignal) => Promise<string>,
+  holder: string = PROCESS_HOLDER,
+): Promise<string | null> {
+  const run = `${name}\n${holder}`;
+  if (running.has(run)) return null;
+  running.add(run);
+  try {
+    if (!(await acquire(name, holder, ttlMs))) return null;
+    const lost = new AbortController();
+    const timer = setInterval(() => {
+      renew(name, holder, ttlMs).then(
+        (held) => held || lost.abort(new Error(`Lease "${name}" was lost.`)),
+        (error: unknown) => console.error(`Renewing lease "${name}":`, error),
+      );
+    }, renewEveryMs(ttlMs));
+    timer.unref();
+    try {
+      const summary = await fn(lost.signal);
+      await release(name, holder, `ok: ${summary}`);
+      return summary;
+    } catch (error) {
+      await release(name, holder, `error: ${error instanceof Error ? error.message : String(error)}`);
+      throw error;
+    } finally {
+      clearInterval(timer);
+    }
+  } finally {
+    running.delete(run);
+  }
+}

@@ -1,0 +1,56 @@
+import { createTask } from "node-cron";
+import { PROCESS_HOLDER, withLease } from "./lease";
+import { describeSenderResult, runOutboxSender } from "./outbox-sender";
+
+/**
+ * A background job: its node-cron schedule (seconds field first), how long its database lease
+ * lasts before another instance may take over, and what one run does (answering a summary for
+ * job_leases.last_outcome). To add a job, write its module in jobs/ and list it in JOBS.
+ */
+export type Job = {
+  name: string;
+  schedule: string;
+  leaseMs: number;
+  run: (signal: AbortSignal) => Promise<string>;
+};
+
+export const JOBS: Job[] = [
+  {
+    name: "mail-outbox",
+    schedule: "*/5 * * * * *",
+    leaseMs: 60_000,
+    run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
+  },
+];
+
+/** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */
+export function jobsEnabled(): boolean {
+  return process.env.JOBS !== "off";
+}
+
+/**
+ * One run under the job's lease: its summary, null when another holder has the lease, or the
+ * error logged (never thrown into the scheduler) and answered as "error".
+ */
+export async function runJob(job: Job): Promise<string | null> {
+  try {
+    return await withLease(job.name, job.leaseMs, job.run);
+  } catch (error) {
+    console.error(`Job "${job.name}" failed:`, error);
+    return "error";
+  }
+}
+
+const globalForJobs = globalThis as unknown as { hookelineJobsStarted?: boolean };
+
+/** Schedules every job once per process (Next may evaluate this module more than once). */
+export function startJobs(): boolean {
+  if (!jobsEnabled() || globalForJobs.hookelineJobsStarted) return false;
+  globalForJobs.hookelineJobsStarted = true;
+  for (const job of JOBS) {
+    // createTask, then start: node-cron 4's schedule() starts at once and ignores v3's `scheduled: false`.
+    const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true });
+    void task.start();
+  }
+  return true;
+}

@@ -1,0 +1,90 @@
+import type { Level, Quantity } from "@/lib/limits/limit";
+import { formatMicrostrain } from "@/lib/units";
+import { formatInTimeZone } from "./format-time";
+import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
+
+/** What happened to the alert: a bound crossed, a higher level reached, or the value back within bounds. */
+export type AlertMailEvent = "opened" | "escalated" | "cleared";
+
+export type AlertStructure = { code: string; name: string; timezone: string };
+
+/** One alert event as the e-mails tell it, without the structure it belongs to. */
+export type AlertEventFacts = {
+  gauge: { tag: string; label?: string | null; location?: string | null };
+  event: AlertMailEvent;
+  level: Level;
+  quantity: Quantity;
+  /** In the quantity's stored unit: MPa, µε, or utilisation as a ratio (1 = at yield). */
+  value: number;
+  bound: { side: "upper" | "lower"; value: number };
+  at: Date;
+};
+
+export type AlertMailInput = AlertEventFacts & { structure: AlertStructure };
+
+/** Shown in every alert and digest e-mail, as the trade asks. */
+export const ALERT_CAUTION =
+  "What a limit means is the responsibility of the engineer who set it, under local codes. " +
+  "Monitoring supplements inspection and never replaces it; mail can be delayed, so check in the app when data last arrived.";
+
+/** "212.4 MPa", "1,234 µε", "87 % of yield". */
+export function formatQuantityValue(quantity: Quantity, value: number): string {
+  if (quantity === "stress") return `${value.toFixed(1)} MPa`;
+  if (quantity === "strain") return formatMicrostrain(value);
+  return `${Math.round(value * 100)} % of yield`;
+}
+
+export function gaugeChartLink(appUrl: string, structureCode: string, gaugeTag: string): string {
+  return `${appUrl}/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(gaugeTag)}`;
+}
+
+const EVENT_WORDING: Record<AlertMailEvent, string> = {
+  opened: "crossed",
+  escalated: "rose to",
+  cleared: "back within",
+};
+
+/** The wording of one event ("stress crossed the warning limit", value, bound), shared with the digest. */
+export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string } {
+  const value = formatQuantityValue(facts.quantity, facts.value);
+  const bound = `${facts.bound.side} ${formatQuantityValue(facts.quantity, facts.bound.value)}`;
+  const headline = `${facts.quantity} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
+  return { headline, value, bound };
+}
+
+export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail {
+  const { structure, gauge } = input;
+  const { headline, value, bound } = describeAlertEvent(input);
+  const link = gaugeChartLink(appUrl, structure.code, gauge.tag);
+  const levelWord = input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
+  const subject = `${levelWord}: ${structure.code} ${gauge.tag} ${headline} (${value})`;
+  const facts: [string, string][] = [
+    ["Structure", `${structure.name} (${structure.code})`],
+    ["Gauge", gauge.label ? `${gauge.tag}, ${gauge.label}` : gauge.tag],
+    ["Location", gauge.location || "not recorded"],
+    ["Level", input.level],
+    ["Quantity", input.quantity],
+    ["Value", value],
+    ["Bound", bound],
+    ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],
+  ];
+  const opening = `On ${structure.name}, gauge ${gauge.tag}: ${headline}.`;
+  const text = [
+    opening,
+    facts.map(([name, fact]) => `${name}: ${fact}`).join("\n"),
+    `Chart: ${link}`,
+    ALERT_CAUTION,
+  ].join("\n\n");
+  const rows = facts
+    .map(
+      ([name, fact]) =>
+        `<tr><th align="left" style="padding:4px 12px 4px 0;color:#64748b;font-weight:normal">${escapeHtml(name)}</th><td style="padding:4px 0">${escapeHtml(fact)}</td></tr>`,
+    )
+    .join("\n");
+  const html = htmlFrame(
+    subject,
+    [htmlParagraph(opening), `<table style="border-collapse:collapse">${rows}</table>`, htmlButton(link, "Open the chart")].join("\n"),
+    ALERT_CAUTION,
+  );
+  return { subject, text, html };
+}

@@ -1,0 +1,47 @@
+import { ALERT_CAUTION, describeAlertEvent, gaugeChartLink, type AlertEventFacts, type AlertStructure } from "./alert";
+import { formatInTimeZone } from "./format-time";
+import { escapeHtml, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
+
+export type DigestMailInput = {
+  recipientName: string;
+  /** The period the digest covers, as the reader should see it ("2026-07-01"). */
+  period: string;
+  structures: { structure: AlertStructure; events: AlertEventFacts[] }[];
+};
+
+/** One e-mail a day for people who chose the digest: every alert event of their structures, oldest first. */
+export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMail {
+  const total = input.structures.reduce((sum, s) => sum + s.events.length, 0);
+  const subject = `Hookeline daily summary ${input.period}: ${total === 1 ? "1 alert event" : `${total} alert events`}`;
+  const sections = input.structures.map(({ structure, events }) => {
+    const ordered = [...events].sort((a, b) => a.at.getTime() - b.at.getTime());
+    const lines = ordered.map((facts) => {
+      const { headline, value, bound } = describeAlertEvent(facts);
+      return {
+        time: formatInTimeZone(facts.at, structure.timezone),
+        gauge: facts.gauge.tag,
+        what: `${headline}: ${value} (bound ${bound})`,
+        link: gaugeChartLink(appUrl, structure.code, facts.gauge.tag),
+      };
+    });
+    return { title: `${structure.name} (${structure.code}), times in ${structure.timezone}`, lines };
+  });
+  const opening = `Hello ${input.recipientName}, here are the alert events of ${input.period} on the structures you follow.`;
+  const text = [
+    opening,
+    ...sections.map((s) =>
+      [s.title, ...(s.lines.length ? s.lines.map((l) => `- ${l.time}  ${l.gauge}  ${l.what}\n  ${l.link}`) : ["- no alert events"])].join("\n"),
+    ),
+    ALERT_CAUTION,
+  ].join("\n\n");
+  const htmlSections = sections.map((s) => {
+    const items = s.lines.length
+      ? s.lines
+          .map((l) => `<li>${escapeHtml(l.time)} <a href="${escapeHtml(l.link)}">${escapeHtml(l.gauge)}</a> ${escapeHtml(l.what)}</li>`)
+          .join("\n")
+      : "<li>no alert events</li>";
+    return `<h2 style="font-size:16px;margin:20px 0 8px">${escapeHtml(s.title)}</h2>\n<ul style="padding-left:20px;margin:0">${items}</ul>`;
+  });
+  const html = htmlFrame(subject, [htmlParagraph(opening), ...htmlSections].join("\n"), ALERT_CAUTION);
+  return { subject, text, html };
+}
