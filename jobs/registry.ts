@@ -1,6 +1,7 @@
 import { createTask } from "node-cron";
 import { PROCESS_HOLDER, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";
+import { runStaleWatch } from "./stale-watch";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -21,6 +22,7 @@ export const JOBS: Job[] = [
     leaseMs: 60_000,
     run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
   },
+  { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
 ];
 
 /** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */

@@ -10,6 +10,7 @@ import {
   type QuantityEvent,
 } from "@/lib/alerting/evaluate-gauge";
 import type { Limit, SensorFinding } from "@/lib/limits";
+import { queueAlertMails } from "./alert-mail";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -72,8 +73,10 @@ async function alreadyRecorded(tx: Tx, gaugeId: number, event: QuantityEvent): P
   return rows.length > 0;
 }
 
-/** An alert whose e-mails must go out, with what happened to it. */
-export type Notification = { alertId: number; type: "opened" | "escalated" | "cleared" };
+/** An alert event whose e-mails must go out. */
+export type Notification =
+  | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: QuantityEvent }
+  | { kind: "sensor"; alertId: number; type: "opened" | "cleared"; code: string; message: string; time: number };
 
 async function applyLimitEvent(tx: Tx, gauge: Gauge, event: QuantityEvent, notifications: Notification[], counts: AlertCounts) {
   const at = new Date(event.time);
@@ -95,7 +98,7 @@ async function applyLimitEvent(tx: Tx, gauge: Gauge, event: QuantityEvent, notif
   }
   await tx.insert(alertEvents).values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" });
   counts[event.type] += 1;
-  notifications.push({ alertId, type: event.type });
+  notifications.push({ kind: "limit", alertId, type: event.type, event });
 }
 
 async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
@@ -105,7 +108,7 @@ async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, 
     if (!open) return;
     await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
     await tx.insert(alertEvents).values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message });
-    notifications.push({ alertId: open.id, type: "cleared" });
+    notifications.push({ kind: "sensor", alertId: open.id, type: "cleared", code: finding.code, message: finding.message, time: finding.time });
     return;
   }
   // A sensor already under an open alert for the same fault is not alerted again.
@@ -115,7 +118,17 @@ async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, 
     .values({ structureId: gauge.structureId, gaugeId: gauge.id, kind: "sensor", level: "warning", code: finding.code, message: finding.message, openedAt: at })
     .returning({ id: alerts.id });
   await tx.insert(alertEvents).values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message });
-  notifications.push({ alertId: created!.id, type: "opened" });
+  notifications.push({ kind: "sensor", alertId: created!.id, type: "opened", code: finding.code, message: finding.message, time: finding.time });
+}
+
+/** Data arriving again ends a "no data" alert. */
+async function clearStaleAlert(tx: Tx, gauge: Gauge, time: number, notifications: Notification[]) {
+  const open = await openAlertOf(tx, gauge.id, { kind: "sensor", code: "stale" });
+  if (!open || open.openedAt.getTime() > time) return;
+  const message = "Readings are arriving again.";
+  await tx.update(alerts).set({ clearedAt: new Date(time) }).where(eq(alerts.id, open.id));
+  await tx.insert(alertEvents).values({ alertId: open.id, type: "cleared", at: new Date(time), byLabel: "evaluation on ingest", text: message });
+  notifications.push({ kind: "sensor", alertId: open.id, type: "cleared", code: "stale", message, time });
 }
 
 async function storedReadingsAfter(tx: Tx, gaugeId: number, after: number): Promise<EvaluatedReading[]> {
@@ -173,7 +186,17 @@ async function applyEvaluation(
     await applyLimitEvent(tx, gauge, event, notifications, counts);
   }
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
+  if (batch.length > 0) await clearStaleAlert(tx, gauge, batch.at(-1)!.time, notifications);
   const lastTime = result.state.health.lastTime;
   await saveState(tx, gauge.id, withCheckpoint(stored, result.state, lastTime), lastTime);
+  await queueAlertMails(tx, gauge, notifications);
   return { counts, notifications };
+}
+
+/** Raises (or resolves) one sensor finding found outside ingestion, such as a gauge gone silent. */
+export async function raiseSensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding): Promise<Notification[]> {
+  const notifications: Notification[] = [];
+  await applySensorFinding(tx, gauge, finding, notifications);
+  await queueAlertMails(tx, gauge, notifications);
+  return notifications;
 }

@@ -4,7 +4,8 @@ import * as backtestRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/limi
 import * as alertsRoute from "@/app/api/v1/structures/[code]/alerts/route";
 import * as acknowledgeRoute from "@/app/api/v1/alerts/[id]/acknowledge/route";
 import { getDb, writeTransaction } from "@/db/client";
-import { readings } from "@/db/schema";
+import { alerts, mailOutbox, readings } from "@/db/schema";
+import { runStaleWatch } from "@/jobs/stale-watch";
 import type { EvaluatedReading } from "@/lib/alerting/evaluate-gauge";
 import { evaluateInsertedReadings } from "@/lib/services/alert-raising";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
@@ -106,6 +107,11 @@ describe("alerts raised on ingest", () => {
     expect(second.counts).toEqual({ opened: 0, escalated: 1, cleared: 0 });
     const [open] = await alertList("open");
     expect(open).toMatchObject({ level: "critical", peak: 250, clearedAt: null });
+    // One e-mail per owner and engineer of the structure for each event, queued with it (contract).
+    const queued = await getDb().select().from(mailOutbox);
+    expect(queued.map((m) => m.toAddress).sort()).toEqual(["engineer@test.example", "engineer@test.example", "owner@test.example", "owner@test.example"]);
+    expect(queued[0]!.subject).toMatch(/^WATCH: BR G1 stress crossed the watch limit/);
+    expect(queued[0]!.text).toContain("responsibility of the engineer");
     const third = await ingest([90, 80], 5);
     expect(third.counts).toEqual({ opened: 0, escalated: 0, cleared: 1 });
     expect(await alertList("open")).toEqual([]);
@@ -154,3 +160,17 @@ describe("alerts raised on ingest", () => {
 async function countReadings() {
   return (await getDb().select().from(readings)).length;
 }
+
+describe("data that stop arriving", () => {
+  it("raises one sensor alert when a gauge falls silent, and ingestion clears it", async () => {
+    const lastTime = T0 + 23 * TEN_MINUTES;
+    const quiet = await runStaleWatch(lastTime + 20 * TEN_MINUTES);
+    expect(quiet).toMatch(/1 newly stale/);
+    expect(await runStaleWatch(lastTime + 30 * TEN_MINUTES)).toMatch(/0 newly stale/);
+    const [stale] = (await getDb().select().from(alerts)).filter((alert) => alert.code === "stale");
+    expect(stale).toMatchObject({ kind: "sensor", clearedAt: null });
+    await ingest([30], 60);
+    const [after] = (await getDb().select().from(alerts)).filter((alert) => alert.code === "stale");
+    expect(after!.clearedAt).not.toBeNull();
+  });
+});
