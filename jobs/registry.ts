@@ -1,6 +1,7 @@
 import { createTask } from "node-cron";
 import { PROCESS_HOLDER, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";
+import { runDailyDigest } from "./daily-digest";
 import { runStaleWatch } from "./stale-watch";
 
 /**
@@ -23,6 +24,7 @@ export const JOBS: Job[] = [
     run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
   },
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
+  { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
 ];
 
 /** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */

@@ -1,11 +1,11 @@
 import { and, asc, eq } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
 import { structureMembers, structures, users } from "@/db/schema";
-import type { Actor } from "@/lib/auth/actor";
+import type { Actor, UserActor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError, notFound } from "@/lib/errors";
 import { recordAudit } from "./audit";
-import { findStructureByCode } from "./structures";
+import { findStructureByCode, getVisibleStructure } from "./structures";
 import { findUserByEmail } from "./users";
 
 export type MembershipView = {
@@ -78,4 +78,24 @@ export async function removeMember(actor: Actor, email: string, structureCode: s
       before: { email: user.email, structure: structure.code },
     });
   });
+}
+
+/** A member's own choice: each alert e-mail as it happens, or one daily digest. */
+export async function setAlertMailMode(actor: UserActor, structureCode: string, mode: "immediate" | "digest"): Promise<void> {
+  const structure = await getVisibleStructure(actor, structureCode);
+  const updated = await getDb()
+    .update(structureMembers)
+    .set({ alertMail: mode })
+    .where(and(eq(structureMembers.structureId, structure.id), eq(structureMembers.userId, actor.id)))
+    .returning({ userId: structureMembers.userId });
+  if (updated.length === 0) throw new AppError("bad_request", `You are not a member of ${structure.code}, so you receive no alert e-mails for it.`);
+}
+
+export async function alertMailModeOf(userId: number, structureId: number): Promise<"immediate" | "digest" | null> {
+  const [row] = await getDb()
+    .select({ mode: structureMembers.alertMail })
+    .from(structureMembers)
+    .where(and(eq(structureMembers.structureId, structureId), eq(structureMembers.userId, userId)))
+    .limit(1);
+  return row?.mode ?? null;
 }

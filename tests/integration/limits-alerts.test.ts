@@ -6,6 +6,8 @@ import * as acknowledgeRoute from "@/app/api/v1/alerts/[id]/acknowledge/route";
 import { getDb, writeTransaction } from "@/db/client";
 import { alerts, mailOutbox, readings } from "@/db/schema";
 import { runStaleWatch } from "@/jobs/stale-watch";
+import { runDailyDigest } from "@/jobs/daily-digest";
+import { setAlertMailMode } from "@/lib/services/memberships";
 import type { EvaluatedReading } from "@/lib/alerting/evaluate-gauge";
 import { evaluateInsertedReadings } from "@/lib/services/alert-raising";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
@@ -14,6 +16,7 @@ import { apiRequest, makeStructure, makeUser, params, userToken } from "./helper
 
 const tokens: Record<string, string> = {};
 let engineer: UserActor;
+let owner: UserActor;
 const T0 = Date.UTC(2026, 10, 1);
 const TEN_MINUTES = 600_000;
 
@@ -27,7 +30,7 @@ const limitSet = [
 beforeAll(async () => {
   engineer = await makeUser("engineer");
   const technician = await makeUser("technician");
-  const owner = await makeUser("owner");
+  owner = await makeUser("owner");
   await makeStructure("BR", [engineer, technician, owner]);
   for (const user of [engineer, technician, owner]) tokens[user.role] = await userToken(user.email);
   await createGauge(engineer, "BR", {
@@ -172,5 +175,18 @@ describe("data that stop arriving", () => {
     await ingest([30], 60);
     const [after] = (await getDb().select().from(alerts)).filter((alert) => alert.code === "stale");
     expect(after!.clearedAt).not.toBeNull();
+  });
+});
+
+describe("the daily digest", () => {
+  it("sends one digest of the day's events to those who chose it, and none twice", async () => {
+    await setAlertMailMode(owner, "BR", "digest");
+    const nextDay = T0 + 86_400_000 + 6 * 3_600_000;
+    expect(await runDailyDigest(nextDay)).toMatch(/1 digests queued/);
+    expect(await runDailyDigest(nextDay)).toMatch(/0 digests queued/);
+    const digests = (await getDb().select().from(mailOutbox)).filter((mail) => mail.kind === "digest");
+    expect(digests).toHaveLength(1);
+    expect(digests[0]).toMatchObject({ toAddress: "owner@test.example" });
+    expect(digests[0]!.text).toContain("G1");
   });
 });

@@ -11,7 +11,7 @@ import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { buttonClass, cardClass } from "@/components/ui/styles";
+import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { createTokenAction } from "@/lib/actions/token-actions";
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
@@ -21,6 +21,8 @@ import { listGauges } from "@/lib/services/gauges";
 import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
+import { alertMailModeOf } from "@/lib/services/memberships";
+import { alertMailAction } from "./gauges/actions";
 
 type Props = { params: Promise<{ code: string }> };
 
@@ -54,6 +56,7 @@ export default async function StructurePage({ params }: Props) {
     may(user, "token:manage", structure),
   ]);
   const tokens = canManageTokens ? await listLoggerTokens(user, code) : [];
+  const mailMode = await alertMailModeOf(user.id, structure.id);
   return (
     <div className="space-y-8">
       <PageHeader
@@ -95,6 +98,18 @@ export default async function StructurePage({ params }: Props) {
         }
       >
         <AlertTable alerts={recentAlerts} timeZones={{ [structure.code]: structure.timezone }} />
+        {mailMode && (user.role === "owner" || user.role === "engineer") && (
+          <ActionForm action={alertMailAction} className="flex flex-wrap items-end gap-3" label="My alert e-mails">
+            <input type="hidden" name="code" value={structure.code} />
+            <Field name="mode" label="My alert e-mails for this structure" id="alert-mail-mode">
+              <select id="alert-mail-mode" name="mode" defaultValue={mailMode} className={`${inputClass} w-64`}>
+                <option value="immediate">Each alert as it happens</option>
+                <option value="digest">One digest a day</option>
+              </select>
+            </Field>
+            <SubmitButton variant="secondary" pendingLabel="Saving…">Save</SubmitButton>
+          </ActionForm>
+        )}
       </Section>
       <StructureDrawings user={user} structure={structure} />
       <Section title="Rosettes" id="rosettes-heading">

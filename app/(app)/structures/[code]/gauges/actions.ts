@@ -7,6 +7,7 @@ import { gaugeInput, gaugePatch, rosetteInput, zeroInput } from "@/lib/gauges/sc
 import { createRosette } from "@/lib/services/rosettes";
 import { limitsBody } from "@/lib/alerting/schema";
 import { replaceLimits } from "@/lib/services/limits";
+import { setAlertMailMode } from "@/lib/services/memberships";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
 import { optionalText } from "@/lib/validation";
 import { parseWith } from "@/lib/api/http";
@@ -109,3 +110,12 @@ export async function saveLimitsAction(code: string, tag: string, payload: unkno
     structurePath(code),
   );
 }
+
+export const alertMailAction = formAction(
+  z.object({ code: z.string(), mode: z.enum(["immediate", "digest"]) }),
+  async ({ code, mode }, user) => {
+    await setAlertMailMode(user, code, mode);
+    return { message: mode === "immediate" ? "You will get each alert e-mail as it happens." : "You will get one digest a day." };
+  },
+  "/structures",
+);
