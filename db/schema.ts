@@ -19,6 +19,8 @@ export const users = sqliteTable("users", {
   role: text("role", { enum: ROLES }).notNull(),
   passwordHash: text("password_hash").notNull(),
   active: integer("active", { mode: "boolean" }).notNull().default(true),
+  /** Display units in the app: SI (MPa, °C) or US customary (ksi, °F); the API is always SI. */
+  units: text("units", { enum: ["si", "us"] }).notNull().default("si"),
   createdAt: createdAt(),
 });
 

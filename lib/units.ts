@@ -50,3 +50,18 @@ export function formatMicrostrain(microstrain: number, fractionDigits = 0): stri
     maximumFractionDigits: fractionDigits,
   })} µε`;
 }
+
+export type UnitSystem = "si" | "us";
+
+/** The units a person reads stresses and temperatures in; strain is µε in both systems. */
+export function displayUnits(system: UnitSystem): { stress: StressUnit; temperature: TemperatureUnit } {
+  return system === "us" ? { stress: "ksi", temperature: "°F" } : { stress: "MPa", temperature: "°C" };
+}
+
+/** A stored SI value (stress MPa, strain µε, temperature °C) in the person's units, with the unit. */
+export function inDisplayUnits(system: UnitSystem, quantity: "stress" | "strain" | "temperature", value: number): { value: number; unit: string } {
+  const units = displayUnits(system);
+  if (quantity === "stress") return { value: stressIn(units.stress, value), unit: units.stress };
+  if (quantity === "temperature") return { value: temperatureIn(units.temperature, value), unit: units.temperature };
+  return { value, unit: "µε" };
+}

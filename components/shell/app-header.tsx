@@ -1,10 +1,12 @@
 import Link from "next/link";
 import type { UserActor } from "@/lib/auth/actor";
 import { roleAllows } from "@/lib/auth/permissions";
+import type { UnitSystem } from "@/lib/units";
+import { UnitsSwitch } from "@/components/units/units-switch";
 
 const ROLE_NAMES = { admin: "Administrator", engineer: "Engineer", technician: "Technician", owner: "Owner" } as const;
 
-export function AppHeader({ user }: { user: UserActor }) {
+export function AppHeader({ user, units }: { user: UserActor; units: UnitSystem }) {
   const links = [
     { href: "/", label: "Structures" },
     { href: "/alerts", label: "Alerts" },
@@ -39,6 +41,7 @@ export function AppHeader({ user }: { user: UserActor }) {
           ))}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm">
+          <UnitsSwitch units={units} />
           <span className="hidden text-right leading-tight sm:block">
             <span className="block font-medium" data-testid="signed-in-name">{user.name}</span>
             <span className="block text-xs text-slate-500 dark:text-slate-400">{ROLE_NAMES[user.role]}</span>

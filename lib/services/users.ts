@@ -1,7 +1,8 @@
 import { asc, eq } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
 import { users, type Role, type User } from "@/db/schema";
-import type { Actor } from "@/lib/auth/actor";
+import type { Actor, UserActor } from "@/lib/auth/actor";
+import type { UnitSystem } from "@/lib/units";
 import { requirePermission } from "@/lib/auth/authorize";
 import { hashPassword } from "@/lib/auth/passwords";
 import { AppError, notFound } from "@/lib/errors";
@@ -97,4 +98,14 @@ export async function updateUser(actor: Actor, userId: number, change: UserChang
     await tx.update(users).set(change).where(eq(users.id, userId));
     await recordAudit(tx, { actor, action: "user.update", entityType: "user", entityKey: user.email, before, after });
   });
+}
+
+export async function unitsOf(userId: number): Promise<UnitSystem> {
+  const [row] = await getDb().select({ units: users.units }).from(users).where(eq(users.id, userId)).limit(1);
+  return row?.units ?? "si";
+}
+
+/** Everyone chooses their own display units; the API stays SI. */
+export async function setUnits(actor: UserActor, units: UnitSystem): Promise<void> {
+  await getDb().update(users).set({ units }).where(eq(users.id, actor.id));
 }

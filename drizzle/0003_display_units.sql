@@ -1,0 +1,1 @@
+ALTER TABLE `users` ADD `units` text DEFAULT 'si' NOT NULL;
