@@ -1,0 +1,1 @@
+ALTER TABLE `gauges` ADD `detail_category` real;
