@@ -1,12 +1,15 @@
 import { z } from "zod";
 import { createStructureInput } from "@/lib/validation";
-import { errorSchema, structureDetailSchema, structureListSchema, structureSchema } from "./schemas";
+import { fatigueQuery } from "./fatigue-query";
+import { errorSchema, gaugeFatigueSchema, structureDetailSchema, structureListSchema, structureSchema } from "./schemas";
 
 type Operation = {
   summary: string;
   roles?: string;
   request?: z.ZodType;
   response: { status: number; schema: z.ZodType; description: string };
+  /** Another representation of the same resource, chosen with Accept or a query parameter. */
+  alternative?: { contentType: string; description: string };
   errors: number[];
   parameters?: { name: string; in: "path" | "query"; description: string }[];
 };
@@ -22,6 +25,11 @@ const ERROR_MEANING: Record<number, string> = {
 };
 
 const codeParameter = { name: "code", in: "path" as const, description: "Structure code" };
+const tagParameter = { name: "tag", in: "path" as const, description: "Gauge tag" };
+
+/** Query parameters with the descriptions their schema carries. */
+const queryParameters = (schema: z.ZodObject) =>
+  Object.entries(schema.shape).map(([name, field]) => ({ name, in: "query" as const, description: String(z.globalRegistry.get(field as z.ZodType)?.description ?? "") }));
 
 const OPERATIONS: Record<string, Record<string, Operation>> = {
   "/structures": {
@@ -44,6 +52,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       parameters: [codeParameter],
       response: { status: 200, schema: structureDetailSchema, description: "The structure" },
       errors: [401, 404],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/fatigue": {
+    get: {
+      summary:
+        "Fatigue of a gauge over [from, to): rainflow counting (ASTM E1049) of the stored stress, S-N curve of the detail category " +
+        "(EN 1993-1-9 shape), Palmgren–Miner damage, rate per year and implied life. Readings beyond the gauge's rated range are left out.",
+      parameters: [codeParameter, tagParameter, ...queryParameters(fatigueQuery.in)],
+      response: { status: 200, schema: gaugeFatigueSchema, description: "The fatigue figures of the period" },
+      alternative: {
+        contentType: "text/csv",
+        description: "With format=csv or Accept: text/csv: the rainflow matrix, rows by range bin upper edge (MPa), columns by mean bin centre (MPa), cycles in the cells",
+      },
+      errors: [400, 401, 404],
     },
   },
 };
@@ -70,7 +92,10 @@ function describeOperation(operation: Operation) {
     responses: {
       [String(operation.response.status)]: {
         description: operation.response.description,
-        content: { "application/json": { schema: jsonSchema(operation.response.schema, "output") } },
+        content: {
+          "application/json": { schema: jsonSchema(operation.response.schema, "output") },
+          ...(operation.alternative ? { [operation.alternative.contentType]: { schema: { type: "string", description: operation.alternative.description } } } : {}),
+        },
       },
       ...errorResponses,
     },
