@@ -23,3 +23,4 @@ export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } 
 export { fatigueSummary, type FatigueSummary } from "./summary";
 export { createFatigueTally, type FatigueTally } from "./tally";
 export { rainflowMatrixCsv } from "./matrix-csv";
+export { formatScientific } from "./format";
