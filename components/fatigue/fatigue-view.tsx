@@ -170,7 +170,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
         {figures.map(([label, value, note]) => (
           <div key={label} className={`${cardClass} p-4`}>
             <dt className="text-sm text-slate-500 dark:text-slate-400">{label}</dt>
-            <dd className="mt-1 font-mono text-2xl font-semibold" data-testid={label === "Damage in the period" ? "fatigue-damage" : undefined}>
+            <dd className="mt-1 text-2xl font-semibold tabular-nums" data-testid={label === "Damage in the period" ? "fatigue-damage" : undefined}>
               {value}
             </dd>
             <dd className="mt-1 text-xs text-slate-500 dark:text-slate-400">{note}</dd>

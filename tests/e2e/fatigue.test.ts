@@ -79,8 +79,7 @@ describe("the fatigue view", () => {
     // The last 30 days hold the whole history; the expected figure comes from the tested fatigue core.
     await expect(fatigue.damage().textContent({ timeout: 20_000 })).resolves.toBe(formatScientific(fatigueSummary(rainflow(history), 71).damage));
     await expect(page.getByLabel("Detail category").inputValue()).resolves.toBe("71");
-    await page.getByText("Stress range Δσ (MPa)").waitFor();
-    await page.getByText("Cycles (log scale)").waitFor();
+    await page.getByRole("img", { name: /cycles \(log scale\) against stress range Δσ in MPa/ }).waitFor();
     await expect.poll(() => fatigue.barPixels()).toBeGreaterThan(50);
     await page.getByText(/depends on the detail category the engineer chose/).waitFor();
     await page.getByText(/nominal stress ranges at the detail/).waitFor();
@@ -94,7 +93,7 @@ describe("the fatigue view", () => {
     expect(overflow).toBeLessThanOrEqual(0);
     await saveScreenshot(page, "fatigue-phone");
 
-    await page.getByLabel("Period").selectOption("custom");
+    await page.getByLabel("Period", { exact: true }).selectOption("custom");
     await page.getByLabel("First day").fill("2024-01-01");
     await page.getByLabel("Last day").fill("2024-01-31");
     await page.getByText("No readings in this period").waitFor();
