@@ -99,18 +99,8 @@ export function FatigueView({ apiPath, gaugeCategory }: Props) {
         </div>
         {preset === "custom" && (
           <div className="grid grid-cols-2 gap-3 sm:col-span-2">
-            <div className="space-y-1">
-              <label htmlFor="fatigue-from" className="block text-sm font-medium">
-                First day
-              </label>
-              <input id="fatigue-from" type="date" className={inputClass} value={fromDay} onChange={(event) => setFromDay(event.target.value)} />
-            </div>
-            <div className="space-y-1">
-              <label htmlFor="fatigue-to" className="block text-sm font-medium">
-                Last day
-              </label>
-              <input id="fatigue-to" type="date" className={inputClass} value={toDay} onChange={(event) => setToDay(event.target.value)} />
-            </div>
+            <DayInput id="fatigue-from" label="First day" value={fromDay} onChange={setFromDay} />
+            <DayInput id="fatigue-to" label="Last day" value={toDay} onChange={setToDay} />
             <p className="col-span-2 text-xs text-slate-500 dark:text-slate-400">
               Whole days in your device&apos;s time, the last day included.
               {!period && <span className="ml-1 font-medium text-critical">Choose both days, the first not after the last.</span>}
@@ -139,6 +129,17 @@ export function FatigueView({ apiPath, gaugeCategory }: Props) {
           <FatigueResults fatigue={data} csvUrl={`${apiPath}?${new URLSearchParams({ from: data.from, to: data.to, category: String(data.category), format: "csv" })}`} />
         </div>
       )}
+    </div>
+  );
+}
+
+function DayInput({ id, label, value, onChange }: { id: string; label: string; value: string; onChange: (day: string) => void }) {
+  return (
+    <div className="space-y-1">
+      <label htmlFor={id} className="block text-sm font-medium">
+        {label}
+      </label>
+      <input id={id} type="date" className={inputClass} value={value} onChange={(event) => onChange(event.target.value)} />
     </div>
   );
 }
