@@ -36,6 +36,7 @@ const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "
   zero: { value: 0, temperature: 11.5 },
   expectedInterval: 600,
   ratedRange: 3000,
+  detailCategory: null,
   ...fields,
 });
 
@@ -53,6 +54,7 @@ const vibratingWire = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "i
   initialStress: 0,
   expectedInterval: 600,
   ratedRange: 3000,
+  detailCategory: null,
   ...fields,
 });
 

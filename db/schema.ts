@@ -151,6 +151,8 @@ export const gauges = sqliteTable(
     expectedInterval: integer("expected_interval"),
     /** µε either side of zero the gauge is rated for, when known. */
     ratedRange: real("rated_range"),
+    /** Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null until an engineer has assessed the detail. */
+    detailCategory: real("detail_category"),
     status: text("status", { enum: GAUGE_STATUSES }).notNull().default("active"),
     retiredAt: integer("retired_at", { mode: "timestamp_ms" }),
     /** The failed gauge this one replaced at the same location, so the location's record reads as one. */

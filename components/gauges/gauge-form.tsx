@@ -7,6 +7,7 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import type { ActionState } from "@/lib/actions/action-state";
 import { COEFFICIENT_KEYS, applicableFields, gaugePayloadOf, type GaugeFormValues } from "@/lib/gauges/form-values";
 import { previewConversion } from "@/lib/gauges/preview";
+import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { BRIDGES, FOIL_INPUTS, MATERIALS, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
 
 export type GaugeFormMode = "register" | "edit" | "replace";
@@ -258,6 +259,12 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {input("material.alpha", "Expansion coefficient α", { unit: "µε/°C", required: true })}
               {input("material.yield", "Yield / proportional limit", { unit: "MPa", hint: "Stresses beyond it are flagged; empty for concrete." })}
               {input("initialStress", "Initial (dead-load) stress", { unit: "MPa", hint: "Present when the gauge was zeroed; added to computed stress." })}
+              {select(
+                "detailCategory",
+                "Fatigue detail category (Δσ_C at 2×10⁶ cycles, MPa)",
+                [["", "Not assessed"], ...DETAIL_CATEGORY_VALUES.map((category): [string, string] => [String(category), `${category} MPa`])],
+                "Chosen by the engineer for the detail at the gauge; the fatigue view uses it by default.",
+              )}
             </div>
           </>,
         )}

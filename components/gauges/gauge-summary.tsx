@@ -32,6 +32,7 @@ export function GaugeSummary({ gauge }: { gauge: GaugeView }) {
     ["Initial stress", num(gauge.initialStress, "MPa")],
     ["Rated range", gauge.ratedRange ? `± ${num(gauge.ratedRange, "µε")}` : "—"],
     ["Expected interval", num(gauge.expectedInterval, "s")],
+    ["Fatigue detail category", gauge.detailCategory ? `Δσ_C = ${num(gauge.detailCategory, "MPa")} at 2×10⁶ cycles` : "Not assessed"],
   ];
   return (
     <dl className="grid grid-cols-1 gap-x-6 gap-y-2 text-sm sm:grid-cols-[auto_1fr]">

@@ -1,5 +1,5 @@
-/** The cautions every screen with results on it must carry (see the trade brief). */
-export function MonitoringCaution() {
+/** The cautions every screen with results on it must carry (see the trade brief); `children` adds a screen's own items first. */
+export function MonitoringCaution({ children }: { children?: React.ReactNode }) {
   return (
     <aside
       aria-label="Caution"
@@ -7,6 +7,7 @@ export function MonitoringCaution() {
     >
       <p className="font-semibold">Read with care</p>
       <ul className="mt-1 list-disc space-y-0.5 pl-5">
+        {children}
         <li>Monitoring supplements inspection; it never replaces it.</li>
         <li>
           Limits and what they mean are the responsibility of a licensed engineer under local codes; the

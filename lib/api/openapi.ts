@@ -8,12 +8,14 @@ import {
   drawingListSchema,
   errorSchema,
   fileSchema,
+  gaugeFatigueSchema,
   gaugeSchema,
   photoListSchema,
   structureDetailSchema,
   structureListSchema,
   structureSchema,
 } from "./schemas";
+import { fatigueQuery } from "./fatigue-query";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -24,6 +26,8 @@ type Operation = {
   request?: z.ZodType;
   multipart?: MultipartRequest;
   response: { status: number; schema?: z.ZodType; description: string; contentTypes?: string[] };
+  /** Another representation of the same resource, chosen with Accept or a query parameter. */
+  alternative?: { contentType: string; description: string };
   errors: number[];
   parameters?: { name: string; in: "path" | "query"; description: string }[];
 };
@@ -40,6 +44,10 @@ const ERROR_MEANING: Record<number, string> = {
 
 const codeParameter = { name: "code", in: "path" as const, description: "Structure code" };
 const tagParameter = { name: "tag", in: "path" as const, description: "Gauge tag" };
+
+/** Query parameters with the descriptions their schema carries. */
+const queryParameters = (schema: z.ZodObject) =>
+  Object.entries(schema.shape).map(([name, field]) => ({ name, in: "query" as const, description: String(z.globalRegistry.get(field as z.ZodType)?.description ?? "") }));
 
 const imageUpload = (kind: FileKind, title: { description: string; required: boolean }): MultipartRequest => ({
   fields: {
@@ -114,6 +122,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 403, 404, 413, 415],
     },
   },
+  "/structures/{code}/gauges/{tag}/fatigue": {
+    get: {
+      summary:
+        "Fatigue of a gauge over [from, to): rainflow counting (ASTM E1049) of the stored stress, S-N curve of the detail category " +
+        "(EN 1993-1-9 shape), Palmgren–Miner damage, rate per year and implied life. Readings beyond the gauge's rated range are left out.",
+      parameters: [codeParameter, tagParameter, ...queryParameters(fatigueQuery.in)],
+      response: { status: 200, schema: gaugeFatigueSchema, description: "The fatigue figures of the period" },
+      alternative: {
+        contentType: "text/csv",
+        description: "With format=csv or Accept: text/csv: the rainflow matrix, rows by range bin upper edge (MPa), columns by mean bin centre (MPa), cycles in the cells",
+      },
+      errors: [400, 401, 404],
+    },
+  },
   "/files/{id}": {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
@@ -147,10 +169,13 @@ function requestBodyOf(operation: Operation) {
   return undefined;
 }
 
-function successContent(response: Operation["response"]) {
+function successContent({ response, alternative }: Operation) {
   if (response.contentTypes) return Object.fromEntries(response.contentTypes.map((type) => [type, { schema: { type: "string", format: "binary" } }]));
-  if (response.schema) return { "application/json": { schema: jsonSchema(response.schema, "output") } };
-  return undefined;
+  if (!response.schema) return undefined;
+  return {
+    "application/json": { schema: jsonSchema(response.schema, "output") },
+    ...(alternative ? { [alternative.contentType]: { schema: { type: "string", description: alternative.description } } } : {}),
+  };
 }
 
 const jsonSchema = (schema: z.ZodType, io: "input" | "output") =>
@@ -158,7 +183,7 @@ const jsonSchema = (schema: z.ZodType, io: "input" | "output") =>
 
 function describeOperation(operation: Operation) {
   const requestBody = requestBodyOf(operation);
-  const content = successContent(operation.response);
+  const content = successContent(operation);
   const errorResponses = Object.fromEntries(
     operation.errors.map((status) => [
       String(status),

@@ -53,3 +53,34 @@ export const drawingListSchema = z.object({ drawings: z.array(fileSchema) });
 export const photoListSchema = z.object({ photos: z.array(fileSchema) });
 
 export const gaugeSchema = z.record(z.string(), z.unknown()).meta({ description: "The gauge, with `drawing: { id, x, y } | null`" });
+export const gaugeFatigueSchema = z
+  .object({
+    cycles: z
+      .array(z.object({ range: z.number().meta({ description: "Upper edge of the range bin, MPa" }), count: z.number() }))
+      .meta({ description: "Rainflow histogram: occupied range bins ascending, half cycles counted as 0.5" }),
+    damage: z.number().meta({ description: "Palmgren–Miner sum D over the period, from the exact (unbinned) ranges" }),
+    category: z.number().meta({ description: "Detail category Δσ_C used, MPa at 2×10⁶ cycles" }),
+    cyclesCounted: z.number().meta({ description: "Cycles counted, half cycles as 0.5" }),
+    from: z.string().meta({ description: "Start of the period, included (UTC)" }),
+    to: z.string().meta({ description: "End of the period, excluded (UTC)" }),
+    periodSeconds: z.number().meta({ description: "Seconds from `from` to `to`" }),
+    firstReading: z.string().nullable().meta({ description: "First reading counted (UTC); null when none" }),
+    lastReading: z.string().nullable().meta({ description: "Last reading counted (UTC); null when none" }),
+    observedSeconds: z.number().meta({
+      description:
+        "Seconds from the first to the last reading counted. Rates use it, not the period, so that a period only partly covered by data does not dilute the rate and overstate the life",
+    }),
+    readingsUsed: z.number().int(),
+    readingsOutsideLinearRange: z.number().int().meta({
+      description:
+        "Readings counted although flagged outside-linear-range: real stress, but the S-N approach assumes elastic stress ranges, so many of them make the estimate doubtful",
+    }),
+    readingsSkipped: z.number().int().meta({ description: "Readings left out because the gauge read beyond its rated range (a sensor condition)" }),
+    rangeBinWidth: z.number().meta({ description: "Width of the range bins, MPa" }),
+    damageRatePerYear: z.number().nullable().meta({ description: "Damage per Julian year at the observed rate; null with fewer than two readings" }),
+    yearsToDamageOne: z
+      .number()
+      .nullable()
+      .meta({ description: "Years for that rate to reach D = 1; null when the rate is 0 (no damaging cycles) or unknown" }),
+  })
+  .meta({ id: "GaugeFatigue" });

@@ -60,6 +60,27 @@ export function binRanges(cycles: Iterable<Cycle>, binWidth: number): RangeBin[]
     .map(([bin, count]) => ({ range: bin * binWidth, count }));
 }
 
+/**
+ * Merges cycles that share a (range bin, mean bin) cell into one cycle labelled by the cell: the
+ * range bin's upper edge and the mean bin's centre. Binning the result again with the same widths
+ * gives the same histogram and matrix as binning the originals, so a long history folds page by
+ * page into at most one cycle per occupied cell. Ascending by range, then by mean.
+ */
+export function mergeIntoCells(cycles: Iterable<Cycle>, rangeBinWidth: number, meanBinWidth: number): Cycle[] {
+  checkWidth(rangeBinWidth);
+  checkWidth(meanBinWidth);
+  const cells = new Map<string, Cycle>();
+  for (const { range, mean, count } of cycles) {
+    const rangeBin = rangeBinIndex(range, rangeBinWidth);
+    const meanBin = meanBinIndex(mean, meanBinWidth);
+    const key = `${rangeBin} ${meanBin}`;
+    const cell = cells.get(key);
+    if (cell) cell.count += count;
+    else cells.set(key, { range: rangeBin * rangeBinWidth, mean: meanBin * meanBinWidth, count });
+  }
+  return [...cells.values()].sort((a, b) => a.range - b.range || a.mean - b.mean);
+}
+
 /** Every index from the lowest to the highest given; a loop, as spreading a year of cycles into Math.min overflows the stack. */
 function indexSpan(indices: readonly number[]): number[] {
   let low = Infinity;

@@ -6,9 +6,11 @@
  *   for each page of readings: page.forEach(counter.push); damage += minerDamage(counter.takeCounted(), 71);
  *   damage += minerDamage(counter.finish(), 71);
  *   const years = yearsToReachDamage(damageRatePerYear(damage, periodSeconds));
+ *
+ * createFatigueTally does the page-by-page folding and also keeps the histogram and matrix.
  */
 export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
-export { binRanges, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
+export { binRanges, mergeIntoCells, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
 export {
   DETAIL_CATEGORIES,
   DETAIL_CATEGORY_VALUES,
@@ -19,3 +21,6 @@ export {
 } from "./sn-curve";
 export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "./damage";
 export { fatigueSummary, type FatigueSummary } from "./summary";
+export { createFatigueTally, type FatigueTally } from "./tally";
+export { rainflowMatrixCsv } from "./matrix-csv";
+export { formatScientific } from "./format";

@@ -37,6 +37,7 @@ export function formValuesOf(gauge: Partial<GaugeFields>): GaugeFormValues {
     "zero.time": text(gauge.zero?.time),
     expectedInterval: text(gauge.expectedInterval),
     ratedRange: text(gauge.ratedRange),
+    detailCategory: text(gauge.detailCategory),
   };
 }
 
@@ -109,5 +110,6 @@ export function gaugePayloadOf(values: GaugeFormValues) {
     },
     expectedInterval: numberOrText(values.expectedInterval) ?? null,
     ratedRange: numberOrText(values.ratedRange) ?? null,
+    detailCategory: numberOrText(values.detailCategory) ?? null,
   };
 }

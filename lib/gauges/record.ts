@@ -21,6 +21,7 @@ export function gaugeColumns(fields: Omit<GaugeFields, "tag" | "zero">) {
     initialStress: fields.initialStress,
     expectedInterval: fields.expectedInterval,
     ratedRange: fields.ratedRange,
+    detailCategory: fields.detailCategory,
   };
 }
 
@@ -45,6 +46,7 @@ export function gaugeFieldsOf(row: Gauge): GaugeFields {
     zero: { value: row.zeroValue, temperature: row.zeroTemperature, time: row.zeroTime.toISOString() },
     expectedInterval: row.expectedInterval,
     ratedRange: row.ratedRange,
+    detailCategory: row.detailCategory as GaugeFields["detailCategory"],
   };
 }
 

@@ -7,6 +7,7 @@ import {
   prepareGauge,
   type GaugeConfigErrorCode,
 } from "@/lib/mechanics";
+import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { optionalText } from "@/lib/validation";
 
 /** Gauge fields as the API contract names them, shared by the API and the gauge form. */
@@ -71,6 +72,9 @@ export const gaugeFields = z.object({
     description: "Seconds between readings, for stale-data detection",
   }),
   ratedRange: optional(positive).meta({ description: "µε either side of zero the gauge is rated for" }),
+  detailCategory: optional(
+    z.literal(DETAIL_CATEGORY_VALUES, { error: `Choose a detail category (${DETAIL_CATEGORY_VALUES.join(", ")} MPa), or null when not assessed.` }),
+  ).meta({ description: "Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed" }),
 });
 
 export type GaugeFields = z.output<typeof gaugeFields>;

@@ -50,6 +50,7 @@ beforeAll(async () => {
     zero: { value: 0, temperature: 10 },
     expectedInterval: 600,
     ratedRange: null,
+    detailCategory: null,
   });
 });
 

@@ -115,6 +115,9 @@ export default async function GaugePage({ params }: Props) {
             Configuration
           </h2>
           <GaugeSummary gauge={gauge} />
+          <Link href={`${base}/${encodeURIComponent(tag)}/fatigue`} className="mt-4 inline-block text-sm text-accent underline">
+            Fatigue damage and life
+          </Link>
         </section>
         <section className={`${cardClass} space-y-4 p-4`} aria-labelledby="zero">
           <h2 id="zero" className="font-semibold">

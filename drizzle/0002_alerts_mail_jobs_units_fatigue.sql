@@ -103,4 +103,6 @@ CREATE TABLE `mail_outbox` (
 CREATE UNIQUE INDEX `mail_outbox_dedupe_key_unique` ON `mail_outbox` (`dedupe_key`);--> statement-breakpoint
 CREATE INDEX `mail_outbox_due` ON `mail_outbox` (`state`,`next_attempt_at`);--> statement-breakpoint
 CREATE INDEX `mail_outbox_created` ON `mail_outbox` (`created_at`);--> statement-breakpoint
-ALTER TABLE `structure_members` ADD `alert_mail` text DEFAULT 'immediate' NOT NULL;
+ALTER TABLE `gauges` ADD `detail_category` real;--> statement-breakpoint
+ALTER TABLE `structure_members` ADD `alert_mail` text DEFAULT 'immediate' NOT NULL;--> statement-breakpoint
+ALTER TABLE `users` ADD `units` text DEFAULT 'si' NOT NULL;

@@ -1,0 +1,211 @@
+"use client";
+
+import { format } from "date-fns";
+import { useState } from "react";
+import useSWR from "swr";
+import { EmptyState } from "@/components/ui/empty-state";
+import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
+import { DETAIL_CATEGORY_VALUES, formatScientific, snCurveLimits } from "@/lib/fatigue";
+import type { GaugeFatigue } from "@/lib/services/fatigue";
+import { RainflowHistogram } from "./rainflow-histogram";
+
+const DAY_MS = 86_400_000;
+const PRESETS = [
+  ["30", "Last 30 days"],
+  ["90", "Last 90 days"],
+  ["365", "Last year"],
+  ["custom", "Custom period"],
+] as const;
+type Preset = (typeof PRESETS)[number][0];
+
+const dayText = (ms: number) => format(ms, "yyyy-MM-dd");
+const when = (iso: string) => format(new Date(iso), "yyyy-MM-dd HH:mm");
+const count = (value: number) => value.toLocaleString("en-US", { maximumFractionDigits: 1 });
+
+/** Days picked in the device's time zone: from the first day's midnight to the midnight after the last day. */
+function customPeriod(fromDay: string, toDay: string) {
+  if (!fromDay || !toDay || fromDay > toDay) return null;
+  const [y, m, d] = toDay.split("-").map(Number) as [number, number, number];
+  return { from: new Date(`${fromDay}T00:00`), to: new Date(y, m - 1, d + 1) };
+}
+
+async function fetchFatigue(url: string): Promise<GaugeFatigue> {
+  const response = await fetch(url);
+  const body = await response.json();
+  if (!response.ok) throw new Error(body?.error?.message ?? `The server answered ${response.status}.`);
+  return body;
+}
+
+function lifeText(fatigue: GaugeFatigue): string {
+  if (fatigue.damageRatePerYear === 0) return "∞ — no damaging cycles at this rate";
+  if (fatigue.yearsToDamageOne === null) return "— (too few readings for a rate)";
+  return `${fatigue.yearsToDamageOne.toLocaleString("en-US", { maximumSignificantDigits: 3 })} years`;
+}
+
+type Props = { apiPath: string; gaugeCategory: number | null };
+
+/** Period and category controls, then the fatigue figures and histogram the API computes for them. */
+export function FatigueView({ apiPath, gaugeCategory }: Props) {
+  // Presets end at the moment they were chosen, so the request (and SWR's cache key) stays put.
+  const [now, setNow] = useState(() => Date.now());
+  const [preset, setPreset] = useState<Preset>("30");
+  const [fromDay, setFromDay] = useState("");
+  const [toDay, setToDay] = useState("");
+  const [category, setCategory] = useState(gaugeCategory === null ? "" : String(gaugeCategory));
+
+  function choosePreset(value: Preset) {
+    if (value === "custom" && preset !== "custom") {
+      setFromDay(dayText(now - Number(preset) * DAY_MS));
+      setToDay(dayText(now));
+    }
+    setNow(Date.now());
+    setPreset(value);
+  }
+
+  const period = preset === "custom" ? customPeriod(fromDay, toDay) : { from: new Date(now - Number(preset) * DAY_MS), to: new Date(now) };
+  const query = period && category ? new URLSearchParams({ from: period.from.toISOString(), to: period.to.toISOString(), category }) : null;
+  const { data, error, isLoading, isValidating } = useSWR(query ? `${apiPath}?${query}` : null, fetchFatigue, {
+    revalidateOnFocus: false,
+    keepPreviousData: true,
+  });
+
+  return (
+    <div className="space-y-6">
+      <section className={`${cardClass} grid gap-4 p-4 sm:grid-cols-2`} aria-label="Period and category">
+        <div className="space-y-1">
+          <label htmlFor="fatigue-period" className="block text-sm font-medium">
+            Period
+          </label>
+          <select id="fatigue-period" className={inputClass} value={preset} onChange={(event) => choosePreset(event.target.value as Preset)}>
+            {PRESETS.map(([value, text]) => (
+              <option key={value} value={value}>
+                {text}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div className="space-y-1">
+          <label htmlFor="fatigue-category" className="block text-sm font-medium">
+            Detail category <span className="font-normal text-slate-500 dark:text-slate-400">(Δσ_C at 2×10⁶ cycles, MPa)</span>
+          </label>
+          <select id="fatigue-category" className={inputClass} value={category} onChange={(event) => setCategory(event.target.value)}>
+            {gaugeCategory === null && <option value="">Choose a category…</option>}
+            {DETAIL_CATEGORY_VALUES.map((value) => (
+              <option key={value} value={value}>
+                {value} MPa{value === gaugeCategory ? " (this gauge's)" : ""}
+              </option>
+            ))}
+          </select>
+        </div>
+        {preset === "custom" && (
+          <div className="grid grid-cols-2 gap-3 sm:col-span-2">
+            <DayInput id="fatigue-from" label="First day" value={fromDay} onChange={setFromDay} />
+            <DayInput id="fatigue-to" label="Last day" value={toDay} onChange={setToDay} />
+            <p className="col-span-2 text-xs text-slate-500 dark:text-slate-400">
+              Whole days in your device&apos;s time, the last day included.
+              {!period && <span className="ml-1 font-medium text-critical">Choose both days, the first not after the last.</span>}
+            </p>
+          </div>
+        )}
+      </section>
+
+      {!category ? (
+        <EmptyState title="Choose a detail category">
+          This gauge has no fatigue detail category in its registry entry. Choose the category of the detail at the gauge above, or set it
+          on the gauge so that everyone starts from the same one.
+        </EmptyState>
+      ) : error ? (
+        <p role="alert" className="rounded-md bg-red-50 px-3 py-2 text-sm text-critical dark:bg-red-950/50 dark:text-red-200">
+          {error.message}
+        </p>
+      ) : isLoading || !data ? (
+        period && (
+          <p role="status" aria-busy="true" className={`${cardClass} animate-pulse p-6 text-sm text-slate-500`}>
+            Counting cycles over the period…
+          </p>
+        )
+      ) : (
+        <div className={isValidating ? "opacity-60 transition-opacity" : undefined} aria-busy={isValidating}>
+          <FatigueResults fatigue={data} csvUrl={`${apiPath}?${new URLSearchParams({ from: data.from, to: data.to, category: String(data.category), format: "csv" })}`} />
+        </div>
+      )}
+    </div>
+  );
+}
+
+function DayInput({ id, label, value, onChange }: { id: string; label: string; value: string; onChange: (day: string) => void }) {
+  return (
+    <div className="space-y-1">
+      <label htmlFor={id} className="block text-sm font-medium">
+        {label}
+      </label>
+      <input id={id} type="date" className={inputClass} value={value} onChange={(event) => onChange(event.target.value)} />
+    </div>
+  );
+}
+
+function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: string }) {
+  if (fatigue.readingsUsed === 0) {
+    return (
+      <EmptyState title="No readings in this period">
+        Nothing was stored for this gauge between {when(fatigue.from)} and {when(fatigue.to)}
+        {fatigue.readingsSkipped > 0 && ` except ${count(fatigue.readingsSkipped)} readings beyond the gauge's rated range, which are left out`}. Choose
+        another period.
+      </EmptyState>
+    );
+  }
+  const cutOff = snCurveLimits(fatigue.category).cutOffLimit;
+  const figures: [string, string, string][] = [
+    ["Damage in the period", formatScientific(fatigue.damage), "Miner sum D; D = 1 is the nominal end of fatigue life"],
+    [
+      "Damage rate",
+      fatigue.damageRatePerYear === null ? "—" : `${formatScientific(fatigue.damageRatePerYear)} per year`,
+      `at the rate observed over ${count(fatigue.observedSeconds / 86_400)} days of readings`,
+    ],
+    ["Life at that rate", lifeText(fatigue), "years for the rate to reach D = 1; damage before monitoring began is unknown"],
+    ["Cycles counted", count(fatigue.cyclesCounted), `rainflow, half cycles as ½; from ${count(fatigue.readingsUsed)} readings`],
+  ];
+  return (
+    <div className="space-y-6">
+      <dl className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" data-testid="fatigue-figures">
+        {figures.map(([label, value, note]) => (
+          <div key={label} className={`${cardClass} p-4`}>
+            <dt className="text-sm text-slate-500 dark:text-slate-400">{label}</dt>
+            <dd className="mt-1 text-2xl font-semibold tabular-nums" data-testid={label === "Damage in the period" ? "fatigue-damage" : undefined}>
+              {value}
+            </dd>
+            <dd className="mt-1 text-xs text-slate-500 dark:text-slate-400">{note}</dd>
+          </div>
+        ))}
+      </dl>
+      {(fatigue.readingsOutsideLinearRange > 0 || fatigue.readingsSkipped > 0) && (
+        <ul className="space-y-1 rounded-md bg-amber-50 px-4 py-3 text-sm text-amber-950 dark:bg-amber-950/40 dark:text-amber-100">
+          {fatigue.readingsOutsideLinearRange > 0 && (
+            <li>
+              {count(fatigue.readingsOutsideLinearRange)} readings beyond the linear-elastic range were counted. The S-N approach assumes elastic stress
+              ranges: read the estimate with more care.
+            </li>
+          )}
+          {fatigue.readingsSkipped > 0 && <li>{count(fatigue.readingsSkipped)} readings beyond the gauge&apos;s rated range were left out as a sensor condition.</li>}
+        </ul>
+      )}
+      <figure className={`${cardClass} space-y-3 p-4`}>
+        <figcaption className="flex flex-wrap items-baseline justify-between gap-2">
+          <span className="font-semibold">Rainflow histogram</span>
+          <span className="text-xs text-slate-500 dark:text-slate-400">
+            {when(fatigue.firstReading!)} to {when(fatigue.lastReading!)} · Δσ_C = {fatigue.category} MPa · {fatigue.rangeBinWidth} MPa bins · ranges under
+            Δσ_L = {cutOff.toFixed(1)} MPa do no damage
+          </span>
+        </figcaption>
+        {fatigue.cycles.length > 0 ? (
+          <RainflowHistogram bins={fatigue.cycles} binWidth={fatigue.rangeBinWidth} />
+        ) : (
+          <p className="text-sm text-slate-500">The stress did not change in the period: no cycles.</p>
+        )}
+        <a href={csvUrl} download className={buttonClass("secondary")}>
+          Download the rainflow matrix (CSV)
+        </a>
+      </figure>
+    </div>
+  );
+}

@@ -1,1 +1,0 @@
-ALTER TABLE `users` ADD `units` text DEFAULT 'si' NOT NULL;
