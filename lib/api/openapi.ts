@@ -8,14 +8,24 @@ import {
   drawingListSchema,
   errorSchema,
   fileSchema,
+  alertListSchema,
+  alertSchema,
+  backtestSchema,
+  gaugeDetailSchema,
   gaugeFatigueSchema,
+  gaugeListSchema,
   gaugeSchema,
+  limitListSchema,
+  rosetteListSchema,
+  rosetteSchema,
   photoListSchema,
   structureDetailSchema,
   structureListSchema,
   structureSchema,
 } from "./schemas";
 import { fatigueQuery } from "./fatigue-query";
+import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
+import { acknowledgeBody, backtestBody, limitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -78,6 +88,114 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       parameters: [codeParameter],
       response: { status: 200, schema: structureDetailSchema, description: "The structure" },
       errors: [401, 404],
+    },
+  },
+  "/structures/{code}/gauges": {
+    get: {
+      summary: "Gauges of a structure, retired ones included",
+      parameters: [codeParameter],
+      response: { status: 200, schema: gaugeListSchema, description: "The gauges" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Register a gauge (tags are unique per structure)",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      request: gaugeInput,
+      response: { status: 201, schema: gaugeDetailSchema, description: "The new gauge" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}": {
+    get: {
+      summary: "One gauge",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge" },
+      errors: [401, 404],
+    },
+    patch: {
+      summary: "Change fields of a gauge (the whole gauge is checked again); stored readings keep their derived values",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      request: gaugePatch,
+      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+    delete: {
+      summary: "Retire the gauge: it accepts no more readings; its history is kept",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: gaugeDetailSchema, description: "The retired gauge" },
+      errors: [401, 403, 404],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/zero": {
+    post: {
+      summary: "Set a new zero (reference) reading, typed or the average of the last N raw readings; the previous one stays in the history",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      request: zeroRequest,
+      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge with its new zero" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/limits": {
+    get: {
+      summary: "The gauge's limits",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: limitListSchema, description: "The limits, with defaults applied" },
+      errors: [401, 404],
+    },
+    put: {
+      summary: "Replace the gauge's limits. Refused: lower ≥ upper, negative dead band or persistence, levels out of order",
+      roles: "admin, engineer",
+      parameters: [codeParameter, tagParameter],
+      request: limitsBody,
+      response: { status: 200, schema: limitListSchema, description: "The limits now in force" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/limits/backtest": {
+    post: {
+      summary: "What proposed limits would have raised over [from, to) of stored readings, by the same evaluation as ingestion; nothing is stored",
+      parameters: [codeParameter, tagParameter],
+      request: backtestBody,
+      response: { status: 200, schema: backtestSchema, description: "The alert episodes the limits would have raised" },
+      errors: [400, 401, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/rosettes": {
+    get: {
+      summary: "Rosettes of a structure",
+      parameters: [codeParameter],
+      response: { status: 200, schema: rosetteListSchema, description: "The rosettes" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Group three gauges of the structure as a rosette (gauges a, b, c at 0°, 45°/60°, 90°/120°; material from gauge a)",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      request: rosetteInput,
+      response: { status: 201, schema: rosetteSchema, description: "The rosette" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+  },
+  "/structures/{code}/alerts": {
+    get: {
+      summary: "Alerts of a structure, newest first; state=open (default), acknowledged, cleared or all",
+      parameters: [codeParameter, { name: "state", in: "query", description: "open | acknowledged | cleared | all" }],
+      response: { status: 200, schema: alertListSchema, description: "The alerts" },
+      errors: [400, 401, 404],
+    },
+  },
+  "/alerts/{id}/acknowledge": {
+    post: {
+      summary: "Acknowledge an alert with a comment",
+      roles: "admin, engineer",
+      parameters: [{ name: "id", in: "path", description: "Alert id" }],
+      request: acknowledgeBody,
+      response: { status: 200, schema: alertSchema, description: "The alert" },
+      errors: [400, 401, 403, 404, 413, 415],
     },
   },
   "/structures/{code}/drawings": {

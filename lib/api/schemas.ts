@@ -84,3 +84,62 @@ export const gaugeFatigueSchema = z
       .meta({ description: "Years for that rate to reach D = 1; null when the rate is 0 (no damaging cycles) or unknown" }),
   })
   .meta({ id: "GaugeFatigue" });
+
+const gaugeOutput = z.record(z.string(), z.unknown()).meta({
+  description: "The gauge: every field of the request, plus status, retiredAt, replaces, replacedBy, drawing and createdAt",
+});
+export const gaugeListSchema = z.object({ gauges: z.array(gaugeOutput) }).meta({ id: "GaugeList" });
+export const gaugeDetailSchema = gaugeOutput;
+
+export const rosetteSchema = z
+  .object({ tag: z.string(), layout: z.enum(["rectangular", "delta"]), gauges: z.array(z.string()).length(3), createdAt: z.string() })
+  .meta({ id: "Rosette" });
+export const rosetteListSchema = z.object({ rosettes: z.array(rosetteSchema) });
+
+const limitOutput = z.object({
+  quantity: z.enum(["stress", "strain", "utilisation"]),
+  level: z.enum(["watch", "warning", "critical"]),
+  upper: z.number().optional(),
+  lower: z.number().optional(),
+  hysteresis: z.number(),
+  persistence: z.number().int(),
+});
+export const limitListSchema = z.object({ limits: z.array(limitOutput) }).meta({ id: "Limits" });
+
+export const backtestSchema = z
+  .object({
+    from: z.number().meta({ description: "epoch ms" }),
+    to: z.number().meta({ description: "epoch ms" }),
+    readingsChecked: z.number().int(),
+    episodes: z.array(
+      z.object({
+        quantity: z.string(),
+        level: z.string(),
+        openedAt: z.number(),
+        peak: z.number(),
+        clearedAt: z.number().nullable().meta({ description: "null: still open at the end of the period" }),
+      }),
+    ),
+  })
+  .meta({ id: "Backtest" });
+
+export const alertSchema = z
+  .object({
+    id: z.number().int(),
+    structure: z.string(),
+    gauge: z.string(),
+    kind: z.enum(["limit", "sensor"]),
+    level: z.enum(["watch", "warning", "critical"]),
+    quantity: z.string().nullable(),
+    code: z.string().nullable().meta({ description: "Sensor alerts: stale, flat-line, jump or out-of-range" }),
+    message: z.string().nullable(),
+    openedAt: z.string(),
+    bound: z.number().nullable(),
+    peak: z.number().nullable(),
+    acknowledgedAt: z.string().nullable(),
+    acknowledgedBy: z.string().nullable(),
+    clearedAt: z.string().nullable(),
+    comment: z.string().nullable(),
+  })
+  .meta({ id: "Alert" });
+export const alertListSchema = z.object({ alerts: z.array(alertSchema) });
