@@ -1,11 +1,27 @@
 import Link from "next/link";
+import type { GaugeState } from "@/lib/alerting/gauge-state";
 
-/** Alert states a later step will give each gauge; each has its own shape and word so colour is never the only cue. */
+/** Each gauge state has its own shape and word, so colour is never the only cue. */
 export const MARKER_STATES = ["ok", "watch", "warning", "critical", "stale", "retired"] as const;
 export type MarkerState = (typeof MARKER_STATES)[number];
 
+/** The marker for a gauge's state; a gauge without data yet has no state to show. */
+export function markerStateOf(state: GaugeState): MarkerState | undefined {
+  return state === "no-data" ? undefined : state;
+}
+
+const COLOUR: Record<MarkerState | "unassessed", string> = {
+  unassessed: "text-slate-500",
+  ok: "text-emerald-700",
+  watch: "text-watch",
+  warning: "text-warning",
+  critical: "text-critical",
+  stale: "text-slate-600",
+  retired: "text-slate-400",
+};
+
 export const MARKER_STATE_WORDS: Record<MarkerState | "unassessed", string> = {
-  unassessed: "state not assessed yet",
+  unassessed: "no data yet",
   ok: "within limits",
   watch: "watch",
   warning: "warning",
@@ -37,7 +53,7 @@ const SHAPES: Record<MarkerState | "unassessed", React.ReactNode> = {
 
 export function MarkerShape({ state }: { state?: MarkerState }) {
   return (
-    <svg viewBox="0 0 16 16" className="size-4 shrink-0" aria-hidden>
+    <svg viewBox="0 0 16 16" className={`size-4 shrink-0 ${COLOUR[state ?? "unassessed"]}`} aria-hidden>
       {SHAPES[state ?? "unassessed"]}
     </svg>
   );
@@ -45,8 +61,7 @@ export function MarkerShape({ state }: { state?: MarkerState }) {
 
 /**
  * A gauge on a drawing, placed by fractions of the drawing's width and height, with its shape's
- * centre on the point. Markers are neutral for now; `state` picks the shape, and data-state lets a
- * later step colour them.
+ * centre on the point; `state` picks the shape and the colour.
  */
 export function GaugeMarker({ tag, x, y, href, state, passive }: { tag: string; x: number; y: number; href: string; state?: MarkerState; passive?: boolean }) {
   const word = MARKER_STATE_WORDS[state ?? "unassessed"];
@@ -70,7 +85,7 @@ export function GaugeMarker({ tag, x, y, href, state, passive }: { tag: string; 
 export function MarkerLegend() {
   return (
     <div aria-label="Marker legend" role="group" className="text-xs text-slate-600 dark:text-slate-400">
-      <p className="mb-1">Marker shapes show each gauge&apos;s state once alert limits are in use; until then every marker is plain.</p>
+      <p className="mb-1">Each marker&apos;s shape and colour give the gauge&apos;s state now: open alerts first, then whether data still arrive.</p>
       <ul className="flex flex-wrap gap-x-4 gap-y-1 text-slate-800 dark:text-slate-200">
         {([undefined, ...MARKER_STATES] as const).map((state) => (
           <li key={state ?? "unassessed"} className="flex items-center gap-1.5">

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AlertTable } from "@/components/alerts/alert-table";
 import { StructureDrawings } from "@/components/drawings/structure-drawings";
-import { GaugeList } from "@/components/gauges/gauge-list";
+import { GaugeTable, type GaugeTableRow } from "@/components/gauges/gauge-table";
 import { RosetteSection } from "@/components/gauges/rosette-section";
 import { TokenTable } from "@/components/tokens/token-table";
 import { ActionForm, SecretOnce } from "@/components/ui/action-form";
@@ -17,7 +17,8 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listAlerts } from "@/lib/services/alerts";
-import { listGauges } from "@/lib/services/gauges";
+import { listGauges, type GaugeView } from "@/lib/services/gauges";
+import { gaugeStatuses, type GaugeStatus } from "@/lib/services/status";
 import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
@@ -44,12 +45,37 @@ function Section({ title, id, children, actions }: { title: string; id: string; 
   );
 }
 
+const KIND_TEXT: Record<string, string> = { foil: "foil", "vibrating-wire": "vibrating wire" };
+
+/** Gauges with their latest readings, as plain values for the table in the browser. */
+function gaugeTableRows(gauges: GaugeView[], statuses: GaugeStatus[]): GaugeTableRow[] {
+  const statusOf = new Map(statuses.map((status) => [status.tag, status]));
+  return gauges.map((gauge) => {
+    const status = statusOf.get(gauge.tag);
+    const latest = status?.latest ?? null;
+    return {
+      tag: gauge.tag,
+      label: gauge.label ?? null,
+      member: gauge.member ?? null,
+      sensor: `${KIND_TEXT[gauge.kind]}, ${gauge.input}${gauge.bridge ? `, ${gauge.bridge}` : ""}`,
+      state: status?.state ?? "no-data",
+      openAlerts: status?.openAlerts ?? 0,
+      time: latest?.time ?? null,
+      strain: latest?.strain ?? null,
+      stress: latest?.stress ?? null,
+      utilisation: latest?.utilisation ?? null,
+      temperature: latest?.temperature ?? null,
+    };
+  });
+}
+
 export default async function StructurePage({ params }: Props) {
   const { code } = await params;
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [gauges, rosettes, recentAlerts, canRegister, canManageTokens] = await Promise.all([
+  const [gauges, statuses, rosettes, recentAlerts, canRegister, canManageTokens] = await Promise.all([
     listGauges(user, code),
+    gaugeStatuses(structure),
     listRosettes(user, code),
     listAlerts(user, code, "all", 8),
     may(user, "gauge:register", structure),
@@ -85,7 +111,7 @@ export default async function StructurePage({ params }: Props) {
             <p>Register each gauge as it is installed; once its logger sends readings, its strain, stress and state show here.</p>
           </EmptyState>
         ) : (
-          <GaugeList structureCode={code} gauges={gauges} />
+          <GaugeTable structureCode={code} timeZone={structure.timezone} rows={gaugeTableRows(gauges, statuses)} />
         )}
       </Section>
       <Section

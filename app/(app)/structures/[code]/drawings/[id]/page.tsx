@@ -10,6 +10,8 @@ import { requireUser } from "@/lib/auth/session";
 import { fileId } from "@/lib/files/schema";
 import { getDrawing } from "@/lib/services/files";
 import { listGauges } from "@/lib/services/gauges";
+import { gaugeStatuses } from "@/lib/services/status";
+import { markerStateOf } from "@/components/drawings/gauge-marker";
 import { getVisibleStructure } from "@/lib/services/structures";
 
 type Props = { params: Promise<{ code: string; id: string }> };
@@ -24,16 +26,18 @@ export default async function DrawingPage({ params }: Props) {
   if (!drawingId.success) notFound();
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [drawing, gauges, canPlace] = await Promise.all([
+  const [drawing, gauges, statuses, canPlace] = await Promise.all([
     pageGuard(getDrawing(user, code, drawingId.data)),
     pageGuard(listGauges(user, code)),
+    gaugeStatuses(structure),
     may(user, "gauge:register", structure),
   ]);
+  const stateOf = new Map(statuses.map((status) => [status.tag, markerStateOf(status.state)]));
   // Only what the board shows goes to the browser.
   const boardGauges: BoardGauge[] = gauges.map((gauge) => ({
     tag: gauge.tag,
     label: gauge.label ?? null,
-    state: gauge.status === "retired" ? "retired" : undefined,
+    state: stateOf.get(gauge.tag),
     placement: gauge.drawing,
   }));
   return (

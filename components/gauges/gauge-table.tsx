@@ -1,0 +1,132 @@
+"use client";
+
+import Link from "next/link";
+import { useMemo, useState } from "react";
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from "@tanstack/react-table";
+import { GaugeStateBadge } from "@/components/alerts/state-badge";
+import { useUnits } from "@/components/units/units-context";
+import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { STATE_ORDER, type GaugeState } from "@/lib/alerting/gauge-state";
+import { inDisplayUnits } from "@/lib/units";
+
+/** One row: the gauge, how it is read, and its latest converted reading (SI, as stored). */
+export type GaugeTableRow = {
+  tag: string;
+  label: string | null;
+  member: string | null;
+  sensor: string;
+  state: GaugeState;
+  openAlerts: number;
+  time: number | null;
+  strain: number | null;
+  stress: number | null;
+  utilisation: number | null;
+  temperature: number | null;
+};
+
+const column = createColumnHelper<GaugeTableRow>();
+const fixed = (value: number | null, digits: number) => (value === null ? "—" : value.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits }));
+
+/** The structure's gauges with their current values: sortable, filterable, units as the person chose. */
+export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: string; timeZone: string; rows: GaugeTableRow[] }) {
+  const units = useUnits();
+  const [sorting, setSorting] = useState<SortingState>([{ id: "state", desc: false }]);
+  const [filter, setFilter] = useState("");
+  const stressUnit = inDisplayUnits(units, "stress", 0).unit;
+  const temperatureUnit = inDisplayUnits(units, "temperature", 0).unit;
+  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "short", timeStyle: "short" }).format(ms);
+
+  const columns = useMemo(
+    () => [
+      column.accessor("state", {
+        header: "State",
+        sortingFn: (a, b) => STATE_ORDER.indexOf(a.original.state) - STATE_ORDER.indexOf(b.original.state),
+        cell: (info) => <GaugeStateBadge state={info.getValue()} />,
+      }),
+      column.accessor("tag", {
+        header: "Gauge",
+        cell: (info) => (
+          <Link href={`/structures/${structureCode}/gauges/${encodeURIComponent(info.getValue())}`} className="font-mono font-medium text-accent underline">
+            {info.getValue()}
+          </Link>
+        ),
+      }),
+      column.accessor((row) => [row.label, row.member].filter(Boolean).join(" · "), { id: "where", header: "Where" }),
+      column.accessor("sensor", { header: "Sensor" }),
+      column.accessor("strain", { header: "Strain (µε)", cell: (info) => fixed(info.getValue(), 0) }),
+      column.accessor("stress", {
+        header: `Stress (${stressUnit})`,
+        cell: (info) => (info.getValue() === null ? "—" : fixed(inDisplayUnits(units, "stress", info.getValue()!).value, units === "us" ? 2 : 1)),
+      }),
+      column.accessor("utilisation", { header: "Of yield (%)", cell: (info) => (info.getValue() === null ? "—" : fixed(info.getValue()! * 100, 0)) }),
+      column.accessor("temperature", {
+        header: `Temp. (${temperatureUnit})`,
+        cell: (info) => (info.getValue() === null ? "—" : fixed(inDisplayUnits(units, "temperature", info.getValue()!).value, 1)),
+      }),
+      column.accessor("time", { header: "Last reading", cell: (info) => (info.getValue() === null ? "none" : local(info.getValue()!)) }),
+      column.accessor("openAlerts", { header: "Open alerts" }),
+    ],
+    [structureCode, units, timeZone],
+  );
+
+  const table = useReactTable({
+    data: rows,
+    columns,
+    state: { sorting, globalFilter: filter },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setFilter,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+
+  return (
+    <div className="space-y-2">
+      <label className="flex max-w-sm flex-col gap-1 text-sm font-medium">
+        Filter gauges
+        <input className={inputClass} value={filter} onChange={(event) => setFilter(event.target.value)} placeholder="tag, member, state…" />
+      </label>
+      <div className={`${cardClass} overflow-x-auto`}>
+        <table className={tableClass} aria-label="Gauges">
+          <thead>
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th key={header.id} className={thClass} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                      <button type="button" className="inline-flex items-center gap-1 uppercase" onClick={header.column.getToggleSortingHandler()}>
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        <span aria-hidden>{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : ""}</span>
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id} data-testid="gauge-row">
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className={`${tdClass} whitespace-nowrap tabular-nums`}>
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {table.getRowModel().rows.length === 0 && <p className="p-4 text-sm text-slate-600">No gauge matches “{filter}”.</p>}
+      </div>
+    </div>
+  );
+}
