@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { format } from "date-fns";
+import { GaugeCharts } from "@/components/charts/gauge-charts";
+import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ZeroForm } from "@/components/gauges/zero-form";
@@ -14,6 +16,9 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listGaugePhotos } from "@/lib/services/files";
+import { listAlerts } from "@/lib/services/alerts";
+import { getLimits } from "@/lib/services/limits";
+import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { retireGaugeAction } from "../actions";
@@ -49,11 +54,21 @@ export default async function GaugePage({ params }: Props) {
     may(user, "zero:record", structure),
     may(user, "audit:view", structure),
   ]);
-  const [zeros, audit, photos] = await Promise.all([
+  const [zeros, audit, photos, limits, alerts, status] = await Promise.all([
     zeroHistory(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
+    getLimits(user, code, tag),
+    listAlerts(user, code, "all"),
+    gaugeStatuses(structure).then((all) => all.find((s) => s.tag === tag)),
   ]);
+  const chartEvents = [
+    ...zeros.slice(0, -1).map((zero) => ({ time: zero.time.getTime(), label: "re-zeroed" })),
+    ...(gauge.replaces ? [{ time: Date.parse(gauge.createdAt), label: `replaced ${gauge.replaces}` }] : []),
+  ];
+  const chartEpisodes = alerts
+    .filter((alert) => alert.gauge === tag && alert.kind === "limit")
+    .map((alert) => ({ openedAt: Date.parse(alert.openedAt), clearedAt: alert.clearedAt ? Date.parse(alert.clearedAt) : null, level: alert.level }));
   const active = gauge.status === "active";
   const base = `/structures/${code}/gauges`;
   return (
@@ -109,6 +124,27 @@ export default async function GaugePage({ params }: Props) {
           </span>
         )}
       </div>
+      <section className="mb-6" aria-labelledby="history">
+        <h2 id="history" className="mb-2 text-lg font-semibold">
+          History
+        </h2>
+        {status?.latest ? (
+          <GaugeCharts
+            structureCode={code}
+            tag={tag}
+            timeZone={structure.timezone}
+            limits={limits}
+            yieldStress={gauge.material.yield ?? null}
+            episodes={chartEpisodes}
+            events={chartEvents}
+            end={status.latest.time}
+          />
+        ) : (
+          <EmptyState title="No readings yet">
+            <p>Charts appear once the logger sends data or a logger file is uploaded.</p>
+          </EmptyState>
+        )}
+      </section>
       <div className="grid gap-6 lg:grid-cols-2">
         <section className={`${cardClass} p-4`} aria-labelledby="configuration">
           <h2 id="configuration" className="mb-3 font-semibold">

@@ -1,0 +1,48 @@
+"use client";
+
+import { useEffect, useRef } from "react";
+import uPlot from "uplot";
+import "uplot/dist/uPlot.min.css";
+
+/**
+ * A uPlot chart that follows its container's width. uPlot draws on canvas outside React, so the
+ * chart is created in an effect, fed new data with setData, and destroyed on unmount.
+ */
+export function UplotChart({
+  options,
+  data,
+  height = 240,
+  label,
+  onCreate,
+}: {
+  options: Omit<uPlot.Options, "width" | "height">;
+  data: uPlot.AlignedData;
+  height?: number;
+  label: string;
+  onCreate?: (chart: uPlot) => void;
+}) {
+  const box = useRef<HTMLDivElement>(null);
+  const chart = useRef<uPlot | null>(null);
+
+  useEffect(() => {
+    const element = box.current;
+    if (!element) return;
+    const created = new uPlot({ ...options, width: element.clientWidth || 600, height }, data, element);
+    chart.current = created;
+    onCreate?.(created);
+    const resize = new ResizeObserver(() => created.setSize({ width: element.clientWidth, height }));
+    resize.observe(element);
+    return () => {
+      resize.disconnect();
+      created.destroy();
+      chart.current = null;
+    };
+    // Options are rebuilt by the parent when what they draw changes; data alone goes through setData.
+  }, [options, height]);
+
+  useEffect(() => {
+    chart.current?.setData(data);
+  }, [data]);
+
+  return <div ref={box} role="img" aria-label={label} className="w-full" data-testid="chart" />;
+}

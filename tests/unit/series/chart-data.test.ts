@@ -1,0 +1,24 @@
+import { describe, expect, it } from "vitest";
+import { chartColumns, leastSquaresSlope, pairByTime, type SeriesAnswer } from "@/lib/series/chart-data";
+
+const series = (t: number[], mean: number[]): SeriesAnswer => ({ quantity: "q", unit: "u", t, min: mean, max: mean, mean, count: t.map(() => 1) });
+
+describe("chart data", () => {
+  it("puts time in seconds and maps values to display units", () => {
+    const [t, min] = chartColumns(series([1000, 2000], [10, 20]), (v) => v * 2);
+    expect(t).toEqual([1, 2]);
+    expect(min).toEqual([20, 40]);
+  });
+
+  it("pairs only the buckets both series have", () => {
+    expect(pairByTime(series([1, 2, 3], [10, 20, 30]), series([2, 3, 4], [5, 6, 7]))).toEqual({ x: [20, 30], y: [5, 6] });
+  });
+
+  // Free thermal expansion of steel: ε = α·ΔT with α = 12 µε/°C (trade brief, physics check values):
+  // a gauge reading total strain against temperature has slope 12.
+  it("recovers a known slope by least squares", () => {
+    const temperatures = [0, 5, 10, 15, 20];
+    expect(leastSquaresSlope(temperatures, temperatures.map((t) => 12 * t + 3))).toBeCloseTo(12, 12);
+    expect(leastSquaresSlope([4, 4, 4], [1, 2, 3])).toBeNull();
+  });
+});
