@@ -99,11 +99,18 @@ export default async function StructurePage({ params }: Props) {
         title="Gauges"
         id="gauges-heading"
         actions={
-          canRegister && (
-            <Link href={`/structures/${code}/gauges/new`} className={buttonClass()}>
-              Register a gauge
-            </Link>
-          )
+          <>
+            {gauges.length > 1 && (
+              <Link href={`/structures/${code}/compare`} className={buttonClass("secondary")}>
+                Compare gauges
+              </Link>
+            )}
+            {canRegister && (
+              <Link href={`/structures/${code}/gauges/new`} className={buttonClass()}>
+                Register a gauge
+              </Link>
+            )}
+          </>
         }
       >
         {gauges.length === 0 ? (
