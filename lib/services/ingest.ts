@@ -149,10 +149,7 @@ const placeholders = (rows: number, columns: number) => {
 };
 
 function insertReadingsSql(rows: number): string {
-  return (
-    `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags) VALUES ${placeholders(rows, READING_COLUMNS)} ` +
-    "ON CONFLICT (gauge_id, t) DO NOTHING RETURNING gauge_id, t"
-  );
+  return `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags) VALUES ${placeholders(rows, READING_COLUMNS)}`;
 }
 
 /**
@@ -181,43 +178,41 @@ function mergeRollupsSql(rows: number): string {
 }
 
 /**
- * Inserts the rows in chunks under the parameter limit; a (gauge, time) already stored is left as
- * it is. Returns the rows actually inserted, per gauge in time order.
+ * Leaves out readings whose (gauge, time) is already stored, then inserts the rest in chunks under
+ * the parameter limit. The write transaction holds SQLite's write lock from its start, so nothing
+ * can be stored between the look-up and the insert. Looking up the batch's own times (one index
+ * probe each, usually finding nothing) costs less than asking every insert to return its keys.
+ * Returns the rows inserted, per gauge in time order.
  */
 async function insertReadings(tx: WriteTx, gauges: readonly GaugeRows[]): Promise<GaugeRows[]> {
   const raw = libsqlTransaction(tx);
-  const insertedTimes = new Map<number, Set<number>>();
-  let args: (number | null)[] = [];
-  let insertedCount = 0;
-  const flush = async () => {
-    const result = await raw.execute({ sql: statement("readings", args.length / READING_COLUMNS), args });
-    for (const row of result.rows) {
-      const gaugeId = row[0] as number;
-      let times = insertedTimes.get(gaugeId);
-      if (!times) insertedTimes.set(gaugeId, (times = new Set()));
-      times.add(row[1] as number);
+  const fresh: GaugeRows[] = [];
+  for (const rows of gauges) {
+    const stored = await raw.execute({
+      sql: "SELECT t FROM readings WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?))",
+      args: [rows.gaugeId, JSON.stringify(rows.time)],
+    });
+    if (stored.rows.length === 0) {
+      fresh.push(rows);
+      continue;
     }
-    insertedCount += result.rows.length;
+    const known = new Set(stored.rows.map((row) => row[0] as number));
+    const kept = rows.time.flatMap((time, i) => (known.has(time) ? [] : [i]));
+    if (kept.length > 0) fresh.push(selectRows(rows, kept));
+  }
+  let args: (number | null)[] = [];
+  const flush = async () => {
+    await raw.execute({ sql: statement("readings", args.length / READING_COLUMNS), args });
     args = [];
   };
-  for (const rows of gauges) {
+  for (const rows of fresh) {
     for (let i = 0; i < rows.time.length; i++) {
       args.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!);
       if (args.length === READINGS_PER_STATEMENT * READING_COLUMNS) await flush();
     }
   }
   if (args.length > 0) await flush();
-  if (insertedCount === rowCount(gauges)) return [...gauges];
-  return gauges
-    .map((rows) => {
-      const times = insertedTimes.get(rows.gaugeId);
-      const kept: number[] = [];
-      if (times) rows.time.forEach((time, i) => {
-        if (times.has(time)) kept.push(i);
-      });
-      return selectRows(rows, kept);
-    })
-    .filter((rows) => rows.time.length > 0);
+  return fresh;
 }
 
 async function mergeRollups(tx: WriteTx, inserted: readonly GaugeRows[]): Promise<void> {
