@@ -1,4 +1,5 @@
 import * as ingest from "@/app/api/v1/structures/[code]/readings/route";
+import type { Client } from "@libsql/client";
 import { getClient } from "@/db/client";
 import type { UserActor } from "@/lib/auth/actor";
 import { parseWith } from "@/lib/api/http";
@@ -72,8 +73,8 @@ export async function storedCount(code: string, tag = "S1"): Promise<number> {
  * Roll-up rows that disagree with an aggregate computed directly over the readings table
  * (GROUP BY hour or day), for every gauge: empty when the roll-ups are right.
  */
-export async function rollupMismatches(): Promise<unknown[]> {
-  const result = await getClient().execute(`
+export async function rollupMismatches(client: Client = getClient()): Promise<unknown[]> {
+  const result = await client.execute(`
     WITH direct AS (
       SELECT gauge_id, res.resolution, (t / res.resolution) * res.resolution AS bucket, count(*) AS count,
              min(strain) AS strain_min, max(strain) AS strain_max, sum(strain) AS strain_sum,
