@@ -43,11 +43,12 @@ export async function getSeries(actor: Actor, code: string, tag: string, query: 
   const source = chooseSource(grid.width);
   const result = await getClient().execute({
     sql: bucketQuery(source, query.quantity),
+    // JavaScript numbers bind as REAL, which would turn the bucket division fractional: bind integers.
     args: {
       gauge: gauge.id,
-      start: grid.start,
+      start: BigInt(grid.start),
       end: grid.end,
-      width: grid.width,
+      width: BigInt(grid.width),
       ...(source === "raw" ? {} : { resolution: ROLLUP_RESOLUTIONS[source] }),
     },
   });

@@ -1,5 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { once } from "node:events";
 import fs from "node:fs";
+import http from "node:http";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
@@ -25,7 +27,7 @@ import type { BenchResult } from "./mechanics";
  */
 
 const BATCH = 5_000;
-const CLIENTS = 4;
+const CLIENTS = 8;
 const INGEST_GAUGES = 10;
 const INGEST_READINGS = 400_000;
 const YEAR_READINGS = 525_600;
@@ -81,7 +83,8 @@ function freePort(): Promise<number> {
   });
 }
 
-async function prepareDatabase(url: string): Promise<string> {
+/** The bench database with its gauges; a logger token to send readings and a user token to read them. */
+async function prepareDatabase(url: string): Promise<{ logger: string; reader: string }> {
   process.env.DATABASE_URL = url;
   await migrateDatabase();
   await createStructure(null, { code: "BENCH", name: "Bench structure", timezone: "UTC" });
@@ -90,9 +93,10 @@ async function prepareDatabase(url: string): Promise<string> {
   for (const tag of [...GAUGE_TAGS, "YEAR", "UPLOAD"]) {
     await createGauge(actor, "BENCH", parseWith(gaugeInput, { ...GAUGE, tag }));
   }
-  const { token } = await createToken(null, { kind: "logger", structureCode: "BENCH" }, "bench logger");
+  const logger = (await createToken(null, { kind: "logger", structureCode: "BENCH" }, "bench logger")).token;
+  const reader = (await createToken(null, { kind: "user", email: admin.email }, "bench reader")).token;
   closeDb();
-  return token;
+  return { logger, reader };
 }
 
 function startServer(url: string, port: number): ChildProcess {
@@ -146,7 +150,9 @@ async function postAll(baseUrl: string, token: string, bodies: (() => string)[],
         body,
       });
       if (!response.ok) throw new Error(`ingestion answered ${response.status}: ${await response.text()}`);
-      accepted += (await response.json()).accepted;
+      const result = await response.json();
+      if (result.rejected.length > 0) throw new Error(`a bench reading was rejected: ${JSON.stringify(result.rejected[0])}`);
+      accepted += result.accepted;
     }
   };
   await Promise.all(Array.from({ length: clients }, client));
@@ -187,7 +193,7 @@ async function rawInsertRate(folder: string, batches: Reading[][]): Promise<numb
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
-async function seriesFigures(baseUrl: string, token: string, url: string) {
+async function seriesFigures(baseUrl: string, token: string, reader: string, url: string) {
   const spikeIndex = 200_000;
   const yearBodies = Array.from({ length: YEAR_READINGS / BATCH }, (_, b) => () => {
     const batch: Reading[] = [];
@@ -203,7 +209,8 @@ async function seriesFigures(baseUrl: string, token: string, url: string) {
   const to = START + YEAR_READINGS * MINUTE;
   const seriesUrl = `${baseUrl}/api/v1/structures/BENCH/gauges/YEAR/series?from=${new Date(from).toISOString()}&to=${new Date(to).toISOString()}&points=1000&quantity=strain`;
   const query = async () => {
-    const response = await fetch(seriesUrl, { headers: { authorization: `Bearer ${token}` } });
+    const response = await fetch(seriesUrl, { headers: { authorization: `Bearer ${reader}` } });
+    if (!response.ok) throw new Error(`series answered ${response.status}: ${await response.text()}`);
     return (await response.json()) as { max: number[]; t: number[]; source: string };
   };
   for (let i = 0; i < 5; i++) await query();
@@ -236,34 +243,37 @@ async function seriesFigures(baseUrl: string, token: string, url: string) {
   return { median: median(times), naive: median(naiveTimes), spikeShows, buckets: series.t.length, source: series.source };
 }
 
-/** Streams a million-row CSV to the upload endpoint while sampling the server's memory. */
+/**
+ * Streams a million-row CSV to the upload endpoint, generated as it is sent, while sampling the
+ * server's memory. A fresh connection (agent: false): a pooled keep-alive socket may be closed by
+ * the server just as a long upload starts on it.
+ */
 async function uploadFigures(baseUrl: string, token: string, server: ChildProcess) {
-  let row = 0;
-  const encoder = new TextEncoder();
-  const body = new ReadableStream<Uint8Array>({
-    pull(controller) {
-      if (row === 0) controller.enqueue(encoder.encode("gauge,time,value,temperature\n"));
-      if (row >= UPLOAD_ROWS) return controller.close();
-      const lines: string[] = [];
-      for (const end = Math.min(row + 10_000, UPLOAD_ROWS); row < end; row++) {
-        const r = reading("UPLOAD", row, 30_000, 1);
-        lines.push(`UPLOAD,${new Date(r.time).toISOString()},${r.value.toFixed(3)},${r.temperature.toFixed(2)}\n`);
-      }
-      controller.enqueue(encoder.encode(lines.join("")));
-    },
-  });
   let peakRss = 0;
   const sampler = setInterval(() => (peakRss = Math.max(peakRss, memoryOf(server.pid!).rss)), 100);
   const started = performance.now();
-  const response = await fetch(`${baseUrl}/api/v1/structures/BENCH/uploads`, {
+  const request = http.request(`${baseUrl}/api/v1/structures/BENCH/uploads`, {
     method: "POST",
+    agent: false,
     headers: { authorization: `Bearer ${token}`, "content-type": "text/csv" },
-    body,
-    duplex: "half",
-  } as RequestInit);
-  const lines = (await response.text()).trim().split("\n");
+  });
+  const answered = once(request, "response") as Promise<[http.IncomingMessage]>;
+  request.write("gauge,time,value,temperature\n");
+  for (let row = 0; row < UPLOAD_ROWS; ) {
+    const lines: string[] = [];
+    for (const end = Math.min(row + 10_000, UPLOAD_ROWS); row < end; row++) {
+      const r = reading("UPLOAD", row, 30_000, 1);
+      lines.push(`UPLOAD,${new Date(r.time).toISOString()},${r.value.toFixed(3)},${r.temperature.toFixed(2)}\n`);
+    }
+    if (!request.write(lines.join(""))) await once(request, "drain");
+  }
+  request.end();
+  const [response] = await answered;
+  let text = "";
+  for await (const chunk of response) text += chunk;
   const seconds = (performance.now() - started) / 1000;
   clearInterval(sampler);
+  const lines = text.trim().split("\n");
   const done = JSON.parse(lines[lines.length - 1]!);
   if (done.type !== "done") throw new Error(`upload ended with ${lines[lines.length - 1]}`);
   return { seconds, accepted: done.accepted as number, peakRss, hwm: memoryOf(server.pid!).hwm };
@@ -278,7 +288,7 @@ export async function benchIngestion(): Promise<BenchResult[]> {
   }
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-bench-"));
   const url = `file:${path.join(folder, "bench.db")}`;
-  const token = await prepareDatabase(url);
+  const { logger: token, reader } = await prepareDatabase(url);
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const server = startServer(url, port);
@@ -293,7 +303,7 @@ export async function benchIngestion(): Promise<BenchResult[]> {
     const httpRate = INGEST_READINGS / http.seconds;
     const rawRate = await rawInsertRate(folder, batches);
     const ratio = httpRate / rawRate;
-    const series = await seriesFigures(baseUrl, token, url);
+    const series = await seriesFigures(baseUrl, token, reader, url);
     const upload = await uploadFigures(baseUrl, token, server);
     const peakMb = Math.max(upload.peakRss, upload.hwm) / 1024;
     const seriesRatio = series.naive / series.median;
