@@ -1,5 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
+import { GET as openapi } from "@/app/api/v1/openapi.json/route";
 import { getClient, writeTransaction } from "@/db/client";
+import { REJECTION_CODES } from "@/lib/ingest/rejections";
 import type { UserActor } from "@/lib/auth/actor";
 import { loggerToken, makeUser, userToken } from "./helpers";
 import { makeIngestStructure, postReadings, rollupMismatches, storedCount, strainReadings, type Reading } from "./readings-fixtures";
@@ -238,5 +240,14 @@ describe("concurrent requests", () => {
     await held;
     // A write beside the open transaction would wait for SQLite's lock and answer 500 (SQLITE_BUSY).
     expect((await answer).status).toBe(200);
+  });
+});
+
+describe("OpenAPI document", () => {
+  it("documents JSON and CSV bodies and every rejection code of the readings endpoint", async () => {
+    const post = (await openapi().json()).paths["/structures/{code}/readings"].post;
+    expect(Object.keys(post.requestBody.content)).toEqual(["application/json", "text/csv"]);
+    for (const code of Object.keys(REJECTION_CODES)) expect(post.description).toContain(`\`${code}\``);
+    expect(Object.keys(post.responses)).toEqual(expect.arrayContaining(["200", "400", "413", "415"]));
   });
 });

@@ -2,7 +2,9 @@ import type { Metadata } from "next";
 import { EmptyState } from "@/components/ui/empty-state";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
-import { cardClass } from "@/components/ui/styles";
+import { buttonClass, cardClass } from "@/components/ui/styles";
+import Link from "next/link";
+import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getVisibleStructure } from "@/lib/services/structures";
@@ -21,6 +23,7 @@ export default async function StructurePage({ params }: Props) {
     <>
       <PageHeader
         title={structure.name}
+        actions={(await may(user, "readings:ingest", structure)) && <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>Upload logger file</Link>}
         subtitle={
           <>
             <span className="font-mono">{structure.code}</span>
