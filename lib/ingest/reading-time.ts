@@ -44,7 +44,7 @@ export function parseReadingTime(text: string, zone: string | null): number | Fa
 /** The wall-clock fields as if they were UTC, or null when a field is out of range (31 February). */
 function wallClock(year: number, month: number, day: number, hour: number, minute: number, second: number, fraction: string) {
   if (month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return null;
-  const ms = fraction ? Math.floor(Number(`0.${fraction}`) * 1000) : 0;
+  const ms = Number(fraction.slice(0, 3).padEnd(3, "0"));
   const date = new Date(Date.UTC(year, month - 1, day, hour, minute, second, ms));
   // Date.UTC rolls 31 February over into March, and maps years 0–99 to 1900–1999.
   if (date.getUTCDate() !== day || date.getUTCFullYear() !== year) return null;

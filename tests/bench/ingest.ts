@@ -2,7 +2,6 @@ import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
 import fs from "node:fs";
 import http from "node:http";
-import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { createClient, type Client } from "@libsql/client";
@@ -18,6 +17,7 @@ import { createGauge } from "@/lib/services/gauges";
 import { createStructure } from "@/lib/services/structures";
 import { createToken } from "@/lib/services/tokens";
 import { createUser } from "@/lib/services/users";
+import { freePort, waitForServer } from "../e2e/global-setup";
 import type { BenchResult } from "./mechanics";
 
 /**
@@ -72,17 +72,6 @@ function ingestBatches(): Reading[][] {
 const jsonBody = (batch: Reading[]) =>
   JSON.stringify({ readings: batch.map((r) => ({ ...r, time: new Date(r.time).toISOString() })) });
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
-}
-
 /** The bench database with its gauges; a logger token to send readings and a user token to read them. */
 async function prepareDatabase(url: string): Promise<{ logger: string; reader: string }> {
   process.env.DATABASE_URL = url;
@@ -105,18 +94,6 @@ function startServer(url: string, port: number): ChildProcess {
     env: { ...process.env, DATABASE_URL: url, NEXTAUTH_SECRET: "bench-secret", NEXTAUTH_URL: `http://127.0.0.1:${port}` },
     stdio: ["ignore", "ignore", "inherit"],
   });
-}
-
-async function waitFor(baseUrl: string) {
-  for (const deadline = Date.now() + 60_000; Date.now() < deadline; ) {
-    try {
-      if ((await fetch(`${baseUrl}/signin`)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-  throw new Error("The server did not start within 60 s");
 }
 
 /** RSS of the process and its children, kB: current and high-water mark. */
@@ -293,7 +270,7 @@ export async function benchIngestion(): Promise<BenchResult[]> {
   const baseUrl = `http://127.0.0.1:${port}`;
   const server = startServer(url, port);
   try {
-    await waitFor(baseUrl);
+    await waitForServer(baseUrl, server, () => "(server output goes to this terminal)");
     const batches = ingestBatches();
     const bodies = batches.map(jsonBody);
     // Warm the server's code paths on readings of another gauge before timing.

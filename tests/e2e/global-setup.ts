@@ -12,7 +12,7 @@ declare module "vitest" {
   }
 }
 
-function freePort(): Promise<number> {
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const server = net.createServer();
     server.once("error", reject);
@@ -23,7 +23,7 @@ function freePort(): Promise<number> {
   });
 }
 
-async function waitForServer(url: string, server: ChildProcess, log: () => string) {
+export async function waitForServer(url: string, server: ChildProcess, log: () => string) {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
     if (server.exitCode !== null) throw new Error(`The app server exited early:\n${log()}`);
