@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { createClient, type Client } from "@libsql/client";
+import { createClient, type Client, type Transaction } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
 import * as schema from "./schema";
 
@@ -70,6 +70,9 @@ export function closeDb() {
   globalForDb.hookelineDb = undefined;
 }
 
+/** The transaction `writeTransaction` hands to its work. */
+export type WriteTx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
 let writeQueue: Promise<unknown> = Promise.resolve();
 
 /**
@@ -78,10 +81,20 @@ let writeQueue: Promise<unknown> = Promise.resolve();
  * leave the pool unusable, so they queue here; across processes SQLite's busy timeout
  * serialises them.
  */
-export function writeTransaction<T>(work: (tx: Parameters<Parameters<Database["transaction"]>[0]>[0]) => Promise<T>): Promise<T> {
+export function writeTransaction<T>(work: (tx: WriteTx) => Promise<T>): Promise<T> {
   const run = writeQueue.then(() => getDb().transaction(work, { behavior: "immediate" }));
   writeQueue = run.catch(() => undefined);
   return run;
+}
+
+/**
+ * The libSQL transaction under a Drizzle one, for statements with thousands of bound parameters
+ * (bulk readings) that Drizzle's query builder would spend longer assembling than SQLite running.
+ */
+export function libsqlTransaction(tx: WriteTx): Transaction {
+  const inner = (tx as unknown as { session?: { tx?: Transaction } }).session?.tx;
+  if (!inner) throw new Error("Not inside a writeTransaction: no libSQL transaction to run on.");
+  return inner;
 }
 
 /** True when a statement failed on a UNIQUE or PRIMARY KEY constraint (Drizzle wraps the driver's error). */

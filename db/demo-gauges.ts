@@ -187,8 +187,52 @@ export const DEMO_GAUGES: DemoGauge[] = [
       input: "digits",
       zero: { value: 702.9, temperature: 9.8 },
     }),
-    story: () => ({ trafficAmplitude: -9, thermalRestraint: 0.2 }),
+    // A loose connector: one reading jumps further than any column moves, a sensor fault, not a load.
+    story: (start) => ({ trafficAmplitude: -9, thermalRestraint: 0.2, spikes: [{ time: start + 70 * DAY_MS + 11 * 3_600_000, strain: 2600 }] }),
   },
 ];
 
 export const DEMO_ROSETTES = [{ structure: "MILL-FB", tag: "R1", layout: "rectangular" as const, gauges: ["GP-R1a", "GP-R1b", "GP-R1c"] as [string, string, string] }];
+
+type DemoLimit = { quantity: "stress" | "strain" | "utilisation"; level: "watch" | "warning" | "critical"; upper?: number; lower?: number; hysteresis?: number; persistence?: number };
+
+/**
+ * Example limits of the demo engineer, chosen so that the demo's stories cross some of them:
+ * the parked vehicle on LC-Q1 goes to warning, and DG-3's drifting reading stays at watch.
+ * Examples only: real limits are the responsible engineer's, under local codes.
+ */
+export const DEMO_LIMITS: { structure: string; tag: string; limits: DemoLimit[] }[] = [
+  {
+    structure: "MILL-FB",
+    tag: "LC-Q1",
+    limits: [
+      { quantity: "stress", level: "watch", upper: 120, hysteresis: 10, persistence: 2 },
+      { quantity: "stress", level: "warning", upper: 150, hysteresis: 10, persistence: 2 },
+      { quantity: "stress", level: "critical", upper: 240, hysteresis: 10, persistence: 2 },
+    ],
+  },
+  {
+    structure: "MILL-FB",
+    tag: "LC-M1",
+    limits: [
+      { quantity: "stress", level: "watch", upper: 70, lower: -20, hysteresis: 8, persistence: 3 },
+      { quantity: "utilisation", level: "critical", upper: 0.8, hysteresis: 0.05, persistence: 2 },
+    ],
+  },
+  {
+    structure: "MILL-FB",
+    tag: "DG-3",
+    limits: [
+      { quantity: "strain", level: "watch", upper: 110, lower: -110, hysteresis: 60, persistence: 6 },
+      { quantity: "strain", level: "warning", upper: 220, lower: -220, hysteresis: 60, persistence: 6 },
+    ],
+  },
+  {
+    structure: "ORCH-PD",
+    tag: "L2-S1",
+    limits: [
+      { quantity: "strain", level: "watch", upper: 250, lower: -400, hysteresis: 20, persistence: 3 },
+      { quantity: "strain", level: "warning", upper: 400, lower: -600, hysteresis: 20, persistence: 3 },
+    ],
+  },
+];

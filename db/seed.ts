@@ -7,9 +7,16 @@ import { AppError } from "@/lib/errors";
 import type { UserActor } from "@/lib/auth/actor";
 import { createGauge, listGauges } from "@/lib/services/gauges";
 import { createRosette } from "@/lib/services/rosettes";
+import { ingestDecoded, openIngestion } from "@/lib/services/ingest";
+import { gaugeConfigOf } from "@/lib/gauges/record";
+import { syntheticReadings, type SyntheticReading } from "@/lib/demo";
+import { and, eq, inArray, min } from "drizzle-orm";
+import { getDb } from "./client";
+import { gauges, zeroReadings } from "./schema";
+import { DEMO_DAYS, DEMO_GAUGES, DEMO_LIMITS, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 import { listDrawings, placeGauge, uploadDrawing } from "@/lib/services/files";
+import { getLimits, replaceLimits } from "@/lib/services/limits";
 import { DEMO_DRAWINGS } from "./demo-drawings";
-import { DEMO_GAUGES, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 
 /**
  * The demo scenario, invented from end to end: the Brennock Valley Transport Trust owns a
@@ -61,14 +68,20 @@ async function actorFor(email: string): Promise<UserActor> {
 }
 
 /** The technician registered the footbridge's gauges; the engineer those of the parking deck. */
-async function seedGauges(now: number) {
-  const installedAt = new Date(demoPeriod(now).start - 86_400_000).toISOString();
-  const installers: Record<string, UserActor> = {
+async function installers(): Promise<Record<string, UserActor>> {
+  return {
     "MILL-FB": await actorFor("technician@hookeline.example"),
     "ORCH-PD": await actorFor("engineer@hookeline.example"),
   };
+}
+
+const INSTALLED_BEFORE_READINGS_MS = 86_400_000;
+
+async function seedGauges(now: number) {
+  const installedAt = new Date(demoPeriod(now).start - INSTALLED_BEFORE_READINGS_MS).toISOString();
+  const installerOf = await installers();
   for (const { structure, input } of DEMO_GAUGES) {
-    const installer = installers[structure]!;
+    const installer = installerOf[structure]!;
     const existing = await listGauges(installer, structure);
     if (existing.some((gauge) => gauge.tag === input.tag)) continue;
     await createGauge(installer, structure, { ...input, zero: { ...input.zero, time: installedAt } });
@@ -91,6 +104,15 @@ async function seedDrawings() {
   }
 }
 
+/** The engineer's example limits, set before the readings arrive so the demo raises real alerts. */
+async function seedLimits() {
+  const engineer = await actorFor("engineer@hookeline.example");
+  for (const { structure, tag, limits } of DEMO_LIMITS) {
+    if ((await getLimits(engineer, structure, tag)).length > 0) continue;
+    await replaceLimits(engineer, structure, tag, limits);
+  }
+}
+
 /** Creates what is missing of the demo scenario; running it again changes nothing. */
 export async function seedDemo(now = Date.now()): Promise<void> {
   for (const structure of DEMO_STRUCTURES) {
@@ -104,4 +126,50 @@ export async function seedDemo(now = Date.now()): Promise<void> {
   }
   await seedGauges(now);
   await seedDrawings();
+  await seedLimits();
+  await seedReadings();
+}
+
+/** Fixed, so every seeded database holds the same invented readings. */
+const DEMO_SEED = 20_260_301;
+const SEED_BATCH = 5_000;
+
+/**
+ * The demo period starts a day after the gauges' installation, as stored at the first run, so a
+ * later run regenerates exactly the same readings and stores nothing new: they are duplicates.
+ */
+async function readingsStart(structureCode: string, gaugeIds: number[]): Promise<number> {
+  const [row] = await getDb()
+    .select({ installed: min(zeroReadings.time) })
+    .from(zeroReadings)
+    .where(and(inArray(zeroReadings.gaugeId, gaugeIds), eq(zeroReadings.reason, "installation")));
+  if (!row?.installed) throw new Error(`Demo gauges of ${structureCode} have no installation zero`);
+  return row.installed.getTime() + INSTALLED_BEFORE_READINGS_MS;
+}
+
+/** 90 days of 10-minute readings per demo gauge, through the ingestion service like any logger's. */
+async function seedReadings() {
+  const installerOf = await installers();
+  for (const [structureCode, installer] of Object.entries(installerOf)) {
+    const target = await openIngestion(installer, structureCode);
+    const demo = DEMO_GAUGES.filter((gauge) => gauge.structure === structureCode);
+    const stored = await getDb()
+      .select()
+      .from(gauges)
+      .where(inArray(gauges.id, [...target.gauges.values()].map((gauge) => gauge.id)));
+    const start = await readingsStart(structureCode, stored.map((row) => row.id));
+    const synthetic = demo.map(({ input, story }) => {
+      const row = stored.find((candidate) => candidate.tag === input.tag)!;
+      return { tag: input.tag, config: gaugeConfigOf(row), story: story(start) };
+    });
+    let batch: SyntheticReading[] = [];
+    for (const reading of syntheticReadings({ start, days: DEMO_DAYS, seed: DEMO_SEED, gauges: synthetic })) {
+      batch.push(reading);
+      if (batch.length === SEED_BATCH) {
+        await ingestDecoded(target, batch);
+        batch = [];
+      }
+    }
+    if (batch.length > 0) await ingestDecoded(target, batch);
+  }
 }

@@ -39,31 +39,41 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.out
   return result.data;
 }
 
+/** The media type of the body, without parameters, lower case. */
+export function contentType(request: Request): string | undefined {
+  return request.headers.get("content-type")?.split(";")[0]?.trim().toLowerCase();
+}
+
 function requireContentType(request: Request, expected: string) {
-  const type = request.headers.get("content-type")?.split(";")[0]?.trim().toLowerCase();
-  if (type !== expected) {
+  if (contentType(request) !== expected) {
     throw new AppError("unsupported_media_type", `Send the body as ${expected} (Content-Type: ${expected}).`);
   }
 }
 
-/** Reads the body, refusing it by its declared length first and as soon as it grows past the limit. */
-async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
+/** The body's bytes as they arrive, refused with a 413 as soon as they grow past the limit. */
+export async function* bodyChunks(request: Request, limitBytes: number): AsyncGenerator<Uint8Array> {
   const declared = Number(request.headers.get("content-length"));
   if (declared > limitBytes) throw tooLarge(limitBytes);
-  if (!request.body) return Buffer.alloc(0);
+  if (!request.body) return;
   const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
   let received = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    received += value.byteLength;
-    if (received > limitBytes) {
-      await reader.cancel();
-      throw tooLarge(limitBytes);
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) return;
+      received += value.byteLength;
+      if (received > limitBytes) throw tooLarge(limitBytes);
+      yield value;
     }
-    chunks.push(value);
+  } finally {
+    await reader.cancel().catch(() => undefined);
   }
+}
+
+/** Reads the whole body, refusing it as soon as it grows past the limit. */
+async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
+  const chunks: Uint8Array[] = [];
+  for await (const chunk of bodyChunks(request, limitBytes)) chunks.push(chunk);
   return Buffer.concat(chunks);
 }
 

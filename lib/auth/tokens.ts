@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, writeTransaction } from "@/db/client";
 import { apiTokens, users } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import type { Actor } from "./actor";
@@ -52,5 +52,7 @@ async function noteTokenUse(tokenId: number, lastUsedAt: Date | null) {
   const now = Date.now();
   // A logger posting every few seconds need not cost a write each time.
   if (lastUsedAt && now - lastUsedAt.getTime() < LAST_USE_RESOLUTION_MS) return;
-  await getDb().update(apiTokens).set({ lastUsedAt: new Date(now) }).where(eq(apiTokens.id, tokenId));
+  // Queued behind open write transactions (an ingestion in progress): a write beside one waits
+  // for SQLite's lock synchronously and stalls the whole process until SQLITE_BUSY.
+  await writeTransaction((tx) => tx.update(apiTokens).set({ lastUsedAt: new Date(now) }).where(eq(apiTokens.id, tokenId)));
 }

@@ -1,6 +1,8 @@
+import { benchIngestion } from "./ingest";
 import { benchMechanics, type BenchResult } from "./mechanics";
 
-const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics];
+// `npm run bench -- --no-build` reuses the production build in .next instead of building first.
+const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion];
 
 function printTable(rows: BenchResult[]): void {
   const labelWidth = Math.max(...rows.map((row) => row.label.length));

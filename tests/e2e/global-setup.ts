@@ -12,7 +12,7 @@ declare module "vitest" {
   }
 }
 
-async function waitForServer(url: string, server: ChildProcess, log: () => string) {
+export async function waitForServer(url: string, server: ChildProcess, log: () => string) {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
     if (server.exitCode !== null) throw new Error(`The app server exited early:\n${log()}`);

@@ -73,13 +73,14 @@ export default async function StructurePage({ params }: Props) {
   const { code } = await params;
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [gauges, statuses, rosettes, recentAlerts, canRegister, canManageTokens] = await Promise.all([
+  const [gauges, statuses, rosettes, recentAlerts, canRegister, canManageTokens, canIngest] = await Promise.all([
     listGauges(user, code),
     gaugeStatuses(structure),
     listRosettes(user, code),
     listAlerts(user, code, "all", 8),
     may(user, "gauge:register", structure),
     may(user, "token:manage", structure),
+    may(user, "readings:ingest", structure),
   ]);
   const tokens = canManageTokens ? await listLoggerTokens(user, code) : [];
   const mailMode = await alertMailModeOf(user.id, structure.id);
@@ -87,6 +88,13 @@ export default async function StructurePage({ params }: Props) {
     <div className="space-y-8">
       <PageHeader
         title={structure.name}
+        actions={
+          canIngest && (
+            <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
+              Upload logger file
+            </Link>
+          )
+        }
         subtitle={
           <>
             <span className="font-mono">{structure.code}</span>

@@ -1,0 +1,129 @@
+import { failure, type Failure } from "@/lib/mechanics/result";
+import { DAY, MINUTE } from "@/lib/series";
+
+/**
+ * Reading times: ISO-8601 date and time, `T` or a space between them, seconds and a fraction
+ * optional, then `Z` or an offset (`+01:00`, `+0100`, `+01`). Without an offset the time is a wall
+ * clock time read in a time zone (CSV files only; the contract wants an offset in JSON).
+ * Stored times are epoch milliseconds: finer fractions are cut to the millisecond.
+ */
+const ISO_TIME = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:[.,](\d+))?)?(?:\s*(Z|[+-]\d{2}(?::?\d{2})?))?$/i;
+
+const EXAMPLE = "e.g. 2026-03-01T12:00:00Z or 2026-03-01T13:00:00+01:00";
+
+const INVALID_TIME = failure("invalid-time", `The time is not an ISO-8601 date and time (${EXAMPLE}).`);
+const TIME_WITHOUT_OFFSET = failure(
+  "invalid-time",
+  `The time has no offset; send UTC with Z or the logger's offset (${EXAMPLE}).`,
+);
+const TIME_BEFORE_EPOCH = failure("invalid-time", "The time is before 1970-01-01; check the logger's clock.");
+
+/**
+ * Epoch ms of an ISO-8601 time. `zone` (an IANA name) reads times that carry no offset; with
+ * `zone` null such times are refused.
+ */
+export function parseReadingTime(text: string, zone: string | null): number | Failure<"invalid-time"> {
+  const match = ISO_TIME.exec(text.trim());
+  if (!match) return INVALID_TIME;
+  const [, year, month, day, hour, minute, second = "0", fraction = "", offset] = match;
+  const wall = wallClock(+year!, +month!, +day!, +hour!, +minute!, +second, fraction);
+  if (wall === null) return INVALID_TIME;
+  let time: number;
+  if (offset !== undefined) {
+    const offsetMs = parseOffset(offset);
+    if (offsetMs === null) return INVALID_TIME;
+    time = wall - offsetMs;
+  } else if (zone === null) {
+    return TIME_WITHOUT_OFFSET;
+  } else {
+    time = wallClockToEpoch(wall, zone);
+  }
+  return time < 0 ? TIME_BEFORE_EPOCH : time;
+}
+
+/** The wall-clock fields as if they were UTC, or null when a field is out of range (31 February). */
+function wallClock(year: number, month: number, day: number, hour: number, minute: number, second: number, fraction: string) {
+  if (month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return null;
+  const ms = Number(fraction.slice(0, 3).padEnd(3, "0"));
+  const date = new Date(Date.UTC(year, month - 1, day, hour, minute, second, ms));
+  // Date.UTC rolls 31 February over into March, and maps years 0–99 to 1900–1999.
+  if (date.getUTCDate() !== day || date.getUTCFullYear() !== year) return null;
+  return date.getTime();
+}
+
+function parseOffset(offset: string): number | null {
+  if (offset === "Z" || offset === "z") return 0;
+  const sign = offset[0] === "-" ? -1 : 1;
+  const digits = offset.slice(1).replace(":", "");
+  const hours = Number(digits.slice(0, 2));
+  const minutes = digits.length > 2 ? Number(digits.slice(2)) : 0;
+  if (hours > 23 || minutes > 59) return null;
+  return sign * (hours * 60 + minutes) * MINUTE;
+}
+
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatterFor(zone: string): Intl.DateTimeFormat {
+  let formatter = formatters.get(zone);
+  if (!formatter) {
+    formatter = new Intl.DateTimeFormat("en-US", {
+      timeZone: zone,
+      hourCycle: "h23",
+      year: "numeric",
+      month: "numeric",
+      day: "numeric",
+      hour: "numeric",
+      minute: "numeric",
+      second: "numeric",
+    });
+    formatters.set(zone, formatter);
+  }
+  return formatter;
+}
+
+/** Offset of `zone` from UTC at an instant, ms (positive east of Greenwich). */
+export function zoneOffset(zone: string, instant: number): number {
+  const fields: Record<string, number> = {};
+  for (const part of formatterFor(zone).formatToParts(instant)) {
+    if (part.type !== "literal") fields[part.type] = Number(part.value);
+  }
+  const asUtc = Date.UTC(fields.year!, fields.month! - 1, fields.day!, fields.hour!, fields.minute!, fields.second!);
+  return asUtc - (instant - (((instant % 1000) + 1000) % 1000));
+}
+
+/**
+ * Zones change offset on quarter-hour wall-clock boundaries, so one shift serves a whole
+ * quarter hour of wall time; caching it keeps a million-row file from formatting a million dates.
+ */
+const QUARTER_HOUR = 15 * MINUTE;
+const shiftCache = new Map<string, number>();
+const SHIFT_CACHE_LIMIT = 100_000;
+
+/**
+ * The instant a wall-clock time in `zone` names. Where clocks go back (the hour happens twice)
+ * the earlier instant is taken; where they go forward (the hour never happens) the time is read
+ * with the offset in force before the change, landing as far after it — the "compatible" rule
+ * of the ECMAScript Temporal proposal.
+ */
+export function wallClockToEpoch(wall: number, zone: string): number {
+  const block = Math.floor(wall / QUARTER_HOUR);
+  const key = `${zone}|${block}`;
+  let shift = shiftCache.get(key);
+  if (shift === undefined) {
+    shift = offsetForWallClock(block * QUARTER_HOUR, zone);
+    if (shiftCache.size >= SHIFT_CACHE_LIMIT) shiftCache.clear();
+    shiftCache.set(key, shift);
+  }
+  return wall - shift;
+}
+
+function offsetForWallClock(wall: number, zone: string): number {
+  // At most one change of offset lies within a day either side of any wall-clock time.
+  const before = zoneOffset(zone, wall - DAY);
+  const after = zoneOffset(zone, wall + DAY);
+  const earlierFits = zoneOffset(zone, wall - before) === before;
+  const laterFits = zoneOffset(zone, wall - after) === after;
+  if (earlierFits && laterFits) return Math.max(before, after);
+  if (laterFits) return after;
+  return before;
+}

@@ -1,0 +1,34 @@
+import type { ReadingErrorCode } from "@/lib/mechanics";
+
+/**
+ * Why a reading can be refused, as `rejected[].code` of the ingestion response. The catalogue is
+ * printed in the OpenAPI document, so integrators can match on the codes.
+ */
+export const REJECTION_CODES = {
+  "invalid-reading": "The reading is not a JSON object with gauge, time and value.",
+  "wrong-column-count": "A CSV row has more or fewer fields than the header (a decimal comma splits a number in two).",
+  "missing-gauge": "The reading names no gauge tag.",
+  "unknown-gauge": "No gauge of the structure has this tag.",
+  "retired-gauge": "The gauge is retired and takes no more readings.",
+  "gauge-not-convertible": "The gauge's stored configuration cannot convert readings; fix the gauge first.",
+  "missing-time": "The reading has no time.",
+  "invalid-time": "The time is not ISO-8601 with a date, lacks an offset where one is required, or is before 1970.",
+  "time-in-future": "The time is more than 5 minutes ahead of the server's clock.",
+  "missing-value": "The reading has no value.",
+  "non-finite-value": "The value is not a finite number (text, NaN, Infinity).",
+  "non-finite-temperature": "The temperature is given but is not a finite number.",
+  "temperature-required": "The gauge's temperature compensation needs the temperature at each reading.",
+  "non-positive-frequency": "A vibrating-wire frequency must be above 0 Hz.",
+  "non-positive-digits": "A vibrating-wire reading in digits must be above 0.",
+  "impossible-bridge-output": "No bridge of the gauge's arrangement can produce this output change.",
+} as const satisfies Record<string, string> & Record<ReadingErrorCode, string>;
+
+export type RejectionCode = keyof typeof REJECTION_CODES;
+
+export interface Rejection {
+  /** Position of the reading in the request (JSON array index, or CSV data row counted from 0). */
+  index: number;
+  code: RejectionCode;
+  message: string;
+}
+

@@ -1,0 +1,323 @@
+import { libsqlTransaction, writeTransaction, type WriteTx } from "@/db/client";
+import type { Structure } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+import { requirePermission } from "@/lib/auth/authorize";
+import { AppError } from "@/lib/errors";
+import { gaugeConfigOf } from "@/lib/gauges/record";
+import { createBatch, rowCount, selectRows, type GaugeEntry, type GaugeRows, type PreparedBatch } from "@/lib/ingest/batch";
+import { csvColumns, csvRows, type CsvRow } from "@/lib/ingest/csv";
+import { decodeCsvReading, decodeJsonReading, type CsvColumns, type DecodedReading } from "@/lib/ingest/reading-input";
+import type { Rejection } from "@/lib/ingest/rejections";
+import { appendRollupValues, ROLLUP_COLUMNS } from "@/lib/ingest/rollup-rows";
+import { prepareGauge } from "@/lib/mechanics";
+import { isTimeZone } from "@/lib/validation";
+import { gaugeRowsOf } from "./gauges";
+import { getVisibleStructure } from "./structures";
+import { evaluateInsertedReadings } from "./alert-raising";
+
+/** Per request, from the API contract. */
+export const MAX_READINGS_PER_REQUEST = 50_000;
+export const MAX_REQUEST_BYTES = 10_000_000;
+/** An upload is streamed, so its ceiling only guards the disk against a runaway client. */
+export const MAX_UPLOAD_BYTES = 2_000_000_000;
+
+export type AlertCounts = { opened: number; escalated: number; cleared: number };
+
+export interface IngestResult {
+  accepted: number;
+  duplicates: number;
+  rejected: Rejection[];
+  alerts: AlertCounts;
+}
+
+/** A structure readings go to, with its gauges' converters prepared once for the whole request. */
+export interface IngestTarget {
+  structure: Structure;
+  gauges: ReadonlyMap<string, GaugeEntry>;
+}
+
+export async function openIngestion(actor: Actor, code: string): Promise<IngestTarget> {
+  const structure = await getVisibleStructure(actor, code);
+  await requirePermission(actor, "readings:ingest", structure);
+  const gauges = new Map<string, GaugeEntry>();
+  for (const row of await gaugeRowsOf(structure.id)) {
+    gauges.set(row.tag, { id: row.id, tag: row.tag, retired: row.status === "retired", converter: prepareGauge(gaugeConfigOf(row)), row });
+  }
+  return { structure, gauges };
+}
+
+const tooManyReadings = () =>
+  new AppError(
+    "payload_too_large",
+    `At most ${MAX_READINGS_PER_REQUEST.toLocaleString("en-US")} readings per request; split the batch, or upload a large logger file to /uploads.`,
+  );
+
+/**
+ * Stores the valid readings of one request in one transaction. Readings come decoded (from
+ * JSON, CSV, or the demo seed); their position in the request is what a rejection reports.
+ */
+export async function ingestDecoded(target: IngestTarget, readings: Iterable<DecodedReading>, now = Date.now()): Promise<IngestResult> {
+  const batch = createBatch(target.gauges, now);
+  let position = 0;
+  for (const reading of readings) batch.add(position++, reading);
+  return storeBatch(target, batch.finish());
+}
+
+/** `POST /readings` with a JSON body: `readings` already parsed, each element still unchecked. */
+export async function ingestJson(actor: Actor, code: string, readings: readonly unknown[]): Promise<IngestResult> {
+  if (readings.length > MAX_READINGS_PER_REQUEST) throw tooManyReadings();
+  const target = await openIngestion(actor, code);
+  return ingestDecoded(target, readings.map(decodeJsonReading));
+}
+
+/** The zone for CSV times without an offset: the caller's choice, else the structure's. */
+function csvZone(structure: Structure, timezone: string | undefined): string {
+  if (timezone === undefined) return structure.timezone;
+  if (!isTimeZone(timezone)) {
+    throw new AppError("bad_request", `Unknown time zone "${timezone.slice(0, 60)}"; use an IANA name such as Europe/London or UTC.`, {
+      field: "timezone",
+    });
+  }
+  return timezone;
+}
+
+/** A CSV body's header, checked before any row is read, and the rows after it. */
+async function openCsv(body: AsyncIterable<Uint8Array>) {
+  const rows = csvRows(body);
+  const first = await rows.next();
+  if (first.done) throw new AppError("bad_request", "The CSV is empty; its first line is the header gauge,time,value,temperature.");
+  return { columns: csvColumns(first.value.fields), rows };
+}
+
+/** `POST /readings` with a CSV body (at most 50 000 rows, one transaction); `index` counts data rows from 0. */
+export async function ingestCsv(actor: Actor, code: string, body: AsyncIterable<Uint8Array>, timezone?: string): Promise<IngestResult> {
+  const target = await openIngestion(actor, code);
+  const zone = csvZone(target.structure, timezone);
+  const { columns, rows } = await openCsv(body);
+  const decoded: DecodedReading[] = [];
+  for await (const row of rows) {
+    if (decoded.length === MAX_READINGS_PER_REQUEST) throw tooManyReadings();
+    decoded.push(decodeCsvReading(row.fields, columns, zone));
+  }
+  return ingestDecoded(target, decoded);
+}
+
+const NO_ALERTS: AlertCounts = Object.freeze({ opened: 0, escalated: 0, cleared: 0 });
+
+/** One write transaction: readings, their roll-ups and the limit evaluation commit together or not at all. */
+async function storeBatch(target: IngestTarget, batch: PreparedBatch): Promise<IngestResult> {
+  const valid = rowCount(batch.gauges);
+  if (valid === 0) return { accepted: 0, duplicates: batch.repeats, rejected: batch.rejected, alerts: { ...NO_ALERTS } };
+  const { accepted, alerts } = await writeTransaction(async (tx) => {
+    const inserted = await insertReadings(tx, batch.gauges);
+    await mergeRollups(tx, inserted);
+    return { accepted: rowCount(inserted), alerts: await evaluateLimits(tx, target, inserted) };
+  });
+  return { accepted, duplicates: valid - accepted + batch.repeats, rejected: batch.rejected, alerts };
+}
+
+/**
+ * Runs inside the ingestion transaction with exactly the readings this request stored (never
+ * duplicates), per gauge in time order, so alerts open, escalate and clear, and their e-mails are
+ * queued, atomically with the readings that caused them.
+ */
+async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<AlertCounts> {
+  const total = { ...NO_ALERTS };
+  for (const rows of inserted) {
+    const gauge = target.gauges.get(rows.tag)!.row;
+    const readings = rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! }));
+    const { counts } = await evaluateInsertedReadings(tx, gauge, readings);
+    total.opened += counts.opened;
+    total.escalated += counts.escalated;
+    total.cleared += counts.cleared;
+  }
+  return total;
+}
+
+/** SQLite's bound-parameter ceiling (stack-notes). */
+const MAX_PARAMETERS = 32_766;
+const READING_COLUMNS = 7;
+const READINGS_PER_STATEMENT = Math.floor(MAX_PARAMETERS / READING_COLUMNS);
+const ROLLUPS_PER_STATEMENT = Math.floor(MAX_PARAMETERS / ROLLUP_COLUMNS.length);
+
+/** Statement texts by row count: a batch reuses one text per chunk size instead of rebuilding it. */
+const statementCache = new Map<string, string>();
+
+function statement(kind: "readings" | "rollups", rows: number): string {
+  const key = `${kind}:${rows}`;
+  let sql = statementCache.get(key);
+  if (!sql) {
+    sql = kind === "readings" ? insertReadingsSql(rows) : mergeRollupsSql(rows);
+    statementCache.set(key, sql);
+  }
+  return sql;
+}
+
+const placeholders = (rows: number, columns: number) => {
+  const row = `(${Array(columns).fill("?").join(",")})`;
+  return Array(rows).fill(row).join(",");
+};
+
+function insertReadingsSql(rows: number): string {
+  return `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags) VALUES ${placeholders(rows, READING_COLUMNS)}`;
+}
+
+/**
+ * Merges roll-up rows into stored ones. SQLite's two-argument min() and max() are NULL when either
+ * side is, so the temperature columns (NULL while no reading had one) fall back to the other side.
+ */
+function mergeRollupsSql(rows: number): string {
+  const nullable = (column: string, combined: string) => `${column} = coalesce(${combined}, ${column}, excluded.${column})`;
+  return (
+    `INSERT INTO rollups (${ROLLUP_COLUMNS.join(", ")}) VALUES ${placeholders(rows, ROLLUP_COLUMNS.length)} ` +
+    "ON CONFLICT (gauge_id, resolution, bucket) DO UPDATE SET " +
+    [
+      "count = count + excluded.count",
+      "strain_min = min(strain_min, excluded.strain_min)",
+      "strain_max = max(strain_max, excluded.strain_max)",
+      "strain_sum = strain_sum + excluded.strain_sum",
+      "stress_min = min(stress_min, excluded.stress_min)",
+      "stress_max = max(stress_max, excluded.stress_max)",
+      "stress_sum = stress_sum + excluded.stress_sum",
+      "temperature_count = temperature_count + excluded.temperature_count",
+      nullable("temperature_min", "min(temperature_min, excluded.temperature_min)"),
+      nullable("temperature_max", "max(temperature_max, excluded.temperature_max)"),
+      nullable("temperature_sum", "temperature_sum + excluded.temperature_sum"),
+    ].join(", ")
+  );
+}
+
+/**
+ * Leaves out readings whose (gauge, time) is already stored, then inserts the rest in chunks under
+ * the parameter limit. The write transaction holds SQLite's write lock from its start, so nothing
+ * can be stored between the look-up and the insert. Looking up the batch's own times (one index
+ * probe each, usually finding nothing) costs less than asking every insert to return its keys.
+ * Returns the rows inserted, per gauge in time order.
+ */
+async function insertReadings(tx: WriteTx, gauges: readonly GaugeRows[]): Promise<GaugeRows[]> {
+  const raw = libsqlTransaction(tx);
+  const fresh: GaugeRows[] = [];
+  for (const rows of gauges) {
+    const stored = await raw.execute({
+      sql: "SELECT t FROM readings WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?))",
+      args: [rows.gaugeId, JSON.stringify(rows.time)],
+    });
+    if (stored.rows.length === 0) {
+      fresh.push(rows);
+      continue;
+    }
+    const known = new Set(stored.rows.map((row) => row[0] as number));
+    const kept = rows.time.flatMap((time, i) => (known.has(time) ? [] : [i]));
+    if (kept.length > 0) fresh.push(selectRows(rows, kept));
+  }
+  let args: (number | null)[] = [];
+  const flush = async () => {
+    await raw.execute({ sql: statement("readings", args.length / READING_COLUMNS), args });
+    args = [];
+  };
+  for (const rows of fresh) {
+    for (let i = 0; i < rows.time.length; i++) {
+      args.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!);
+      if (args.length === READINGS_PER_STATEMENT * READING_COLUMNS) await flush();
+    }
+  }
+  if (args.length > 0) await flush();
+  return fresh;
+}
+
+async function mergeRollups(tx: WriteTx, inserted: readonly GaugeRows[]): Promise<void> {
+  const raw = libsqlTransaction(tx);
+  const values: (number | null)[] = [];
+  for (const rows of inserted) appendRollupValues(rows, values);
+  const perStatement = ROLLUPS_PER_STATEMENT * ROLLUP_COLUMNS.length;
+  for (let start = 0; start < values.length; start += perStatement) {
+    const args = values.slice(start, start + perStatement);
+    await raw.execute({ sql: statement("rollups", args.length / ROLLUP_COLUMNS.length), args });
+  }
+}
+
+/** Rows rejected in an upload; past this many only the count grows, so a wrong file cannot fill the memory. */
+export const MAX_REPORTED_REJECTIONS = 10_000;
+
+export interface UploadRejection {
+  /** Line of the file (the header is line 1). */
+  line: number;
+  code: Rejection["code"];
+  message: string;
+}
+
+export interface UploadProgress {
+  /** Bytes of the file read so far. */
+  bytes: number;
+  rows: number;
+  accepted: number;
+  duplicates: number;
+  rejected: number;
+}
+
+export interface UploadReport extends UploadProgress {
+  rejections: UploadRejection[];
+  /** True when more rows were rejected than `rejections` lists. */
+  rejectionsTruncated: boolean;
+  alerts: AlertCounts;
+}
+
+/** Rows per transaction of an upload: big enough to insert fast, small enough to hold and to report progress. */
+export const UPLOAD_BATCH_ROWS = 5_000;
+
+/**
+ * A logger file of any size, streamed: the header is checked at once (so a wrong file is a
+ * 400 before anything is stored), then `run` reads the rows and stores them in batches of
+ * 5 000, each its own transaction. A file that fails half-way keeps the batches already
+ * reported; sending it again is safe, since stored readings come back as duplicates.
+ */
+export async function startCsvUpload(actor: Actor, code: string, body: AsyncIterable<Uint8Array>, timezone?: string) {
+  const target = await openIngestion(actor, code);
+  const zone = csvZone(target.structure, timezone);
+  let bytes = 0;
+  async function* counted() {
+    for await (const chunk of body) {
+      bytes += chunk.byteLength;
+      yield chunk;
+    }
+  }
+  const { columns, rows } = await openCsv(counted());
+  return {
+    zone,
+    run: (onProgress: (progress: UploadProgress) => void) =>
+      runUpload(target, columns, zone, rows, (progress) => onProgress({ ...progress, bytes })),
+  };
+}
+
+async function runUpload(
+  target: IngestTarget,
+  columns: CsvColumns,
+  zone: string,
+  rows: AsyncIterable<CsvRow>,
+  onProgress: (progress: Omit<UploadProgress, "bytes">) => void,
+): Promise<Omit<UploadReport, "bytes">> {
+  const report: Omit<UploadReport, "bytes"> = { rows: 0, accepted: 0, duplicates: 0, rejected: 0, rejections: [], rejectionsTruncated: false, alerts: { ...NO_ALERTS } };
+  let batch = createBatch(target.gauges, Date.now());
+  let inBatch = 0;
+  const store = async () => {
+    const result = await storeBatch(target, batch.finish());
+    report.accepted += result.accepted;
+    report.duplicates += result.duplicates;
+    report.rejected += result.rejected.length;
+    for (const { index, code, message } of result.rejected) {
+      if (report.rejections.length < MAX_REPORTED_REJECTIONS) report.rejections.push({ line: index, code, message });
+      else report.rejectionsTruncated = true;
+    }
+    for (const key of Object.keys(report.alerts) as (keyof AlertCounts)[]) report.alerts[key] += result.alerts[key];
+    onProgress({ rows: report.rows, accepted: report.accepted, duplicates: report.duplicates, rejected: report.rejected });
+    batch = createBatch(target.gauges, Date.now());
+    inBatch = 0;
+  };
+  for await (const row of rows) {
+    batch.add(row.line, decodeCsvReading(row.fields, columns, zone));
+    report.rows++;
+    if (++inBatch === UPLOAD_BATCH_ROWS) await store();
+  }
+  if (inBatch > 0) await store();
+  return report;
+}

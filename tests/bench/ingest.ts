@@ -1,0 +1,303 @@
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { once } from "node:events";
+import fs from "node:fs";
+import http from "node:http";
+import os from "node:os";
+import path from "node:path";
+import { createClient, type Client } from "@libsql/client";
+import { drizzle } from "drizzle-orm/libsql";
+import { migrate } from "drizzle-orm/libsql/migrator";
+import { closeDb } from "@/db/client";
+import { migrateDatabase } from "@/db/migrate";
+import { parseWith } from "@/lib/api/http";
+import { gaugeInput } from "@/lib/gauges/schema";
+import { prepareGauge, type GaugeConfig } from "@/lib/mechanics";
+import { createBucketAccumulator, bucketGrid, DAY, MINUTE } from "@/lib/series";
+import { createGauge } from "@/lib/services/gauges";
+import { createStructure } from "@/lib/services/structures";
+import { createToken } from "@/lib/services/tokens";
+import { createUser } from "@/lib/services/users";
+import { waitForServer } from "../e2e/global-setup";
+import { freePort } from "../free-port";
+import type { BenchResult } from "./mechanics";
+
+/**
+ * Full-path figures against the production build: ingestion through HTTP versus raw inserts,
+ * a year's series query versus reading every row, and the server's memory over a million-row
+ * upload. Everything runs on temporary databases; nothing here asserts.
+ */
+
+const BATCH = 5_000;
+const CLIENTS = 8;
+const INGEST_GAUGES = 10;
+const INGEST_READINGS = 400_000;
+const YEAR_READINGS = 525_600;
+const UPLOAD_ROWS = 1_000_000;
+const START = Date.UTC(2025, 0, 1);
+const READING_COLUMNS = 7;
+
+/** A foil gauge read in microstrain, as most loggers report, on steel. */
+const GAUGE = {
+  kind: "foil",
+  input: "microstrain",
+  gaugeFactor: 2.1,
+  loggerGaugeFactor: 2,
+  material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 },
+  thermal: { method: "cte", gaugeCte: 10.8 },
+  zero: { value: 0, temperature: 15, time: "2024-12-31T00:00:00Z" },
+};
+
+const GAUGE_TAGS = Array.from({ length: INGEST_GAUGES }, (_, g) => `G${g}`);
+
+type Reading = { gauge: string; time: number; value: number; temperature: number };
+
+/** Deterministic readings: gauge i reads a slow wave with a daily temperature swing. */
+function reading(tag: string, i: number, step: number, phase: number): Reading {
+  const time = START + i * step;
+  return { gauge: tag, time, value: 200 * Math.sin(i / 500 + phase), temperature: 15 + 8 * Math.sin((2 * Math.PI * time) / DAY) };
+}
+
+function ingestBatches(): Reading[][] {
+  const batches: Reading[][] = [];
+  const perGauge = INGEST_READINGS / INGEST_GAUGES;
+  for (let first = 0; first < perGauge; first += BATCH / INGEST_GAUGES) {
+    const batch: Reading[] = [];
+    for (let i = first; i < first + BATCH / INGEST_GAUGES; i++) {
+      GAUGE_TAGS.forEach((tag, g) => batch.push(reading(tag, i, MINUTE, g)));
+    }
+    batches.push(batch);
+  }
+  return batches;
+}
+
+const jsonBody = (batch: Reading[]) =>
+  JSON.stringify({ readings: batch.map((r) => ({ ...r, time: new Date(r.time).toISOString() })) });
+
+/** The bench database with its gauges; a logger token to send readings and a user token to read them. */
+async function prepareDatabase(url: string): Promise<{ logger: string; reader: string }> {
+  process.env.DATABASE_URL = url;
+  await migrateDatabase();
+  await createStructure(null, { code: "BENCH", name: "Bench structure", timezone: "UTC" });
+  const admin = await createUser(null, { email: "bench@hookeline.example", name: "Bench", role: "admin", password: "bench-password" });
+  const actor = { kind: "user" as const, id: admin.id, email: admin.email, name: admin.name, role: admin.role };
+  for (const tag of [...GAUGE_TAGS, "YEAR", "UPLOAD"]) {
+    await createGauge(actor, "BENCH", parseWith(gaugeInput, { ...GAUGE, tag }));
+  }
+  const logger = (await createToken(null, { kind: "logger", structureCode: "BENCH" }, "bench logger")).token;
+  const reader = (await createToken(null, { kind: "user", email: admin.email }, "bench reader")).token;
+  closeDb();
+  return { logger, reader };
+}
+
+function startServer(url: string, port: number): ChildProcess {
+  const next = path.join("node_modules", "next", "dist", "bin", "next");
+  return spawn(process.execPath, [next, "start", "-p", String(port), "-H", "127.0.0.1"], {
+    env: { ...process.env, DATABASE_URL: url, NEXTAUTH_SECRET: "bench-secret", NEXTAUTH_URL: `http://127.0.0.1:${port}` },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+}
+
+/** RSS of the process and its children, kB: current and high-water mark. */
+function memoryOf(pid: number): { rss: number; hwm: number } {
+  let rss = 0;
+  let hwm = 0;
+  const visit = (id: number) => {
+    const status = fs.readFileSync(`/proc/${id}/status`, "utf8");
+    rss += Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0);
+    hwm += Number(/VmHWM:\s+(\d+)/.exec(status)?.[1] ?? 0);
+    for (const task of fs.readdirSync(`/proc/${id}/task`)) {
+      const children = fs.readFileSync(`/proc/${id}/task/${task}/children`, "utf8").trim();
+      for (const child of children ? children.split(" ") : []) visit(Number(child));
+    }
+  };
+  visit(pid);
+  return { rss, hwm };
+}
+
+/** Posts the bodies with `clients` requests in flight; returns seconds taken and readings accepted. */
+async function postAll(baseUrl: string, token: string, bodies: (() => string)[], clients: number) {
+  let next = 0;
+  let accepted = 0;
+  const started = performance.now();
+  const client = async () => {
+    while (next < bodies.length) {
+      const body = bodies[next++]!();
+      const response = await fetch(`${baseUrl}/api/v1/structures/BENCH/readings`, {
+        method: "POST",
+        headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
+        body,
+      });
+      if (!response.ok) throw new Error(`ingestion answered ${response.status}: ${await response.text()}`);
+      const result = await response.json();
+      if (result.rejected.length > 0) throw new Error(`a bench reading was rejected: ${JSON.stringify(result.rejected[0])}`);
+      accepted += result.accepted;
+    }
+  };
+  await Promise.all(Array.from({ length: clients }, client));
+  return { seconds: (performance.now() - started) / 1000, accepted };
+}
+
+/** The same rows, converted the same way, inserted with plain multi-row INSERTs, one transaction per batch. */
+async function rawInsertRate(folder: string, batches: Reading[][]): Promise<number> {
+  const client = createClient({ url: `file:${path.join(folder, "raw.db")}` });
+  await client.execute("PRAGMA journal_mode = WAL");
+  await migrate(drizzle(client), { migrationsFolder: path.join(process.cwd(), "drizzle") });
+  const converters = new Map<string, ReturnType<typeof prepareGauge>>();
+  const rowsPerStatement = Math.floor(32_766 / READING_COLUMNS);
+  const sqlFor = (rows: number) =>
+    `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags) VALUES ${Array(rows).fill("(?,?,?,?,?,?,?)").join(",")}`;
+  const started = performance.now();
+  for (const batch of batches) {
+    const tx = await client.transaction("write");
+    for (let from = 0; from < batch.length; from += rowsPerStatement) {
+      const chunk = batch.slice(from, from + rowsPerStatement);
+      const args: (number | null)[] = [];
+      for (const r of chunk) {
+        let converter = converters.get(r.gauge);
+        if (!converter) converters.set(r.gauge, (converter = prepareGauge({ ...GAUGE, zero: { value: 0, temperature: 15 } } as GaugeConfig)));
+        if (!converter.ok) throw new Error(converter.message);
+        const result = converter.convert(r.value, r.temperature);
+        if (!result.ok) throw new Error(result.message);
+        args.push(GAUGE_TAGS.indexOf(r.gauge) + 1, r.time, r.value, r.temperature, result.strain, result.stress, result.flags);
+      }
+      await tx.execute({ sql: sqlFor(chunk.length), args });
+    }
+    await tx.commit();
+  }
+  const seconds = (performance.now() - started) / 1000;
+  client.close();
+  return INGEST_READINGS / seconds;
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+
+async function seriesFigures(baseUrl: string, token: string, reader: string, url: string) {
+  const spikeIndex = 200_000;
+  const yearBodies = Array.from({ length: YEAR_READINGS / BATCH }, (_, b) => () => {
+    const batch: Reading[] = [];
+    for (let i = b * BATCH; i < (b + 1) * BATCH; i++) {
+      const r = reading("YEAR", i, MINUTE, 0);
+      if (i === spikeIndex) r.value = 5_000;
+      batch.push(r);
+    }
+    return jsonBody(batch);
+  });
+  await postAll(baseUrl, token, yearBodies, CLIENTS);
+  const from = START;
+  const to = START + YEAR_READINGS * MINUTE;
+  const seriesUrl = `${baseUrl}/api/v1/structures/BENCH/gauges/YEAR/series?from=${new Date(from).toISOString()}&to=${new Date(to).toISOString()}&points=1000&quantity=strain`;
+  const query = async () => {
+    const response = await fetch(seriesUrl, { headers: { authorization: `Bearer ${reader}` } });
+    if (!response.ok) throw new Error(`series answered ${response.status}: ${await response.text()}`);
+    return (await response.json()) as { max: number[]; t: number[]; source: string };
+  };
+  for (let i = 0; i < 5; i++) await query();
+  const times: number[] = [];
+  let series = await query();
+  for (let i = 0; i < 30; i++) {
+    const started = performance.now();
+    series = await query();
+    times.push(performance.now() - started);
+  }
+  const spikeShows = Math.max(...series.max) > 4_000;
+
+  const client: Client = createClient({ url });
+  const gauge = (await client.execute("SELECT id FROM gauges WHERE tag = 'YEAR'")).rows[0]![0] as number;
+  const naive = async () => {
+    const grid = bucketGrid(from, to, 1000);
+    const rows = await client.execute({ sql: "SELECT t, strain FROM readings WHERE gauge_id = ? AND t >= ? AND t < ? ORDER BY t", args: [gauge, grid.start, grid.end] });
+    const buckets = createBucketAccumulator(grid);
+    for (const row of rows.rows) buckets.addValue(row[0] as number, row[1] as number);
+    return buckets.result();
+  };
+  await naive();
+  const naiveTimes: number[] = [];
+  for (let i = 0; i < 5; i++) {
+    const started = performance.now();
+    await naive();
+    naiveTimes.push(performance.now() - started);
+  }
+  client.close();
+  return { median: median(times), naive: median(naiveTimes), spikeShows, buckets: series.t.length, source: series.source };
+}
+
+/**
+ * Streams a million-row CSV to the upload endpoint, generated as it is sent, while sampling the
+ * server's memory. A fresh connection (agent: false): a pooled keep-alive socket may be closed by
+ * the server just as a long upload starts on it.
+ */
+async function uploadFigures(baseUrl: string, token: string, server: ChildProcess) {
+  let peakRss = 0;
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, memoryOf(server.pid!).rss)), 100);
+  const started = performance.now();
+  const request = http.request(`${baseUrl}/api/v1/structures/BENCH/uploads`, {
+    method: "POST",
+    agent: false,
+    headers: { authorization: `Bearer ${token}`, "content-type": "text/csv" },
+  });
+  const answered = once(request, "response") as Promise<[http.IncomingMessage]>;
+  request.write("gauge,time,value,temperature\n");
+  for (let row = 0; row < UPLOAD_ROWS; ) {
+    const lines: string[] = [];
+    for (const end = Math.min(row + 10_000, UPLOAD_ROWS); row < end; row++) {
+      const r = reading("UPLOAD", row, 30_000, 1);
+      lines.push(`UPLOAD,${new Date(r.time).toISOString()},${r.value.toFixed(3)},${r.temperature.toFixed(2)}\n`);
+    }
+    if (!request.write(lines.join(""))) await once(request, "drain");
+  }
+  request.end();
+  const [response] = await answered;
+  let text = "";
+  for await (const chunk of response) text += chunk;
+  const seconds = (performance.now() - started) / 1000;
+  clearInterval(sampler);
+  const lines = text.trim().split("\n");
+  const done = JSON.parse(lines[lines.length - 1]!);
+  if (done.type !== "done") throw new Error(`upload ended with ${lines[lines.length - 1]}`);
+  return { seconds, accepted: done.accepted as number, peakRss, hwm: memoryOf(server.pid!).hwm };
+}
+
+const verdict = (pass: boolean) => (pass ? "PASS" : "MISS");
+
+export async function benchIngestion(): Promise<BenchResult[]> {
+  if (!process.argv.includes("--no-build")) {
+    const build = spawnSync("npx", ["next", "build"], { encoding: "utf8" });
+    if (build.status !== 0) throw new Error(`next build failed:\n${build.stdout}\n${build.stderr}`);
+  }
+  const folder = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-bench-"));
+  const url = `file:${path.join(folder, "bench.db")}`;
+  const { logger: token, reader } = await prepareDatabase(url);
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server = startServer(url, port);
+  try {
+    await waitForServer(baseUrl, server, () => "(server output goes to this terminal)");
+    const batches = ingestBatches();
+    const bodies = batches.map(jsonBody);
+    // Warm the server's code paths on readings of another gauge before timing.
+    await postAll(baseUrl, token, [() => jsonBody(batches[0]!.map((r) => ({ ...r, gauge: "UPLOAD", time: r.time - DAY })))], 1);
+    const http = await postAll(baseUrl, token, bodies.map((body) => () => body), CLIENTS);
+    if (http.accepted !== INGEST_READINGS) throw new Error(`only ${http.accepted} of ${INGEST_READINGS} readings accepted`);
+    const httpRate = INGEST_READINGS / http.seconds;
+    const rawRate = await rawInsertRate(folder, batches);
+    const ratio = httpRate / rawRate;
+    const series = await seriesFigures(baseUrl, token, reader, url);
+    const upload = await uploadFigures(baseUrl, token, server);
+    const peakMb = Math.max(upload.peakRss, upload.hwm) / 1024;
+    const seriesRatio = series.naive / series.median;
+    return [
+      { label: `ingest: HTTP, ${CLIENTS} clients, batches of ${BATCH}, ${INGEST_READINGS.toLocaleString("en-US")} readings`, value: Math.round(httpRate), unit: "readings/s" },
+      { label: "ingest: raw @libsql/client multi-row INSERT, same rows", value: Math.round(rawRate), unit: "readings/s" },
+      { label: "ingest: HTTP / raw (target ≥ 0.6)", value: Number(ratio.toFixed(2)), unit: verdict(ratio >= 0.6) },
+      { label: `series: year of 1-min readings, 1000 points, median warm (target < 50 ms; ${series.buckets} buckets from ${series.source})`, value: Number(series.median.toFixed(1)), unit: `ms ${verdict(series.median < 50)}` },
+      { label: "series: naive read of every row, median", value: Number(series.naive.toFixed(1)), unit: "ms" },
+      { label: `series: naive / series (target ≥ 20; planted spike shown: ${series.spikeShows ? "yes" : "NO"})`, value: Number(seriesRatio.toFixed(1)), unit: verdict(seriesRatio >= 20 && series.spikeShows) },
+      { label: `upload: ${UPLOAD_ROWS.toLocaleString("en-US")}-row CSV streamed, ${upload.accepted.toLocaleString("en-US")} stored`, value: Math.round(upload.accepted / upload.seconds), unit: "rows/s" },
+      { label: "upload: server peak RSS while uploading (sampled every 100 ms)", value: Math.round(upload.peakRss / 1024), unit: "MB" },
+      { label: "upload: server RSS high-water mark over the whole run (target < 512 MB)", value: Math.round(peakMb), unit: `MB ${verdict(peakMb < 512)}` },
+    ];
+  } finally {
+    server.kill("SIGTERM");
+    fs.rmSync(folder, { recursive: true, force: true });
+  }
+}
