@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
@@ -33,7 +34,10 @@ export function RosetteSection({
         <ul className="space-y-1 text-sm">
           {rosettes.map((rosette) => (
             <li key={rosette.tag} data-testid="rosette-row">
-              <span className="font-mono font-medium">{rosette.tag}</span> — {rosette.layout} ({rosette.layout === "rectangular" ? "0°/45°/90°" : "0°/60°/120°"}):{" "}
+              <Link href={`/structures/${structureCode}/rosettes/${encodeURIComponent(rosette.tag)}`} className="font-mono font-medium text-accent underline">
+                {rosette.tag}
+              </Link>{" "}
+              — {rosette.layout} ({rosette.layout === "rectangular" ? "0°/45°/90°" : "0°/60°/120°"}):{" "}
               {rosette.gauges.join(", ")}
             </li>
           ))}

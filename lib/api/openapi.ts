@@ -210,6 +210,21 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
+  "/structures/{code}/rosettes/{tag}/series": {
+    get: {
+      summary: "A rosette's sigma1, sigma2, vonMises, tauMax (MPa) or theta (degrees) in at most `points` buckets",
+      notes: "Computed from readings of the three gauges with the same timestamp (plane stress, material of gauge a); buckets as for a gauge's series.",
+      parameters: [
+        codeParameter,
+        { name: "tag", in: "path", description: "Rosette tag" },
+        ...rangeParameters,
+        { name: "points", in: "query", description: "Most buckets, 1–5000 (default 1000)" },
+        { name: "quantity", in: "query", description: "sigma1 | sigma2 | vonMises | tauMax | theta; default vonMises" },
+      ],
+      response: { status: 200, schema: seriesSchema, description: "The buckets" },
+      errors: [400, 401, 404],
+    },
+  },
   "/structures/{code}/alerts": {
     get: {
       summary: "Alerts of a structure, newest first; state=open (default), acknowledged, cleared or all",

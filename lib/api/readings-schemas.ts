@@ -57,7 +57,7 @@ const integer = (min: number, max: number, fallback: number) =>
     .default(fallback);
 
 /** Without `from` and `to`, the last 7 days up to now; with one of them, 7 days from or up to it. */
-const timeRange = z
+export const timeRange = z
   .object({
     from: queryTime.optional().meta({ description: "ISO-8601 with Z or an offset; default 7 days before `to`" }),
     to: queryTime.optional().meta({ description: "ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`)" }),
@@ -79,6 +79,19 @@ export const seriesQuerySchema = z
       .enum(SERIES_QUANTITIES, { error: `Choose quantity ${SERIES_QUANTITIES.join(", ")}.` })
       .default("strain")
       .meta({ description: "strain (µε, stress-producing), stress (MPa) or temperature (°C); default strain" }),
+  })
+  .and(timeRange);
+
+export const ROSETTE_QUANTITIES = ["sigma1", "sigma2", "vonMises", "tauMax", "theta"] as const;
+export type RosetteQuantity = (typeof ROSETTE_QUANTITIES)[number];
+
+export const rosetteSeriesQuerySchema = z
+  .object({
+    points: integer(1, MAX_SERIES_POINTS, DEFAULT_SERIES_POINTS).meta({ description: "Most buckets to return (default 1000, max 5000)" }),
+    quantity: z
+      .enum(ROSETTE_QUANTITIES, { error: `Choose quantity ${ROSETTE_QUANTITIES.join(", ")}.` })
+      .default("vonMises")
+      .meta({ description: "sigma1, sigma2, vonMises, tauMax (MPa) or theta (degrees, gauge a to sigma1); default vonMises" }),
   })
   .and(timeRange);
 
