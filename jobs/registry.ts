@@ -2,6 +2,7 @@ import { createTask } from "node-cron";
 import { PROCESS_HOLDER, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";
 import { runDailyDigest } from "./daily-digest";
+import { runRollupMaintenance } from "./rollup-maintenance";
 import { runStaleWatch } from "./stale-watch";
 
 /**
@@ -25,6 +26,7 @@ export const JOBS: Job[] = [
   },
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
+  { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
 ];
 
 /** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */

@@ -1,3 +1,4 @@
+import { runRollupMaintenance } from "@/jobs/rollup-maintenance";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as readingsRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/readings/route";
 import * as seriesRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/series/route";
@@ -193,5 +194,15 @@ describe("logger-file upload", () => {
     expect((await missing.json()).error.message).toMatch(/"time"/);
     expect((await upload("{}", "", "application/json")).status).toBe(415);
     expect((await upload("gauge,time,value\n", "?timezone=Nowhere/Else")).status).toBe(400);
+  });
+});
+
+describe("nightly roll-up maintenance", () => {
+  it("rebuilds a day's roll-ups so they agree with the readings again after a change that bypassed ingestion", async () => {
+    await getClient().execute({ sql: "UPDATE readings SET strain = strain + 1000 WHERE t >= ? AND t < ?", args: [START, START + HOUR] });
+    expect((await rollupMismatches()).length).toBeGreaterThan(0);
+    const summary = await runRollupMaintenance(START + 86_400_000 + HOUR);
+    expect(summary).toMatch(/roll-up rows rebuilt/);
+    expect(await rollupMismatches()).toEqual([]);
   });
 });
