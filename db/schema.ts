@@ -314,6 +314,19 @@ export const evaluationStates = sqliteTable("evaluation_states", {
   state: text("state", { mode: "json" }).$type<unknown>().notNull(),
 });
 
+/** Hourly snapshots of a gauge's evaluation state, so a late reading is evaluated from the state just before it. */
+export const evaluationCheckpoints = sqliteTable(
+  "evaluation_checkpoints",
+  {
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    time: integer("time").notNull(),
+    state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
+);
+
 export const ALERT_KINDS = ["limit", "sensor"] as const;
 
 export const alerts = sqliteTable(

@@ -1,6 +1,6 @@
-import { and, asc, eq, gt, isNull } from "drizzle-orm";
+import { and, asc, desc, eq, gt, isNull, lt } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { alertEvents, alerts, evaluationStates, gaugeLimits, readings, type Gauge } from "@/db/schema";
+import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, readings, type Gauge } from "@/db/schema";
 import {
   defaultHealthThresholds,
   evaluateGauge,
@@ -18,27 +18,43 @@ export type AlertCounts = { opened: number; escalated: number; cleared: number }
 
 /** A state saved after a batch, so a late reading can be evaluated from the state just before it. */
 type Checkpoint = { time: number; state: GaugeEvaluationState };
-type StoredState = { current: GaugeEvaluationState; checkpoints: Checkpoint[] };
+type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
 
 const CHECKPOINT_SPACING_MS = 3_600_000;
 /** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
-const CHECKPOINTS_KEPT = 72;
+const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
 
 async function loadState(tx: Tx, gaugeId: number): Promise<StoredState> {
   const [row] = await tx.select().from(evaluationStates).where(eq(evaluationStates.gaugeId, gaugeId)).limit(1);
-  if (!row) return { current: initialGaugeEvaluationState(), checkpoints: [] };
-  return row.state as StoredState;
+  return row ? (row.state as StoredState) : { current: initialGaugeEvaluationState(), lastCheckpointAt: null };
 }
 
-async function saveState(tx: Tx, gaugeId: number, stored: StoredState, lastTime: number | null) {
-  const value = { gaugeId, lastTime, state: stored };
+/** Saves the current state; once an hour also as a checkpoint (kept three days), rather than rewriting a history each batch. */
+async function saveState(tx: Tx, gaugeId: number, stored: StoredState, state: GaugeEvaluationState) {
+  const lastTime = state.health.lastTime;
+  let lastCheckpointAt = stored.lastCheckpointAt;
+  if (lastTime !== null && (lastCheckpointAt === null || lastTime - lastCheckpointAt >= CHECKPOINT_SPACING_MS)) {
+    await tx.insert(evaluationCheckpoints).values({ gaugeId, time: lastTime, state }).onConflictDoNothing();
+    await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, lastTime - CHECKPOINTS_KEPT_MS)));
+    lastCheckpointAt = lastTime;
+  }
+  const value = { gaugeId, lastTime, state: { current: state, lastCheckpointAt } };
   await tx.insert(evaluationStates).values(value).onConflictDoUpdate({ target: evaluationStates.gaugeId, set: value });
 }
 
-function withCheckpoint(stored: StoredState, state: GaugeEvaluationState, time: number | null): StoredState {
-  const last = stored.checkpoints.at(-1);
-  if (time === null || (last && time - last.time < CHECKPOINT_SPACING_MS)) return { current: state, checkpoints: stored.checkpoints };
-  return { current: state, checkpoints: [...stored.checkpoints, { time, state }].slice(-CHECKPOINTS_KEPT) };
+async function checkpointBefore(tx: Tx, gaugeId: number, time: number): Promise<Checkpoint | undefined> {
+  const [row] = await tx
+    .select()
+    .from(evaluationCheckpoints)
+    .where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, time)))
+    .orderBy(desc(evaluationCheckpoints.time))
+    .limit(1);
+  return row && { time: row.time, state: row.state as GaugeEvaluationState };
+}
+
+/** A replay rewrites what happened after its checkpoint, so later checkpoints no longer hold. */
+async function dropCheckpointsAfter(tx: Tx, gaugeId: number, time: number) {
+  await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), gt(evaluationCheckpoints.time, time)));
 }
 
 async function limitsFor(tx: Tx, gaugeId: number): Promise<Limit[]> {
@@ -159,15 +175,16 @@ export async function evaluateInsertedReadings(
   const lastTime = stored.current.health.lastTime;
   const earliest = Math.min(...inserted.map((reading) => reading.time));
   const late = lastTime !== null && earliest <= lastTime;
-  const checkpoint = late ? stored.checkpoints.findLast((saved) => saved.time < earliest) : undefined;
+  const checkpoint = late ? await checkpointBefore(tx, gauge.id, earliest) : undefined;
   if (!checkpoint) {
     // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
     const batch = [...inserted].sort((a, b) => a.time - b.time);
-    return applyEvaluation(tx, gauge, setup, stored, batch, counts, notifications);
+    return applyEvaluation(tx, gauge, setup, stored, stored.current, batch, counts, notifications);
   }
+  await dropCheckpointsAfter(tx, gauge.id, checkpoint.time);
   const replayed = await storedReadingsAfter(tx, gauge.id, checkpoint.time);
-  const fromCheckpoint = { current: checkpoint.state, checkpoints: stored.checkpoints.filter((saved) => saved.time <= checkpoint.time) };
-  return applyEvaluation(tx, gauge, setup, fromCheckpoint, replayed, counts, notifications, true);
+  const fromCheckpoint = { current: checkpoint.state, lastCheckpointAt: checkpoint.time };
+  return applyEvaluation(tx, gauge, setup, fromCheckpoint, checkpoint.state, replayed, counts, notifications, true);
 }
 
 async function applyEvaluation(
@@ -175,20 +192,20 @@ async function applyEvaluation(
   gauge: Gauge,
   setup: Parameters<typeof evaluateGauge>[0],
   stored: StoredState,
+  from: GaugeEvaluationState,
   batch: EvaluatedReading[],
   counts: AlertCounts,
   notifications: Notification[],
   replayed = false,
 ) {
-  const result = evaluateGauge(setup, stored.current, batch);
+  const result = evaluateGauge(setup, from, batch);
   for (const event of result.events) {
     if (replayed && (await alreadyRecorded(tx, gauge.id, event))) continue;
     await applyLimitEvent(tx, gauge, event, notifications, counts);
   }
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   if (batch.length > 0) await clearStaleAlert(tx, gauge, batch.at(-1)!.time, notifications);
-  const lastTime = result.state.health.lastTime;
-  await saveState(tx, gauge.id, withCheckpoint(stored, result.state, lastTime), lastTime);
+  await saveState(tx, gauge.id, stored, result.state);
   await queueAlertMails(tx, gauge, notifications);
   return { counts, notifications };
 }
