@@ -24,6 +24,8 @@ import {
   structureSchema,
 } from "./schemas";
 import { fatigueQuery } from "./fatigue-query";
+import { reportQuery } from "./report-query";
+import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
 import { acknowledgeBody, backtestBody, limitsBody } from "@/lib/alerting/schema";
 
@@ -250,6 +252,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       alternative: {
         contentType: "text/csv",
         description: "With format=csv or Accept: text/csv: the rainflow matrix, rows by range bin upper edge (MPa), columns by mean bin centre (MPa), cycles in the cells",
+      },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/report": {
+    get: {
+      summary:
+        "The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, " +
+        "utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions",
+      parameters: [codeParameter, ...queryParameters(reportQuery.in)],
+      response: { status: 200, schema: structureReportSchema, description: "The report" },
+      alternative: {
+        contentType: "application/pdf",
+        description: 'With format=pdf or Accept: application/pdf: the report as an A4 PDF in SI units, as an attachment named "<code>-report-<period>.pdf"',
       },
       errors: [400, 401, 404],
     },
