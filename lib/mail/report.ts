@@ -1,5 +1,6 @@
 import type { StructureReport } from "@/lib/api/report-schema";
 import { formatReadings } from "@/lib/report/format";
+import { periodQuery } from "@/lib/report/period";
 import { ALERT_CAUTION } from "./alert";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -7,8 +8,7 @@ const REPORT_MAIL_CAUTION = `${ALERT_CAUTION} Fatigue damage is an estimate that
 
 /** The report page of the same period, so the link shows what the attachment shows. */
 export function reportPageLink(appUrl: string, report: Pick<StructureReport, "structure" | "period">): string {
-  const { period } = report;
-  const query = /^\d{4}-\d{2}$/.test(period.key) ? `month=${period.key}` : `from=${period.from.slice(0, 10)}&to=${period.lastDay}`;
+  const query = periodQuery({ from: new Date(report.period.from), to: new Date(report.period.to) });
   return `${appUrl}/structures/${encodeURIComponent(report.structure.code)}/report?${query}`;
 }
 

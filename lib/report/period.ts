@@ -88,3 +88,9 @@ export function periodKey(period: ReportPeriod): string {
 export function isUtcMidnight(at: Date): boolean {
   return at.getTime() % DAY_MS === 0;
 }
+
+/** The query string naming the period for the report page and API: "month=2026-11", or "from=…&to=…" (last day included). */
+export function periodQuery(period: ReportPeriod): string {
+  const month = wholeMonthOf(period);
+  return month ? `month=${monthKey(month)}` : `from=${dayText(period.from)}&to=${dayText(lastDay(period))}`;
+}

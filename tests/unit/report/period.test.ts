@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { monthIn, monthPeriod, monthsBefore, periodKey, periodName, previousMonthPeriod, wholeMonthOf } from "@/lib/report/period";
+import { monthIn, monthPeriod, monthsBefore, periodKey, periodName, periodQuery, previousMonthPeriod, wholeMonthOf } from "@/lib/report/period";
 
 const utc = (...parts: [number, number, number, number?]) => new Date(Date.UTC(parts[0], parts[1] - 1, parts[2], parts[3] ?? 0));
 
@@ -35,5 +35,12 @@ describe("report periods", () => {
     expect(periodName(run)).toBe("3 November 2026 to 15 November 2026");
     expect(periodKey(run)).toBe("2026-11-03_2026-11-15");
     expect(periodName({ from: utc(2026, 11, 3), to: utc(2026, 11, 4) })).toBe("3 November 2026");
+  });
+});
+
+describe("period query strings", () => {
+  it("name a month by month and other runs by their first and last day", () => {
+    expect(periodQuery(monthPeriod({ year: 2026, month: 11 }))).toBe("month=2026-11");
+    expect(periodQuery({ from: utc(2026, 11, 3), to: utc(2026, 11, 16) })).toBe("from=2026-11-03&to=2026-11-15");
   });
 });

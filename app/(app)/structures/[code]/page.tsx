@@ -67,6 +67,11 @@ export default async function StructurePage({ params }: Props) {
             {structure.location && <> · {structure.location}</>} · times shown in {structure.timezone}
           </>
         }
+        actions={
+          <Link href={`/structures/${code}/report`} className={buttonClass("secondary")}>
+            Report
+          </Link>
+        }
       />
       {structure.description && <p className="-mt-4 max-w-prose text-sm">{structure.description}</p>}
       <Section
