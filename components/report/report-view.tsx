@@ -144,7 +144,7 @@ function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: ReturnTyp
               <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.stress, (v) => formatStress(v, units))}</td>
               <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.strain, (v) => formatMicrostrain(v))}</td>
               <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.temperature, (v) => formatTemperature(v, units))}</td>
-              <td className={tdClass}>{formatUtilisation(gauge.utilisationPeak, units)}</td>
+              <td className={tdClass}>{formatUtilisation(gauge, units)}</td>
               <td className={tdClass}>{formatReadings(gauge.readings, gauge.expectedIntervalS)}</td>
               <td className={tdClass}>{formatGapTotal(gauge.gaps)}</td>
               <td className={tdClass}>{formatFatigue(gauge.fatigue)}</td>

@@ -27,9 +27,10 @@ export function formatExtremes(extremes: { min: number; max: number } | null, fo
   return extremes ? `${format(extremes.min)} to ${format(extremes.max)}` : "no readings";
 }
 
-export function formatUtilisation(peak: ReportGauge["utilisationPeak"], units: UnitSystem): string {
-  if (!peak) return "not available (no yield stress or no readings)";
-  return `${Math.round(peak.ratio * 100)} % of yield (${formatStress(peak.yield, units)})`;
+export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "stress">, units: UnitSystem): string {
+  const peak = gauge.utilisationPeak;
+  if (peak) return `${Math.round(peak.ratio * 100)} % of yield (${formatStress(peak.yield, units)})`;
+  return gauge.stress ? "no yield stress set for the material" : "no readings";
 }
 
 export function formatReadings(readings: ReportGauge["readings"], intervalS?: number): string {
@@ -49,7 +50,7 @@ export function formatGap(gap: ReportGauge["gaps"]["list"][number], timeZone: st
 }
 
 export function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
-  if (fatigue.status === "not-assessed") return "not assessed: the gauge has no fatigue detail category";
+  if (fatigue.status === "not-assessed") return "not assessed (no detail category set)";
   if (fatigue.readingsUsed === 0) return `no readings to count (category ${fatigue.category} MPa)`;
   return `D = ${formatScientific(fatigue.damage)} (Miner sum, category ${fatigue.category} MPa, ${count(fatigue.cyclesCounted)} cycles)`;
 }

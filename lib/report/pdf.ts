@@ -112,7 +112,7 @@ function gaugeTables(doc: Doc, report: StructureReport) {
     tableRow(doc, "Stress, min to max", formatExtremes(gauge.stress, (v) => formatStress(v, "si")));
     tableRow(doc, "Strain, min to max", formatExtremes(gauge.strain, (v) => formatMicrostrain(v)));
     tableRow(doc, "Temperature, min to max", formatExtremes(gauge.temperature, (v) => formatTemperature(v, "si")));
-    tableRow(doc, "Utilisation peak", formatUtilisation(gauge.utilisationPeak, "si"));
+    tableRow(doc, "Utilisation peak", formatUtilisation(gauge, "si"));
     tableRow(doc, "Data completeness", formatReadings(gauge.readings, gauge.expectedIntervalS));
     tableRow(doc, "Gaps", formatGapTotal(gauge.gaps));
     for (const gap of gauge.gaps.list) paragraph(doc, `- ${formatGap(gap, zone)}`, { indent: LABEL_WIDTH + 8, size: 9 });

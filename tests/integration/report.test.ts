@@ -2,7 +2,7 @@ import { eq, like } from "drizzle-orm";
 import { PDFParse } from "pdf-parse";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as reportRoute from "@/app/api/v1/structures/[code]/report/route";
-import { getDb } from "@/db/client";
+import { getClient, getDb } from "@/db/client";
 import { alertEvents, alerts, mailOutbox } from "@/db/schema";
 import { runMonthlyReport } from "@/jobs/monthly-report";
 import type { UserActor } from "@/lib/auth/actor";
@@ -16,7 +16,7 @@ import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import { structureReport } from "@/lib/services/report";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
-import { storeReadings, type StoredReading } from "./readings-helper";
+import { storeReadings, type StoredReading } from "../fixtures/readings";
 
 const HOUR = 3_600_000;
 const TEN_MINUTES = 600_000;
@@ -98,8 +98,8 @@ beforeAll(async () => {
   await createGauge(engineer, "RPT", gaugeInput("G2", { detailCategory: 71 }));
   // Installed half-way through the month and silent since.
   await createGauge(engineer, "RPT", gaugeInput("G3", { zero: { value: 0, temperature: 10, time: "2026-10-16T00:00:00Z" } }));
-  await storeReadings(await gaugeId("RPT", "G1"), october(g1Stress, GAP));
-  await storeReadings(await gaugeId("RPT", "G2"), october(g2History));
+  await storeReadings(getClient(), await gaugeId("RPT", "G1"), october(g1Stress, GAP));
+  await storeReadings(getClient(), await gaugeId("RPT", "G2"), october(g2History));
 
   const g1 = await gaugeId("RPT", "G1");
   const [alert] = await getDb()
