@@ -29,18 +29,8 @@ export function ReportPeriodPicker({ months, selectedMonth, fromDay, toDay, erro
         </button>
       </form>
       <form method="get" className="flex flex-wrap items-end gap-2">
-        <div className="space-y-1">
-          <label htmlFor="report-from" className="block text-sm font-medium">
-            First day
-          </label>
-          <input id="report-from" type="date" name="from" defaultValue={fromDay} required className={inputClass} />
-        </div>
-        <div className="space-y-1">
-          <label htmlFor="report-to" className="block text-sm font-medium">
-            Last day
-          </label>
-          <input id="report-to" type="date" name="to" defaultValue={toDay} required className={inputClass} />
-        </div>
+        <DayField name="from" label="First day" value={fromDay} />
+        <DayField name="to" label="Last day" value={toDay} />
         <button type="submit" className={buttonClass("secondary")}>
           Show days
         </button>
@@ -54,5 +44,16 @@ export function ReportPeriodPicker({ months, selectedMonth, fromDay, toDay, erro
         )}
       </p>
     </section>
+  );
+}
+
+function DayField({ name, label, value }: { name: "from" | "to"; label: string; value: string }) {
+  return (
+    <div className="space-y-1">
+      <label htmlFor={`report-${name}`} className="block text-sm font-medium">
+        {label}
+      </label>
+      <input id={`report-${name}`} type="date" name={name} defaultValue={value} required className={inputClass} />
+    </div>
   );
 }

@@ -7,21 +7,9 @@ import { useUnits } from "@/components/units/units-context";
 import type { GaugeState } from "@/lib/alerting/gauge-state";
 import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/mail/format-time";
-import {
-  alertEventLine,
-  alertHandling,
-  alertTitle,
-  formatExtremes,
-  formatFatigue,
-  formatGap,
-  formatGapTotal,
-  formatReadings,
-  formatStress,
-  formatTemperature,
-  formatUtilisation,
-} from "@/lib/report/format";
+import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
 import type { PeriodLevel } from "@/lib/report/status";
-import { formatMicrostrain } from "@/lib/units";
+import type { UnitSystem } from "@/lib/units";
 
 /** The period's level as the state badge shows it: "all clear" reads as within limits. */
 const BADGE_OF: Record<PeriodLevel, GaugeState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "ok", "no-data": "no-data" };
@@ -44,9 +32,7 @@ export function ReportView({ report }: { report: StructureReport }) {
   const zone = structure.timezone;
   const last = summary.current.lastReadingAt ? formatInTimeZone(new Date(summary.current.lastReadingAt), zone) : "none yet";
   const facts: [string, React.ReactNode][] = [
-    ["Limit alerts in the period", `${summary.alerts.critical} critical, ${summary.alerts.warning} warning, ${summary.alerts.watch} watch`],
-    ["Sensor alerts in the period", summary.alerts.sensor],
-    ["Data received", formatReadings(summary.readings)],
+    ...summaryFacts(summary),
     [
       "State now",
       <span key="now" className="inline-flex flex-wrap items-center gap-2">
@@ -119,8 +105,8 @@ export function ReportView({ report }: { report: StructureReport }) {
   );
 }
 
-function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: ReturnType<typeof useUnits> }) {
-  const columns = ["Gauge", "Stress, min to max", "Strain, min to max", "Temperature, min to max", "Utilisation peak", "Data completeness", "Gaps", "Fatigue damage"];
+function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: UnitSystem }) {
+  const columns = ["Gauge", ...gaugeFacts(gauges[0]!, units).map((fact) => fact.label)];
   return (
     <div className={`${cardClass} overflow-x-auto print:overflow-visible`}>
       <table className={`${tableClass} print:text-xs`}>
@@ -141,13 +127,11 @@ function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: ReturnTyp
                 {gauge.status === "retired" && <span className="ml-1 text-xs text-slate-500">(retired)</span>}
                 <span className="block text-xs font-normal text-slate-500 dark:text-slate-400">{[gauge.label, gauge.member].filter(Boolean).join(" · ")}</span>
               </th>
-              <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.stress, (v) => formatStress(v, units))}</td>
-              <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.strain, (v) => formatMicrostrain(v))}</td>
-              <td className={`${tdClass} tabular-nums`}>{formatExtremes(gauge.temperature, (v) => formatTemperature(v, units))}</td>
-              <td className={tdClass}>{formatUtilisation(gauge, units)}</td>
-              <td className={tdClass}>{formatReadings(gauge.readings, gauge.expectedIntervalS)}</td>
-              <td className={tdClass}>{formatGapTotal(gauge.gaps)}</td>
-              <td className={tdClass}>{formatFatigue(gauge.fatigue)}</td>
+              {gaugeFacts(gauge, units).map((fact) => (
+                <td key={fact.key} className={`${tdClass} tabular-nums`}>
+                  {fact.value}
+                </td>
+              ))}
             </tr>
           ))}
         </tbody>

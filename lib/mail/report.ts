@@ -1,5 +1,5 @@
 import type { StructureReport } from "@/lib/api/report-schema";
-import { formatReadings } from "@/lib/report/format";
+import { summaryFacts } from "@/lib/report/format";
 import { periodQuery } from "@/lib/report/period";
 import { ALERT_CAUTION } from "./alert";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
@@ -18,12 +18,7 @@ export function buildReportMail(input: { recipientName: string; report: Structur
   const { structure, period, summary } = report;
   const subject = `Hookeline report ${period.name}: ${structure.name} (${structure.code}), ${summary.level.replace("-", " ")}`;
   const opening = `Hello ${input.recipientName}, the report of ${structure.name} for ${period.name} is attached as a PDF.`;
-  const lines = [
-    summary.headline,
-    `Limit alerts in the period: ${summary.alerts.critical} critical, ${summary.alerts.warning} warning, ${summary.alerts.watch} watch; sensor alerts: ${summary.alerts.sensor}.`,
-    `Data received: ${formatReadings(summary.readings)}.`,
-    `Gauges in the report: ${report.gauges.length}.`,
-  ];
+  const lines = [summary.headline, ...summaryFacts(summary).map(([label, value]) => `${label}: ${value}.`), `Gauges in the report: ${report.gauges.length}.`];
   const link = reportPageLink(appUrl, report);
   const text = [opening, lines.map((line) => `- ${line}`).join("\n"), `Read it online: ${link}`, REPORT_MAIL_CAUTION].join("\n\n");
   const list = `<ul style="padding-left:20px;margin:0 0 12px">${lines.map((line) => `<li>${escapeHtml(line)}</li>`).join("\n")}</ul>`;

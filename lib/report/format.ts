@@ -1,4 +1,4 @@
-import type { ReportAlert, ReportGauge } from "@/lib/api/report-schema";
+import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/mail/format-time";
 import { formatMicrostrain, inDisplayUnits, type UnitSystem } from "@/lib/units";
@@ -17,13 +17,13 @@ export function formatStress(mpa: number, units: UnitSystem): string {
   return `${shown.value.toFixed(units === "us" ? 2 : 1)} ${shown.unit}`;
 }
 
-export function formatTemperature(celsius: number, units: UnitSystem): string {
+function formatTemperature(celsius: number, units: UnitSystem): string {
   const shown = inDisplayUnits(units, "temperature", celsius);
   return `${shown.value.toFixed(1)} ${shown.unit}`;
 }
 
 /** "-40.0 MPa to 250.0 MPa", or "no readings" when the gauge sent nothing. */
-export function formatExtremes(extremes: { min: number; max: number } | null, format: (value: number) => string): string {
+function formatExtremes(extremes: { min: number; max: number } | null, format: (value: number) => string): string {
   return extremes ? `${format(extremes.min)} to ${format(extremes.max)}` : "no readings";
 }
 
@@ -33,13 +33,13 @@ export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "
   return gauge.stress ? "no yield stress set for the material" : "no readings";
 }
 
-export function formatReadings(readings: ReportGauge["readings"], intervalS?: number): string {
+function formatReadings(readings: ReportGauge["readings"], intervalS?: number): string {
   const share = readings.completeness === null ? "none expected" : formatPercent(readings.completeness);
   const every = intervalS === undefined ? "" : `, one expected every ${count(intervalS)} s`;
   return `${count(readings.received)} of ${count(readings.expected)} expected readings (${share})${every}`;
 }
 
-export function formatGapTotal(gaps: ReportGauge["gaps"]): string {
+function formatGapTotal(gaps: ReportGauge["gaps"]): string {
   const runs = gaps.list.length + gaps.more;
   if (runs === 0) return "none";
   return `${runs === 1 ? "1 run" : `${runs} runs`} without readings, ${formatHours(gaps.totalHours)} in all`;
@@ -49,10 +49,33 @@ export function formatGap(gap: ReportGauge["gaps"]["list"][number], timeZone: st
   return `${formatInTimeZone(new Date(gap.start), timeZone)} to ${formatInTimeZone(new Date(gap.end), timeZone)} (${formatHours(gap.hours)})`;
 }
 
-export function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
+function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
   if (fatigue.status === "not-assessed") return "not assessed (no detail category set)";
   if (fatigue.readingsUsed === 0) return `no readings to count (category ${fatigue.category} MPa)`;
   return `D = ${formatScientific(fatigue.damage)} (Miner sum, category ${fatigue.category} MPa, ${count(fatigue.cyclesCounted)} cycles)`;
+}
+
+/** What the report says about one gauge, label and value, in the order the page's columns and the PDF's rows show it. */
+export function gaugeFacts(gauge: ReportGauge, units: UnitSystem): { key: string; label: string; value: string }[] {
+  return [
+    { key: "stress", label: "Stress, min to max", value: formatExtremes(gauge.stress, (v) => formatStress(v, units)) },
+    { key: "strain", label: "Strain, min to max", value: formatExtremes(gauge.strain, (v) => formatMicrostrain(v)) },
+    { key: "temperature", label: "Temperature, min to max", value: formatExtremes(gauge.temperature, (v) => formatTemperature(v, units)) },
+    { key: "utilisation", label: "Utilisation peak", value: formatUtilisation(gauge, units) },
+    { key: "completeness", label: "Data completeness", value: formatReadings(gauge.readings, gauge.expectedIntervalS) },
+    { key: "gaps", label: "Gaps", value: formatGapTotal(gauge.gaps) },
+    { key: "fatigue", label: "Fatigue damage of the period", value: formatFatigue(gauge.fatigue) },
+  ];
+}
+
+/** The summary's counts, shared by the page, the PDF and the e-mail. */
+export function summaryFacts(summary: StructureReport["summary"]): [label: string, value: string][] {
+  const { alerts } = summary;
+  return [
+    ["Limit alerts in the period", `${alerts.critical} critical, ${alerts.warning} warning, ${alerts.watch} watch`],
+    ["Sensor alerts in the period", String(alerts.sensor)],
+    ["Data received", formatReadings(summary.readings)],
+  ];
 }
 
 /** A bound or peak in its unit: stress in the reader's units, strain in µε, utilisation in % of yield. */

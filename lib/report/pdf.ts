@@ -1,20 +1,7 @@
 import PDFDocument from "pdfkit";
 import type { StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/mail/format-time";
-import { formatMicrostrain } from "@/lib/units";
-import {
-  alertEventLine,
-  alertHandling,
-  alertTitle,
-  formatExtremes,
-  formatFatigue,
-  formatGap,
-  formatGapTotal,
-  formatReadings,
-  formatStress,
-  formatTemperature,
-  formatUtilisation,
-} from "./format";
+import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "./format";
 import { pdfText } from "./pdf-text";
 
 /**
@@ -88,9 +75,7 @@ function summary(doc: Doc, report: StructureReport) {
   paragraph(doc, s.headline);
   doc.moveDown(0.3);
   tableRow(doc, "Status over the period", s.level);
-  tableRow(doc, "Limit alerts in the period", `${s.alerts.critical} critical, ${s.alerts.warning} warning, ${s.alerts.watch} watch`);
-  tableRow(doc, "Sensor alerts in the period", String(s.alerts.sensor));
-  tableRow(doc, "Data received", formatReadings(s.readings));
+  for (const [label, value] of summaryFacts(s)) tableRow(doc, label, value);
   const last = s.current.lastReadingAt ? formatInTimeZone(new Date(s.current.lastReadingAt), structure.timezone) : "none yet";
   tableRow(doc, "State now", `${s.current.state}${s.current.stale ? " (data stale)" : ""}; last reading ${last}`);
   tableRow(doc, "Gauges in the report", String(report.gauges.length));
@@ -109,16 +94,13 @@ function gaugeTables(doc: Doc, report: StructureReport) {
     keepTogether(doc, Math.min(GAUGE_BLOCK_HEIGHT + 12 * gapLines, doc.page.height - 2 * MARGIN - FOOTER_SPACE));
     const where = [gauge.label, gauge.member].filter(Boolean).join(", ");
     heading(doc, `Gauge ${gauge.tag}${where ? ` - ${where}` : ""}${gauge.status === "retired" ? " (retired)" : ""}`, 11);
-    tableRow(doc, "Stress, min to max", formatExtremes(gauge.stress, (v) => formatStress(v, "si")));
-    tableRow(doc, "Strain, min to max", formatExtremes(gauge.strain, (v) => formatMicrostrain(v)));
-    tableRow(doc, "Temperature, min to max", formatExtremes(gauge.temperature, (v) => formatTemperature(v, "si")));
-    tableRow(doc, "Utilisation peak", formatUtilisation(gauge, "si"));
-    tableRow(doc, "Data completeness", formatReadings(gauge.readings, gauge.expectedIntervalS));
-    tableRow(doc, "Gaps", formatGapTotal(gauge.gaps));
-    for (const gap of gauge.gaps.list) paragraph(doc, `- ${formatGap(gap, zone)}`, { indent: LABEL_WIDTH + 8, size: 9 });
-    if (gauge.gaps.more > 0) paragraph(doc, `and ${gauge.gaps.more} more`, { indent: LABEL_WIDTH + 8, size: 9, color: MUTED });
-    if (gapLines > 0) doc.y += 3;
-    tableRow(doc, "Fatigue damage of the period", formatFatigue(gauge.fatigue));
+    for (const fact of gaugeFacts(gauge, "si")) {
+      tableRow(doc, fact.label, fact.value);
+      if (fact.key !== "gaps") continue;
+      for (const gap of gauge.gaps.list) paragraph(doc, `- ${formatGap(gap, zone)}`, { indent: LABEL_WIDTH + 8, size: 9 });
+      if (gauge.gaps.more > 0) paragraph(doc, `and ${gauge.gaps.more} more`, { indent: LABEL_WIDTH + 8, size: 9, color: MUTED });
+      if (gapLines > 0) doc.y += 3;
+    }
   }
 }
 

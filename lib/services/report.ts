@@ -10,7 +10,7 @@ import { activeSpan, completeness, expectedReadings, type Span } from "@/lib/rep
 import { firstOf, missingHourRuns } from "@/lib/report/gaps";
 import { dayText, lastDay, periodKey, periodName, previousMonthPeriod, type ReportPeriod } from "@/lib/report/period";
 import { periodHeadline, periodLevel } from "@/lib/report/status";
-import { ROLLUP_RESOLUTIONS } from "@/lib/series";
+import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { gaugeRowsOf } from "./gauges";
 import { structureSummary } from "./status";
@@ -32,6 +32,16 @@ async function installedAt(gaugeRows: Gauge[]): Promise<Map<number, number>> {
   return new Map(gaugeRows.map((gauge) => [gauge.id, Math.min(gauge.createdAt.getTime(), zeroOf.get(gauge.id) ?? Infinity)]));
 }
 
+/** The gauges' roll-up rows of one resolution whose bucket starts inside the period. */
+function rollupsWithin(gaugeIds: number[], resolution: Rollup, period: Span) {
+  return and(
+    inArray(rollups.gaugeId, gaugeIds),
+    eq(rollups.resolution, ROLLUP_RESOLUTIONS[resolution]),
+    gte(rollups.bucket, period.start),
+    lt(rollups.bucket, period.end),
+  );
+}
+
 /** Per gauge, the period's totals from the daily roll-ups: exact, since the period is whole UTC days. */
 async function dailyTotals(gaugeIds: number[], period: Span) {
   const rows = await getDb()
@@ -46,14 +56,7 @@ async function dailyTotals(gaugeIds: number[], period: Span) {
       temperatureMax: sql<number | null>`max(${rollups.temperatureMax})`,
     })
     .from(rollups)
-    .where(
-      and(
-        inArray(rollups.gaugeId, gaugeIds),
-        eq(rollups.resolution, ROLLUP_RESOLUTIONS.daily),
-        gte(rollups.bucket, period.start),
-        lt(rollups.bucket, period.end),
-      ),
-    )
+    .where(rollupsWithin(gaugeIds, "daily", period))
     .groupBy(rollups.gaugeId);
   return new Map(rows.map((row) => [row.gaugeId, row]));
 }
@@ -63,15 +66,7 @@ async function hoursWithReadings(gaugeIds: number[], period: Span): Promise<Map<
   const rows = await getDb()
     .select({ gaugeId: rollups.gaugeId, bucket: rollups.bucket })
     .from(rollups)
-    .where(
-      and(
-        inArray(rollups.gaugeId, gaugeIds),
-        eq(rollups.resolution, ROLLUP_RESOLUTIONS.hourly),
-        gte(rollups.bucket, period.start),
-        lt(rollups.bucket, period.end),
-        gt(rollups.count, 0),
-      ),
-    );
+    .where(and(rollupsWithin(gaugeIds, "hourly", period), gt(rollups.count, 0)));
   const byGauge = new Map<number, number[]>();
   for (const row of rows) byGauge.set(row.gaugeId, [...(byGauge.get(row.gaugeId) ?? []), row.bucket]);
   return byGauge;

@@ -16,6 +16,7 @@ import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import { structureReport } from "@/lib/services/report";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
+import { microstrainGauge } from "../fixtures/gauges";
 import { storeReadings, type StoredReading } from "../fixtures/readings";
 
 const HOUR = 3_600_000;
@@ -37,27 +38,13 @@ let owners: UserActor[];
 let outsider: UserActor;
 const tokens: Record<string, string> = {};
 
-const gaugeInput = (tag: string, fields: Partial<GaugeInput> = {}): GaugeInput => ({
-  tag,
-  label: `Lower chord ${tag}`,
-  kind: "foil",
-  input: "microstrain",
-  gaugeFactor: 2,
-  polarity: 1,
-  bridge: null,
-  loggerGaugeFactor: null,
-  batchFactor: null,
-  leadResistance: null,
-  gaugeResistance: null,
-  thermal: { method: "none" },
-  material: { E: E_STEEL, nu: 0.3, alpha: 12, yield: 355 },
-  initialStress: 0,
-  zero: { value: 0, temperature: 10, time: "2026-09-01T00:00:00Z" },
-  expectedInterval: 600,
-  ratedRange: null,
-  detailCategory: null,
-  ...fields,
-});
+const gaugeInput = (tag: string, fields: Partial<GaugeInput> = {}): GaugeInput =>
+  microstrainGauge(tag, {
+    label: `Lower chord ${tag}`,
+    material: { E: E_STEEL, nu: 0.3, alpha: 12, yield: 355 },
+    zero: { value: 0, temperature: 10, time: "2026-09-01T00:00:00Z" },
+    ...fields,
+  });
 
 const reading = (time: number, stress: number): StoredReading => ({ time, stress, strain: (stress / E_STEEL) * 1e6, temperature: 10 + (time % 7) });
 
