@@ -71,6 +71,14 @@ describe("the structure report page", () => {
     const response = await page.request.get((await report.downloadLink().getAttribute("href"))!);
     expect(response.headers()["content-type"]).toBe("application/pdf");
 
+    // On paper only the report: no navigation, period picker or buttons.
+    await page.emulateMedia({ media: "print" });
+    await expect(report.downloadLink().isVisible()).resolves.toBe(false);
+    await expect(page.getByRole("navigation", { name: "Main" }).isVisible()).resolves.toBe(false);
+    await expect(page.getByRole("region", { name: "Report period" }).isVisible()).resolves.toBe(false);
+    await expect(report.gaugeRow(TAG).isVisible()).resolves.toBe(true);
+    await saveScreenshot(page, "report-print");
+
     // The PDF of the demo data read back.
     const parsed = await new PDFParse({ data: new Uint8Array(bytes) }).getText();
     const text = parsed.text.replace(/\s+/g, " ");
