@@ -3,6 +3,7 @@ import { PROCESS_HOLDER, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";
 import { runDailyDigest } from "./daily-digest";
 import { runRollupMaintenance } from "./rollup-maintenance";
+import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
 
 /**
@@ -14,6 +15,8 @@ export type Job = {
   name: string;
   schedule: string;
   leaseMs: number;
+  /** IANA zone the schedule is read in; the process's own zone when absent. */
+  timezone?: string;
   run: (signal: AbortSignal) => Promise<string>;
 };
 
@@ -27,6 +30,8 @@ export const JOBS: Job[] = [
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
+  // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.
+  { name: "monthly-report", schedule: "0 0 7 1 * *", timezone: "UTC", leaseMs: 30 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
 ];
 
 /** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */
@@ -55,7 +60,7 @@ export function startJobs(): boolean {
   globalForJobs.hookelineJobsStarted = true;
   for (const job of JOBS) {
     // createTask, then start: node-cron 4's schedule() starts at once and ignores v3's `scheduled: false`.
-    const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true });
+    const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true, timezone: job.timezone });
     void task.start();
   }
   return true;

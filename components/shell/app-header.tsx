@@ -20,7 +20,7 @@ export function AppHeader({ user, units }: { user: UserActor; units: UnitSystem 
     ...(roleAllows(user.role, "mail:read") ? [{ href: "/admin/mail", label: "Mail" }] : []),
   ];
   return (
-    <header className="border-b border-slate-200 bg-white dark:border-slate-800 dark:bg-slate-900">
+    <header className="border-b border-slate-200 bg-white print:hidden dark:border-slate-800 dark:bg-slate-900">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
         <Link href="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight">
           <svg aria-hidden viewBox="0 0 32 32" className="size-7">

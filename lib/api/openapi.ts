@@ -26,6 +26,8 @@ import {
 import { fatigueQuery } from "./fatigue-query";
 import { REJECTION_CODES } from "@/lib/ingest/rejections";
 import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSchema } from "./readings-schemas";
+import { reportQuery } from "./report-query";
+import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
 import { acknowledgeBody, backtestBody, limitsBody } from "@/lib/alerting/schema";
 
@@ -362,6 +364,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
         { name: "quantity", in: "query", description: "strain (µε), stress (MPa) or temperature (°C); default strain" },
       ],
       response: { status: 200, schema: seriesSchema, description: "The buckets" },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/report": {
+    get: {
+      summary:
+        "The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, " +
+        "utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions",
+      parameters: [codeParameter, ...queryParameters(reportQuery.in)],
+      response: { status: 200, schema: structureReportSchema, description: "The report" },
+      alternative: {
+        contentType: "application/pdf",
+        description: 'With format=pdf or Accept: application/pdf: the report as an A4 PDF in SI units, as an attachment named "<code>-report-<period>.pdf"',
+      },
       errors: [400, 401, 404],
     },
   },

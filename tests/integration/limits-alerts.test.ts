@@ -12,6 +12,7 @@ import type { EvaluatedReading } from "@/lib/alerting/evaluate-gauge";
 import { evaluateInsertedReadings } from "@/lib/services/alert-raising";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import type { UserActor } from "@/lib/auth/actor";
+import { microstrainGauge } from "../fixtures/gauges";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
 
 const tokens: Record<string, string> = {};
@@ -33,25 +34,7 @@ beforeAll(async () => {
   owner = await makeUser("owner");
   await makeStructure("BR", [engineer, technician, owner]);
   for (const user of [engineer, technician, owner]) tokens[user.role] = await userToken(user.email);
-  await createGauge(engineer, "BR", {
-    tag: "G1",
-    kind: "foil",
-    input: "microstrain",
-    gaugeFactor: 2,
-    polarity: 1,
-    bridge: null,
-    loggerGaugeFactor: null,
-    batchFactor: null,
-    leadResistance: null,
-    gaugeResistance: null,
-    thermal: { method: "none" },
-    material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 },
-    initialStress: 0,
-    zero: { value: 0, temperature: 10 },
-    expectedInterval: 600,
-    ratedRange: null,
-    detailCategory: null,
-  });
+  await createGauge(engineer, "BR", microstrainGauge("G1"));
 });
 
 const put = (token: string, body: unknown) => limitsRoute.PUT(apiRequest("/structures/BR/gauges/G1/limits", { token, body, method: "PUT" }), at);

@@ -89,11 +89,16 @@ export default async function StructurePage({ params }: Props) {
       <PageHeader
         title={structure.name}
         actions={
-          canIngest && (
-            <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
-              Upload logger file
+          <>
+            <Link href={`/structures/${code}/report`} className={buttonClass("secondary")}>
+              Report
             </Link>
-          )
+            {canIngest && (
+              <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
+                Upload logger file
+              </Link>
+            )}
+          </>
         }
         subtitle={
           <>

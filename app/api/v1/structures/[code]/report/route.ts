@@ -1,0 +1,20 @@
+import { apiRoute, json, parseWith } from "@/lib/api/http";
+import { reportQuery } from "@/lib/api/report-query";
+import { renderReportPdf } from "@/lib/report/pdf";
+import { structureReport } from "@/lib/services/report";
+
+type Params = { code: string };
+
+/** The structure's report for a period as JSON, or as a PDF attachment (?format=pdf or Accept: application/pdf). */
+export const GET = apiRoute<Params>(async ({ request, actor, params }) => {
+  const query = parseWith(reportQuery, Object.fromEntries(new URL(request.url).searchParams));
+  const report = await structureReport(actor, params.code, query.period);
+  const pdf = query.format === "pdf" || (!query.format && request.headers.get("accept")?.includes("application/pdf"));
+  if (!pdf) return json(report);
+  return new Response(new Uint8Array(await renderReportPdf(report)), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `attachment; filename="${report.structure.code}-report-${report.period.key}.pdf"`,
+    },
+  });
+});

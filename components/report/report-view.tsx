@@ -1,0 +1,162 @@
+"use client";
+
+import { GaugeStateBadge } from "@/components/alerts/state-badge";
+import { EmptyState } from "@/components/ui/empty-state";
+import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { useUnits } from "@/components/units/units-context";
+import type { GaugeState } from "@/lib/alerting/gauge-state";
+import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
+import { formatInTimeZone } from "@/lib/mail/format-time";
+import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
+import type { PeriodLevel } from "@/lib/report/status";
+import type { UnitSystem } from "@/lib/units";
+
+/** The period's level as the state badge shows it: "all clear" reads as within limits. */
+const BADGE_OF: Record<PeriodLevel, GaugeState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "ok", "no-data": "no-data" };
+
+function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
+  return (
+    <section aria-labelledby={id} className="space-y-3 break-inside-avoid-page">
+      <h2 id={id} className="text-lg font-semibold">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+/** The report in the reader's units (stress and temperature); the PDF of the same period stays SI. */
+export function ReportView({ report }: { report: StructureReport }) {
+  const units = useUnits();
+  const { summary, structure } = report;
+  const zone = structure.timezone;
+  const last = summary.current.lastReadingAt ? formatInTimeZone(new Date(summary.current.lastReadingAt), zone) : "none yet";
+  const facts: [string, React.ReactNode][] = [
+    ...summaryFacts(summary),
+    [
+      "State now",
+      <span key="now" className="inline-flex flex-wrap items-center gap-2">
+        <GaugeStateBadge state={summary.current.state} />
+        <span className="text-slate-600 dark:text-slate-400">last reading {last}</span>
+      </span>,
+    ],
+  ];
+  return (
+    <div className="space-y-8">
+      <Section id="summary-heading" title="Summary">
+        <div className={`${cardClass} space-y-3 p-4`}>
+          <p className="flex flex-wrap items-center gap-2 font-medium" data-testid="report-level">
+            <GaugeStateBadge state={BADGE_OF[summary.level]} />
+            {summary.headline}
+          </p>
+          <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
+            {facts.map(([label, value]) => (
+              <div key={label} className="contents">
+                <dt className="text-slate-500 dark:text-slate-400">{label}</dt>
+                <dd>{value}</dd>
+              </div>
+            ))}
+          </dl>
+        </div>
+      </Section>
+
+      <Section id="gauges-heading" title="Gauges">
+        {report.gauges.length === 0 ? (
+          <EmptyState title="No gauges in this period">
+            No gauge was installed on {structure.name} during {report.period.name}, so there is nothing to report. Register gauges on the structure page.
+          </EmptyState>
+        ) : (
+          <>
+            {summary.readings.received === 0 && (
+              <EmptyState title={`No readings in ${report.period.name}`}>
+                None of the gauges sent a reading in this period: the report cannot say whether the structure stayed within its limits. Check the
+                loggers and their network link.
+              </EmptyState>
+            )}
+            <GaugeTable gauges={report.gauges} units={units} />
+            <GapLists gauges={report.gauges} timeZone={zone} />
+          </>
+        )}
+      </Section>
+
+      <Section id="alerts-heading" title="Alerts and how they were handled">
+        {report.alerts.length === 0 ? (
+          <p className="text-sm text-slate-600 dark:text-slate-400">No alert was open during this period.</p>
+        ) : (
+          <ul className="space-y-3">
+            {report.alerts.map((alert) => (
+              <li key={alert.id} className={`${cardClass} break-inside-avoid space-y-1 p-4 text-sm`}>
+                <p className="font-semibold">{alertTitle(alert, units)}</p>
+                <p>
+                  Opened {formatInTimeZone(new Date(alert.openedAt), zone)}
+                  {alert.openedBeforePeriod && " (before the period)"}; {alertHandling(alert, zone)}.
+                </p>
+                <ol className="list-inside list-disc text-slate-600 dark:text-slate-400">
+                  {alert.events.map((event, i) => (
+                    <li key={i}>{alertEventLine(event, zone)}</li>
+                  ))}
+                </ol>
+              </li>
+            ))}
+          </ul>
+        )}
+      </Section>
+    </div>
+  );
+}
+
+function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: UnitSystem }) {
+  const columns = ["Gauge", ...gaugeFacts(gauges[0]!, units).map((fact) => fact.label)];
+  return (
+    <div className={`${cardClass} overflow-x-auto print:overflow-visible`}>
+      <table className={`${tableClass} print:text-xs`}>
+        <thead>
+          <tr>
+            {columns.map((column) => (
+              <th key={column} scope="col" className={thClass}>
+                {column}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+          {gauges.map((gauge) => (
+            <tr key={gauge.tag} data-testid="report-gauge-row" className="break-inside-avoid">
+              <th scope="row" className={`${tdClass} text-left`}>
+                <span className="font-mono font-semibold">{gauge.tag}</span>
+                {gauge.status === "retired" && <span className="ml-1 text-xs text-slate-500">(retired)</span>}
+                <span className="block text-xs font-normal text-slate-500 dark:text-slate-400">{[gauge.label, gauge.member].filter(Boolean).join(" · ")}</span>
+              </th>
+              {gaugeFacts(gauge, units).map((fact) => (
+                <td key={fact.key} className={`${tdClass} tabular-nums`}>
+                  {fact.value}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function GapLists({ gauges, timeZone }: { gauges: ReportGauge[]; timeZone: string }) {
+  const withGaps = gauges.filter((gauge) => gauge.gaps.list.length > 0);
+  if (withGaps.length === 0) return null;
+  return (
+    <div className={`${cardClass} space-y-3 p-4 text-sm`}>
+      <h3 className="font-semibold">Hours without readings</h3>
+      {withGaps.map((gauge) => (
+        <div key={gauge.tag} className="break-inside-avoid">
+          <p className="font-mono font-semibold">{gauge.tag}</p>
+          <ul className="list-inside list-disc text-slate-700 dark:text-slate-300">
+            {gauge.gaps.list.map((gap) => (
+              <li key={gap.start}>{formatGap(gap, timeZone)}</li>
+            ))}
+            {gauge.gaps.more > 0 && <li>and {gauge.gaps.more} more</li>}
+          </ul>
+        </div>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,119 @@
+import { z } from "zod";
+import { ALERT_KINDS, ALERT_LEVELS, GAUGE_STATUSES } from "@/db/schema";
+import { STATE_ORDER } from "@/lib/alerting/gauge-state";
+import { PERIOD_LEVELS } from "@/lib/report/status";
+
+/** Response of GET /structures/{code}/report: the periodic structure report. Times are UTC ISO-8601. */
+
+const extremes = <U extends string>(unit: U, what: string) =>
+  z
+    .object({ min: z.number(), max: z.number(), unit: z.literal(unit) })
+    .nullable()
+    .meta({ description: `Lowest and highest ${what} of the period, ${unit}, from the daily roll-ups; null without readings` });
+
+const count = z.number().int();
+
+const readingCounts = z.object({
+  received: count,
+  expected: count.meta({ description: "Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now)" }),
+  completeness: z.number().nullable().meta({ description: "received ÷ expected as a ratio (1 = 100 %); null when nothing was expected" }),
+});
+
+export const reportGaugeSchema = z.object({
+  tag: z.string(),
+  label: z.string().nullable(),
+  member: z.string().nullable(),
+  status: z.enum(GAUGE_STATUSES),
+  expectedIntervalS: z.number().meta({ description: "Seconds between readings the logger should send" }),
+  activeSpan: z
+    .object({ from: z.string(), to: z.string() })
+    .nullable()
+    .meta({ description: "Part of the period in which the gauge was installed, not retired, and not in the future" }),
+  readings: readingCounts,
+  stress: extremes("MPa", "stress"),
+  strain: extremes("µε", "stress-producing strain"),
+  temperature: extremes("°C", "temperature"),
+  utilisationPeak: z
+    .object({ ratio: z.number().meta({ description: "max |σ| ÷ yield over the period (1 = at yield)" }), yield: z.number().meta({ description: "Yield stress, MPa" }) })
+    .nullable()
+    .meta({ description: "null when the gauge's material has no yield stress or there were no readings" }),
+  gaps: z.object({
+    list: z
+      .array(z.object({ start: z.string(), end: z.string(), hours: z.number() }))
+      .meta({ description: "Runs of whole hours without readings, oldest first, at most 10" }),
+    more: count.meta({ description: "Runs not listed" }),
+    totalHours: z.number().meta({ description: "Hours in all runs, listed or not" }),
+  }),
+  fatigue: z
+    .discriminatedUnion("status", [
+      z.object({
+        status: z.literal("assessed"),
+        category: z.number().meta({ description: "Detail category Δσ_C, MPa at 2×10⁶ cycles" }),
+        damage: z.number().meta({ description: "Palmgren–Miner sum of the period" }),
+        cyclesCounted: z.number(),
+        readingsUsed: count,
+      }),
+      z.object({ status: z.literal("not-assessed").meta({ description: "The gauge has no detail category" }) }),
+    ])
+    .meta({ description: "Fatigue damage of the period, as GET …/gauges/{tag}/fatigue computes it with the gauge's category" }),
+});
+
+export const reportAlertSchema = z.object({
+  id: count,
+  gauge: z.string(),
+  kind: z.enum(ALERT_KINDS),
+  level: z.enum(ALERT_LEVELS),
+  quantity: z.string().nullable(),
+  code: z.string().nullable(),
+  message: z.string().nullable(),
+  unit: z.string().nullable().meta({ description: "Unit of bound and peak: MPa, µε, or ratio (utilisation, 1 = at yield); null for sensor alerts" }),
+  bound: z.number().nullable(),
+  peak: z.number().nullable(),
+  openedAt: z.string(),
+  openedBeforePeriod: z.boolean().meta({ description: "Opened earlier and still open when the period began" }),
+  clearedAt: z.string().nullable(),
+  acknowledged: z.object({ at: z.string(), by: z.string().nullable(), comment: z.string().nullable() }).nullable(),
+  events: z
+    .array(
+      z.object({
+        type: z.string().meta({ description: "opened, escalated, cleared, acknowledged or note" }),
+        at: z.string(),
+        level: z.string().nullable(),
+        by: z.string().nullable(),
+        text: z.string().nullable(),
+      }),
+    )
+    .meta({ description: "The alert's whole history up to when the report was made, oldest first" }),
+});
+
+export const structureReportSchema = z
+  .object({
+    structure: z.object({ code: z.string(), name: z.string(), location: z.string().nullable(), timezone: z.string() }),
+    period: z.object({
+      from: z.string().meta({ description: "Start, included: a UTC midnight" }),
+      to: z.string().meta({ description: "End, excluded: a UTC midnight" }),
+      lastDay: z.string().meta({ description: "Last day included, YYYY-MM-DD" }),
+      name: z.string().meta({ description: 'e.g. "November 2026"' }),
+      key: z.string().meta({ description: '"2026-11" for a month, else "<first day>_<last day>"' }),
+    }),
+    generatedAt: z.string(),
+    summary: z.object({
+      level: z.enum(PERIOD_LEVELS).meta({ description: "Worst limit-alert level open in the period; all-clear; or no-data when no reading arrived" }),
+      headline: z.string(),
+      alerts: z
+        .object({ watch: count, warning: count, critical: count, sensor: count })
+        .meta({ description: "Alerts open at any time in the period, limit alerts by level, sensor alerts apart" }),
+      readings: readingCounts,
+      current: z
+        .object({ state: z.enum(STATE_ORDER), stale: z.boolean(), lastReadingAt: z.string().nullable() })
+        .meta({ description: "How the structure stands now, when the report is made" }),
+    }),
+    gauges: z.array(reportGaugeSchema).meta({ description: "Gauges installed at some time in the period, by tag" }),
+    alerts: z.array(reportAlertSchema).meta({ description: "Alerts open at any time in the period, newest first" }),
+    cautions: z.array(z.string()),
+  })
+  .meta({ id: "StructureReport" });
+
+export type StructureReport = z.output<typeof structureReportSchema>;
+export type ReportGauge = z.output<typeof reportGaugeSchema>;
+export type ReportAlert = z.output<typeof reportAlertSchema>;

@@ -1,0 +1,102 @@
+import fs from "node:fs";
+import { createClient } from "@libsql/client";
+import { PDFParse } from "pdf-parse";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { previousMonthPeriod } from "@/lib/report/period";
+import { storeReadings } from "../fixtures/readings";
+import { SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const TAG = "LC-M1";
+const PEAK_MPA = 123.4;
+const TEN_MINUTES = 600_000;
+
+/** Ten-minute readings over the whole of the demo footbridge's previous month, one of them the peak. */
+async function storePreviousMonth() {
+  const { from, to } = previousMonthPeriod(new Date(), "Europe/London");
+  const client = createClient({ url: inject("databaseUrl") });
+  const found = await client.execute({
+    sql: "SELECT g.id FROM gauges g JOIN structures s ON s.id = g.structure_id WHERE s.code = 'MILL-FB' AND g.tag = ?",
+    args: [TAG],
+  });
+  const rows = [];
+  for (let time = from.getTime(), i = 0; time < to.getTime(); time += TEN_MINUTES, i++) {
+    const stress = i === 1000 ? PEAK_MPA : 40 + 10 * Math.sin(i / 20);
+    rows.push({ time, stress, strain: (stress / 210_000) * 1e6, temperature: 8 });
+  }
+  await storeReadings(client, Number(found.rows[0]!.id), rows);
+  client.close();
+}
+
+/** Page object of a structure's report page. */
+class ReportPage {
+  constructor(private readonly page: Page) {}
+  gaugeRow(tag: string) {
+    return this.page.getByTestId("report-gauge-row").filter({ has: this.page.getByRole("rowheader", { name: new RegExp(`^${tag}`) }) });
+  }
+  downloadLink() {
+    return this.page.getByRole("link", { name: "Download PDF" });
+  }
+}
+
+describe("the structure report page", () => {
+  it("shows the demo owner last month's report of the footbridge and hands over its PDF", async () => {
+    await storePreviousMonth();
+    const page = await (await newContext(browser)).newPage();
+    await new SignInPage(page).signInAs("owner");
+    await page.goto("/structures/MILL-FB");
+    await page.getByRole("link", { name: "Report", exact: true }).click();
+    await page.getByRole("heading", { name: "Report: Millrace Footbridge" }).waitFor();
+    for (const heading of ["Summary", "Gauges", "Alerts and how they were handled"]) await page.getByRole("heading", { name: heading }).waitFor();
+
+    const report = new ReportPage(page);
+    await expect(report.gaugeRow(TAG).textContent()).resolves.toContain(`${PEAK_MPA.toFixed(1)} MPa`);
+    await expect(page.getByTestId("report-level").textContent()).resolves.toMatch(/No limit was crossed on the readings received/);
+    await page.getByText("Monitoring supplements inspection; it never replaces it.").waitFor();
+    await page.getByText(/depends on the detail category chosen by the engineer/).waitFor();
+    await saveScreenshot(page, "report-desktop");
+
+    const [download] = await Promise.all([page.waitForEvent("download"), report.downloadLink().click()]);
+    expect(download.suggestedFilename()).toMatch(/^MILL-FB-report-\d{4}-\d{2}\.pdf$/);
+    const bytes = fs.readFileSync((await download.path())!);
+    expect(bytes.subarray(0, 4).toString("latin1")).toBe("%PDF");
+    const response = await page.request.get((await report.downloadLink().getAttribute("href"))!);
+    expect(response.headers()["content-type"]).toBe("application/pdf");
+
+    // On paper only the report: no navigation, period picker or buttons.
+    await page.emulateMedia({ media: "print" });
+    await expect(report.downloadLink().isVisible()).resolves.toBe(false);
+    await expect(page.getByRole("navigation", { name: "Main" }).isVisible()).resolves.toBe(false);
+    await expect(page.getByRole("region", { name: "Report period" }).isVisible()).resolves.toBe(false);
+    await expect(report.gaugeRow(TAG).isVisible()).resolves.toBe(true);
+    await saveScreenshot(page, "report-print");
+
+    // The PDF of the demo data read back.
+    const parsed = await new PDFParse({ data: new Uint8Array(bytes) }).getText();
+    const text = parsed.text.replace(/\s+/g, " ");
+    expect(parsed.total).toBeGreaterThanOrEqual(1);
+    expect(text).toContain("Millrace Footbridge (MILL-FB)");
+    expect(text).toContain(`Gauge ${TAG}`);
+    expect(text).toContain(`${PEAK_MPA.toFixed(1)} MPa`);
+    expect(text).toContain("Monitoring supplements inspection and never replaces it.");
+  });
+
+  it("says so when a period has no readings, instead of an all clear", async () => {
+    const page = await (await newContext(browser)).newPage();
+    await new SignInPage(page).signInAs("owner");
+    await page.goto("/structures/MILL-FB/report?from=2024-01-01&to=2024-01-31");
+    await page.getByRole("heading", { name: "Report: Millrace Footbridge" }).waitFor();
+    await expect(page.getByTestId("report-level").textContent()).resolves.toMatch(/No readings were received/);
+    await page.getByText("No gauges in this period").waitFor();
+    await page.goto("/structures/MILL-FB/report?month=2026-13");
+    await page.getByRole("alert").filter({ hasText: "month is YYYY-MM" }).waitFor();
+  });
+});

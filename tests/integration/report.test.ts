@@ -1,0 +1,311 @@
+import { eq, like } from "drizzle-orm";
+import { PDFParse } from "pdf-parse";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as reportRoute from "@/app/api/v1/structures/[code]/report/route";
+import { getClient, getDb } from "@/db/client";
+import { alertEvents, alerts, mailOutbox } from "@/db/schema";
+import { runMonthlyReport } from "@/jobs/monthly-report";
+import type { UserActor } from "@/lib/auth/actor";
+import { fatigueSummary, rainflow } from "@/lib/fatigue";
+import type { GaugeInput } from "@/lib/gauges/schema";
+import { renderReportPdf } from "@/lib/report/pdf";
+import { monthPeriod } from "@/lib/report/period";
+import { handleAlert } from "@/lib/services/alerts";
+import { addMember } from "@/lib/services/memberships";
+import { updateUser } from "@/lib/services/users";
+import { createGauge, resolveGauge } from "@/lib/services/gauges";
+import { structureReport } from "@/lib/services/report";
+import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
+import { microstrainGauge } from "../fixtures/gauges";
+import { storeReadings, type StoredReading } from "../fixtures/readings";
+
+const HOUR = 3_600_000;
+const TEN_MINUTES = 600_000;
+const OCTOBER = monthPeriod({ year: 2026, month: 10 });
+const START = OCTOBER.from.getTime();
+/** Made on 2 November: October is over, so every hour of it was expected. */
+const NOW = new Date(Date.UTC(2026, 10, 2, 9));
+const E_STEEL = 210_000;
+
+const GAP = { start: Date.UTC(2026, 9, 10, 6), end: Date.UTC(2026, 9, 10, 18) };
+const PEAK = { at: Date.UTC(2026, 9, 20, 12), stress: 250 };
+const TROUGH = { at: Date.UTC(2026, 9, 25, 0), stress: -40 };
+// ASTM E1049 worked example, read as 10 MPa per unit about 40 MPa (as in the fatigue tests).
+const ASTM_EXAMPLE = [-2, 1, -3, 5, -1, 3, -4, 4, -2];
+
+let engineer: UserActor;
+let owners: UserActor[];
+let outsider: UserActor;
+const tokens: Record<string, string> = {};
+
+const gaugeInput = (tag: string, fields: Partial<GaugeInput> = {}): GaugeInput =>
+  microstrainGauge(tag, {
+    label: `Lower chord ${tag}`,
+    material: { E: E_STEEL, nu: 0.3, alpha: 12, yield: 355 },
+    zero: { value: 0, temperature: 10, time: "2026-09-01T00:00:00Z" },
+    ...fields,
+  });
+
+const reading = (time: number, stress: number): StoredReading => ({ time, stress, strain: (stress / E_STEEL) * 1e6, temperature: 10 + (time % 7) });
+
+/** Every 10 minutes of October, from `stressAt`, skipping `skip`; plus one reading either side of the month that must not count. */
+function october(stressAt: (i: number, time: number) => number, skip?: { start: number; end: number }): StoredReading[] {
+  const rows = [reading(START - TEN_MINUTES, 999), reading(OCTOBER.to.getTime(), -999)];
+  for (let time = START, i = 0; time < OCTOBER.to.getTime(); time += TEN_MINUTES, i++) {
+    if (skip && time >= skip.start && time < skip.end) continue;
+    rows.push(reading(time, stressAt(i, time)));
+  }
+  return rows;
+}
+
+const g1Stress = (_: number, time: number) => (time === PEAK.at ? PEAK.stress : time === TROUGH.at ? TROUGH.stress : 50 + 20 * Math.sin(time / HOUR));
+const g2History = (i: number) => 40 + 10 * ASTM_EXAMPLE[i % ASTM_EXAMPLE.length]!;
+
+async function gaugeId(code: string, tag: string) {
+  return (await resolveGauge(engineer, code, tag, "structure:view")).gauge.id;
+}
+
+async function pdfText(pdf: Buffer) {
+  const parsed = await new PDFParse({ data: new Uint8Array(pdf) }).getText();
+  // Lines wrap wherever the page ends them: compare words, not line breaks.
+  return { text: parsed.text.replace(/\s+/g, " "), pages: parsed.total };
+}
+
+let limitAlertId: number;
+
+beforeAll(async () => {
+  engineer = await makeUser("engineer");
+  owners = [await makeUser("owner"), await makeUser("owner", "second-owner@test.example")];
+  outsider = await makeUser("owner", "outsider@test.example");
+  await makeStructure("RPT", [engineer, ...owners]);
+  await makeStructure("OTHER", [outsider]);
+  for (const user of [engineer, owners[0]!, outsider]) tokens[user.email] = await userToken(user.email);
+
+  await createGauge(engineer, "RPT", gaugeInput("G1"));
+  await createGauge(engineer, "RPT", gaugeInput("G2", { detailCategory: 71 }));
+  // Installed half-way through the month and silent since.
+  await createGauge(engineer, "RPT", gaugeInput("G3", { zero: { value: 0, temperature: 10, time: "2026-10-16T00:00:00Z" } }));
+  await storeReadings(getClient(), await gaugeId("RPT", "G1"), october(g1Stress, GAP));
+  await storeReadings(getClient(), await gaugeId("RPT", "G2"), october(g2History));
+
+  const g1 = await gaugeId("RPT", "G1");
+  const [alert] = await getDb()
+    .insert(alerts)
+    .values({
+      structureId: (await resolveGauge(engineer, "RPT", "G1", "structure:view")).structure.id,
+      gaugeId: g1,
+      kind: "limit",
+      level: "warning",
+      quantity: "stress",
+      openedAt: new Date(PEAK.at),
+      bound: 200,
+      peak: PEAK.stress,
+      clearedAt: new Date(PEAK.at + HOUR),
+    })
+    .returning();
+  limitAlertId = alert!.id;
+  await getDb()
+    .insert(alertEvents)
+    .values([
+      { alertId: alert!.id, type: "opened", at: new Date(PEAK.at), level: "warning", value: PEAK.stress },
+      { alertId: alert!.id, type: "cleared", at: new Date(PEAK.at + HOUR), level: "warning", value: 60 },
+    ]);
+  await handleAlert(engineer, alert!.id, "acknowledged", "Crane lift on the deck, planned and supervised");
+  await handleAlert(owners[0]!, alert!.id, "note", "Seen, thank you");
+  // A sensor alert opened in September and still open: part of October's record.
+  await getDb().insert(alerts).values({ structureId: alert!.structureId, gaugeId: g1, kind: "sensor", level: "watch", code: "flat-line", openedAt: new Date(Date.UTC(2026, 8, 28)) });
+  // A limit alert over before October began: not part of it.
+  await getDb()
+    .insert(alerts)
+    .values({ structureId: alert!.structureId, gaugeId: g1, kind: "limit", level: "critical", quantity: "stress", openedAt: new Date(Date.UTC(2026, 8, 5)), clearedAt: new Date(Date.UTC(2026, 8, 6)) });
+});
+
+describe("the structure report", () => {
+  it("gives each gauge's extremes from the daily roll-ups, the readings either side of the month left out", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    expect(report.period).toMatchObject({ name: "October 2026", key: "2026-10", lastDay: "2026-10-31", from: "2026-10-01T00:00:00.000Z" });
+    const g1 = report.gauges.find((gauge) => gauge.tag === "G1")!;
+    expect(g1.stress).toEqual({ min: TROUGH.stress, max: PEAK.stress, unit: "MPa" });
+    // 250 MPa / 210 000 MPa = 1190.48 µε (Hooke's law), 250 / 355 = 0.704 of yield (by hand).
+    expect(g1.strain!.max).toBeCloseTo(1190.476, 2);
+    expect(g1.utilisationPeak!.ratio).toBeCloseTo(250 / 355, 6);
+    expect(g1.temperature).toEqual({ min: 10, max: 16, unit: "°C" });
+  });
+
+  it("measures completeness and finds the planted gap (by hand: 31 × 144 = 4464 expected, 72 missing)", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const [g1, g2, g3] = report.gauges;
+    expect(g1!.readings).toEqual({ received: 4392, expected: 4464, completeness: 4392 / 4464 });
+    expect(g1!.gaps).toEqual({ list: [{ start: "2026-10-10T06:00:00.000Z", end: "2026-10-10T18:00:00.000Z", hours: 12 }], more: 0, totalHours: 12 });
+    expect(g2!.readings.completeness).toBe(1);
+    expect(g2!.gaps.totalHours).toBe(0);
+    // Installed on the 16th: 16 days × 144 expected, none received, one gap of 16 × 24 = 384 hours.
+    expect(g3!.readings).toEqual({ received: 0, expected: 2304, completeness: 0 });
+    expect(g3!.gaps.list).toEqual([{ start: "2026-10-16T00:00:00.000Z", end: "2026-11-01T00:00:00.000Z", hours: 384 }]);
+    expect(g3!.stress).toBeNull();
+    expect(report.summary.readings).toEqual({ received: 4392 + 4464, expected: 4464 * 2 + 2304, completeness: (4392 + 4464) / (4464 * 2 + 2304) });
+  });
+
+  it("takes fatigue damage from the fatigue service where a category is set, and says 'not assessed' elsewhere", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const history = october(g2History).slice(2).map((row) => row.stress);
+    expect(report.gauges[0]!.fatigue).toEqual({ status: "not-assessed" });
+    const g2 = report.gauges[1]!.fatigue;
+    expect(g2.status).toBe("assessed");
+    if (g2.status !== "assessed") return;
+    expect(g2.category).toBe(71);
+    expect(g2.readingsUsed).toBe(4464);
+    expect(g2.damage).toBeGreaterThan(0);
+    expect(g2.damage).toBeCloseTo(fatigueSummary(rainflow(history), 71).damage, 12);
+  });
+
+  it("lists the alerts open in the period with how they were handled, and takes the worst level", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    expect(report.summary.level).toBe("warning");
+    expect(report.summary.alerts).toEqual({ watch: 0, warning: 1, critical: 0, sensor: 1 });
+    expect(report.alerts.map((alert) => [alert.kind, alert.openedBeforePeriod])).toEqual([
+      ["limit", false],
+      ["sensor", true],
+    ]);
+    const limit = report.alerts[0]!;
+    expect(limit).toMatchObject({ id: limitAlertId, gauge: "G1", unit: "MPa", peak: 250, bound: 200, clearedAt: "2026-10-20T13:00:00.000Z" });
+    expect(limit.acknowledged).toMatchObject({ by: "Test engineer", comment: "Crane lift on the deck, planned and supervised" });
+    expect(limit.events.map((event) => event.type)).toEqual(["opened", "cleared", "acknowledged", "note"]);
+    expect(limit.events[3]).toMatchObject({ by: owners[0]!.email, text: "Seen, thank you" });
+  });
+
+  it("calls a period without readings 'no data', never all clear", async () => {
+    const report = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 9 }), NOW);
+    expect(report.summary.level).toBe("critical");
+    const august = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW);
+    // No gauge was installed yet: none in the report, and nothing to call all clear.
+    expect(august.gauges).toEqual([]);
+    expect(august.summary.level).toBe("no-data");
+    // 3 November: the gauges are installed and nothing came in.
+    const silentDay = await structureReport(owners[0]!, "RPT", { from: new Date(Date.UTC(2026, 10, 3)), to: new Date(Date.UTC(2026, 10, 4)) }, new Date(Date.UTC(2026, 10, 5)));
+    expect(silentDay.gauges.map((gauge) => gauge.readings)).toEqual(Array(3).fill({ received: 0, expected: 144, completeness: 0 }));
+    expect(silentDay.summary.level).toBe("no-data");
+  });
+});
+
+describe("GET /structures/{code}/report", () => {
+  const get = (query: string, token = tokens[owners[0]!.email]!, headers: Record<string, string> = {}) =>
+    reportRoute.GET(apiRequest(`/structures/RPT/report${query}`, { token, headers }), params({ code: "RPT" }));
+
+  it("answers the report of a month as JSON", async () => {
+    const response = await get("?month=2026-10");
+    expect(response.status).toBe(200);
+    const body = await response.json();
+    expect(body.period.name).toBe("October 2026");
+    expect(body.gauges.map((gauge: { tag: string }) => gauge.tag)).toEqual(["G1", "G2", "G3"]);
+    expect(body.cautions.join(" ")).toMatch(/never replaces it/);
+  });
+
+  it("takes a first and a last day, both included", async () => {
+    const body = await (await get("?from=2026-10-10&to=2026-10-10")).json();
+    expect(body.period).toMatchObject({ from: "2026-10-10T00:00:00.000Z", to: "2026-10-11T00:00:00.000Z", name: "10 October 2026", key: "2026-10-10_2026-10-10" });
+    expect(body.gauges[0].gaps.list).toEqual([{ start: "2026-10-10T06:00:00.000Z", end: "2026-10-10T18:00:00.000Z", hours: 12 }]);
+  });
+
+  it("says what to fix in a bad query", async () => {
+    const cases: [string, RegExp][] = [
+      ["?month=2026-13", /month is YYYY-MM/],
+      ["?from=2026-10-01", /Give both from and to/],
+      ["?from=2026-10-05&to=2026-10-01", /from must not be after to/],
+      ["?from=2026-02-30&to=2026-03-01", /not a calendar day/],
+      ["?month=2026-10&from=2026-10-01&to=2026-10-02", /either month or from and to/],
+      ["?from=2024-01-01&to=2026-01-01", /at most 366 days/],
+      ["?month=2026-10&format=docx", /format is "json" or "pdf"/],
+    ];
+    for (const [query, message] of cases) {
+      const response = await get(query);
+      expect(response.status, query).toBe(400);
+      expect((await response.json()).error.message, query).toMatch(message);
+    }
+  });
+
+  it("answers 404 to someone who may not see the structure", async () => {
+    expect((await get("?month=2026-10", tokens[outsider.email]!)).status).toBe(404);
+  });
+
+  it("sends the PDF as an attachment with format=pdf or Accept: application/pdf", async () => {
+    for (const response of [await get("?month=2026-10&format=pdf"), await get("?month=2026-10", undefined, { accept: "application/pdf" })]) {
+      expect(response.status).toBe(200);
+      expect(response.headers.get("content-type")).toBe("application/pdf");
+      expect(response.headers.get("content-disposition")).toBe('attachment; filename="RPT-report-2026-10.pdf"');
+      const bytes = Buffer.from(await response.arrayBuffer());
+      expect(bytes.subarray(0, 4).toString("latin1")).toBe("%PDF");
+    }
+  });
+});
+
+describe("the report PDF", () => {
+  it("carries the structure, the gauges, the alert handling and the cautions in SI units", async () => {
+    const { text, pages } = await pdfText(await renderReportPdf(await structureReport(owners[0]!, "RPT", OCTOBER, NOW)));
+    expect(pages).toBeGreaterThanOrEqual(1);
+    expect(text).toContain("Structure RPT (RPT)");
+    expect(text).toContain("October 2026");
+    expect(text).toContain("Gauge G1");
+    expect(text).toContain("-40.0 MPa to 250.0 MPa");
+    expect(text).toContain("1,190 microstrain");
+    expect(text).toContain("4,392 of 4,464 expected readings (98.4 %)");
+    expect(text).toContain("2026-10-10 06:00 UTC to 2026-10-10 18:00 UTC (12 h)");
+    expect(text).toContain("acknowledged by Test engineer");
+    expect(text).toContain("not assessed");
+    expect(text).toContain("Monitoring supplements inspection and never replaces it.");
+    expect(text).toContain("Fatigue damage is an estimate that depends on the detail category chosen by the engineer");
+    expect(text).toContain(`page 1 of ${pages}`);
+    // Nothing the standard font cannot print slipped through as a stray letter.
+    expect(text).not.toMatch(/[εσΔ≥]/);
+  });
+
+  it("grows by pages with the number of gauges", async () => {
+    await makeStructure("MANY", [engineer]);
+    for (let i = 1; i <= 14; i++) await createGauge(engineer, "MANY", gaugeInput(`M${String(i).padStart(2, "0")}`));
+    const none = await pdfText(await renderReportPdf(await structureReport(engineer, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW)));
+    const many = await pdfText(await renderReportPdf(await structureReport(engineer, "MANY", OCTOBER, NOW)));
+    expect(many.pages).toBeGreaterThan(1);
+    expect(many.pages).toBeGreaterThan(none.pages);
+    expect(many.text).toContain("Gauge M14");
+    expect(many.text).toContain(`page ${many.pages} of ${many.pages}`);
+  });
+});
+
+describe("the monthly report job", () => {
+  const rptMail = () => getDb().select().from(mailOutbox).where(like(mailOutbox.dedupeKey, "report:RPT:%"));
+
+  it("queues one e-mail with the PDF per owner, and nothing more when run again", async () => {
+    const firstOfNovember = Date.UTC(2026, 10, 1, 7);
+    await runMonthlyReport(firstOfNovember);
+    const queued = await rptMail();
+    expect(queued.map((mail) => mail.toAddress).sort()).toEqual(owners.map((owner) => owner.email).sort());
+    expect(queued.map((mail) => mail.dedupeKey).sort()).toEqual(owners.map((owner) => `report:RPT:2026-10:${owner.id}`).sort());
+    for (const mail of queued) {
+      expect(mail.kind).toBe("report");
+      expect(mail.subject).toBe("Hookeline report October 2026: Structure RPT (RPT), warning");
+      expect(mail.text).toContain("/structures/RPT/report?month=2026-10");
+      expect(mail.text).toContain("never replaces it");
+      expect(mail.attachments).toHaveLength(1);
+      const [attachment] = mail.attachments!;
+      expect(attachment).toMatchObject({ filename: "RPT-report-2026-10.pdf", contentType: "application/pdf" });
+      const pdf = Buffer.from(attachment!.contentBase64, "base64");
+      expect(pdf.subarray(0, 4).toString("latin1")).toBe("%PDF");
+      expect((await pdfText(pdf)).text).toContain("Structure RPT (RPT)");
+    }
+    const total = (await getDb().select({ id: mailOutbox.id }).from(mailOutbox)).length;
+
+    expect(await runMonthlyReport(firstOfNovember)).toBe("0 reports built, 0 e-mails queued");
+    expect((await getDb().select({ id: mailOutbox.id }).from(mailOutbox)).length).toBe(total);
+  });
+
+  it("mails owners only: not engineers, nor owners whose account is switched off", async () => {
+    const admin = await makeUser("admin");
+    const former = await makeUser("owner", "former-owner@test.example");
+    await addMember(null, former.email, "RPT");
+    await updateUser(admin, former.id, { active: false });
+    await runMonthlyReport(Date.UTC(2026, 11, 1, 7));
+    const november = await getDb().select().from(mailOutbox).where(like(mailOutbox.dedupeKey, "report:RPT:2026-11:%"));
+    expect(november.map((mail) => mail.toAddress).sort()).toEqual(owners.map((owner) => owner.email).sort());
+    expect(await getDb().select().from(mailOutbox).where(eq(mailOutbox.toAddress, engineer.email))).toEqual([]);
+  });
+});
