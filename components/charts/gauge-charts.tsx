@@ -184,6 +184,8 @@ export function GaugeCharts({
   episodes,
   events,
   end,
+  initialRange,
+  compact = false,
 }: {
   structureCode: string;
   tag: string;
@@ -194,15 +196,19 @@ export function GaugeCharts({
   events: ChartEvent[];
   /** Where the default range ends: the last reading, so a stale gauge still shows its data. */
   end: number;
+  /** The range shown first, when not the week up to `end`. */
+  initialRange?: { from: number; to: number };
+  /** Stress and strain only, without exports and scatter: for the limits editor and alert pages. */
+  compact?: boolean;
 }) {
   const units = useUnits();
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}`;
-  const [range, setRange] = useState<Range>({ from: end - 7 * DAY, to: end });
+  const [range, setRange] = useState<Range>(initialRange ?? { from: end - 7 * DAY, to: end });
   const [charts] = useState(() => new Map<Quantity, uPlot>());
   const [problem, setProblem] = useState<string | null>(null);
   const stress = useSWR<SeriesAnswer>(seriesUrl(base, "stress", range), fetchJson, { refreshInterval: 60_000 });
   const strain = useSWR<SeriesAnswer>(seriesUrl(base, "strain", range), fetchJson, { refreshInterval: 60_000 });
-  const temperature = useSWR<SeriesAnswer>(seriesUrl(base, "temperature", range), fetchJson, { refreshInterval: 60_000 });
+  const temperature = useSWR<SeriesAnswer>(compact ? null : seriesUrl(base, "temperature", range), fetchJson, { refreshInterval: 60_000 });
 
   const display = useMemo(() => {
     const convert = (quantity: Quantity) => (value: number) => inDisplayUnits(units, quantity, value).value;
@@ -241,7 +247,7 @@ export function GaugeCharts({
   const quantities = [
     ["stress", "Stress", stress],
     ["strain", "Stress-producing strain", strain],
-    ["temperature", "Temperature", temperature],
+    ...(compact ? [] : ([["temperature", "Temperature", temperature]] as const)),
   ] as const;
 
   return (
@@ -260,12 +266,16 @@ export function GaugeCharts({
           To
           <input type="date" className={`${inputClass} w-40`} onChange={(e) => e.target.value && setRange((r) => ({ ...r, to: Date.parse(e.target.value) + DAY }))} />
         </label>
-        <button type="button" className={buttonClass("secondary")} onClick={exportCsv}>
-          Export CSV
-        </button>
-        <button type="button" className={buttonClass("secondary")} onClick={exportPng}>
-          Stress chart as PNG
-        </button>
+        {!compact && (
+          <>
+            <button type="button" className={buttonClass("secondary")} onClick={exportCsv}>
+              Export CSV
+            </button>
+            <button type="button" className={buttonClass("secondary")} onClick={exportPng}>
+              Stress chart as PNG
+            </button>
+          </>
+        )}
       </div>
       <p className="text-xs text-slate-600 dark:text-slate-400" data-testid="chart-range">
         {local(range.from)} to {local(range.to)} ({timeZone}). Drag across a chart to zoom in.
@@ -288,7 +298,7 @@ export function GaugeCharts({
           onChart={onChart}
         />
       ))}
-      <ThermalScatter strain={strain.data} temperature={temperature.data} temperatureUnit={display.temperature.unit} toDisplayTemperature={display.temperature.toDisplay} />
+      {!compact && <ThermalScatter strain={strain.data} temperature={temperature.data} temperatureUnit={display.temperature.unit} toDisplayTemperature={display.temperature.toDisplay} />}
     </div>
   );
 }

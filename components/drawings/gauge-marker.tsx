@@ -65,19 +65,30 @@ export function MarkerShape({ state }: { state?: MarkerState }) {
  */
 export function GaugeMarker({ tag, x, y, href, state, passive }: { tag: string; x: number; y: number; href: string; state?: MarkerState; passive?: boolean }) {
   const word = MARKER_STATE_WORDS[state ?? "unassessed"];
-  return (
-    <Link
-      href={href}
-      data-testid="gauge-marker"
-      data-state={state ?? "unassessed"}
-      aria-label={`Gauge ${tag}, ${word}`}
-      title={`${tag}: ${word}`}
-      tabIndex={passive ? -1 : undefined}
-      style={{ left: `${x * 100}%`, top: `${y * 100}%` }}
-      className={`absolute -ml-2 -mt-2 flex h-4 items-center gap-1 text-slate-800 focus-visible:z-10 dark:text-slate-800 ${passive ? "pointer-events-none" : ""}`}
-    >
+  const common = {
+    "data-testid": "gauge-marker",
+    "data-state": state ?? "unassessed",
+    title: `${tag}: ${word}`,
+    style: { left: `${x * 100}%`, top: `${y * 100}%` },
+    className: `absolute -ml-2 -mt-2 flex h-4 items-center gap-1 text-slate-800 focus-visible:z-10 dark:text-slate-800 ${passive ? "pointer-events-none" : ""}`,
+  };
+  const content = (
+    <>
       <MarkerShape state={state} />
       <span className="rounded bg-white/90 px-1 font-mono text-xs font-medium leading-4 shadow-sm ring-1 ring-slate-300">{tag}</span>
+    </>
+  );
+  // A passive marker sits inside another link (a drawing's thumbnail): a second link there would be invalid.
+  if (passive) {
+    return (
+      <span {...common} aria-label={`Gauge ${tag}, ${word}`} role="img">
+        {content}
+      </span>
+    );
+  }
+  return (
+    <Link href={href} aria-label={`Gauge ${tag}, ${word}`} {...common}>
+      {content}
     </Link>
   );
 }

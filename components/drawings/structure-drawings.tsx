@@ -7,9 +7,20 @@ import { megabytes } from "@/lib/storage/upload-rules";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cardClass } from "@/components/ui/styles";
 import { DrawingUpload } from "./drawing-upload";
+import { GaugeMarker, MarkerLegend, markerStateOf } from "./gauge-marker";
+import type { GaugeState } from "@/lib/alerting/gauge-state";
 
 /** The structure page's drawings: each opens to place gauges on it; those allowed can add more. */
-export async function StructureDrawings({ user, structure }: { user: UserActor; structure: Structure }) {
+export async function StructureDrawings({
+  user,
+  structure,
+  markers,
+}: {
+  user: UserActor;
+  structure: Structure;
+  /** Gauges placed on drawings, with their state now. */
+  markers: { tag: string; state: GaugeState; placement: { id: number; x: number; y: number } | null }[];
+}) {
   const [drawings, canUpload] = await Promise.all([listDrawings(user, structure.code), may(user, "gauge:register", structure)]);
   return (
     <section className={`${cardClass} mt-6 p-4`} aria-labelledby="drawings-heading">
@@ -21,7 +32,7 @@ export async function StructureDrawings({ user, structure }: { user: UserActor; 
           <p>Upload an elevation or plan, then place the gauges on it where they are installed.</p>
         </EmptyState>
       ) : (
-        <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+        <ul className="grid gap-4 lg:grid-cols-2">
           {drawings.map((drawing) => (
             <li key={drawing.id}>
               <Link
@@ -29,7 +40,22 @@ export async function StructureDrawings({ user, structure }: { user: UserActor; 
                 className="block overflow-hidden rounded-md border border-slate-200 hover:border-accent dark:border-slate-700"
               >
                 {/* A plain img: the bytes come from the API behind the session, which the image optimiser could not fetch. */}
-                <img src={drawing.url} alt="" width={drawing.width ?? undefined} height={drawing.height ?? undefined} loading="lazy" className="block aspect-[4/3] w-full bg-white object-contain" />
+                <span className="relative block bg-white">
+                  <img src={drawing.url} alt="" width={drawing.width ?? undefined} height={drawing.height ?? undefined} loading="lazy" className="block w-full" />
+                  {markers
+                    .filter((marker) => marker.placement?.id === drawing.id)
+                    .map((marker) => (
+                      <GaugeMarker
+                        key={marker.tag}
+                        tag={marker.tag}
+                        x={marker.placement!.x}
+                        y={marker.placement!.y}
+                        href={`/structures/${encodeURIComponent(structure.code)}/gauges/${encodeURIComponent(marker.tag)}`}
+                        state={markerStateOf(marker.state)}
+                        passive
+                      />
+                    ))}
+                </span>
                 <span className="block px-3 py-2">
                   <span className="block font-medium">{drawing.title}</span>
                   <span className="block text-xs text-slate-500 dark:text-slate-400">
@@ -41,6 +67,11 @@ export async function StructureDrawings({ user, structure }: { user: UserActor; 
             </li>
           ))}
         </ul>
+      )}
+      {drawings.length > 0 && (
+        <div className="mt-3">
+          <MarkerLegend />
+        </div>
       )}
       {canUpload && (
         <div className="mt-4 max-w-xl border-t border-slate-200 pt-4 dark:border-slate-800">

@@ -6,6 +6,7 @@ import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from
 import type { ActionState } from "@/lib/actions/action-state";
 import type { AlertEpisode } from "@/lib/alerting/episodes";
 import { LEVELS, QUANTITIES, type Limit } from "@/lib/limits";
+import { GaugeCharts } from "@/components/charts/gauge-charts";
 
 const UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
 const DAY = 86_400_000;
@@ -38,6 +39,17 @@ const payloadOf = (rows: Row[]) => ({
   })),
 });
 
+/** The bounds as typed so far, for drawing: rows that are not numbers yet are left out. */
+function proposedLimits(rows: Row[]): Limit[] {
+  return rows.flatMap((row) => {
+    const upper = Number(row.upper);
+    const lower = Number(row.lower);
+    const bounds = { ...(row.upper.trim() && Number.isFinite(upper) ? { upper } : {}), ...(row.lower.trim() && Number.isFinite(lower) ? { lower } : {}) };
+    if (Object.keys(bounds).length === 0) return [];
+    return [{ quantity: row.quantity as Limit["quantity"], level: row.level as Limit["level"], hysteresis: 0, persistence: 1, ...bounds }];
+  });
+}
+
 type Backtest = { readingsChecked: number; episodes: AlertEpisode[] } | { error: string };
 
 /** The engineer's limit set, with a check of what it would have raised before it is saved. */
@@ -48,6 +60,8 @@ export function LimitsEditor({
   initial,
   canEdit,
   save,
+  yieldStress,
+  lastReading,
 }: {
   structureCode: string;
   tag: string;
@@ -55,6 +69,10 @@ export function LimitsEditor({
   initial: Limit[];
   canEdit: boolean;
   save: (payload: unknown) => Promise<ActionState>;
+  /** MPa, to draw utilisation bounds on the stress chart. */
+  yieldStress: number | null;
+  /** The last reading's time, or null when the gauge has none yet. */
+  lastReading: number | null;
 }) {
   const [rows, setRows] = useState<Row[]>(initial.map(rowOf));
   const [state, setState] = useState<ActionState>({ status: "idle" });
@@ -171,6 +189,23 @@ export function LimitsEditor({
           </button>
           <FormMessage state={state} />
         </div>
+      )}
+      {lastReading !== null && (
+        <section aria-label="The last 30 days with these bounds">
+          <h2 className="mb-2 font-semibold">The last 30 days with these bounds</h2>
+          <GaugeCharts
+            structureCode={structureCode}
+            tag={tag}
+            timeZone={timeZone}
+            limits={proposedLimits(rows)}
+            yieldStress={yieldStress}
+            episodes={[]}
+            events={[]}
+            end={lastReading}
+            initialRange={{ from: lastReading - 30 * DAY, to: lastReading }}
+            compact
+          />
+        </section>
       )}
       <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
         <h2 id="backtest-heading" className="font-semibold">

@@ -11,10 +11,15 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getAlert } from "@/lib/services/alerts";
+import { getGauge } from "@/lib/services/gauges";
+import { getLimits } from "@/lib/services/limits";
+import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { handleAlertAction } from "../actions";
 
 type Props = { params: Promise<{ id: string }> };
+
+const DAY_MS = 86_400_000;
 
 export const metadata: Metadata = { title: "Alert" };
 
@@ -23,7 +28,15 @@ export default async function AlertPage({ params }: Props) {
   const user = await requireUser();
   const { alert, history } = await pageGuard(Number.isInteger(id) ? getAlert(user, id) : Promise.reject(new Error("bad id")));
   const structure = await pageGuard(getVisibleStructure(user, alert.structure));
-  const canHandle = await may(user, "alert:acknowledge", structure);
+  const [canHandle, gauge, limits] = await Promise.all([
+    may(user, "alert:acknowledge", structure),
+    getGauge(user, structure.code, alert.gauge),
+    getLimits(user, structure.code, alert.gauge),
+  ]);
+  const openedAt = Date.parse(alert.openedAt);
+  const clearedAt = alert.clearedAt ? Date.parse(alert.clearedAt) : null;
+  // A day either side of the episode, or up to now while it lasts.
+  const around = { from: openedAt - DAY_MS, to: Math.min(Date.now(), (clearedAt ?? Date.now()) + DAY_MS) };
   const local = (date: Date | string) =>
     new Intl.DateTimeFormat("en-GB", { timeZone: structure.timezone, dateStyle: "medium", timeStyle: "medium" }).format(new Date(date));
   return (
@@ -88,6 +101,23 @@ export default async function AlertPage({ params }: Props) {
           )}
         </aside>
       </div>
+      <section className="mt-6" aria-labelledby="around">
+        <h2 id="around" className="mb-2 text-lg font-semibold">
+          Around the event
+        </h2>
+        <GaugeCharts
+          structureCode={structure.code}
+          tag={alert.gauge}
+          timeZone={structure.timezone}
+          limits={limits}
+          yieldStress={gauge.material.yield ?? null}
+          episodes={alert.kind === "limit" ? [{ openedAt, clearedAt, level: alert.level }] : []}
+          events={[{ time: openedAt, label: "opened" }]}
+          end={around.to}
+          initialRange={around}
+          compact
+        />
+      </section>
       <div className="mt-6">
         <MonitoringCaution />
       </div>

@@ -157,7 +157,11 @@ export default async function StructurePage({ params }: Props) {
           </ActionForm>
         )}
       </Section>
-      <StructureDrawings user={user} structure={structure} />
+      <StructureDrawings
+        user={user}
+        structure={structure}
+        markers={gauges.map((gauge) => ({ tag: gauge.tag, placement: gauge.drawing, state: statuses.find((status) => status.tag === gauge.tag)?.state ?? "no-data" }))}
+      />
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>
           <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} />

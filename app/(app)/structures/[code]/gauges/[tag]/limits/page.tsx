@@ -7,6 +7,8 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getLimits } from "@/lib/services/limits";
+import { getGauge } from "@/lib/services/gauges";
+import { gaugeStatuses } from "@/lib/services/status";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { saveLimitsAction } from "../../actions";
 
@@ -19,7 +21,13 @@ export default async function LimitsPage({ params }: Props) {
   const tag = decodeURIComponent(rawTag);
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [limits, canEdit] = await Promise.all([pageGuard(getLimits(user, code, tag)), may(user, "limits:edit", structure)]);
+  const [limits, canEdit, gauge, statuses] = await Promise.all([
+    pageGuard(getLimits(user, code, tag)),
+    may(user, "limits:edit", structure),
+    pageGuard(getGauge(user, code, tag)),
+    gaugeStatuses(structure),
+  ]);
+  const lastReading = statuses.find((status) => status.tag === tag)?.latest?.time ?? null;
   return (
     <>
       <PageHeader
@@ -36,7 +44,10 @@ export default async function LimitsPage({ params }: Props) {
       <div className="mb-6">
         <MonitoringCaution />
       </div>
-      <LimitsEditor structureCode={code} tag={tag} timeZone={structure.timezone} initial={limits} canEdit={canEdit} save={saveLimitsAction.bind(null, code, tag)} />
+      <LimitsEditor structureCode={code} tag={tag} timeZone={structure.timezone} initial={limits} canEdit={canEdit} save={saveLimitsAction.bind(null, code, tag)}
+        yieldStress={gauge.material.yield ?? null}
+        lastReading={lastReading}
+      />
     </>
   );
 }
