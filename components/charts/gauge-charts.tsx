@@ -49,8 +49,14 @@ function limitLines(limits: readonly Limit[], quantity: Quantity, yieldStress: n
   return lines;
 }
 
+/**
+ * Limit lines, alert episodes and events, drawn on the canvas after the series. The lines actually
+ * stroked are listed in `data-limit-lines` (canvas pixel row included), so tests and assistive
+ * tooling can tell which limits are in view without reading pixels blindly.
+ */
 function drawOverlays(chart: uPlot, lines: ReturnType<typeof limitLines>, episodes: readonly ChartEpisode[], events: readonly ChartEvent[]) {
   const { ctx, bbox } = chart;
+  const drawn: { level: string; text: string; value: number; y: number }[] = [];
   ctx.save();
   for (const episode of episodes) {
     const left = Math.max(bbox.left, chart.valToPos(episode.openedAt / 1000, "x", true));
@@ -72,7 +78,9 @@ function drawOverlays(chart: uPlot, lines: ReturnType<typeof limitLines>, episod
     ctx.lineTo(bbox.left + bbox.width, y);
     ctx.stroke();
     ctx.fillText(line.text, bbox.left + 4, y - 4);
+    drawn.push({ level: line.level, text: line.text, value: line.value, y: Math.round(y) });
   }
+  chart.root.dataset.limitLines = JSON.stringify(drawn);
   ctx.setLineDash([2 * devicePixelRatio, 3 * devicePixelRatio]);
   ctx.strokeStyle = "#1f6f78";
   ctx.fillStyle = "#1f6f78";
