@@ -208,9 +208,15 @@ export function GaugeCharts({
   const [range, setRange] = useState<Range>({ from: end - 7 * DAY, to: end });
   const [charts] = useState(() => new Map<Quantity, uPlot>());
   const [problem, setProblem] = useState<string | null>(null);
-  const stress = useSWR<SeriesAnswer>(seriesUrl(base, "stress", range), fetchJson, { refreshInterval: 60_000 });
-  const strain = useSWR<SeriesAnswer>(seriesUrl(base, "strain", range), fetchJson, { refreshInterval: 60_000 });
-  const temperature = useSWR<SeriesAnswer>(seriesUrl(base, "temperature", range), fetchJson, { refreshInterval: 60_000 });
+  // Previous data stay on screen while a zoomed or new range loads, so a chart is redrawn in place
+  // instead of dropping back to its skeleton and being built again.
+  const swr = { refreshInterval: 60_000, keepPreviousData: true };
+  const stress = useSWR<SeriesAnswer>(seriesUrl(base, "stress", range), fetchJson, swr);
+  // The stress chart is on top: its series is asked for alone first, so three queries do not share
+  // the server while the page's first chart waits. Strain and temperature follow once it is there.
+  const after = stress.data !== undefined || stress.error !== undefined;
+  const strain = useSWR<SeriesAnswer>(after ? seriesUrl(base, "strain", range) : null, fetchJson, swr);
+  const temperature = useSWR<SeriesAnswer>(after ? seriesUrl(base, "temperature", range) : null, fetchJson, swr);
 
   const display = useMemo(() => {
     const convert = (quantity: Quantity) => (value: number) => inDisplayUnits(units, quantity, value).value;
