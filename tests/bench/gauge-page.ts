@@ -1,5 +1,5 @@
 import type { Browser, Page, Response } from "playwright-core";
-import { launchBrowser, SignInPage } from "../e2e/browser";
+import { dragAcrossChart, launchBrowser, SignInPage } from "../e2e/browser";
 import { BENCH_USER, loadYear, startBenchServer, verdict } from "./ingest";
 import type { BenchResult } from "./mechanics";
 
@@ -62,13 +62,7 @@ async function zoomRedraw(page: Page): Promise<number> {
     addEventListener("mouseup", (event) => ((window as unknown as { releasedAt: number }).releasedAt = event.timeStamp), { capture: true, once: true });
     return series.length;
   });
-  const over = page.getByRole("region", { name: STRESS_CHART }).locator(".u-over");
-  const box = (await over.boundingBox())!;
-  const y = box.y + box.height / 2;
-  await page.mouse.move(box.x + box.width * 0.4, y);
-  await page.mouse.down();
-  await page.mouse.move(box.x + box.width * 0.6, y, { steps: 4 });
-  await page.mouse.up();
+  await dragAcrossChart(page, page.getByRole("region", { name: STRESS_CHART }));
   // The finer data are drawn at the first stress-chart draw after the zoomed series arrived (uPlot
   // redraws the old data at the new scale at once; that draw comes before the answer and is not counted).
   const handle = await page.waitForFunction(

@@ -3,7 +3,7 @@ import { createClient } from "@libsql/client";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Locator, Page, Response } from "playwright-core";
 import { MPA_PER_KSI } from "@/lib/units";
-import { SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
+import { SignInPage, dragAcrossChart, launchBrowser, newContext, saveScreenshot } from "./browser";
 import { foilGaugeBody } from "../fixtures/gauges";
 
 const MINUTE = 60_000;
@@ -80,16 +80,8 @@ class GaugeChartsPage {
     const attribute = this.chart(title).locator("[data-limit-lines]");
     return JSON.parse((await attribute.getAttribute("data-limit-lines")) ?? "[]");
   }
-  /** Drags across the middle fifth of a chart, as a person zooms in. */
-  async dragZoom(title: string) {
-    const over = this.chart(title).locator(".u-over");
-    const box = (await over.boundingBox())!;
-    const y = box.y + box.height / 2;
-    await this.page.mouse.move(box.x + box.width * 0.4, y);
-    await this.page.mouse.down();
-    await this.page.mouse.move(box.x + box.width * 0.5, y, { steps: 5 });
-    await this.page.mouse.move(box.x + box.width * 0.6, y, { steps: 5 });
-    await this.page.mouse.up();
+  dragZoom(title: string) {
+    return dragAcrossChart(this.page, this.chart(title));
   }
 }
 
