@@ -49,8 +49,14 @@ function limitLines(limits: readonly Limit[], quantity: Quantity, yieldStress: n
   return lines;
 }
 
+/**
+ * Limit lines, alert episodes and events, drawn on the canvas after the series. The lines actually
+ * stroked are listed in `data-limit-lines` (canvas pixel row included), so tests and assistive
+ * tooling can tell which limits are in view without reading pixels blindly.
+ */
 function drawOverlays(chart: uPlot, lines: ReturnType<typeof limitLines>, episodes: readonly ChartEpisode[], events: readonly ChartEvent[]) {
   const { ctx, bbox } = chart;
+  const drawn: { level: string; text: string; value: number; y: number }[] = [];
   ctx.save();
   for (const episode of episodes) {
     const left = Math.max(bbox.left, chart.valToPos(episode.openedAt / 1000, "x", true));
@@ -72,7 +78,9 @@ function drawOverlays(chart: uPlot, lines: ReturnType<typeof limitLines>, episod
     ctx.lineTo(bbox.left + bbox.width, y);
     ctx.stroke();
     ctx.fillText(line.text, bbox.left + 4, y - 4);
+    drawn.push({ level: line.level, text: line.text, value: line.value, y: Math.round(y) });
   }
+  chart.root.dataset.limitLines = JSON.stringify(drawn);
   ctx.setLineDash([2 * devicePixelRatio, 3 * devicePixelRatio]);
   ctx.strokeStyle = "#1f6f78";
   ctx.fillStyle = "#1f6f78";
@@ -206,9 +214,15 @@ export function GaugeCharts({
   const [range, setRange] = useState<Range>(initialRange ?? { from: end - 7 * DAY, to: end });
   const [charts] = useState(() => new Map<Quantity, uPlot>());
   const [problem, setProblem] = useState<string | null>(null);
-  const stress = useSWR<SeriesAnswer>(seriesUrl(base, "stress", range), fetchJson, { refreshInterval: 60_000 });
-  const strain = useSWR<SeriesAnswer>(seriesUrl(base, "strain", range), fetchJson, { refreshInterval: 60_000 });
-  const temperature = useSWR<SeriesAnswer>(compact ? null : seriesUrl(base, "temperature", range), fetchJson, { refreshInterval: 60_000 });
+  // Previous data stay on screen while a zoomed or new range loads, so a chart is redrawn in place
+  // instead of dropping back to its skeleton and being built again.
+  const swr = { refreshInterval: 60_000, keepPreviousData: true };
+  const stress = useSWR<SeriesAnswer>(seriesUrl(base, "stress", range), fetchJson, swr);
+  // The stress chart is on top: its series is asked for alone first, so three queries do not share
+  // the server while the page's first chart waits. Strain and temperature follow once it is there.
+  const after = stress.data !== undefined || stress.error !== undefined;
+  const strain = useSWR<SeriesAnswer>(after ? seriesUrl(base, "strain", range) : null, fetchJson, swr);
+  const temperature = useSWR<SeriesAnswer>(after && !compact ? seriesUrl(base, "temperature", range) : null, fetchJson, swr);
 
   const display = useMemo(() => {
     const convert = (quantity: Quantity) => (value: number) => inDisplayUnits(units, quantity, value).value;

@@ -78,7 +78,7 @@ async function prepareDatabase(url: string): Promise<{ logger: string; reader: s
   process.env.DATABASE_URL = url;
   await migrateDatabase();
   await createStructure(null, { code: "BENCH", name: "Bench structure", timezone: "UTC" });
-  const admin = await createUser(null, { email: "bench@hookeline.example", name: "Bench", role: "admin", password: "bench-password" });
+  const admin = await createUser(null, { ...BENCH_USER, name: "Bench", role: "admin" });
   const actor = { kind: "user" as const, id: admin.id, email: admin.email, name: admin.name, role: admin.role };
   for (const tag of [...GAUGE_TAGS, "YEAR", "UPLOAD"]) {
     await createGauge(actor, "BENCH", parseWith(gaugeInput, { ...GAUGE, tag }));
@@ -171,7 +171,8 @@ async function rawInsertRate(folder: string, batches: Reading[][]): Promise<numb
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
-async function seriesFigures(baseUrl: string, token: string, reader: string, url: string) {
+/** A year of 1-minute readings for gauge YEAR, with one planted spike, sent through ingestion; answers the year's span. */
+export async function loadYear(baseUrl: string, token: string): Promise<{ from: number; to: number }> {
   const spikeIndex = 200_000;
   const yearBodies = Array.from({ length: YEAR_READINGS / BATCH }, (_, b) => () => {
     const batch: Reading[] = [];
@@ -183,8 +184,11 @@ async function seriesFigures(baseUrl: string, token: string, reader: string, url
     return jsonBody(batch);
   });
   await postAll(baseUrl, token, yearBodies, CLIENTS);
-  const from = START;
-  const to = START + YEAR_READINGS * MINUTE;
+  return { from: START, to: START + YEAR_READINGS * MINUTE };
+}
+
+async function seriesFigures(baseUrl: string, token: string, reader: string, url: string) {
+  const { from, to } = await loadYear(baseUrl, token);
   const seriesUrl = `${baseUrl}/api/v1/structures/BENCH/gauges/YEAR/series?from=${new Date(from).toISOString()}&to=${new Date(to).toISOString()}&points=1000&quantity=strain`;
   const query = async () => {
     const response = await fetch(seriesUrl, { headers: { authorization: `Bearer ${reader}` } });
@@ -257,21 +261,43 @@ async function uploadFigures(baseUrl: string, token: string, server: ChildProces
   return { seconds, accepted: done.accepted as number, peakRss, hwm: memoryOf(server.pid!).hwm };
 }
 
-const verdict = (pass: boolean) => (pass ? "PASS" : "MISS");
+export const verdict = (pass: boolean) => (pass ? "PASS" : "MISS");
 
-export async function benchIngestion(): Promise<BenchResult[]> {
-  if (!process.argv.includes("--no-build")) {
-    const build = spawnSync("npx", ["next", "build"], { encoding: "utf8" });
-    if (build.status !== 0) throw new Error(`next build failed:\n${build.stdout}\n${build.stderr}`);
-  }
+/** `npm run bench -- --no-build` reuses the production build in .next instead of building first. */
+export function buildUnlessAsked(): void {
+  if (process.argv.includes("--no-build")) return;
+  const build = spawnSync("npx", ["next", "build"], { encoding: "utf8" });
+  if (build.status !== 0) throw new Error(`next build failed:\n${build.stdout}\n${build.stderr}`);
+}
+
+export const BENCH_USER = { email: "bench@hookeline.example", password: "bench-password" };
+
+export type BenchServer = { baseUrl: string; url: string; folder: string; token: string; reader: string; server: ChildProcess; stop(): void };
+
+/** `next start` on a fresh temporary database holding the bench structure, its gauges and tokens. */
+export async function startBenchServer(): Promise<BenchServer> {
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-bench-"));
   const url = `file:${path.join(folder, "bench.db")}`;
   const { logger: token, reader } = await prepareDatabase(url);
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const server = startServer(url, port);
+  const stop = () => {
+    server.kill("SIGTERM");
+    fs.rmSync(folder, { recursive: true, force: true });
+  };
   try {
     await waitForServer(baseUrl, server, () => "(server output goes to this terminal)");
+  } catch (error) {
+    stop();
+    throw error;
+  }
+  return { baseUrl, url, folder, token, reader, server, stop };
+}
+
+export async function benchIngestion(): Promise<BenchResult[]> {
+  const { baseUrl, url, folder, token, reader, server, stop } = await startBenchServer();
+  try {
     const batches = ingestBatches();
     const bodies = batches.map(jsonBody);
     // Warm the server's code paths on readings of another gauge before timing.
@@ -297,7 +323,6 @@ export async function benchIngestion(): Promise<BenchResult[]> {
       { label: "upload: server RSS high-water mark over the whole run (target < 512 MB)", value: Math.round(peakMb), unit: `MB ${verdict(peakMb < 512)}` },
     ];
   } finally {
-    server.kill("SIGTERM");
-    fs.rmSync(folder, { recursive: true, force: true });
+    stop();
   }
 }

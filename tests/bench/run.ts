@@ -1,8 +1,10 @@
-import { benchIngestion } from "./ingest";
+import { benchGaugePage } from "./gauge-page";
+import { benchIngestion, buildUnlessAsked } from "./ingest";
 import { benchMechanics, type BenchResult } from "./mechanics";
 
-// `npm run bench -- --no-build` reuses the production build in .next instead of building first.
-const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion];
+// `npm run bench -- --only=benchGaugePage` runs the benchmarks whose function name contains the word.
+const only = process.argv.find((arg) => arg.startsWith("--only="))?.slice("--only=".length);
+const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion, benchGaugePage].filter((bench) => !only || bench.name.includes(only));
 
 function printTable(rows: BenchResult[]): void {
   const labelWidth = Math.max(...rows.map((row) => row.label.length));
@@ -11,6 +13,7 @@ function printTable(rows: BenchResult[]): void {
   rows.forEach((row, i) => console.log(`${row.label.padEnd(labelWidth)}  ${values[i]!.padStart(valueWidth)} ${row.unit}`));
 }
 
+buildUnlessAsked();
 const rows: BenchResult[] = [];
 for (const bench of benchmarks) rows.push(...(await bench()));
 printTable(rows);

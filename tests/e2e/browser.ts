@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from "playwright-core";
 import { inject } from "vitest";
 import { DEMO_USERS } from "@/db/seed";
 import type { Role } from "@/db/schema";
@@ -74,4 +74,14 @@ export async function saveScreenshot(page: Page, name: string) {
   const folder = path.join("test-results", "screenshots");
   fs.mkdirSync(folder, { recursive: true });
   await page.screenshot({ path: path.join(folder, `${name}.png`), fullPage: true });
+}
+
+/** Drags across the middle fifth of a uPlot chart (its `.u-over` layer), as a person zooms in. */
+export async function dragAcrossChart(page: Page, chart: Locator) {
+  const box = (await chart.locator(".u-over").boundingBox())!;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(box.x + box.width * 0.4, y);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.6, y, { steps: 5 });
+  await page.mouse.up();
 }

@@ -1,0 +1,315 @@
+import fs from "node:fs";
+import { createClient } from "@libsql/client";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser, Locator, Page, Response } from "playwright-core";
+import { MPA_PER_KSI } from "@/lib/units";
+import { SignInPage, dragAcrossChart, launchBrowser, newContext, saveScreenshot } from "./browser";
+import { foilGaugeBody } from "../fixtures/gauges";
+
+const MINUTE = 60_000;
+const HOUR = 60 * MINUTE;
+const DAY = 24 * HOUR;
+
+let browser: Browser;
+let admin: Page;
+let engineer: Page;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  admin = await (await newContext(browser)).newPage();
+  await new SignInPage(admin).signInAs("admin");
+  engineer = await (await newContext(browser)).newPage();
+  await new SignInPage(engineer).signInAs("engineer");
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+type SeriesAnswer = { quantity: string; bucketWidth: number; t: number[]; min: number[]; max: number[]; mean: number[] };
+type Reading = { time: string; value: number; temperature: number | null; strain: number; stress: number; flags: string[] };
+
+/** A series answer of `quantity` whose requested span passes `span` (ms), so a late answer for another range is not taken. */
+const isSeries = (quantity: string, span: (ms: number) => boolean) => (response: Response) => {
+  if (!response.url().includes("/series?") || !response.ok()) return false;
+  const query = new URL(response.url()).searchParams;
+  return query.get("quantity") === quantity && span(Date.parse(query.get("to")!) - Date.parse(query.get("from")!));
+};
+
+/** Page object of the overview of all structures. */
+class OverviewPage {
+  constructor(private readonly page: Page) {}
+  async open() {
+    await this.page.goto("/");
+    await this.page.getByRole("list", { name: "Structures" }).waitFor();
+  }
+  card(code: string): Locator {
+    return this.page.getByTestId("structure-card").filter({ hasText: code });
+  }
+  staleMark(code: string) {
+    return this.card(code).getByTestId("stale-mark");
+  }
+  state(code: string) {
+    return this.card(code).locator("[data-state]").getAttribute("data-state");
+  }
+}
+
+/** Page object of a gauge page's charts. */
+class GaugeChartsPage {
+  constructor(private readonly page: Page) {}
+  async open(code: string, tag: string) {
+    await this.page.goto(`/structures/${code}/gauges/${tag}`);
+    await this.page.getByTestId("gauge-charts").waitFor();
+  }
+  chart(title: string): Locator {
+    return this.page.getByRole("region", { name: `${title} chart` });
+  }
+  canvas(title: string): Locator {
+    return this.chart(title).locator("canvas");
+  }
+  range() {
+    return this.page.getByTestId("chart-range").textContent();
+  }
+  /** Clicks a range preset and answers the series the charts fetched for it. */
+  async preset(label: string, days: number, quantity: string): Promise<SeriesAnswer> {
+    const fetched = this.page.waitForResponse(isSeries(quantity, (ms) => ms === days * DAY));
+    await this.page.getByRole("button", { name: label, exact: true }).click();
+    return (await fetched).json();
+  }
+  /** The limit lines the chart drew on its canvas, as the draw hook lists them. */
+  async limitLines(title: string): Promise<{ level: string; value: number; y: number }[]> {
+    const attribute = this.chart(title).locator("[data-limit-lines]");
+    return JSON.parse((await attribute.getAttribute("data-limit-lines")) ?? "[]");
+  }
+  dragZoom(title: string) {
+    return dragAcrossChart(this.page, this.chart(title));
+  }
+}
+
+/** Pixels of a canvas: how many differ from the background, and how many of a row match a colour. */
+function canvasPixels(canvas: Locator, row: number | null, rgb: [number, number, number] | null) {
+  return canvas.evaluate(
+    (element, [row, rgb]) => {
+      const canvas = element as HTMLCanvasElement;
+      const context = canvas.getContext("2d")!;
+      const { data } = context.getImageData(0, 0, canvas.width, canvas.height);
+      let inked = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) inked++;
+      let matching = 0;
+      if (row !== null && rgb !== null) {
+        for (let x = 0; x < canvas.width; x++) {
+          const at = (row * canvas.width + x) * 4;
+          const close = [0, 1, 2].every((c) => Math.abs(data[at + c]! - rgb[c]!) < 40) && data[at + 3]! > 128;
+          if (close) matching++;
+        }
+      }
+      return { inked, matching, width: canvas.width };
+    },
+    [row, rgb] as const,
+  );
+}
+
+const hex = (colour: string): [number, number, number] => [1, 3, 5].map((i) => parseInt(colour.slice(i, i + 2), 16)) as [number, number, number];
+/** The colours the chart strokes limit levels with (components/charts/gauge-charts.tsx). */
+const LEVEL_RGB: Record<string, [number, number, number]> = { watch: hex("#8a6d00"), warning: hex("#b45309"), critical: hex("#b42318") };
+
+/** Every reading of a range through the JSON listing, page by page. */
+async function readingsOf(page: Page, path: string, from: string, to: string): Promise<Reading[]> {
+  const all: Reading[] = [];
+  let cursor: string | undefined;
+  do {
+    const query = new URLSearchParams({ from, to, limit: "10000", ...(cursor ? { cursor } : {}) });
+    const response = await page.request.get(`${path}/readings?${query}`);
+    expect(response.status()).toBe(200);
+    const body = (await response.json()) as { readings: Reading[]; nextCursor?: string };
+    all.push(...body.readings);
+    cursor = body.nextCursor;
+  } while (cursor);
+  return all;
+}
+
+/** Creates a structure with one gauge through the API, and sends it hourly readings ending at `lastAt`. */
+async function structureWithReadings(page: Page, code: string, lastAt: number) {
+  const created = await page.request.post("/api/v1/structures", { data: { code, name: `Dashboard test ${code}`, timezone: "UTC" } });
+  expect(created.status()).toBe(201);
+  const gauge = await page.request.post(`/api/v1/structures/${code}/gauges`, { data: { ...foilGaugeBody("G1"), expectedInterval: 600 } });
+  expect(gauge.status()).toBe(201);
+  const readings = Array.from({ length: 12 }, (_, i) => ({
+    gauge: "G1",
+    time: new Date(lastAt - (11 - i) * 10 * MINUTE).toISOString(),
+    value: 0.0121 + i * 0.00001,
+    temperature: 14,
+  }));
+  const sent = await page.request.post(`/api/v1/structures/${code}/readings`, { data: { readings } });
+  expect(sent.status()).toBe(200);
+  expect((await sent.json()).accepted).toBe(12);
+}
+
+describe("the overview", () => {
+  it("marks a structure whose data stopped three hours ago as stale, and one with fresh data not", async () => {
+    const now = Date.now();
+    // Stale after three missed 10-minute intervals (lib/alerting/gauge-state.ts): 3 h is well past that, 2 min well inside.
+    await structureWithReadings(admin, "E2E-STALE", now - 3 * HOUR);
+    await structureWithReadings(admin, "E2E-FRESH", now - 2 * MINUTE);
+    const overview = new OverviewPage(admin);
+    await overview.open();
+
+    await expect(overview.staleMark("E2E-STALE").textContent()).resolves.toMatch(/not an all clear/);
+    await expect(overview.state("E2E-STALE")).resolves.toBe("stale");
+    await expect(overview.card("E2E-STALE").textContent()).resolves.not.toMatch(/Within limits/);
+
+    await expect(overview.staleMark("E2E-FRESH").count()).resolves.toBe(0);
+    await expect(overview.state("E2E-FRESH")).resolves.toBe("ok");
+    await saveScreenshot(admin, "overview-admin");
+  });
+});
+
+describe("the gauge page", () => {
+  it("draws the fetched spike, the limit lines, and fetches finer intervals when zoomed", async () => {
+    // The spike planted on LC-M1 (db/demo-gauges.ts, +420 µε for one reading), found in the e2e database itself.
+    const db = createClient({ url: inject("databaseUrl") });
+    const [spike] = (
+      await db.execute(
+        "SELECT r.t, r.strain FROM readings r JOIN gauges g ON g.id = r.gauge_id JOIN structures s ON s.id = g.structure_id " +
+          "WHERE s.code = 'MILL-FB' AND g.tag = 'LC-M1' ORDER BY r.strain DESC LIMIT 1",
+      )
+    ).rows as unknown as { t: number; strain: number }[];
+    const neighbours = await db.execute({
+      sql: "SELECT strain FROM readings WHERE gauge_id = (SELECT id FROM gauges WHERE tag = 'LC-M1') AND t IN (?, ?)",
+      args: [spike!.t - 10 * MINUTE, spike!.t + 10 * MINUTE],
+    });
+    db.close();
+    for (const row of neighbours.rows) expect(spike!.strain - (row.strain as number)).toBeGreaterThan(300);
+
+    const gaugePage = new GaugeChartsPage(engineer);
+    await gaugePage.open("MILL-FB", "LC-M1");
+    const strain = await gaugePage.preset("90 days", 90, "strain");
+    // The series keeps each bucket's exact maximum (API contract), so the spike is the fetched maximum, in its bucket.
+    const peak = strain.max.indexOf(Math.max(...strain.max));
+    expect(strain.max[peak]).toBe(spike!.strain);
+    expect(strain.t[peak]).toBeLessThanOrEqual(spike!.t);
+    expect(strain.t[peak]! + strain.bucketWidth).toBeGreaterThan(spike!.t);
+
+    const canvas = gaugePage.canvas("Stress");
+    await canvas.waitFor();
+    const drawn = await canvasPixels(canvas, null, null);
+    // A drawn chart inks far more than a blank canvas: axes, band, mean line. A tenth of a row's width is a floor, not a guess at the figure.
+    expect(drawn.inked).toBeGreaterThan(drawn.width / 10);
+
+    // Expected lines from the API: stress limits as set, utilisation limits at bound × yield (|σ| / yield, API contract).
+    const limits = (await (await engineer.request.get("/api/v1/structures/MILL-FB/gauges/LC-M1/limits")).json()).limits as { quantity: string; level: string; upper?: number; lower?: number }[];
+    const gauge = await (await engineer.request.get("/api/v1/structures/MILL-FB/gauges/LC-M1")).json();
+    const expected = limits.flatMap((limit) =>
+      [limit.upper, limit.lower]
+        .filter((bound): bound is number => bound !== undefined && (limit.quantity === "stress" || limit.quantity === "utilisation"))
+        .map((bound) => ({ level: limit.level, value: limit.quantity === "utilisation" ? bound * gauge.material.yield : bound })),
+    );
+    expect(expected.length).toBeGreaterThanOrEqual(3);
+    const lines = await gaugePage.limitLines("Stress");
+    for (const want of expected) {
+      const line = lines.find((l) => l.level === want.level && Math.abs(l.value - want.value) < 1e-9);
+      expect(line, `${want.level} line at ${want.value} MPa`).toBeDefined();
+      // The dashed line (6 on, 4 off) covers about 60 % of the plot's row in its level's colour.
+      const rows = await Promise.all([line!.y - 1, line!.y, line!.y + 1].map((row) => canvasPixels(canvas, row, LEVEL_RGB[want.level]!)));
+      expect(Math.max(...rows.map((r) => r.matching))).toBeGreaterThan(drawn.width / 4);
+    }
+    await saveScreenshot(engineer, "gauge-page-90-days");
+
+    const before = await gaugePage.range();
+    const finer = engineer.waitForResponse(isSeries("stress", (ms) => ms < 90 * DAY));
+    await gaugePage.dragZoom("Stress");
+    const zoomed = (await (await finer).json()) as SeriesAnswer;
+    expect(zoomed.bucketWidth).toBeLessThan(strain.bucketWidth);
+    await expect(gaugePage.range()).resolves.not.toBe(before);
+    await canvas.waitFor();
+    expect((await canvasPixels(gaugePage.canvas("Stress"), null, null)).inked).toBeGreaterThan(drawn.width / 10);
+  });
+
+  it("exports a CSV equal to the readings the API lists for the same range", async () => {
+    const gaugePage = new GaugeChartsPage(engineer);
+    await gaugePage.open("MILL-FB", "LC-Q1");
+    const request = engineer.waitForRequest((r) => r.url().includes("/readings?"));
+    const download = engineer.waitForEvent("download");
+    await engineer.getByRole("button", { name: "Export CSV" }).click();
+    const url = new URL((await request).url());
+    const file = await (await download).path();
+    const [header, ...lines] = fs.readFileSync(file, "utf8").trim().split("\n");
+    expect(header).toBe("time,value,temperature,strain,stress,flags");
+
+    const api = await readingsOf(engineer, "/api/v1/structures/MILL-FB/gauges/LC-Q1", url.searchParams.get("from")!, url.searchParams.get("to")!);
+    // The default week of 10-minute readings: a thousand or so rows, not an empty file that would match an empty listing.
+    expect(api.length).toBeGreaterThan(500);
+    expect(lines).toHaveLength(api.length);
+    lines.forEach((line, i) => {
+      const [time, value, temperature, strain, stress, flags] = line.split(",");
+      const reading = api[i]!;
+      expect({ time, value: Number(value), temperature: temperature === "" ? null : Number(temperature), strain: Number(strain), stress: Number(stress), flags: flags ? flags.split(" ") : [] }).toEqual(reading);
+    });
+  });
+});
+
+/** Page object of a structure page's gauge table and the header's units switch. */
+class StructureTablePage {
+  constructor(private readonly page: Page) {}
+  async open(code: string) {
+    await this.page.goto(`/structures/${code}`);
+    await this.table().waitFor();
+  }
+  table() {
+    return this.page.getByRole("table", { name: "Gauges" });
+  }
+  async chooseUnits(value: "si" | "us") {
+    await this.page.getByLabel("Units", { exact: true }).selectOption(value);
+  }
+  /** The text of a gauge's cell under the header that starts with `header`. */
+  async cell(tag: string, header: string) {
+    const headers = await this.table().locator("thead th").allTextContents();
+    const column = headers.findIndex((text) => text.startsWith(header));
+    expect(column, `column ${header} in ${headers.join(" | ")}`).toBeGreaterThanOrEqual(0);
+    const row = this.table().getByTestId("gauge-row").filter({ has: this.page.getByRole("link", { name: tag, exact: true }) });
+    return (await row.locator("td").nth(column).textContent())!;
+  }
+}
+
+describe("units preference", () => {
+  it("shows ksi and °F in the table after switching, converting the API's MPa, and back", async () => {
+    const structurePage = new StructureTablePage(engineer);
+    await structurePage.open("MILL-FB");
+    const api = await readingsOf(engineer, "/api/v1/structures/MILL-FB/gauges/LC-M1", new Date(Date.now() - 2 * DAY).toISOString(), new Date(Date.now() + MINUTE).toISOString());
+    const latest = api[api.length - 1]!;
+
+    await structurePage.chooseUnits("us");
+    await structurePage.table().getByRole("button", { name: /^Stress \(ksi\)/ }).waitFor();
+    await structurePage.table().getByRole("button", { name: /^Temp\. \(°F\)/ }).waitFor();
+    // 1 ksi = 6.894757 MPa (NIST SP 811, Appendix B); the table shows ksi to two decimals.
+    await expect(structurePage.cell("LC-M1", "Stress")).resolves.toBe((latest.stress / 6.894757).toFixed(2));
+    expect(Math.abs(MPA_PER_KSI - 6.894757)).toBeLessThan(1e-6);
+    // °F = °C × 9/5 + 32 (NIST SP 811, Appendix B, temperature).
+    await expect(structurePage.cell("LC-M1", "Temp.")).resolves.toBe(((latest.temperature! * 9) / 5 + 32).toFixed(1));
+    await saveScreenshot(engineer, "structure-page-us-units");
+
+    await structurePage.chooseUnits("si");
+    await structurePage.table().getByRole("button", { name: /^Stress \(MPa\)/ }).waitFor();
+    await expect(structurePage.cell("LC-M1", "Stress")).resolves.toBe(latest.stress.toFixed(1));
+    await expect(structurePage.cell("LC-M1", "Temp.")).resolves.toBe(latest.temperature!.toFixed(1));
+  });
+});
+
+describe("screenshots of the main pages", () => {
+  it("saves the overview, structure, gauge, alerts, compare and rosette pages", async () => {
+    const pages: [string, string, string][] = [
+      ["overview", "/", "structure-card"],
+      ["structure-page", "/structures/MILL-FB", "gauge-row"],
+      ["gauge-page", "/structures/MILL-FB/gauges/LC-Q1", "chart"],
+      ["alerts-list", "/alerts", ""],
+      ["compare", "/structures/MILL-FB/compare?gauges=LC-M1,LC-Q1,DG-3", "chart"],
+      ["rosette", "/structures/MILL-FB/rosettes/R1", "chart"],
+    ];
+    for (const [name, path, ready] of pages) {
+      const response = await engineer.goto(path);
+      expect(response?.status(), path).toBe(200);
+      if (ready) await engineer.getByTestId(ready).first().waitFor();
+      if (ready === "chart") await engineer.getByTestId(ready).first().locator("canvas").waitFor();
+      await saveScreenshot(engineer, `dashboard-${name}`);
+    }
+  });
+});
