@@ -9,6 +9,7 @@ import { downloadFile, fetchJson } from "@/lib/api/fetcher";
 import type { Limit } from "@/lib/limits";
 import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
+import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { ThermalScatter } from "./thermal-scatter";
 import { UplotChart } from "./uplot-chart";
 
@@ -22,6 +23,9 @@ const PRESETS = [
   ["1 year", 365 * DAY],
 ] as const;
 const POINTS = 1000;
+
+/** "2026-11-01" → "2026-11-02", by the calendar, whatever the clocks do that night. */
+const nextDay = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) + DAY).toISOString().slice(0, 10);
 const LEVEL_COLOUR: Record<string, string> = { watch: "#8a6d00", warning: "#b45309", critical: "#b42318" };
 
 export type ChartEvent = { time: number; label: string };
@@ -243,6 +247,13 @@ export function GaugeCharts({
   const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
   const onChart = (quantity: Quantity, chart: uPlot) => charts.set(quantity, chart);
 
+  /** Custom days are the structure's days: from its midnight to the midnight ending the last day. */
+  function setDay(end: "from" | "to", day: string) {
+    const midnight = day ? startOfDayIn(day, timeZone) : null;
+    if (midnight === null) return;
+    setRange((current) => (end === "from" ? { ...current, from: midnight } : { ...current, to: startOfDayIn(nextDay(day), timeZone) ?? midnight + DAY }));
+  }
+
   async function exportCsv() {
     setProblem(null);
     const query = `from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}`;
@@ -274,11 +285,11 @@ export function GaugeCharts({
         ))}
         <label className="flex flex-col gap-1 text-xs font-medium">
           From
-          <input type="date" className={`${inputClass} w-40`} onChange={(e) => e.target.value && setRange((r) => ({ ...r, from: Date.parse(e.target.value) }))} />
+          <input type="date" className={`${inputClass} w-40`} onChange={(e) => setDay("from", e.target.value)} />
         </label>
         <label className="flex flex-col gap-1 text-xs font-medium">
           To
-          <input type="date" className={`${inputClass} w-40`} onChange={(e) => e.target.value && setRange((r) => ({ ...r, to: Date.parse(e.target.value) + DAY }))} />
+          <input type="date" className={`${inputClass} w-40`} onChange={(e) => setDay("to", e.target.value)} />
         </label>
         {!compact && (
           <>

@@ -127,3 +127,9 @@ function offsetForWallClock(wall: number, zone: string): number {
   if (laterFits) return after;
   return before;
 }
+
+/** Midnight starting a calendar day ("2026-11-01") in a time zone, as epoch ms; null for a malformed day. */
+export function startOfDayIn(day: string, zone: string): number | null {
+  const time = parseReadingTime(`${day}T00:00:00`, zone);
+  return typeof time === "number" ? time : null;
+}
