@@ -4,7 +4,7 @@ import { runOutboxSender } from "@/jobs/outbox-sender";
 import { createGauge } from "@/lib/services/gauges";
 import { replaceLimits } from "@/lib/services/limits";
 import { createToken } from "@/lib/services/tokens";
-import type { GaugeInput } from "@/lib/gauges/schema";
+import { microstrainGauge } from "../fixtures/gauges";
 import type { LocalSmtpServer } from "@/lib/mail/local-smtp-server";
 import { apiRequest, makeStructure, makeUser, params } from "./helpers";
 import { freePort, receivedCounts, startCatcher } from "./mail-helpers";
@@ -26,28 +26,7 @@ beforeAll(async () => {
   const owner = await makeUser("owner", "own@mail.example");
   const technician = await makeUser("technician", "tech@mail.example");
   await makeStructure("CRANE", [engineer, owner, technician]);
-  const gauge: GaugeInput = {
-    tag: "RB-1",
-    label: "Runway beam, midspan",
-    member: "Runway beam 3",
-    kind: "foil",
-    input: "microstrain",
-    gaugeFactor: 2,
-    bridge: null,
-    loggerGaugeFactor: null,
-    batchFactor: null,
-    polarity: 1,
-    leadResistance: null,
-    gaugeResistance: null,
-    thermal: { method: "none" },
-    material: { E: 200_000, nu: 0.3, alpha: 12, yield: 355 },
-    initialStress: 0,
-    zero: { value: 0, temperature: 10 },
-    expectedInterval: 600,
-    ratedRange: null,
-    detailCategory: null,
-  };
-  await createGauge(engineer, "CRANE", gauge);
+  await createGauge(engineer, "CRANE", microstrainGauge("RB-1", { label: "Runway beam, midspan", member: "Runway beam 3" }));
   await replaceLimits(engineer, "CRANE", "RB-1", [{ quantity: "stress", level: "warning", upper: 150, hysteresis: 10, persistence: 2 }]);
   logger = (await createToken(null, { kind: "logger", structureCode: "CRANE" }, "crane logger")).token;
 });

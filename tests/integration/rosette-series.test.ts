@@ -3,36 +3,16 @@ import * as route from "@/app/api/v1/structures/[code]/rosettes/[tag]/series/rou
 import { createGauge } from "@/lib/services/gauges";
 import { ingestJson } from "@/lib/services/ingest";
 import { createRosette } from "@/lib/services/rosettes";
-import type { GaugeInput } from "@/lib/gauges/schema";
+import { microstrainGauge } from "../fixtures/gauges";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
 
 let token: string;
 const T0 = Date.UTC(2026, 9, 1);
 
-const leg = (tag: string): GaugeInput => ({
-  tag,
-  kind: "foil",
-  input: "microstrain",
-  gaugeFactor: 2,
-  bridge: null,
-  loggerGaugeFactor: null,
-  batchFactor: null,
-  polarity: 1,
-  leadResistance: null,
-  gaugeResistance: null,
-  thermal: { method: "none" },
-  material: { E: 200_000, nu: 0.3, alpha: 12, yield: 355 },
-  initialStress: 0,
-  zero: { value: 0, temperature: 10 },
-  expectedInterval: 600,
-  ratedRange: null,
-  detailCategory: null,
-});
-
 beforeAll(async () => {
   const engineer = await makeUser("engineer");
   await makeStructure("GUSSET", [engineer]);
-  for (const tag of ["a", "b", "c"]) await createGauge(engineer, "GUSSET", leg(tag));
+  for (const tag of ["a", "b", "c"]) await createGauge(engineer, "GUSSET", microstrainGauge(tag));
   await createRosette(engineer, "GUSSET", { tag: "R1", layout: "rectangular", gauges: ["a", "b", "c"] });
   const times = [0, 1, 2].map((i) => new Date(T0 + i * 600_000).toISOString());
   // The same strain state three times, plus a reading of gauge a alone that has no partners.
