@@ -8,7 +8,7 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
-import { UplotChart } from "./uplot-chart";
+import { UplotChart, timeAxis } from "./uplot-chart";
 
 export const MAX_COMPARED = 6;
 const DAY = 86_400_000;
@@ -28,7 +28,7 @@ function alignMeans(answers: SeriesAnswer[], toDisplay: (v: number) => number): 
 }
 
 /** Up to six gauges of a structure on one chart, same quantity and range. */
-export function CompareChart({ structureCode, tags, allTags, end }: { structureCode: string; tags: string[]; allTags: string[]; end: number }) {
+export function CompareChart({ structureCode, tags, allTags, end, timeZone }: { structureCode: string; tags: string[]; allTags: string[]; end: number; timeZone: string }) {
   const units = useUnits();
   const [chosen, setChosen] = useState<string[]>(tags.slice(0, MAX_COMPARED));
   const [quantity, setQuantity] = useState<Quantity>("stress");
@@ -42,10 +42,10 @@ export function CompareChart({ structureCode, tags, allTags, end }: { structureC
   const aligned = useMemo(() => (data ? alignMeans(data, (v) => inDisplayUnits(units, quantity, v).value) : null), [data, units, quantity]);
   const options = useMemo<Omit<uPlot.Options, "width" | "height">>(
     () => ({
-      axes: [{}, { label: `${quantity} (${unit})`, size: 70 }],
+      axes: [timeAxis(timeZone), { label: `${quantity} (${unit})`, size: 70 }],
       series: [{ label: "Time" }, ...chosen.map((tag, i) => ({ label: `${tag} (${unit})`, stroke: COLOURS[i], width: 1.5, points: { show: false }, spanGaps: false }))],
     }),
-    [chosen, quantity, unit],
+    [chosen, quantity, unit, timeZone],
   );
   const toggle = (tag: string) =>
     setChosen((current) => (current.includes(tag) ? current.filter((t) => t !== tag) : current.length >= MAX_COMPARED ? current : [...current, tag]));

@@ -11,7 +11,7 @@ import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
 import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { ThermalScatter } from "./thermal-scatter";
-import { UplotChart } from "./uplot-chart";
+import { UplotChart, timeAxis } from "./uplot-chart";
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
@@ -133,7 +133,7 @@ function QuantityChart(props: {
           },
         },
       },
-      axes: [{}, { label: `${props.title} (${unit})`, size: 70 }],
+      axes: [timeAxis(props.timeZone), { label: `${props.title} (${unit})`, size: 70 }],
       series: [
         { label: "Time" },
         { label: `min (${unit})`, stroke: "#7aa7ad", width: 1, points: { show: false } },

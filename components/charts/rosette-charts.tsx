@@ -8,7 +8,7 @@ import { buttonClass, cardClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
 import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
-import { UplotChart } from "./uplot-chart";
+import { UplotChart, timeAxis } from "./uplot-chart";
 
 const DAY = 86_400_000;
 const QUANTITIES = [
@@ -18,14 +18,14 @@ const QUANTITIES = [
   ["theta", "Principal angle θ (gauge a to σ1)"],
 ] as const;
 
-function RosetteChart({ url, title, isAngle }: { url: string; title: string; isAngle: boolean }) {
+function RosetteChart({ url, title, isAngle, timeZone }: { url: string; title: string; isAngle: boolean; timeZone: string }) {
   const units = useUnits();
   const { data, error } = useSWR<SeriesAnswer>(url, fetchJson, { refreshInterval: 60_000 });
   const unit = isAngle ? "°" : inDisplayUnits(units, "stress", 0).unit;
   const columns = useMemo(() => (data ? chartColumns(data, (v) => (isAngle ? v : inDisplayUnits(units, "stress", v).value)) : null), [data, units, isAngle]);
   const options = useMemo<Omit<uPlot.Options, "width" | "height">>(
     () => ({
-      axes: [{}, { label: `${title} (${unit})`, size: 70 }],
+      axes: [timeAxis(timeZone), { label: `${title} (${unit})`, size: 70 }],
       series: [
         { label: "Time" },
         { label: `min (${unit})`, stroke: "#7aa7ad", points: { show: false } },
@@ -34,7 +34,7 @@ function RosetteChart({ url, title, isAngle }: { url: string; title: string; isA
       ],
       bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
     }),
-    [title, unit],
+    [title, unit, timeZone],
   );
   return (
     <section className={`${cardClass} p-3`}>
@@ -55,7 +55,7 @@ function RosetteChart({ url, title, isAngle }: { url: string; title: string; isA
 }
 
 /** The plane stress state at a rosette over time: principal stresses, von Mises and principal angle. */
-export function RosetteCharts({ structureCode, tag, end }: { structureCode: string; tag: string; end: number }) {
+export function RosetteCharts({ structureCode, tag, end, timeZone }: { structureCode: string; tag: string; end: number; timeZone: string }) {
   const [days, setDays] = useState(7);
   const range = `from=${new Date(end - days * DAY).toISOString()}&to=${new Date(end).toISOString()}`;
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(tag)}/series?points=800&${range}`;
@@ -69,7 +69,7 @@ export function RosetteCharts({ structureCode, tag, end }: { structureCode: stri
         ))}
       </div>
       {QUANTITIES.map(([quantity, title]) => (
-        <RosetteChart key={quantity} url={`${base}&quantity=${quantity}`} title={title} isAngle={quantity === "theta"} />
+        <RosetteChart key={quantity} url={`${base}&quantity=${quantity}`} title={title} isAngle={quantity === "theta"} timeZone={timeZone} />
       ))}
     </div>
   );

@@ -46,3 +46,16 @@ export function UplotChart({
 
   return <div ref={box} role="img" aria-label={label} className="w-full" data-testid="chart" />;
 }
+
+/**
+ * The time axis in day-first dates like the rest of the app, in the structure's time zone: hours
+ * when the ticks are less than a day apart, days otherwise.
+ */
+export function timeAxis(timeZone: string): uPlot.Axis {
+  const hours = new Intl.DateTimeFormat("en-GB", { timeZone, hour: "2-digit", minute: "2-digit" });
+  const days = new Intl.DateTimeFormat("en-GB", { timeZone, day: "numeric", month: "short" });
+  return {
+    values: (_chart, splits, _axis, _space, increment) =>
+      splits.map((seconds) => (increment < 86_400 ? hours : days).format(seconds * 1000)),
+  };
+}

@@ -29,7 +29,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
           </Link>
         }
       />
-      <CompareChart structureCode={code} tags={requested.length ? requested : statuses.slice(0, 3).map((s) => s.tag)} allTags={statuses.map((s) => s.tag)} end={end} />
+      <CompareChart structureCode={code} tags={requested.length ? requested : statuses.slice(0, 3).map((s) => s.tag)} allTags={statuses.map((s) => s.tag)} end={end} timeZone={structure.timezone} />
       <div className="mt-6">
         <MonitoringCaution />
       </div>

@@ -37,7 +37,7 @@ export default async function RosettePage({ params }: Props) {
           </>
         }
       />
-      <RosetteCharts structureCode={code} tag={tag} end={end} />
+      <RosetteCharts structureCode={code} tag={tag} end={end} timeZone={structure.timezone} />
       <div className="mt-6">
         <MonitoringCaution>
           <li>Principal stresses assume plane stress in a linear elastic material at the rosette; near welds and holes local stresses may differ.</li>
