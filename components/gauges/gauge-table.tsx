@@ -103,7 +103,7 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
                   const sorted = header.column.getIsSorted();
                   return (
                     <th key={header.id} className={thClass} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                      <button type="button" className="inline-flex items-center gap-1 uppercase" onClick={header.column.getToggleSortingHandler()}>
+                      <button type="button" className="inline-flex items-center gap-1" onClick={header.column.getToggleSortingHandler()}>
                         {flexRender(header.column.columnDef.header, header.getContext())}
                         <span aria-hidden>{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : ""}</span>
                       </button>

@@ -24,5 +24,6 @@ export const cardClass =
   "min-w-0 rounded-lg border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900";
 
 export const tableClass = "min-w-full divide-y divide-slate-200 text-sm dark:divide-slate-800";
-export const thClass = "px-3 py-2 text-left text-xs font-semibold uppercase tracking-wide text-slate-500 dark:text-slate-400";
+// No uppercase: it would turn the unit µε into "ΜΕ".
+export const thClass = "px-3 py-2 text-left text-xs font-semibold text-slate-500 dark:text-slate-400";
 export const tdClass = "px-3 py-2 align-middle";
