@@ -49,13 +49,18 @@ export function UplotChart({
 
 /**
  * The time axis in day-first dates like the rest of the app, in the structure's time zone: hours
- * when the ticks are less than a day apart, days otherwise.
+ * when the ticks are less than a day apart (with the date at midnight), days otherwise.
  */
 export function timeAxis(timeZone: string): uPlot.Axis {
   const hours = new Intl.DateTimeFormat("en-GB", { timeZone, hour: "2-digit", minute: "2-digit" });
   const days = new Intl.DateTimeFormat("en-GB", { timeZone, day: "numeric", month: "short" });
   return {
     values: (_chart, splits, _axis, _space, increment) =>
-      splits.map((seconds) => (increment < 86_400 ? hours : days).format(seconds * 1000)),
+      splits.map((seconds) => {
+        const time = seconds * 1000;
+        if (increment >= 86_400) return days.format(time);
+        const clock = hours.format(time);
+        return clock === "00:00" ? days.format(time) : clock;
+      }),
   };
 }
