@@ -132,6 +132,7 @@ export const alertSchema = z
     id: z.number().int(),
     structure: z.string(),
     gauge: z.string(),
+    rosette: z.string().nullable().meta({ description: "For an alert on a rosette's sigma1, sigma2 or vonMises: its tag (gauge is then its gauge a)" }),
     kind: z.enum(["limit", "sensor"]),
     level: z.enum(["watch", "warning", "critical"]),
     quantity: z.string().nullable(),
