@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
 
 export const ROLES = ["admin", "engineer", "technician", "owner"] as const;
 export type Role = (typeof ROLES)[number];
@@ -327,6 +328,32 @@ export const evaluationCheckpoints = sqliteTable(
   (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
 );
 
+/** Limits on a rosette's derived stresses (MPa), evaluated on ingest like a gauge's. */
+export const rosetteLimits = sqliteTable(
+  "rosette_limits",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    rosetteId: integer("rosette_id")
+      .notNull()
+      .references(() => rosettes.id, { onDelete: "cascade" }),
+    quantity: text("quantity", { enum: ROSETTE_LIMIT_QUANTITIES }).notNull(),
+    level: text("level", { enum: ALERT_LEVELS }).notNull(),
+    upper: real("upper"),
+    lower: real("lower"),
+    hysteresis: real("hysteresis").notNull().default(0),
+    persistence: integer("persistence").notNull().default(1),
+  },
+  (t) => [uniqueIndex("rosette_limits_level").on(t.rosetteId, t.quantity, t.level)],
+);
+
+/** Where each rosette's episode machines stand between ingestion batches (lib/services/rosette-alert-raising's JSON). */
+export const rosetteEvaluationStates = sqliteTable("rosette_evaluation_states", {
+  rosetteId: integer("rosette_id")
+    .primaryKey()
+    .references(() => rosettes.id, { onDelete: "cascade" }),
+  state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+});
+
 export const ALERT_KINDS = ["limit", "sensor"] as const;
 
 export const alerts = sqliteTable(
@@ -341,8 +368,10 @@ export const alerts = sqliteTable(
       .references(() => gauges.id, { onDelete: "cascade" }),
     kind: text("kind", { enum: ALERT_KINDS }).notNull(),
     level: text("level", { enum: ALERT_LEVELS }).notNull(),
-    /** For limit alerts: stress, strain or utilisation. */
+    /** For limit alerts: stress, strain or utilisation; sigma1, sigma2 or vonMises for a rosette's. */
     quantity: text("quantity"),
+    /** Set for a rosette quantity's alert; `gaugeId` is then the rosette's gauge a, whose material it uses. */
+    rosetteId: integer("rosette_id").references(() => rosettes.id, { onDelete: "cascade" }),
     /** For sensor alerts: stale, flat-line, jump or out-of-range. */
     code: text("code"),
     message: text("message"),
@@ -377,6 +406,7 @@ export const alertEvents = sqliteTable(
 );
 
 export type GaugeLimit = typeof gaugeLimits.$inferSelect;
+export type RosetteLimit = typeof rosetteLimits.$inferSelect;
 export type Alert = typeof alerts.$inferSelect;
 export type AlertEvent = typeof alertEvents.$inferSelect;
 

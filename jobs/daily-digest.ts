@@ -1,8 +1,8 @@
 import { and, eq, gte, inArray, lt } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
-import { alertEvents, alerts, gauges, structureMembers, structures, users } from "@/db/schema";
-import type { Level, Quantity } from "@/lib/limits";
+import { alertEvents, alerts, gauges, rosettes, structureMembers, structures, users } from "@/db/schema";
 import type { AlertEventFacts } from "@/lib/mail/alert";
+import type { Level } from "@/lib/limits";
 import { buildDigestMail } from "@/lib/mail/digest";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
@@ -11,22 +11,24 @@ const DAY_MS = 86_400_000;
 
 async function limitEventsBetween(from: Date, to: Date) {
   return getDb()
-    .select({ event: alertEvents, alert: alerts, gauge: gauges })
+    .select({ event: alertEvents, alert: alerts, gauge: gauges, rosette: rosettes.tag })
     .from(alertEvents)
     .innerJoin(alerts, eq(alerts.id, alertEvents.alertId))
     .innerJoin(gauges, eq(gauges.id, alerts.gaugeId))
+    .leftJoin(rosettes, eq(rosettes.id, alerts.rosetteId))
     .where(and(eq(alerts.kind, "limit"), inArray(alertEvents.type, ["opened", "escalated", "cleared"]), gte(alertEvents.at, from), lt(alertEvents.at, to)));
 }
 
 type EventRow = Awaited<ReturnType<typeof limitEventsBetween>>[number];
 
-function factsOf({ event, alert, gauge }: EventRow): AlertEventFacts {
+function factsOf({ event, alert, gauge, rosette }: EventRow): AlertEventFacts {
   const bound = alert.bound ?? 0;
   return {
     gauge: { tag: gauge.tag, label: gauge.label, location: gauge.member },
+    rosette,
     event: event.type as AlertEventFacts["event"],
     level: (event.level ?? alert.level) as Level,
-    quantity: alert.quantity as Quantity,
+    quantity: alert.quantity as AlertEventFacts["quantity"],
     value: event.value ?? alert.peak ?? 0,
     bound: { side: (alert.peak ?? 0) >= bound ? "upper" : "lower", value: bound },
     at: event.at,

@@ -33,7 +33,12 @@ export function StateBadge({ alert }: { alert: Pick<AlertView, "clearedAt" | "ac
   return <span className={`rounded px-1.5 py-0.5 text-xs font-medium ${className}`}>{state}</span>;
 }
 
-const QUANTITY_UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "× yield" };
+const QUANTITY_UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "× yield", sigma1: "MPa", sigma2: "MPa", vonMises: "MPa" };
+
+/** Where the alert is: its gauge, or for a rosette quantity the rosette (its gauge a alone would mislead). */
+export function alertPlaceLabel(alert: Pick<AlertView, "gauge" | "rosette">): string {
+  return alert.rosette ? `${alert.rosette} (rosette)` : alert.gauge;
+}
 
 /** What crossed what: "stress 231.4 MPa beyond 200 MPa", or the sensor finding. */
 export function alertSummary(alert: Pick<AlertView, "kind" | "quantity" | "peak" | "bound" | "code" | "message">): string {

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { AlertView } from "@/lib/services/alerts";
-import { LevelBadge, StateBadge, alertSummary } from "./alert-badges";
+import { LevelBadge, StateBadge, alertPlaceLabel, alertSummary } from "./alert-badges";
 
 const when = (iso: string, timeZone: string) =>
   new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
@@ -35,7 +35,7 @@ export function AlertTable({ alerts, timeZones }: { alerts: AlertView[]; timeZon
               </td>
               <td className={tdClass}>
                 <Link href={`/alerts/${alert.id}`} className="font-mono font-medium text-accent underline">
-                  {alert.structure} / {alert.gauge}
+                  {alert.structure} / {alertPlaceLabel(alert)}
                 </Link>
                 <span className="block text-xs text-slate-500">{alert.kind === "sensor" ? "sensor fault" : "limit"}</span>
               </td>

@@ -5,15 +5,16 @@ import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import type { ActionState } from "@/lib/actions/action-state";
 import type { AlertEpisode } from "@/lib/alerting/episodes";
-import { LEVELS, QUANTITIES, type Limit } from "@/lib/limits";
+import { LEVELS, type Limit } from "@/lib/limits";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 
-const UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
+/** A gauge's quantities and their units; a rosette passes its own. */
+export const GAUGE_QUANTITY_UNITS: Readonly<Record<string, string>> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
 const DAY = 86_400_000;
 
 type Row = { quantity: string; level: string; upper: string; lower: string; hysteresis: string; persistence: string };
 
-const rowOf = (limit: Limit): Row => ({
+const rowOf = (limit: Limit<string>): Row => ({
   quantity: limit.quantity,
   level: limit.level,
   upper: limit.upper?.toString() ?? "",
@@ -52,7 +53,10 @@ function proposedLimits(rows: Row[]): Limit[] {
 
 type Backtest = { readingsChecked: number; episodes: AlertEpisode[] } | { error: string };
 
-/** The engineer's limit set, with a check of what it would have raised before it is saved. */
+/**
+ * The engineer's limit set. For a gauge, with its chart and a check of what the limits would have
+ * raised before they are saved; both read one gauge's stored readings, so a rosette goes without.
+ */
 export function LimitsEditor({
   structureCode,
   tag,
@@ -60,20 +64,27 @@ export function LimitsEditor({
   initial,
   canEdit,
   save,
-  yieldStress,
-  lastReading,
+  quantities = GAUGE_QUANTITY_UNITS,
+  unitsNote = "Bounds in the quantity's unit: stress MPa (including the initial stress), strain µε, utilisation as a fraction of yield (0.6 = 60 %).",
+  gauge,
 }: {
   structureCode: string;
   tag: string;
   timeZone: string;
-  initial: Limit[];
+  initial: Limit<string>[];
   canEdit: boolean;
   save: (payload: unknown) => Promise<ActionState>;
-  /** MPa, to draw utilisation bounds on the stress chart. */
-  yieldStress: number | null;
-  /** The last reading's time, or null when the gauge has none yet. */
-  lastReading: number | null;
+  /** The quantities a limit may bound, with their units, in the order offered. */
+  quantities?: Readonly<Record<string, string>>;
+  unitsNote?: string;
+  gauge?: {
+    /** MPa, to draw utilisation bounds on the stress chart. */
+    yieldStress: number | null;
+    /** The last reading's time, or null when the gauge has none yet. */
+    lastReading: number | null;
+  };
 }) {
+  const names = Object.keys(quantities);
   const [rows, setRows] = useState<Row[]>(initial.map(rowOf));
   const [state, setState] = useState<ActionState>({ status: "idle" });
   const [days, setDays] = useState("30");
@@ -139,9 +150,9 @@ export function LimitsEditor({
               <tr key={index} data-testid="limit-row">
                 <td className={tdClass}>
                   <select aria-label={`Quantity, limit ${index + 1}`} className={inputClass} value={row.quantity} disabled={!canEdit} onChange={(e) => update(index, "quantity", e.target.value)}>
-                    {QUANTITIES.map((quantity) => (
+                    {names.map((quantity) => (
                       <option key={quantity} value={quantity}>
-                        {quantity} ({UNIT[quantity]})
+                        {quantity} ({quantities[quantity]})
                       </option>
                     ))}
                   </select>
@@ -169,18 +180,21 @@ export function LimitsEditor({
             ))}
           </tbody>
         </table>
-        {rows.length === 0 && <p className="p-4 text-sm text-slate-600">No limits: this gauge raises no limit alerts (sensor faults are still reported).</p>}
+        {rows.length === 0 && (
+          <p className="p-4 text-sm text-slate-600">
+            {gauge ? "No limits: this gauge raises no limit alerts (sensor faults are still reported)." : "No limits: this rosette raises no limit alerts."}
+          </p>
+        )}
       </div>
       <p className="text-xs text-slate-600 dark:text-slate-400">
-        Bounds in the quantity&apos;s unit: stress MPa (including the initial stress), strain µε, utilisation as a fraction of yield (0.6 = 60 %). An alert opens after the given
-        number of readings in a row beyond a bound and clears after as many back inside it by the dead band.
+        {unitsNote} An alert opens after the given number of readings in a row beyond a bound and clears after as many back inside it by the dead band.
       </p>
       {canEdit && (
         <div className="flex flex-wrap items-center gap-3">
           <button
             type="button"
             className={buttonClass("secondary")}
-            onClick={() => setRows((all) => [...all, { quantity: "stress", level: LEVELS[Math.min(all.length, 2)]!, upper: "", lower: "", hysteresis: "0", persistence: "1" }])}
+            onClick={() => setRows((all) => [...all, { quantity: names[0]!, level: LEVELS[Math.min(all.length, 2)]!, upper: "", lower: "", hysteresis: "0", persistence: "1" }])}
           >
             Add a limit
           </button>
@@ -190,7 +204,7 @@ export function LimitsEditor({
           <FormMessage state={state} />
         </div>
       )}
-      {lastReading !== null && (
+      {gauge && gauge.lastReading !== null && (
         <section aria-label="The last 30 days with these bounds">
           <h2 className="mb-2 font-semibold">The last 30 days with these bounds</h2>
           <GaugeCharts
@@ -198,52 +212,54 @@ export function LimitsEditor({
             tag={tag}
             timeZone={timeZone}
             limits={proposedLimits(rows)}
-            yieldStress={yieldStress}
+            yieldStress={gauge.yieldStress}
             episodes={[]}
             events={[]}
-            end={lastReading}
-            initialRange={{ from: lastReading - 30 * DAY, to: lastReading }}
+            end={gauge.lastReading}
+            initialRange={{ from: gauge.lastReading - 30 * DAY, to: gauge.lastReading }}
             compact
           />
         </section>
       )}
-      <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
-        <h2 id="backtest-heading" className="font-semibold">
-          What these limits would have raised
-        </h2>
-        <div className="flex flex-wrap items-end gap-3">
-          <label className="flex flex-col gap-1 text-sm font-medium">
-            Over the last
-            <select className={`${inputClass} w-36`} value={days} onChange={(e) => setDays(e.target.value)}>
-              <option value="7">7 days</option>
-              <option value="30">30 days</option>
-              <option value="90">90 days</option>
-              <option value="365">year</option>
-            </select>
-          </label>
-          <button type="button" className={buttonClass("secondary")} onClick={runBacktest}>
-            Check against stored data
-          </button>
-        </div>
-        <div aria-live="polite" data-testid="backtest-result">
-          {backtest && "error" in backtest && <p className="text-sm text-critical">{backtest.error}</p>}
-          {backtest && "episodes" in backtest && (
-            <>
-              <p className="text-sm">
-                {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")} readings.
-              </p>
-              <ul className="mt-2 space-y-1 text-sm">
-                {backtest.episodes.map((episode) => (
-                  <li key={`${episode.quantity}-${episode.openedAt}`}>
-                    {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {UNIT[episode.quantity]},{" "}
-                    {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
-                  </li>
-                ))}
-              </ul>
-            </>
-          )}
-        </div>
-      </section>
+      {gauge && (
+        <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
+          <h2 id="backtest-heading" className="font-semibold">
+            What these limits would have raised
+          </h2>
+          <div className="flex flex-wrap items-end gap-3">
+            <label className="flex flex-col gap-1 text-sm font-medium">
+              Over the last
+              <select className={`${inputClass} w-36`} value={days} onChange={(e) => setDays(e.target.value)}>
+                <option value="7">7 days</option>
+                <option value="30">30 days</option>
+                <option value="90">90 days</option>
+                <option value="365">year</option>
+              </select>
+            </label>
+            <button type="button" className={buttonClass("secondary")} onClick={runBacktest}>
+              Check against stored data
+            </button>
+          </div>
+          <div aria-live="polite" data-testid="backtest-result">
+            {backtest && "error" in backtest && <p className="text-sm text-critical">{backtest.error}</p>}
+            {backtest && "episodes" in backtest && (
+              <>
+                <p className="text-sm">
+                  {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")} readings.
+                </p>
+                <ul className="mt-2 space-y-1 text-sm">
+                  {backtest.episodes.map((episode) => (
+                    <li key={`${episode.quantity}-${episode.openedAt}`}>
+                      {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {quantities[episode.quantity]},{" "}
+                      {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
+                    </li>
+                  ))}
+                </ul>
+              </>
+            )}
+          </div>
+        </section>
+      )}
     </div>
   );
 }

@@ -1,19 +1,25 @@
 import { z } from "zod";
-import { LEVELS, QUANTITIES } from "@/lib/limits";
+import { LEVELS, QUANTITIES, ROSETTE_LIMIT_QUANTITIES } from "@/lib/limits";
 import { isoTime } from "@/lib/gauges/schema";
 
 const finite = z.number({ error: "Enter a number." }).refine(Number.isFinite, "Enter a finite number.");
 
-export const limitInput = z.object({
-  quantity: z.enum(QUANTITIES, { error: `Choose the quantity: ${QUANTITIES.join(", ")}.` }),
-  level: z.enum(LEVELS, { error: `Choose the level: ${LEVELS.join(", ")}.` }),
-  upper: finite.optional().meta({ description: "MPa for stress, µε for strain, a fraction of yield for utilisation" }),
-  lower: finite.optional(),
-  hysteresis: finite.optional().meta({ description: "Dead band a value must come back inside the bound by to clear; same unit" }),
-  persistence: z.number().int("A whole number of readings.").optional().meta({ description: "Consecutive readings needed to open or clear; default 1" }),
-});
+/** One body shape for a gauge's and a rosette's limits; only the quantity names and their units differ. */
+function limitsBodyOf<Q extends readonly [string, ...string[]]>(quantities: Q, units: string, owner: string) {
+  const limitInput = z.object({
+    quantity: z.enum(quantities, { error: `Choose the quantity: ${quantities.join(", ")}.` }),
+    level: z.enum(LEVELS, { error: `Choose the level: ${LEVELS.join(", ")}.` }),
+    upper: finite.optional().meta({ description: units }),
+    lower: finite.optional(),
+    hysteresis: finite.optional().meta({ description: "Dead band a value must come back inside the bound by to clear; same unit" }),
+    persistence: z.number().int("A whole number of readings.").optional().meta({ description: "Consecutive readings needed to open or clear; default 1" }),
+  });
+  return z.object({ limits: z.array(limitInput).max(30, `At most 30 limits per ${owner}.`) });
+}
 
-export const limitsBody = z.object({ limits: z.array(limitInput).max(30, "At most 30 limits per gauge.") });
+export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for strain, a fraction of yield for utilisation", "gauge");
+
+export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette");
 
 export const acknowledgeBody = z.object({ comment: z.string().trim().min(1, "Say what was checked or done.").max(2000) });
 

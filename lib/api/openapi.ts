@@ -16,6 +16,7 @@ import {
   gaugeListSchema,
   gaugeSchema,
   limitListSchema,
+  rosetteLimitListSchema,
   rosetteListSchema,
   rosetteSchema,
   photoListSchema,
@@ -29,7 +30,7 @@ import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSche
 import { reportQuery } from "./report-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
-import { acknowledgeBody, backtestBody, limitsBody } from "@/lib/alerting/schema";
+import { acknowledgeBody, backtestBody, limitsBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -62,6 +63,7 @@ const ERROR_MEANING: Record<number, string> = {
 
 const codeParameter = { name: "code", in: "path" as const, description: "Structure code" };
 const tagParameter = { name: "tag", in: "path" as const, description: "Gauge tag" };
+const rosetteTagParameter = { name: "tag", in: "path" as const, description: "Rosette tag" };
 
 const timezoneParameter = {
   name: "timezone",
@@ -212,13 +214,30 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
+  "/structures/{code}/rosettes/{tag}/limits": {
+    get: {
+      summary: "The rosette's limits on sigma1, sigma2 and vonMises (MPa)",
+      parameters: [codeParameter, rosetteTagParameter],
+      response: { status: 200, schema: rosetteLimitListSchema, description: "The limits, with defaults applied" },
+      errors: [401, 404],
+    },
+    put: {
+      summary: "Replace the rosette's limits. Refused as for a gauge's; evaluated on ingest from readings of the three gauges with the same timestamp",
+      notes: "Readings older than the rosette's last evaluated instant are stored but not evaluated against its limits (no replay, unlike a gauge's).",
+      roles: "admin, engineer",
+      parameters: [codeParameter, rosetteTagParameter],
+      request: rosetteLimitsBody,
+      response: { status: 200, schema: rosetteLimitListSchema, description: "The limits now in force" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
   "/structures/{code}/rosettes/{tag}/series": {
     get: {
       summary: "A rosette's sigma1, sigma2, vonMises, tauMax (MPa) or theta (degrees) in at most `points` buckets",
       notes: "Computed from readings of the three gauges with the same timestamp (plane stress, material of gauge a); buckets as for a gauge's series.",
       parameters: [
         codeParameter,
-        { name: "tag", in: "path", description: "Rosette tag" },
+        rosetteTagParameter,
         ...rangeParameters,
         { name: "points", in: "query", description: "Most buckets, 1–5000 (default 1000)" },
         { name: "quantity", in: "query", description: "sigma1 | sigma2 | vonMises | tauMax | theta; default vonMises" },

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { FILE_KINDS } from "@/db/schema";
 import { IMAGE_TYPES, type ImageType } from "@/lib/storage/image-type";
+import { QUANTITIES, ROSETTE_LIMIT_QUANTITIES } from "@/lib/limits";
 
 /** Response shapes of /api/v1, documented in the OpenAPI document. */
 
@@ -97,7 +98,7 @@ export const rosetteSchema = z
 export const rosetteListSchema = z.object({ rosettes: z.array(rosetteSchema) });
 
 const limitOutput = z.object({
-  quantity: z.enum(["stress", "strain", "utilisation"]),
+  quantity: z.enum(QUANTITIES),
   level: z.enum(["watch", "warning", "critical"]),
   upper: z.number().optional(),
   lower: z.number().optional(),
@@ -105,6 +106,9 @@ const limitOutput = z.object({
   persistence: z.number().int(),
 });
 export const limitListSchema = z.object({ limits: z.array(limitOutput) }).meta({ id: "Limits" });
+export const rosetteLimitListSchema = z
+  .object({ limits: z.array(limitOutput.extend({ quantity: z.enum(ROSETTE_LIMIT_QUANTITIES) })) })
+  .meta({ id: "RosetteLimits" });
 
 export const backtestSchema = z
   .object({
@@ -128,6 +132,7 @@ export const alertSchema = z
     id: z.number().int(),
     structure: z.string(),
     gauge: z.string(),
+    rosette: z.string().nullable().meta({ description: "For an alert on a rosette's sigma1, sigma2 or vonMises: its tag (gauge is then its gauge a)" }),
     kind: z.enum(["limit", "sensor"]),
     level: z.enum(["watch", "warning", "critical"]),
     quantity: z.string().nullable(),

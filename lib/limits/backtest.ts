@@ -10,7 +10,7 @@ import type { Level, Limit } from "./limit";
  * (stably, so of two readings with the same time the first given is kept), hence a replay over the
  * same data gives exactly what live evaluation gave when the data arrived in order.
  */
-export function replay(limits: readonly Limit[], readings: readonly Reading[], checkpoint: EpisodeState = initialEpisodeState()): Evaluation {
+export function replay(limits: readonly Limit<string>[], readings: readonly Reading[], checkpoint: EpisodeState = initialEpisodeState()): Evaluation {
   // the machine ignores readings without a finite time; leaving them out keeps the comparator consistent
   const inTimeOrder = readings.filter((reading) => Number.isFinite(reading.time)).sort((a, b) => a.time - b.time);
   return evaluateReadings(limits, checkpoint, inTimeOrder);
@@ -29,7 +29,7 @@ export interface Backtest extends Evaluation {
 }
 
 /** What proposed limits would have raised over past readings, by the same machine as live ingestion. */
-export function backtest(limits: readonly Limit[], readings: readonly Reading[]): Backtest {
+export function backtest(limits: readonly Limit<string>[], readings: readonly Reading[]): Backtest {
   const evaluation = replay(limits, readings);
   return { ...evaluation, episodes: episodesOf(evaluation) };
 }

@@ -1,7 +1,7 @@
 import type { Limit } from "./limit";
 
 /** The bound a value is beyond (strictly above `upper` or strictly below `lower`), or null. */
-export function crossedBound(limit: Limit, value: number): number | null {
+export function crossedBound(limit: Limit<string>, value: number): number | null {
   if (limit.upper !== undefined && value > limit.upper) return limit.upper;
   if (limit.lower !== undefined && value < limit.lower) return limit.lower;
   return null;
@@ -19,7 +19,7 @@ export interface ClearBand {
 }
 
 /** `limits` mildest level first, so that on a tie the lowest level's hysteresis applies. */
-export function clearBand(limits: readonly Limit[]): ClearBand {
+export function clearBand(limits: readonly Limit<string>[]): ClearBand {
   let upper = Infinity;
   let lower = -Infinity;
   let innermostUpper = Infinity;

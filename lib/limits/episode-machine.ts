@@ -63,7 +63,7 @@ export function initialEpisodeState(): EpisodeState {
 
 interface Ladder {
   /** Mildest level first. */
-  readonly limits: readonly Limit[];
+  readonly limits: readonly Limit<string>[];
   readonly band: ClearBand;
   /** Clearing needs as many readings back inside as the lowest level needs to open. */
   readonly clearPersistence: number;
@@ -76,7 +76,7 @@ type MutableState = { -readonly [Key in keyof EpisodeState]: EpisodeState[Key] }
  * The state passed in is not modified. When the limits change, start again from
  * `initialEpisodeState()` or replay from a checkpoint: an open episode keeps the level it reached.
  */
-export function evaluateReadings(limits: readonly Limit[], state: EpisodeState, readings: Iterable<Reading>): Evaluation {
+export function evaluateReadings(limits: readonly Limit<string>[], state: EpisodeState, readings: Iterable<Reading>): Evaluation {
   const ladder = toLadder(limits);
   const current: MutableState = { ...state, beyondRuns: { ...state.beyondRuns } };
   const events: EpisodeEvent[] = [];
@@ -90,7 +90,7 @@ export function evaluateReadings(limits: readonly Limit[], state: EpisodeState, 
   return { state: current, events };
 }
 
-function toLadder(limits: readonly Limit[]): Ladder {
+function toLadder(limits: readonly Limit<string>[]): Ladder {
   const sorted = byLevel(limits);
   return { limits: sorted, band: clearBand(sorted), clearPersistence: sorted[0]?.persistence ?? 1 };
 }
@@ -118,7 +118,7 @@ function moreExtreme(band: ClearBand, peak: number | null, value: number): numbe
 }
 
 /** The most severe limit whose persistence run is complete, above `aboveRank`. */
-function confirmedLimit(ladder: Ladder, state: MutableState, aboveRank: number): Limit | null {
+function confirmedLimit(ladder: Ladder, state: MutableState, aboveRank: number): Limit<string> | null {
   for (let index = ladder.limits.length - 1; index >= 0; index--) {
     const limit = ladder.limits[index]!;
     if (levelRank(limit.level) <= aboveRank) return null;
@@ -138,7 +138,7 @@ function escalate(ladder: Ladder, state: MutableState, reading: Reading): Episod
   return limit && enterLevel("escalated", limit, state, reading, episode.openedAt);
 }
 
-function enterLevel(type: "opened" | "escalated", limit: Limit, state: MutableState, reading: Reading, openedAt: number): EpisodeEvent {
+function enterLevel(type: "opened" | "escalated", limit: Limit<string>, state: MutableState, reading: Reading, openedAt: number): EpisodeEvent {
   // a complete run includes this reading, so it is beyond this limit
   const bound = crossedBound(limit, reading.value)!;
   state.episode = { level: limit.level, openedAt, bound };

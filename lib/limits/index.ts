@@ -10,7 +10,7 @@
  * `backtest(limits, history)` runs the same machine over past readings for the limits editor.
  * Late readings: see `replay`.
  */
-export { LEVELS, QUANTITIES, levelRank, type Level, type Limit, type LimitInput, type Quantity } from "./limit";
+export { LEVELS, QUANTITIES, ROSETTE_LIMIT_QUANTITIES, levelRank, type Level, type Limit, type LimitInput, type Quantity, type RosetteLimitQuantity } from "./limit";
 export { validateLimits, type LimitField, type LimitProblem, type LimitProblemCode, type LimitSetValidation } from "./validate-limits";
 export { clearBand, type ClearBand } from "./bounds";
 export {

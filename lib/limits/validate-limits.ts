@@ -1,5 +1,5 @@
 import { clearBand } from "./bounds";
-import { byLevel, levelRank, type Limit, type LimitInput } from "./limit";
+import { byLevel, levelRank, type Limit, type LimitInput, type Quantity } from "./limit";
 
 export type LimitField = "level" | "upper" | "lower" | "hysteresis" | "persistence";
 
@@ -22,8 +22,8 @@ export interface LimitProblem {
   readonly message: string;
 }
 
-export type LimitSetValidation =
-  | { readonly ok: true; readonly limits: Limit[] }
+export type LimitSetValidation<Q extends string = Quantity> =
+  | { readonly ok: true; readonly limits: Limit<Q>[] }
   | { readonly ok: false; readonly problems: LimitProblem[] };
 
 type FieldProblem = Omit<LimitProblem, "index">;
@@ -34,7 +34,7 @@ const NUMERIC_FIELDS = ["upper", "lower", "hysteresis", "persistence"] as const;
  * Checks a gauge's proposed limit set as a whole. Relations between levels are checked only once
  * every limit is sound on its own, so that one mistake is not reported three times.
  */
-export function validateLimits(inputs: readonly LimitInput[]): LimitSetValidation {
+export function validateLimits<Q extends string>(inputs: readonly LimitInput<Q>[]): LimitSetValidation<Q> {
   const problems: LimitProblem[] = [
     ...inputs.flatMap((input, index) => fieldProblems(input).map((problem) => ({ index, ...problem }))),
     ...duplicateLevelProblems(inputs),
@@ -47,11 +47,11 @@ export function validateLimits(inputs: readonly LimitInput[]): LimitSetValidatio
   return { ok: false, problems };
 }
 
-function withDefaults(input: LimitInput): Limit {
+function withDefaults<Q extends string>(input: LimitInput<Q>): Limit<Q> {
   return { ...input, hysteresis: input.hysteresis ?? 0, persistence: input.persistence ?? 1 };
 }
 
-function fieldProblems(input: LimitInput): FieldProblem[] {
+function fieldProblems(input: LimitInput<string>): FieldProblem[] {
   const nonFinite = NUMERIC_FIELDS.filter((field) => input[field] !== undefined && !Number.isFinite(input[field]));
   if (nonFinite.length > 0) {
     return nonFinite.map((field) => ({ field, code: "non-finite", message: `The ${field} value must be a finite number.` }));
@@ -61,7 +61,7 @@ function fieldProblems(input: LimitInput): FieldProblem[] {
   );
 }
 
-function boundsProblem({ upper, lower }: LimitInput): FieldProblem | null {
+function boundsProblem({ upper, lower }: LimitInput<string>): FieldProblem | null {
   if (upper === undefined && lower === undefined) {
     return { field: "upper", code: "no-bound", message: "Give an upper bound, a lower bound, or both." };
   }
@@ -79,7 +79,7 @@ function boundsProblem({ upper, lower }: LimitInput): FieldProblem | null {
  * Refusing only a dead band wider than the span is not enough: a value must sit hysteresis inside
  * *both* bounds to clear, so any dead band over half the span leaves an alert that can never clear.
  */
-function hysteresisProblem({ upper, lower, hysteresis = 0 }: LimitInput): FieldProblem | null {
+function hysteresisProblem({ upper, lower, hysteresis = 0 }: LimitInput<string>): FieldProblem | null {
   if (hysteresis < 0) {
     return { field: "hysteresis", code: "negative-hysteresis", message: "The hysteresis (dead band) cannot be negative; use 0 for none." };
   }
@@ -93,7 +93,7 @@ function hysteresisProblem({ upper, lower, hysteresis = 0 }: LimitInput): FieldP
   return null;
 }
 
-function persistenceProblem({ persistence = 1 }: LimitInput): FieldProblem | null {
+function persistenceProblem({ persistence = 1 }: LimitInput<string>): FieldProblem | null {
   if (Number.isInteger(persistence) && persistence >= 1) return null;
   return {
     field: "persistence",
@@ -102,7 +102,7 @@ function persistenceProblem({ persistence = 1 }: LimitInput): FieldProblem | nul
   };
 }
 
-function duplicateLevelProblems(inputs: readonly LimitInput[]): LimitProblem[] {
+function duplicateLevelProblems(inputs: readonly LimitInput<string>[]): LimitProblem[] {
   const seen = new Set<string>();
   return inputs.flatMap((input, index) => {
     const key = `${input.quantity}/${input.level}`;
@@ -115,7 +115,7 @@ function duplicateLevelProblems(inputs: readonly LimitInput[]): LimitProblem[] {
 }
 
 /** Higher levels escalate outward: bounds at or beyond those of every milder level on the same side. */
-function levelOrderProblems(limits: readonly Limit[]): LimitProblem[] {
+function levelOrderProblems(limits: readonly Limit<string>[]): LimitProblem[] {
   const problems: LimitProblem[] = [];
   limits.forEach((higher, index) => {
     for (const milder of limits) {
@@ -131,7 +131,7 @@ function levelOrderProblems(limits: readonly Limit[]): LimitProblem[] {
   return problems;
 }
 
-function outOfOrder(index: number, field: "upper" | "lower", higher: Limit, milder: Limit, relation: string): LimitProblem {
+function outOfOrder(index: number, field: "upper" | "lower", higher: Limit<string>, milder: Limit<string>, relation: string): LimitProblem {
   return {
     index,
     field,
@@ -145,7 +145,7 @@ function outOfOrder(index: number, field: "upper" | "lower", higher: Limit, mild
  * 120) can leave no value at which the alert machine would clear; the machine's own clear band
  * decides, so validation and evaluation cannot disagree.
  */
-function neverClearsProblems(limits: readonly Limit[]): LimitProblem[] {
+function neverClearsProblems(limits: readonly Limit<string>[]): LimitProblem[] {
   const quantities = new Set(limits.map((limit) => limit.quantity));
   return [...quantities].flatMap((quantity) => {
     const ladder = byLevel(limits.filter((limit) => limit.quantity === quantity));

@@ -1,4 +1,4 @@
-import type { Level, Quantity } from "@/lib/limits/limit";
+import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits/limit";
 import { formatMicrostrain } from "@/lib/units";
 import { formatInTimeZone } from "./format-time";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
@@ -11,10 +11,12 @@ export type AlertStructure = { code: string; name: string; timezone: string };
 /** One alert event as the e-mails tell it, without the structure it belongs to. */
 export type AlertEventFacts = {
   gauge: { tag: string; label?: string | null; location?: string | null };
+  /** The rosette's tag when the quantity is a rosette's; `gauge` is then its gauge a. */
+  rosette?: string | null;
   event: AlertMailEvent;
   level: Level;
-  quantity: Quantity;
-  /** In the quantity's stored unit: MPa, µε, or utilisation as a ratio (1 = at yield). */
+  quantity: Quantity | RosetteLimitQuantity;
+  /** In the quantity's stored unit: MPa, µε, or utilisation as a ratio (1 = at yield); MPa for a rosette's. */
   value: number;
   bound: { side: "upper" | "lower"; value: number };
   at: Date;
@@ -27,15 +29,34 @@ export const ALERT_CAUTION =
   "What a limit means is the responsibility of the engineer who set it, under local codes. " +
   "Monitoring supplements inspection and never replaces it; mail can be delayed, so check in the app when data last arrived.";
 
-/** "212.4 MPa", "1,234 µε", "87 % of yield". */
-export function formatQuantityValue(quantity: Quantity, value: number): string {
-  if (quantity === "stress") return `${value.toFixed(1)} MPa`;
+/** "212.4 MPa", "1,234 µε", "87 % of yield"; a rosette's quantities are stresses. */
+export function formatQuantityValue(quantity: AlertEventFacts["quantity"], value: number): string {
   if (quantity === "strain") return formatMicrostrain(value);
-  return `${Math.round(value * 100)} % of yield`;
+  if (quantity === "utilisation") return `${Math.round(value * 100)} % of yield`;
+  return `${value.toFixed(1)} MPa`;
 }
+
+/** How the e-mails name a quantity: a rosette's by its symbol rather than the API's name. */
+const QUANTITY_NAME: Record<AlertEventFacts["quantity"], string> = {
+  stress: "stress",
+  strain: "strain",
+  utilisation: "utilisation",
+  sigma1: "σ₁",
+  sigma2: "σ₂",
+  vonMises: "von Mises stress",
+};
 
 export function gaugeChartLink(appUrl: string, structureCode: string, gaugeTag: string): string {
   return `${appUrl}/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(gaugeTag)}`;
+}
+
+/** What an alert event is about ("G1" or "rosette R1") and the chart that shows it. */
+export function alertPlace(facts: Pick<AlertEventFacts, "gauge" | "rosette">, appUrl: string, structureCode: string): { name: string; link: string } {
+  if (!facts.rosette) return { name: facts.gauge.tag, link: gaugeChartLink(appUrl, structureCode, facts.gauge.tag) };
+  return {
+    name: `rosette ${facts.rosette}`,
+    link: `${appUrl}/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(facts.rosette)}`,
+  };
 }
 
 const EVENT_WORDING: Record<AlertMailEvent, string> = {
@@ -48,31 +69,32 @@ const EVENT_WORDING: Record<AlertMailEvent, string> = {
 export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string } {
   const value = formatQuantityValue(facts.quantity, facts.value);
   const bound = `${facts.bound.side} ${formatQuantityValue(facts.quantity, facts.bound.value)}`;
-  const headline = `${facts.quantity} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
+  const headline = `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
   return { headline, value, bound };
 }
 
 export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail {
   const { structure, gauge } = input;
   const { headline, value, bound } = describeAlertEvent(input);
-  const link = gaugeChartLink(appUrl, structure.code, gauge.tag);
+  const place = alertPlace(input, appUrl, structure.code);
   const levelWord = input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
-  const subject = `${levelWord}: ${structure.code} ${gauge.tag} ${headline} (${value})`;
+  const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (${value})`;
   const facts: [string, string][] = [
     ["Structure", `${structure.name} (${structure.code})`],
-    ["Gauge", gauge.label ? `${gauge.tag}, ${gauge.label}` : gauge.tag],
+    ...(input.rosette ? [["Rosette", input.rosette] as [string, string]] : []),
+    [input.rosette ? "Gauge a" : "Gauge", gauge.label ? `${gauge.tag}, ${gauge.label}` : gauge.tag],
     ["Location", gauge.location || "not recorded"],
     ["Level", input.level],
-    ["Quantity", input.quantity],
+    ["Quantity", `${QUANTITY_NAME[input.quantity]} (${input.quantity})`],
     ["Value", value],
     ["Bound", bound],
     ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],
   ];
-  const opening = `On ${structure.name}, gauge ${gauge.tag}: ${headline}.`;
+  const opening = `On ${structure.name}, ${input.rosette ? place.name : `gauge ${gauge.tag}`}: ${headline}.`;
   const text = [
     opening,
     facts.map(([name, fact]) => `${name}: ${fact}`).join("\n"),
-    `Chart: ${link}`,
+    `Chart: ${place.link}`,
     ALERT_CAUTION,
   ].join("\n\n");
   const rows = facts
@@ -83,7 +105,7 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
     .join("\n");
   const html = htmlFrame(
     subject,
-    [htmlParagraph(opening), `<table style="border-collapse:collapse">${rows}</table>`, htmlButton(link, "Open the chart")].join("\n"),
+    [htmlParagraph(opening), `<table style="border-collapse:collapse">${rows}</table>`, htmlButton(place.link, "Open the chart")].join("\n"),
     ALERT_CAUTION,
   );
   return { subject, text, html };

@@ -1,4 +1,4 @@
-import { ALERT_CAUTION, describeAlertEvent, gaugeChartLink, type AlertEventFacts, type AlertStructure } from "./alert";
+import { ALERT_CAUTION, alertPlace, describeAlertEvent, type AlertEventFacts, type AlertStructure } from "./alert";
 import { formatInTimeZone } from "./format-time";
 import { escapeHtml, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -17,11 +17,12 @@ export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMa
     const ordered = [...events].sort((a, b) => a.at.getTime() - b.at.getTime());
     const lines = ordered.map((facts) => {
       const { headline, value, bound } = describeAlertEvent(facts);
+      const place = alertPlace(facts, appUrl, structure.code);
       return {
         time: formatInTimeZone(facts.at, structure.timezone),
-        gauge: facts.gauge.tag,
+        gauge: place.name,
         what: `${headline}: ${value} (bound ${bound})`,
-        link: gaugeChartLink(appUrl, structure.code, facts.gauge.tag),
+        link: place.link,
       };
     });
     return { title: `${structure.name} (${structure.code}), times in ${structure.timezone}`, lines };

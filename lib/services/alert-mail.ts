@@ -37,6 +37,7 @@ function mailFor(notification: Notification, gauge: Gauge, structure: { code: st
   return buildAlertMail(
     {
       ...facts,
+      rosette: notification.rosette,
       event: notification.type,
       level: event.level,
       quantity: event.quantity,

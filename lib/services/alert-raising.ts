@@ -9,7 +9,7 @@ import {
   type GaugeEvaluationState,
   type QuantityEvent,
 } from "@/lib/alerting/evaluate-gauge";
-import type { Limit, SensorFinding } from "@/lib/limits";
+import type { EpisodeEvent, Limit, Quantity, RosetteLimitQuantity, SensorFinding } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
@@ -69,8 +69,20 @@ async function limitsFor(tx: Tx, gaugeId: number): Promise<Limit[]> {
   }));
 }
 
-async function openAlertOf(tx: Tx, gaugeId: number, match: { kind: "limit"; quantity: string } | { kind: "sensor"; code: string }) {
-  const condition = match.kind === "limit" ? eq(alerts.quantity, match.quantity) : eq(alerts.code, match.code);
+/** What a limit alert is about: a gauge's own quantity, or a rosette's (attached to its gauge a). */
+export type AlertSubject = { gauge: Gauge; rosette: { id: number; tag: string } | null };
+
+/** An episode event of a gauge's or a rosette's quantity. */
+export type LimitEvent = EpisodeEvent & { quantity: Quantity | RosetteLimitQuantity };
+
+type AlertMatch = { kind: "limit"; quantity: string; rosetteId: number | null } | { kind: "sensor"; code: string };
+
+async function openAlertOf(tx: Tx, gaugeId: number, match: AlertMatch) {
+  // two rosettes may share gauge a, so a rosette's alert is told apart by the rosette as well
+  const condition =
+    match.kind === "limit"
+      ? and(eq(alerts.quantity, match.quantity), match.rosetteId === null ? isNull(alerts.rosetteId) : eq(alerts.rosetteId, match.rosetteId))
+      : eq(alerts.code, match.code);
   const [row] = await tx
     .select()
     .from(alerts)
@@ -91,20 +103,31 @@ async function alreadyRecorded(tx: Tx, gaugeId: number, event: QuantityEvent): P
 
 /** An alert event whose e-mails must go out. */
 export type Notification =
-  | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: QuantityEvent }
+  | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
   | { kind: "sensor"; alertId: number; type: "opened" | "cleared"; code: string; message: string; time: number };
 
-async function applyLimitEvent(tx: Tx, gauge: Gauge, event: QuantityEvent, notifications: Notification[], counts: AlertCounts) {
+export async function applyLimitEvent(tx: Tx, { gauge, rosette }: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
   const at = new Date(event.time);
+  const rosetteId = rosette?.id ?? null;
   let alertId: number | undefined;
   if (event.type === "opened") {
     const [created] = await tx
       .insert(alerts)
-      .values({ structureId: gauge.structureId, gaugeId: gauge.id, kind: "limit", level: event.level, quantity: event.quantity, openedAt: at, bound: event.bound, peak: event.peak })
+      .values({
+        structureId: gauge.structureId,
+        gaugeId: gauge.id,
+        rosetteId,
+        kind: "limit",
+        level: event.level,
+        quantity: event.quantity,
+        openedAt: at,
+        bound: event.bound,
+        peak: event.peak,
+      })
       .returning({ id: alerts.id });
     alertId = created!.id;
   } else {
-    const open = await openAlertOf(tx, gauge.id, { kind: "limit", quantity: event.quantity });
+    const open = await openAlertOf(tx, gauge.id, { kind: "limit", quantity: event.quantity, rosetteId });
     if (!open) return;
     alertId = open.id;
     await tx
@@ -114,7 +137,7 @@ async function applyLimitEvent(tx: Tx, gauge: Gauge, event: QuantityEvent, notif
   }
   await tx.insert(alertEvents).values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" });
   counts[event.type] += 1;
-  notifications.push({ kind: "limit", alertId, type: event.type, event });
+  notifications.push({ kind: "limit", alertId, type: event.type, event, rosette: rosette?.tag ?? null });
 }
 
 async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
@@ -201,7 +224,7 @@ async function applyEvaluation(
   const result = evaluateGauge(setup, from, batch);
   for (const event of result.events) {
     if (replayed && (await alreadyRecorded(tx, gauge.id, event))) continue;
-    await applyLimitEvent(tx, gauge, event, notifications, counts);
+    await applyLimitEvent(tx, { gauge, rosette: null }, event, notifications, counts);
   }
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   if (batch.length > 0) await clearStaleAlert(tx, gauge, batch.at(-1)!.time, notifications);

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray, isNotNull, isNull, type SQL } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
-import { alertEvents, alerts, gauges, structures, users, type Alert } from "@/db/schema";
+import { alertEvents, alerts, gauges, rosettes, structures, users, type Alert } from "@/db/schema";
 import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError } from "@/lib/errors";
@@ -15,6 +15,8 @@ export type AlertView = {
   id: number;
   structure: string;
   gauge: string;
+  /** The rosette a rosette quantity's alert is about; `gauge` is then its gauge a. */
+  rosette: string | null;
   kind: Alert["kind"];
   level: Alert["level"];
   quantity: string | null;
@@ -46,10 +48,11 @@ const iso = (date: Date | null) => date?.toISOString() ?? null;
 
 function alertQuery(where: (SQL | undefined)[]) {
   return getDb()
-    .select({ alert: alerts, structure: structures.code, gauge: gauges.tag, acknowledgedBy: users.email })
+    .select({ alert: alerts, structure: structures.code, gauge: gauges.tag, rosette: rosettes.tag, acknowledgedBy: users.email })
     .from(alerts)
     .innerJoin(structures, eq(structures.id, alerts.structureId))
     .innerJoin(gauges, eq(gauges.id, alerts.gaugeId))
+    .leftJoin(rosettes, eq(rosettes.id, alerts.rosetteId))
     .leftJoin(users, eq(users.id, alerts.acknowledgedById))
     .where(and(...where))
     .orderBy(desc(alerts.openedAt), desc(alerts.id));
@@ -57,11 +60,12 @@ function alertQuery(where: (SQL | undefined)[]) {
 
 type AlertRow = Awaited<ReturnType<typeof alertQuery>>[number];
 
-function toAlertView({ alert, structure, gauge, acknowledgedBy }: AlertRow): AlertView {
+function toAlertView({ alert, structure, gauge, rosette, acknowledgedBy }: AlertRow): AlertView {
   return {
     id: alert.id,
     structure,
     gauge,
+    rosette,
     kind: alert.kind,
     level: alert.level,
     quantity: alert.quantity,

@@ -14,6 +14,7 @@ import { isTimeZone } from "@/lib/validation";
 import { gaugeRowsOf } from "./gauges";
 import { getVisibleStructure } from "./structures";
 import { evaluateInsertedReadings } from "./alert-raising";
+import { evaluateRosetteLimits } from "./rosette-alert-raising";
 
 /** Per request, from the API contract. */
 export const MAX_READINGS_PER_REQUEST = 50_000;
@@ -118,19 +119,24 @@ async function storeBatch(target: IngestTarget, batch: PreparedBatch): Promise<I
 
 /**
  * Runs inside the ingestion transaction with exactly the readings this request stored (never
- * duplicates), per gauge in time order, so alerts open, escalate and clear, and their e-mails are
- * queued, atomically with the readings that caused them.
+ * duplicates), per gauge in time order, then for the rosettes those gauges belong to, so alerts
+ * open, escalate and clear, and their e-mails are queued, atomically with the readings that caused them.
  */
 async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<AlertCounts> {
   const total = { ...NO_ALERTS };
-  for (const rows of inserted) {
-    const gauge = target.gauges.get(rows.tag)!.row;
-    const readings = rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! }));
-    const { counts } = await evaluateInsertedReadings(tx, gauge, readings);
+  const add = (counts: AlertCounts) => {
     total.opened += counts.opened;
     total.escalated += counts.escalated;
     total.cleared += counts.cleared;
+  };
+  for (const rows of inserted) {
+    const gauge = target.gauges.get(rows.tag)!.row;
+    const readings = rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! }));
+    add((await evaluateInsertedReadings(tx, gauge, readings)).counts);
   }
+  const gaugesById = new Map([...target.gauges.values()].map((entry) => [entry.id, entry.row]));
+  const spans = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, first: rows.time[0]!, last: rows.time.at(-1)! }));
+  add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, spans));
   return total;
 }
 

@@ -5,13 +5,18 @@ import { gaugeLimits, readings, type Gauge } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { episodesOf, type AlertEpisode } from "@/lib/alerting/episodes";
 import { defaultHealthThresholds, evaluateGauge, initialGaugeEvaluationState } from "@/lib/alerting/evaluate-gauge";
-import type { limitInput } from "@/lib/alerting/schema";
+import type { limitsBody } from "@/lib/alerting/schema";
 import { AppError } from "@/lib/errors";
-import { validateLimits, type Limit } from "@/lib/limits";
+import { validateLimits, type Limit, type LimitInput as ProposedLimit, type LimitSetValidation } from "@/lib/limits";
 import { recordAudit } from "./audit";
 import { resolveGauge } from "./gauges";
 
-type LimitInput = z.output<typeof limitInput>;
+type LimitInput = z.output<typeof limitsBody>["limits"][number];
+
+/** A stored limit row as the machine takes it: an absent bound is left out rather than null. */
+export function limitOfRow<Q extends string>({ upper, lower, ...rest }: Omit<Limit<Q>, "upper" | "lower"> & { upper: number | null; lower: number | null }): Limit<Q> {
+  return { ...rest, ...(upper === null ? {} : { upper }), ...(lower === null ? {} : { lower }) };
+}
 
 export function limitsOfGauge(gaugeId: number): Promise<Limit[]> {
   return getDb()
@@ -26,23 +31,29 @@ export function limitsOfGauge(gaugeId: number): Promise<Limit[]> {
     .from(gaugeLimits)
     .where(eq(gaugeLimits.gaugeId, gaugeId))
     .orderBy(asc(gaugeLimits.quantity), asc(gaugeLimits.id))
-    .then((rows) => rows.map(({ upper, lower, ...rest }) => ({ ...rest, ...(upper === null ? {} : { upper }), ...(lower === null ? {} : { lower }) })));
+    .then((rows) => rows.map(limitOfRow));
 }
 
-/** Validates a proposed set, answering per limit and field what to fix. */
-function checkedLimits(gauge: Gauge, inputs: LimitInput[]): Limit[] {
-  const checked = validateLimits(inputs);
+/** Validates a proposed set of a gauge's or a rosette's limits, answering per limit and field what to fix. */
+export function validLimitsOrRefuse<Q extends string>(inputs: readonly ProposedLimit<Q>[]): Limit<Q>[] {
+  const checked: LimitSetValidation<Q> = validateLimits(inputs);
   if (!checked.ok) {
     const issues = checked.problems.map((problem) => ({ path: `limits.${problem.index}.${problem.field}`, message: problem.message }));
     throw new AppError("validation_failed", issues[0]!.message, { issues });
   }
-  const utilisationIndex = checked.limits.findIndex((limit) => limit.quantity === "utilisation");
+  return checked.limits;
+}
+
+/** A gauge's limits also need a yield when one bounds utilisation. */
+function checkedLimits(gauge: Gauge, inputs: LimitInput[]): Limit[] {
+  const limits = validLimitsOrRefuse(inputs);
+  const utilisationIndex = limits.findIndex((limit) => limit.quantity === "utilisation");
   if (utilisationIndex >= 0 && !gauge.material.yield) {
     throw new AppError("validation_failed", "Utilisation limits need the material's yield; give the gauge's material a yield first.", {
       issues: [{ path: `limits.${utilisationIndex}.quantity`, message: "This gauge's material has no yield." }],
     });
   }
-  return checked.limits;
+  return limits;
 }
 
 export async function getLimits(actor: Actor, code: string, tag: string): Promise<Limit[]> {

@@ -1,12 +1,11 @@
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { getClient, getDb } from "@/db/client";
-import { gauges, rosettes } from "@/db/schema";
+import { gauges } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import type { RosetteQuantity } from "@/lib/api/readings-schemas";
-import { AppError } from "@/lib/errors";
 import { analyseRosette, type RosetteAnalysis } from "@/lib/mechanics";
 import { bucketGrid, createBucketAccumulator } from "@/lib/series";
-import { getVisibleStructure } from "./structures";
+import { resolveRosette } from "./rosettes";
 
 const FIELD: Record<RosetteQuantity, keyof RosetteAnalysis> = {
   sigma1: "sigma1",
@@ -17,7 +16,7 @@ const FIELD: Record<RosetteQuantity, keyof RosetteAnalysis> = {
 };
 
 /** Readings of the three gauges taken at the same instant, in time order: only those make a plane strain state. */
-const MATCHED_STRAINS = `
+export const MATCHED_STRAINS = `
   SELECT a.t, a.strain, b.strain, c.strain FROM readings a
   JOIN readings b ON b.gauge_id = :b AND b.t = a.t
   JOIN readings c ON c.gauge_id = :c AND c.t = a.t
@@ -30,13 +29,7 @@ const MATCHED_STRAINS = `
  * from the three gauges' stress-producing strains; the material is gauge a's.
  */
 export async function getRosetteSeries(actor: Actor, code: string, tag: string, query: { from: number; to: number; points: number; quantity: RosetteQuantity }) {
-  const structure = await getVisibleStructure(actor, code);
-  const [rosette] = await getDb()
-    .select()
-    .from(rosettes)
-    .where(and(eq(rosettes.structureId, structure.id), eq(rosettes.tag, tag)))
-    .limit(1);
-  if (!rosette) throw new AppError("not_found", `Rosette "${tag}" was not found on structure ${structure.code}.`);
+  const { rosette } = await resolveRosette(actor, code, tag, "structure:view");
   const [gaugeA] = await getDb().select().from(gauges).where(eq(gauges.id, rosette.gaugeAId));
   const grid = bucketGrid(query.from, query.to, query.points);
   const result = await getClient().execute({

@@ -1,8 +1,9 @@
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
 import { rosettes, type Rosette } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
+import type { Action } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import type { z } from "zod";
 import type { rosetteInput } from "@/lib/gauges/schema";
@@ -19,6 +20,19 @@ function viewOf(row: Rosette, tagOf: Map<number, string>): RosetteView {
     gauges: [tagOf.get(row.gaugeAId)!, tagOf.get(row.gaugeBId)!, tagOf.get(row.gaugeCId)!],
     createdAt: row.createdAt.toISOString(),
   };
+}
+
+/** The structure and the rosette tagged `tag` on it, once the actor may do `action` there. */
+export async function resolveRosette(actor: Actor, code: string, tag: string, action: Action) {
+  const structure = await getVisibleStructure(actor, code);
+  await requirePermission(actor, action, structure);
+  const [rosette] = await getDb()
+    .select()
+    .from(rosettes)
+    .where(and(eq(rosettes.structureId, structure.id), eq(rosettes.tag, tag)))
+    .limit(1);
+  if (!rosette) throw new AppError("not_found", `Rosette "${tag}" was not found on structure ${structure.code}.`);
+  return { structure, rosette };
 }
 
 export async function listRosettes(actor: Actor, code: string): Promise<RosetteView[]> {

@@ -2,7 +2,7 @@ import { validateLimits, type Limit, type LimitInput, type Reading } from "@/lib
 
 /** Validated limits with defaults applied; a fixture that does not validate is a broken test. */
 export function limitSet(...inputs: Omit<LimitInput, "quantity">[]): Limit[] {
-  const result = validateLimits(inputs.map((input) => ({ quantity: "stress", ...input })));
+  const result = validateLimits(inputs.map((input) => ({ quantity: "stress" as const, ...input })));
   if (!result.ok) throw new Error(`invalid fixture: ${result.problems.map((problem) => problem.message).join(" ")}`);
   return result.limits;
 }

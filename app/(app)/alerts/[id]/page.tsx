@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { LevelBadge, StateBadge, alertSummary } from "@/components/alerts/alert-badges";
+import { LevelBadge, StateBadge, alertPlaceLabel, alertSummary } from "@/components/alerts/alert-badges";
+import { RosetteCharts } from "@/components/charts/rosette-charts";
 import { ActionForm } from "@/components/ui/action-form";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
@@ -42,7 +43,7 @@ export default async function AlertPage({ params }: Props) {
   return (
     <>
       <PageHeader
-        title={`Alert on ${alert.gauge}`}
+        title={`Alert on ${alertPlaceLabel(alert)}`}
         subtitle={
           <>
             <Link className="text-accent underline" href={`/structures/${structure.code}`}>
@@ -59,9 +60,15 @@ export default async function AlertPage({ params }: Props) {
           </h2>
           <p>{alertSummary(alert)}</p>
           <p className="text-sm">
-            <Link className="text-accent underline" href={`/structures/${structure.code}/gauges/${encodeURIComponent(alert.gauge)}`}>
-              Open gauge {alert.gauge}
-            </Link>
+            {alert.rosette ? (
+              <Link className="text-accent underline" href={`/structures/${structure.code}/rosettes/${encodeURIComponent(alert.rosette)}`}>
+                Open rosette {alert.rosette}
+              </Link>
+            ) : (
+              <Link className="text-accent underline" href={`/structures/${structure.code}/gauges/${encodeURIComponent(alert.gauge)}`}>
+                Open gauge {alert.gauge}
+              </Link>
+            )}
           </p>
           <h3 className="font-semibold">History</h3>
           <ol className="space-y-2 text-sm" aria-label="Alert history">
@@ -105,18 +112,23 @@ export default async function AlertPage({ params }: Props) {
         <h2 id="around" className="mb-2 text-lg font-semibold">
           Around the event
         </h2>
-        <GaugeCharts
-          structureCode={structure.code}
-          tag={alert.gauge}
-          timeZone={structure.timezone}
-          limits={limits}
-          yieldStress={gauge.material.yield ?? null}
-          episodes={alert.kind === "limit" ? [{ openedAt, clearedAt, level: alert.level }] : []}
-          events={[{ time: openedAt, label: "opened" }]}
-          end={around.to}
-          initialRange={around}
-          compact
-        />
+        {/* a rosette's alert is about its derived stresses, which gauge a's chart and limits do not show */}
+        {alert.rosette ? (
+          <RosetteCharts structureCode={structure.code} tag={alert.rosette} end={around.to} timeZone={structure.timezone} />
+        ) : (
+          <GaugeCharts
+            structureCode={structure.code}
+            tag={alert.gauge}
+            timeZone={structure.timezone}
+            limits={limits}
+            yieldStress={gauge.material.yield ?? null}
+            episodes={alert.kind === "limit" ? [{ openedAt, clearedAt, level: alert.level }] : []}
+            events={[{ time: openedAt, label: "opened" }]}
+            end={around.to}
+            initialRange={around}
+            compact
+          />
+        )}
       </section>
       <div className="mt-6">
         <MonitoringCaution />

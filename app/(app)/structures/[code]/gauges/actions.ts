@@ -5,8 +5,9 @@ import { formAction, objectAction } from "@/lib/actions/form-action";
 import type { ActionState } from "@/lib/actions/action-state";
 import { gaugeInput, gaugePatch, rosetteInput, zeroInput } from "@/lib/gauges/schema";
 import { createRosette } from "@/lib/services/rosettes";
-import { limitsBody } from "@/lib/alerting/schema";
+import { limitsBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 import { replaceLimits } from "@/lib/services/limits";
+import { replaceRosetteLimits } from "@/lib/services/rosette-limits";
 import { setAlertMailMode } from "@/lib/services/memberships";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
 import { optionalText } from "@/lib/validation";
@@ -108,6 +109,18 @@ export async function saveLimitsAction(code: string, tag: string, payload: unkno
       return { message: limits.length ? `${limits.length} limits saved for ${tag}.` : `All limits of ${tag} removed.` };
     },
     structurePath(code),
+  );
+}
+
+export async function saveRosetteLimitsAction(code: string, tag: string, payload: unknown): Promise<ActionState> {
+  return objectAction(
+    rosetteLimitsBody,
+    payload,
+    async ({ limits }, user) => {
+      await replaceRosetteLimits(user, code, tag, limits);
+      return { message: limits.length ? `${limits.length} limits saved for rosette ${tag}.` : `All limits of rosette ${tag} removed.` };
+    },
+    `${structurePath(code)}/rosettes/${encodeURIComponent(tag)}`,
   );
 }
 

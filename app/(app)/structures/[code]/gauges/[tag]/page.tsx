@@ -67,7 +67,7 @@ export default async function GaugePage({ params }: Props) {
     ...(gauge.replaces ? [{ time: Date.parse(gauge.createdAt), label: `replaced ${gauge.replaces}` }] : []),
   ];
   const chartEpisodes = alerts
-    .filter((alert) => alert.gauge === tag && alert.kind === "limit")
+    .filter((alert) => alert.gauge === tag && alert.kind === "limit" && alert.rosette === null)
     .map((alert) => ({ openedAt: Date.parse(alert.openedAt), clearedAt: alert.clearedAt ? Date.parse(alert.clearedAt) : null, level: alert.level }));
   const active = gauge.status === "active";
   const base = `/structures/${code}/gauges`;

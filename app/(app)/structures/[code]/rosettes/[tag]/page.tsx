@@ -2,13 +2,20 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { RosetteCharts } from "@/components/charts/rosette-charts";
+import { LimitsEditor } from "@/components/limits/limits-editor";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
+import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
+import { getRosetteLimits } from "@/lib/services/rosette-limits";
 import { listRosettes } from "@/lib/services/rosettes";
 import { gaugeStatuses } from "@/lib/services/status";
 import { getVisibleStructure } from "@/lib/services/structures";
+import { saveRosetteLimitsAction } from "../../gauges/actions";
+
+/** A rosette's limits bound its derived stresses, all in MPa. */
+const ROSETTE_QUANTITY_UNITS = { vonMises: "MPa", sigma1: "MPa", sigma2: "MPa" };
 
 type Props = { params: Promise<{ code: string; tag: string }> };
 
@@ -21,7 +28,11 @@ export default async function RosettePage({ params }: Props) {
   const structure = await pageGuard(getVisibleStructure(user, code));
   const rosette = (await listRosettes(user, code)).find((candidate) => candidate.tag === tag);
   if (!rosette) notFound();
-  const statuses = await gaugeStatuses(structure);
+  const [statuses, limits, canEdit] = await Promise.all([
+    gaugeStatuses(structure),
+    pageGuard(getRosetteLimits(user, code, tag)),
+    may(user, "limits:edit", structure),
+  ]);
   const end = Math.max(0, ...statuses.filter((s) => rosette.gauges.includes(s.tag)).map((s) => s.latest?.time ?? 0)) || Date.now();
   return (
     <>
@@ -38,6 +49,25 @@ export default async function RosettePage({ params }: Props) {
         }
       />
       <RosetteCharts structureCode={code} tag={tag} end={end} timeZone={structure.timezone} />
+      <section className="mt-6" aria-labelledby="rosette-limits">
+        <h2 id="rosette-limits" className="mb-2 text-lg font-semibold">
+          Limits
+        </h2>
+        <p className="mb-3 text-sm text-slate-600 dark:text-slate-400">
+          {canEdit ? "Set by the monitoring engineer." : "Only engineers change limits."} Checked on ingest at the instants all three gauges have a reading; an
+          instant completed after later ones were evaluated is not checked.
+        </p>
+        <LimitsEditor
+          structureCode={code}
+          tag={tag}
+          timeZone={structure.timezone}
+          initial={limits}
+          canEdit={canEdit}
+          save={saveRosetteLimitsAction.bind(null, code, tag)}
+          quantities={ROSETTE_QUANTITY_UNITS}
+          unitsNote="Bounds in MPa: von Mises stress, and the principal stresses σ₁ (the larger) and σ₂."
+        />
+      </section>
       <div className="mt-6">
         <MonitoringCaution>
           <li>Principal stresses assume plane stress in a linear elastic material at the rosette; near welds and holes local stresses may differ.</li>

@@ -44,9 +44,14 @@ export default async function LimitsPage({ params }: Props) {
       <div className="mb-6">
         <MonitoringCaution />
       </div>
-      <LimitsEditor structureCode={code} tag={tag} timeZone={structure.timezone} initial={limits} canEdit={canEdit} save={saveLimitsAction.bind(null, code, tag)}
-        yieldStress={gauge.material.yield ?? null}
-        lastReading={lastReading}
+      <LimitsEditor
+        structureCode={code}
+        tag={tag}
+        timeZone={structure.timezone}
+        initial={limits}
+        canEdit={canEdit}
+        save={saveLimitsAction.bind(null, code, tag)}
+        gauge={{ yieldStress: gauge.material.yield ?? null, lastReading }}
       />
     </>
   );
