@@ -3,7 +3,8 @@ import { getDb } from "@/db/client";
 import { alerts, readings, rollups, type Gauge, type Structure } from "@/db/schema";
 import { DEFAULT_EXPECTED_INTERVAL_S, gaugeState, isStale, worstState, type GaugeState } from "@/lib/alerting/gauge-state";
 import { ROLLUP_RESOLUTIONS } from "@/lib/series";
-import { gaugeRowsOf } from "./gauges";
+import { gaugeRowsOf, resolveGauge } from "./gauges";
+import type { Actor } from "@/lib/auth/actor";
 
 export type LatestReading = { time: number; strain: number; stress: number; temperature: number | null; utilisation: number | null; flags: number };
 
@@ -19,6 +20,12 @@ async function latestReading(gauge: Gauge): Promise<LatestReading | null> {
   if (!row) return null;
   const yieldStress = gauge.material.yield ?? null;
   return { ...row, utilisation: yieldStress ? Math.abs(row.stress) / yieldStress : null };
+}
+
+/** One gauge's latest reading, for pages about that gauge alone. */
+export async function latestReadingOf(actor: Actor, code: string, tag: string): Promise<LatestReading | null> {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  return latestReading(gauge);
 }
 
 async function openAlertLevels(structureId: number) {

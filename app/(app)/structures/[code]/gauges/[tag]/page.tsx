@@ -18,7 +18,7 @@ import { requireUser } from "@/lib/auth/session";
 import { listGaugePhotos } from "@/lib/services/files";
 import { listAlerts } from "@/lib/services/alerts";
 import { getLimits } from "@/lib/services/limits";
-import { gaugeStatuses } from "@/lib/services/status";
+import { latestReadingOf } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { retireGaugeAction } from "../actions";
@@ -54,13 +54,13 @@ export default async function GaugePage({ params }: Props) {
     may(user, "zero:record", structure),
     may(user, "audit:view", structure),
   ]);
-  const [zeros, audit, photos, limits, alerts, status] = await Promise.all([
+  const [zeros, audit, photos, limits, alerts, latest] = await Promise.all([
     zeroHistory(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
     getLimits(user, code, tag),
     listAlerts(user, code, "all"),
-    gaugeStatuses(structure).then((all) => all.find((s) => s.tag === tag)),
+    latestReadingOf(user, code, tag),
   ]);
   const chartEvents = [
     ...zeros.slice(0, -1).map((zero) => ({ time: zero.time.getTime(), label: "re-zeroed" })),
@@ -128,7 +128,7 @@ export default async function GaugePage({ params }: Props) {
         <h2 id="history" className="mb-2 text-lg font-semibold">
           History
         </h2>
-        {status?.latest ? (
+        {latest ? (
           <GaugeCharts
             structureCode={code}
             tag={tag}
@@ -137,7 +137,7 @@ export default async function GaugePage({ params }: Props) {
             yieldStress={gauge.material.yield ?? null}
             episodes={chartEpisodes}
             events={chartEvents}
-            end={status.latest.time}
+            end={latest.time}
           />
         ) : (
           <EmptyState title="No readings yet">

@@ -8,7 +8,7 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getLimits } from "@/lib/services/limits";
 import { getGauge } from "@/lib/services/gauges";
-import { gaugeStatuses } from "@/lib/services/status";
+import { latestReadingOf } from "@/lib/services/status";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { saveLimitsAction } from "../../actions";
 
@@ -21,13 +21,13 @@ export default async function LimitsPage({ params }: Props) {
   const tag = decodeURIComponent(rawTag);
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const [limits, canEdit, gauge, statuses] = await Promise.all([
+  const [limits, canEdit, gauge, latest] = await Promise.all([
     pageGuard(getLimits(user, code, tag)),
     may(user, "limits:edit", structure),
     pageGuard(getGauge(user, code, tag)),
-    gaugeStatuses(structure),
+    latestReadingOf(user, code, tag),
   ]);
-  const lastReading = statuses.find((status) => status.tag === tag)?.latest?.time ?? null;
+  const lastReading = latest?.time ?? null;
   return (
     <>
       <PageHeader
