@@ -2,7 +2,7 @@ import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
-  serverExternalPackages: ["bcryptjs", "smtp-server", "mailparser", "nodemailer", "pdfkit"],
+  serverExternalPackages: ["libsql", "bcryptjs", "smtp-server", "mailparser", "nodemailer", "pdfkit"],
   experimental: { authInterrupts: true },
 };
 

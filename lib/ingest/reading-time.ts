@@ -41,14 +41,22 @@ export function parseReadingTime(text: string, zone: string | null): number | Fa
   return time < 0 ? TIME_BEFORE_EPOCH : time;
 }
 
-/** The wall-clock fields as if they were UTC, or null when a field is out of range (31 February). */
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+function daysInMonth(year: number, month: number): number {
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  return month === 2 && leap ? 29 : DAYS_IN_MONTH[month - 1]!;
+}
+
+/**
+ * The wall-clock fields as if they were UTC, or null when a field is out of range (31 February).
+ * Checked by arithmetic rather than through a Date: this runs once per reading.
+ */
 function wallClock(year: number, month: number, day: number, hour: number, minute: number, second: number, fraction: string) {
-  if (month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return null;
+  // Date.UTC maps years 0–99 to 1900–1999.
+  if (year < 100 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) return null;
   const ms = Number(fraction.slice(0, 3).padEnd(3, "0"));
-  const date = new Date(Date.UTC(year, month - 1, day, hour, minute, second, ms));
-  // Date.UTC rolls 31 February over into March, and maps years 0–99 to 1900–1999.
-  if (date.getUTCDate() !== day || date.getUTCFullYear() !== year) return null;
-  return date.getTime();
+  return Date.UTC(year, month - 1, day, hour, minute, second, ms);
 }
 
 function parseOffset(offset: string): number | null {

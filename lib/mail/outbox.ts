@@ -1,9 +1,9 @@
-import type { Database } from "@/db/client";
+import type { WriteTx } from "@/db/client";
 import { mailOutbox, type MailAttachment, type MailKind } from "@/db/schema";
 import type { BuiltMail } from "./message";
 
 /** Anything that can insert: the caller's transaction, so the message commits with what caused it. */
-type Writer = Pick<Database, "insert">;
+type Writer = Pick<WriteTx, "insert">;
 
 export type QueuedMail = BuiltMail & {
   to: string;

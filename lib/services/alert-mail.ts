@@ -1,5 +1,5 @@
 import { and, eq, inArray } from "drizzle-orm";
-import type { Database } from "@/db/client";
+import type { WriteTx } from "@/db/client";
 import { structureMembers, structures, users, type Gauge } from "@/db/schema";
 import { buildAlertMail } from "@/lib/mail/alert";
 import { appUrl } from "@/lib/mail/message";
@@ -7,10 +7,9 @@ import { queueMail } from "@/lib/mail/outbox";
 import { buildSensorAlertMail } from "@/lib/mail/sensor-alert";
 import type { Notification } from "./alert-raising";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 /** Owners and engineers of the structure who asked for alert e-mails as they happen (the others get the digest). */
-async function immediateRecipients(tx: Tx, structureId: number) {
+async function immediateRecipients(tx: WriteTx, structureId: number) {
   return tx
     .select({ id: users.id, email: users.email })
     .from(structureMembers)
@@ -53,7 +52,7 @@ function mailFor(notification: Notification, gauge: Gauge, structure: { code: st
  * Queues one e-mail per recipient and alert event in the transaction that raised the event, so
  * mail is neither lost when the relay is down nor sent for an alert that was rolled back.
  */
-export async function queueAlertMails(tx: Tx, gauge: Gauge, notifications: readonly Notification[]): Promise<void> {
+export async function queueAlertMails(tx: WriteTx, gauge: Gauge, notifications: readonly Notification[]): Promise<void> {
   if (notifications.length === 0) return;
   const [structure] = await tx
     .select({ code: structures.code, name: structures.name, timezone: structures.timezone })

@@ -1,6 +1,6 @@
-import { and, asc, desc, eq, gt, isNull, lt } from "drizzle-orm";
-import type { Database } from "@/db/client";
-import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, readings, type Gauge } from "@/db/schema";
+import { and, desc, eq, gt, inArray, isNull, lt, sql } from "drizzle-orm";
+import { bulkSql, type WriteTx } from "@/db/client";
+import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, type Alert, type Gauge } from "@/db/schema";
 import {
   defaultHealthThresholds,
   evaluateGauge,
@@ -11,8 +11,7 @@ import {
 } from "@/lib/alerting/evaluate-gauge";
 import type { EpisodeEvent, Limit, Quantity, RosetteLimitQuantity, SensorFinding } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
-
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+import { limitOfRow } from "./limits";
 
 export type AlertCounts = { opened: number; escalated: number; cleared: number };
 
@@ -24,25 +23,58 @@ const CHECKPOINT_SPACING_MS = 3_600_000;
 /** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
 const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
 
-async function loadState(tx: Tx, gaugeId: number): Promise<StoredState> {
-  const [row] = await tx.select().from(evaluationStates).where(eq(evaluationStates.gaugeId, gaugeId)).limit(1);
-  return row ? (row.state as StoredState) : { current: initialGaugeEvaluationState(), lastCheckpointAt: null };
-}
+/** What a gauge's evaluation starts from; loaded for every gauge of a request at once. */
+type GaugeContext = { limits: Limit[]; stored: StoredState; openStaleAlert: Alert | undefined };
 
-/** Saves the current state; once an hour also as a checkpoint (kept three days), rather than rewriting a history each batch. */
-async function saveState(tx: Tx, gaugeId: number, stored: StoredState, state: GaugeEvaluationState) {
-  const lastTime = state.health.lastTime;
-  let lastCheckpointAt = stored.lastCheckpointAt;
-  if (lastTime !== null && (lastCheckpointAt === null || lastTime - lastCheckpointAt >= CHECKPOINT_SPACING_MS)) {
-    await tx.insert(evaluationCheckpoints).values({ gaugeId, time: lastTime, state }).onConflictDoNothing();
-    await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, lastTime - CHECKPOINTS_KEPT_MS)));
-    lastCheckpointAt = lastTime;
+async function loadContexts(tx: WriteTx, gaugeIds: number[]): Promise<Map<number, GaugeContext>> {
+  const limitRows = await tx.select().from(gaugeLimits).where(inArray(gaugeLimits.gaugeId, gaugeIds));
+  const stateRows = await tx.select().from(evaluationStates).where(inArray(evaluationStates.gaugeId, gaugeIds));
+  const staleAlerts = await tx
+    .select()
+    .from(alerts)
+    .where(and(inArray(alerts.gaugeId, gaugeIds), eq(alerts.kind, "sensor"), eq(alerts.code, "stale"), isNull(alerts.clearedAt)));
+  const contexts = new Map<number, GaugeContext>();
+  for (const gaugeId of gaugeIds) {
+    const state = stateRows.find((row) => row.gaugeId === gaugeId);
+    contexts.set(gaugeId, {
+      limits: limitRows.filter((row) => row.gaugeId === gaugeId).map(limitOfRow),
+      stored: state ? (state.state as StoredState) : { current: initialGaugeEvaluationState(), lastCheckpointAt: null },
+      openStaleAlert: staleAlerts.find((alert) => alert.gaugeId === gaugeId),
+    });
   }
-  const value = { gaugeId, lastTime, state: { current: state, lastCheckpointAt } };
-  await tx.insert(evaluationStates).values(value).onConflictDoUpdate({ target: evaluationStates.gaugeId, set: value });
+  return contexts;
 }
 
-async function checkpointBefore(tx: Tx, gaugeId: number, time: number): Promise<Checkpoint | undefined> {
+/** A gauge's state after a batch, and its checkpoint when an hour has passed since the last one. */
+type StateUpdate = { gaugeId: number; lastTime: number | null; stored: StoredState; checkpoint: Checkpoint | null };
+
+function stateUpdate(gaugeId: number, stored: StoredState, state: GaugeEvaluationState): StateUpdate {
+  const lastTime = state.health.lastTime;
+  const due = lastTime !== null && (stored.lastCheckpointAt === null || lastTime - stored.lastCheckpointAt >= CHECKPOINT_SPACING_MS);
+  return {
+    gaugeId,
+    lastTime,
+    stored: { current: state, lastCheckpointAt: due ? lastTime : stored.lastCheckpointAt },
+    checkpoint: due ? { time: lastTime, state } : null,
+  };
+}
+
+/** Saves every gauge's current state; checkpoints once an hour, kept three days, rather than a history each batch. */
+async function saveStates(tx: WriteTx, updates: readonly StateUpdate[]) {
+  if (updates.length === 0) return;
+  await tx
+    .insert(evaluationStates)
+    .values(updates.map(({ gaugeId, lastTime, stored }) => ({ gaugeId, lastTime, state: stored })))
+    .onConflictDoUpdate({ target: evaluationStates.gaugeId, set: { lastTime: sql`excluded.last_time`, state: sql`excluded.state` } });
+  const checkpoints = updates.flatMap(({ gaugeId, checkpoint }) => (checkpoint ? [{ gaugeId, ...checkpoint }] : []));
+  if (checkpoints.length === 0) return;
+  await tx.insert(evaluationCheckpoints).values(checkpoints).onConflictDoNothing();
+  for (const { gaugeId, time } of checkpoints) {
+    await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, time - CHECKPOINTS_KEPT_MS)));
+  }
+}
+
+async function checkpointBefore(tx: WriteTx, gaugeId: number, time: number): Promise<Checkpoint | undefined> {
   const [row] = await tx
     .select()
     .from(evaluationCheckpoints)
@@ -53,20 +85,8 @@ async function checkpointBefore(tx: Tx, gaugeId: number, time: number): Promise<
 }
 
 /** A replay rewrites what happened after its checkpoint, so later checkpoints no longer hold. */
-async function dropCheckpointsAfter(tx: Tx, gaugeId: number, time: number) {
+async function dropCheckpointsAfter(tx: WriteTx, gaugeId: number, time: number) {
   await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), gt(evaluationCheckpoints.time, time)));
-}
-
-async function limitsFor(tx: Tx, gaugeId: number): Promise<Limit[]> {
-  const rows = await tx.select().from(gaugeLimits).where(eq(gaugeLimits.gaugeId, gaugeId));
-  return rows.map(({ quantity, level, upper, lower, hysteresis, persistence }) => ({
-    quantity,
-    level,
-    hysteresis,
-    persistence,
-    ...(upper === null ? {} : { upper }),
-    ...(lower === null ? {} : { lower }),
-  }));
 }
 
 /** What a limit alert is about: a gauge's own quantity, or a rosette's (attached to its gauge a). */
@@ -77,7 +97,7 @@ export type LimitEvent = EpisodeEvent & { quantity: Quantity | RosetteLimitQuant
 
 type AlertMatch = { kind: "limit"; quantity: string; rosetteId: number | null } | { kind: "sensor"; code: string };
 
-async function openAlertOf(tx: Tx, gaugeId: number, match: AlertMatch) {
+async function openAlertOf(tx: WriteTx, gaugeId: number, match: AlertMatch) {
   // two rosettes may share gauge a, so a rosette's alert is told apart by the rosette as well
   const condition =
     match.kind === "limit"
@@ -91,7 +111,7 @@ async function openAlertOf(tx: Tx, gaugeId: number, match: AlertMatch) {
   return row;
 }
 
-async function alreadyRecorded(tx: Tx, gaugeId: number, event: QuantityEvent): Promise<boolean> {
+async function alreadyRecorded(tx: WriteTx, gaugeId: number, event: QuantityEvent): Promise<boolean> {
   const rows = await tx
     .select({ id: alertEvents.id })
     .from(alertEvents)
@@ -106,7 +126,7 @@ export type Notification =
   | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
   | { kind: "sensor"; alertId: number; type: "opened" | "cleared"; code: string; message: string; time: number };
 
-export async function applyLimitEvent(tx: Tx, { gauge, rosette }: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
+export async function applyLimitEvent(tx: WriteTx, { gauge, rosette }: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
   const at = new Date(event.time);
   const rosetteId = rosette?.id ?? null;
   let alertId: number | undefined;
@@ -140,7 +160,7 @@ export async function applyLimitEvent(tx: Tx, { gauge, rosette }: AlertSubject, 
   notifications.push({ kind: "limit", alertId, type: event.type, event, rosette: rosette?.tag ?? null });
 }
 
-async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
+async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
   const at = new Date(finding.time);
   const open = await openAlertOf(tx, gauge.id, { kind: "sensor", code: finding.code });
   if (finding.event === "resolved") {
@@ -161,8 +181,7 @@ async function applySensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding, 
 }
 
 /** Data arriving again ends a "no data" alert. */
-async function clearStaleAlert(tx: Tx, gauge: Gauge, time: number, notifications: Notification[]) {
-  const open = await openAlertOf(tx, gauge.id, { kind: "sensor", code: "stale" });
+async function clearStaleAlert(tx: WriteTx, open: Alert | undefined, time: number, notifications: Notification[]) {
   if (!open || open.openedAt.getTime() > time) return;
   const message = "Readings are arriving again.";
   await tx.update(alerts).set({ clearedAt: new Date(time) }).where(eq(alerts.id, open.id));
@@ -170,71 +189,76 @@ async function clearStaleAlert(tx: Tx, gauge: Gauge, time: number, notifications
   notifications.push({ kind: "sensor", alertId: open.id, type: "cleared", code: "stale", message, time });
 }
 
-async function storedReadingsAfter(tx: Tx, gaugeId: number, after: number): Promise<EvaluatedReading[]> {
-  return tx
-    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
-    .from(readings)
-    .where(and(eq(readings.gaugeId, gaugeId), gt(readings.time, after)))
-    .orderBy(asc(readings.time));
+/** A replay reads back up to three days of a gauge's readings: as plain rows, not mapped objects. */
+async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: number): Promise<EvaluatedReading[]> {
+  const rows = await bulkSql(tx).rows("SELECT t, value, strain, stress, flags FROM readings WHERE gauge_id = ? AND t > ? ORDER BY t", [gaugeId, after]);
+  return rows.map((row) => ({ time: row[0] as number, raw: row[1] as number, strain: row[2] as number, stress: row[3] as number, flags: row[4] as number }));
 }
 
+/** A gauge and the readings this request stored for it. */
+export type InsertedReadings = { gauge: Gauge; readings: readonly EvaluatedReading[] };
+
 /**
- * Evaluates a gauge's newly stored readings against its limits and sensor health, inside the
- * ingestion transaction, and records what opened, escalated or cleared. Readings older than the
- * last evaluated one are taken in by replaying from the checkpoint before them; events recorded
- * before are not raised twice.
+ * Evaluates each gauge's newly stored readings against its limits and sensor health, inside the
+ * ingestion transaction, and records what opened, escalated or cleared. Readings older than a
+ * gauge's last evaluated one are taken in by replaying from the checkpoint before them; events
+ * recorded before are not raised twice.
  */
-export async function evaluateInsertedReadings(
-  tx: Tx,
-  gauge: Gauge,
-  inserted: readonly EvaluatedReading[],
-): Promise<{ counts: AlertCounts; notifications: Notification[] }> {
+export async function evaluateInsertedReadings(tx: WriteTx, inserted: readonly InsertedReadings[]): Promise<AlertCounts> {
   const counts: AlertCounts = { opened: 0, escalated: 0, cleared: 0 };
-  const notifications: Notification[] = [];
-  if (inserted.length === 0) return { counts, notifications };
-  const limits = await limitsFor(tx, gauge.id);
-  const setup = { limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
-  const stored = await loadState(tx, gauge.id);
+  const batches = inserted.filter(({ readings }) => readings.length > 0);
+  if (batches.length === 0) return counts;
+  const contexts = await loadContexts(tx, batches.map(({ gauge }) => gauge.id));
+  const updates: StateUpdate[] = [];
+  for (const { gauge, readings } of batches) {
+    updates.push(await evaluateGaugeReadings(tx, gauge, readings, contexts.get(gauge.id)!, counts));
+  }
+  await saveStates(tx, updates);
+  return counts;
+}
+
+async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readonly EvaluatedReading[], context: GaugeContext, counts: AlertCounts) {
+  const setup = { limits: context.limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
+  const { stored } = context;
   const lastTime = stored.current.health.lastTime;
-  const earliest = Math.min(...inserted.map((reading) => reading.time));
+  const earliest = inserted.reduce((least, reading) => Math.min(least, reading.time), Infinity);
   const late = lastTime !== null && earliest <= lastTime;
   const checkpoint = late ? await checkpointBefore(tx, gauge.id, earliest) : undefined;
   if (!checkpoint) {
     // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
     const batch = [...inserted].sort((a, b) => a.time - b.time);
-    return applyEvaluation(tx, gauge, setup, stored, stored.current, batch, counts, notifications);
+    return applyEvaluation(tx, gauge, setup, context, stored, batch, counts);
   }
   await dropCheckpointsAfter(tx, gauge.id, checkpoint.time);
   const replayed = await storedReadingsAfter(tx, gauge.id, checkpoint.time);
   const fromCheckpoint = { current: checkpoint.state, lastCheckpointAt: checkpoint.time };
-  return applyEvaluation(tx, gauge, setup, fromCheckpoint, checkpoint.state, replayed, counts, notifications, true);
+  return applyEvaluation(tx, gauge, setup, context, fromCheckpoint, replayed, counts, true);
 }
 
 async function applyEvaluation(
-  tx: Tx,
+  tx: WriteTx,
   gauge: Gauge,
   setup: Parameters<typeof evaluateGauge>[0],
-  stored: StoredState,
-  from: GaugeEvaluationState,
+  context: GaugeContext,
+  from: StoredState,
   batch: EvaluatedReading[],
   counts: AlertCounts,
-  notifications: Notification[],
   replayed = false,
-) {
-  const result = evaluateGauge(setup, from, batch);
+): Promise<StateUpdate> {
+  const notifications: Notification[] = [];
+  const result = evaluateGauge(setup, from.current, batch);
   for (const event of result.events) {
     if (replayed && (await alreadyRecorded(tx, gauge.id, event))) continue;
     await applyLimitEvent(tx, { gauge, rosette: null }, event, notifications, counts);
   }
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
-  if (batch.length > 0) await clearStaleAlert(tx, gauge, batch.at(-1)!.time, notifications);
-  await saveState(tx, gauge.id, stored, result.state);
+  if (batch.length > 0) await clearStaleAlert(tx, context.openStaleAlert, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
-  return { counts, notifications };
+  return stateUpdate(gauge.id, from, result.state);
 }
 
 /** Raises (or resolves) one sensor finding found outside ingestion, such as a gauge gone silent. */
-export async function raiseSensorFinding(tx: Tx, gauge: Gauge, finding: SensorFinding): Promise<Notification[]> {
+export async function raiseSensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding): Promise<Notification[]> {
   const notifications: Notification[] = [];
   await applySensorFinding(tx, gauge, finding, notifications);
   await queueAlertMails(tx, gauge, notifications);

@@ -1,8 +1,8 @@
 import { auditLog } from "@/db/schema";
-import type { Database } from "@/db/client";
+import type { WriteTx } from "@/db/client";
 import { actorLabel, type Actor } from "@/lib/auth/actor";
 
-type Writer = Pick<Database, "insert">;
+type Writer = Pick<WriteTx, "insert">;
 
 export type AuditRecord = {
   actor: Actor | null;

@@ -1,5 +1,5 @@
 import { and, asc, eq } from "drizzle-orm";
-import { getDb, writeTransaction } from "@/db/client";
+import { getDb, writeTransaction, type WriteTx } from "@/db/client";
 import { files, gauges, structures, type FileKind, type Gauge, type StoredFile, type Structure } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { may, requirePermission } from "@/lib/auth/authorize";
@@ -31,7 +31,6 @@ export type FileView = {
 /** What a route handler read from a multipart upload. */
 export type UploadRequest = { bytes: Uint8Array; fields: Record<string, string> };
 
-type Tx = Parameters<Parameters<typeof writeTransaction>[0]>[0];
 
 const fileUrl = (id: number) => `/api/v1/files/${id}`;
 
@@ -58,7 +57,7 @@ type NewFile = { structure: Structure; gauge: Gauge | null; kind: FileKind; titl
  * Checks the content, stores the bytes, then records the row and its audit entry. Nothing is
  * left half-saved: a failed write leaves no row, and a failed insert removes the stored bytes.
  */
-async function storeUpload(actor: Actor, target: NewFile, bytes: Uint8Array, audit: (tx: Tx, row: StoredFile) => Promise<unknown>) {
+async function storeUpload(actor: Actor, target: NewFile, bytes: Uint8Array, audit: (tx: WriteTx, row: StoredFile) => Promise<unknown>) {
   const image: ImageInfo = checkUpload(bytes, target.kind);
   const storageKey = await saveFile(bytes, image.type);
   try {
@@ -163,7 +162,7 @@ type Placement = { id: number; x: number; y: number } | null;
 const placementOf = (gauge: Gauge): Placement =>
   gauge.drawingId != null && gauge.drawingX != null && gauge.drawingY != null ? { id: gauge.drawingId, x: gauge.drawingX, y: gauge.drawingY } : null;
 
-async function writePlacement(tx: Tx, actor: Actor, structure: Pick<Structure, "id" | "code">, gauge: Gauge, after: Placement, reason?: string) {
+async function writePlacement(tx: WriteTx, actor: Actor, structure: Pick<Structure, "id" | "code">, gauge: Gauge, after: Placement, reason?: string) {
   await tx
     .update(gauges)
     .set({ drawingId: after?.id ?? null, drawingX: after?.x ?? null, drawingY: after?.y ?? null, updatedAt: new Date() })

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
-import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
+import { getDb, isUniqueViolation, writeTransaction, type WriteTx } from "@/db/client";
 import { auditLog, gauges, readings, zeroReadings, type Gauge, type Structure } from "@/db/schema";
 import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
@@ -22,7 +22,6 @@ export type GaugeView = GaugeFields & {
   createdAt: string;
 };
 
-type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
 
 function gaugeNotFound(structure: Structure, tag: string) {
   return new AppError("not_found", `Gauge "${tag}" was not found on structure ${structure.code}.`);
@@ -79,7 +78,7 @@ export async function getGauge(actor: Actor, code: string, tag: string): Promise
 
 export const gaugeKey = (structure: Pick<Structure, "code">, tag: string) => `${structure.code}/${tag}`;
 
-async function insertGauge(tx: Tx, actor: Actor, structure: Structure, input: GaugeInput, replaces: Gauge | null, reason: string) {
+async function insertGauge(tx: WriteTx, actor: Actor, structure: Structure, input: GaugeInput, replaces: Gauge | null, reason: string) {
   const zeroTime = input.zero.time ? new Date(input.zero.time) : new Date();
   const [created] = await tx
     .insert(gauges)
@@ -109,7 +108,7 @@ async function insertGauge(tx: Tx, actor: Actor, structure: Structure, input: Ga
 }
 
 function insertZeroHistory(
-  tx: Tx,
+  tx: WriteTx,
   actor: Actor,
   gaugeId: number,
   zero: { value: number; temperature: number | null; time: Date },

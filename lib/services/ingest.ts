@@ -1,4 +1,4 @@
-import { libsqlTransaction, writeTransaction, type WriteTx } from "@/db/client";
+import { bulkSql, writeTransaction, type WriteTx } from "@/db/client";
 import type { Structure } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
@@ -129,22 +129,22 @@ async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: reado
     total.escalated += counts.escalated;
     total.cleared += counts.cleared;
   };
-  for (const rows of inserted) {
-    const gauge = target.gauges.get(rows.tag)!.row;
-    const readings = rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! }));
-    add((await evaluateInsertedReadings(tx, gauge, readings)).counts);
-  }
+  add(
+    await evaluateInsertedReadings(
+      tx,
+      inserted.map((rows) => ({
+        gauge: target.gauges.get(rows.tag)!.row,
+        readings: rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! })),
+      })),
+    ),
+  );
   const gaugesById = new Map([...target.gauges.values()].map((entry) => [entry.id, entry.row]));
   const spans = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, first: rows.time[0]!, last: rows.time.at(-1)! }));
   add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, spans));
   return total;
 }
 
-/** SQLite's bound-parameter ceiling (stack-notes). */
-const MAX_PARAMETERS = 32_766;
 const READING_COLUMNS = 7;
-const READINGS_PER_STATEMENT = Math.floor(MAX_PARAMETERS / READING_COLUMNS);
-const ROLLUPS_PER_STATEMENT = Math.floor(MAX_PARAMETERS / ROLLUP_COLUMNS.length);
 
 /** Statement texts by row count: a batch reuses one text per chunk size instead of rebuilding it. */
 const statementCache = new Map<string, string>();
@@ -201,55 +201,39 @@ function mergeRollupsSql(rows: number): string {
  * Returns the rows inserted, per gauge in time order.
  */
 async function insertReadings(tx: WriteTx, gauges: readonly GaugeRows[]): Promise<GaugeRows[]> {
-  const raw = libsqlTransaction(tx);
+  const raw = bulkSql(tx);
   const fresh: GaugeRows[] = [];
   for (const rows of gauges) {
     // Loggers mostly send what comes after what is stored: one range probe settles that case
     // without looking up every time.
-    const overlap = await raw.execute({
-      sql: "SELECT 1 FROM readings WHERE gauge_id = ? AND t >= ? AND t <= ? LIMIT 1",
-      args: [rows.gaugeId, rows.time[0]!, rows.time.at(-1)!],
-    });
-    if (overlap.rows.length === 0) {
+    const overlap = await raw.rows("SELECT 1 FROM readings WHERE gauge_id = ? AND t >= ? AND t <= ? LIMIT 1", [rows.gaugeId, rows.time[0]!, rows.time.at(-1)!]);
+    if (overlap.length === 0) {
       fresh.push(rows);
       continue;
     }
-    const stored = await raw.execute({
-      sql: "SELECT t FROM readings WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?))",
-      args: [rows.gaugeId, JSON.stringify(rows.time)],
-    });
-    if (stored.rows.length === 0) {
+    const stored = await raw.rows("SELECT t FROM readings WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?))", [rows.gaugeId, JSON.stringify(rows.time)]);
+    if (stored.length === 0) {
       fresh.push(rows);
       continue;
     }
-    const known = new Set(stored.rows.map((row) => row[0] as number));
+    const known = new Set(stored.map((row) => row[0] as number));
     const kept = rows.time.flatMap((time, i) => (known.has(time) ? [] : [i]));
     if (kept.length > 0) fresh.push(selectRows(rows, kept));
   }
-  let args: (number | null)[] = [];
-  const flush = async () => {
-    await raw.execute({ sql: statement("readings", args.length / READING_COLUMNS), args });
-    args = [];
-  };
+  const values: (number | null)[] = [];
   for (const rows of fresh) {
     for (let i = 0; i < rows.time.length; i++) {
-      args.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!);
-      if (args.length === READINGS_PER_STATEMENT * READING_COLUMNS) await flush();
+      values.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!);
     }
   }
-  if (args.length > 0) await flush();
+  await raw.insertRows((count) => statement("readings", count), READING_COLUMNS, values);
   return fresh;
 }
 
 async function mergeRollups(tx: WriteTx, inserted: readonly GaugeRows[]): Promise<void> {
-  const raw = libsqlTransaction(tx);
   const values: (number | null)[] = [];
   for (const rows of inserted) appendRollupValues(rows, values);
-  const perStatement = ROLLUPS_PER_STATEMENT * ROLLUP_COLUMNS.length;
-  for (let start = 0; start < values.length; start += perStatement) {
-    const args = values.slice(start, start + perStatement);
-    await raw.execute({ sql: statement("rollups", args.length / ROLLUP_COLUMNS.length), args });
-  }
+  await bulkSql(tx).insertRows((count) => statement("rollups", count), ROLLUP_COLUMNS.length, values);
 }
 
 /** Rows rejected in an upload; past this many only the count grows, so a wrong file cannot fill the memory. */

@@ -1,5 +1,5 @@
 import { eq, inArray } from "drizzle-orm";
-import { libsqlTransaction, type WriteTx } from "@/db/client";
+import { bulkSql, type WriteTx } from "@/db/client";
 import { rosetteEvaluationStates, rosetteLimits, rosettes, type Gauge, type Rosette } from "@/db/schema";
 import { evaluateReadings, initialEpisodeState, type EpisodeState, type Reading, type RosetteLimitQuantity } from "@/lib/limits";
 import { analyseRosette } from "@/lib/mechanics";
@@ -53,13 +53,10 @@ export async function evaluateRosetteLimits(
     const start = Math.max(Math.min(...touched.map((span) => span.first)), state.lastTime === null ? -Infinity : state.lastTime + 1);
     const end = Math.max(...touched.map((span) => span.last));
     if (start > end) continue;
-    const matched = await libsqlTransaction(tx).execute({
-      sql: MATCHED_STRAINS,
-      args: { a: rosette.gaugeAId, b: rosette.gaugeBId, c: rosette.gaugeCId, start, end: end + 1 },
-    });
-    if (matched.rows.length === 0) continue;
+    const matched = await bulkSql(tx).rows(MATCHED_STRAINS, { a: rosette.gaugeAId, b: rosette.gaugeBId, c: rosette.gaugeCId, start, end: end + 1 });
+    if (matched.length === 0) continue;
     const gaugeA = gaugesById.get(rosette.gaugeAId)!;
-    const analyses = matched.rows.map((row) => ({
+    const analyses = matched.map((row) => ({
       time: row[0] as number,
       analysis: analyseRosette(rosette.layout, [row[1] as number, row[2] as number, row[3] as number], gaugeA.material),
     }));

@@ -1,5 +1,5 @@
 import { asc, eq } from "drizzle-orm";
-import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
+import { getDb, isUniqueViolation, writeTransaction, type WriteTx } from "@/db/client";
 import { users, type Role, type User } from "@/db/schema";
 import type { Actor, UserActor } from "@/lib/auth/actor";
 import type { UnitSystem } from "@/lib/units";
@@ -41,7 +41,6 @@ async function requireUserById(id: number): Promise<User> {
   return user;
 }
 
-type Transaction = Parameters<Parameters<typeof writeTransaction>[0]>[0];
 type NewUser = Pick<CreateUserInput, "email" | "name" | "role">;
 
 /**
@@ -53,7 +52,7 @@ export async function insertUser(
   input: NewUser,
   passwordHash: string,
   action: "user.create" | "user.invite",
-  alongside?: (tx: Transaction, user: UserView) => Promise<unknown>,
+  alongside?: (tx: WriteTx, user: UserView) => Promise<unknown>,
 ): Promise<UserView> {
   return writeTransaction(async (tx) => {
     const [created] = await tx

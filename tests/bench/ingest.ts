@@ -89,9 +89,11 @@ async function prepareDatabase(url: string): Promise<{ logger: string; reader: s
   return { logger, reader };
 }
 
+/** BENCH_NODE_ARGS passes options to the server's node, e.g. "--cpu-prof --cpu-prof-dir=/tmp/profile" to see where its time goes. */
 function startServer(url: string, port: number): ChildProcess {
   const next = path.join("node_modules", "next", "dist", "bin", "next");
-  return spawn(process.execPath, [next, "start", "-p", String(port), "-H", "127.0.0.1"], {
+  const nodeArgs = process.env.BENCH_NODE_ARGS?.split(" ").filter(Boolean) ?? [];
+  return spawn(process.execPath, [...nodeArgs, next, "start", "-p", String(port), "-H", "127.0.0.1"], {
     env: { ...process.env, DATABASE_URL: url, NEXTAUTH_SECRET: "bench-secret", NEXTAUTH_URL: `http://127.0.0.1:${port}` },
     stdio: ["ignore", "ignore", "inherit"],
   });

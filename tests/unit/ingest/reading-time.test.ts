@@ -24,6 +24,19 @@ describe("reading times", () => {
     }
   });
 
+  it("follows the Gregorian leap-year rule for 29 February", () => {
+    // ISO 8601 uses the Gregorian calendar: every 4th year is a leap year, except centuries not divisible by 400.
+    expect(parseReadingTime("2024-02-29T00:00:00Z", null)).toBe(utc(2024, 1, 29, 0, 0));
+    expect(parseReadingTime("2000-02-29T00:00:00Z", null)).toBe(utc(2000, 1, 29, 0, 0));
+    for (const text of ["2100-02-29T00:00:00Z", "2026-04-31T00:00:00Z", "2026-02-00T00:00:00Z"]) {
+      const result = parseReadingTime(text, null);
+      expect(typeof result === "number" ? result : result.code, text).toBe("invalid-time");
+    }
+    // 31 December and 30 April exist.
+    expect(parseReadingTime("2026-12-31T23:59:59Z", null)).toBe(utc(2026, 11, 31, 23, 59, 59));
+    expect(parseReadingTime("2026-04-30T00:00:00Z", null)).toBe(utc(2026, 3, 30, 0, 0));
+  });
+
   it("asks for an offset when no zone may be assumed", () => {
     const result = parseReadingTime("2026-03-01T12:00:00", null);
     expect(typeof result === "number" ? result : result.message).toMatch(/offset/);
