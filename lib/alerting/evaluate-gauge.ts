@@ -7,6 +7,7 @@ import {
   type EpisodeState,
   type Limit,
   type Quantity,
+  type Reading,
   type SensorFinding,
   type SensorHealthState,
   type SensorHealthThresholds,
@@ -79,8 +80,7 @@ export function evaluateGauge(
     state.health,
     readings.map((reading) => ({ time: reading.time, raw: reading.raw, value: reading.strain })),
   );
-  const outOfRange = new Set(readings.filter((reading) => reading.flags & Flag.outOfRange).map((reading) => reading.time));
-  const byTime = new Map(readings.map((reading) => [reading.time, reading]));
+  const taken = takenIn(readings, inspection.readings);
   const episodes: Partial<Record<Quantity, EpisodeState>> = { ...state.episodes };
   const events: QuantityEvent[] = [];
   for (const quantity of quantitiesOf(setup.limits)) {
@@ -88,10 +88,10 @@ export function evaluateGauge(
     const evaluation = evaluateReadings(
       limits,
       episodes[quantity] ?? initialEpisodeState(),
-      inspection.readings.map((checked) => ({
+      inspection.readings.map((checked, index) => ({
         time: checked.time,
-        value: quantityValue(byTime.get(checked.time)!, quantity, setup.yieldStress),
-        fault: checked.fault || outOfRange.has(checked.time),
+        value: quantityValue(taken.sources[index]!, quantity, setup.yieldStress),
+        fault: taken.faults[index]!,
       })),
     );
     episodes[quantity] = evaluation.state;
@@ -99,4 +99,44 @@ export function evaluateGauge(
   }
   events.sort((a, b) => a.time - b.time);
   return { state: { episodes, health: inspection.state }, events, findings: inspection.findings };
+}
+
+/**
+ * For each reading sensor health took in (`checked`), the stored reading whose values the limits
+ * see, and whether limit evaluation must skip it: a sensor fault, or outside the gauge's rated
+ * range. A time repeated within the batch is seen with its last reading's values and is skipped if
+ * any of its readings is out of range.
+ */
+function takenIn(readings: readonly EvaluatedReading[], checked: readonly Reading[]): { sources: EvaluatedReading[]; faults: boolean[] } {
+  const sources: EvaluatedReading[] = [];
+  const faults: boolean[] = [];
+  for (const reading of readings) {
+    const outOfRange = (reading.flags & Flag.outOfRange) !== 0;
+    // Readings taken in come back in order, each the first reading of its time in the batch.
+    const next = checked[sources.length];
+    if (next !== undefined && next.time === reading.time) {
+      sources.push(reading);
+      faults.push(next.fault || outOfRange);
+      continue;
+    }
+    const repeated = indexOfTime(checked, sources.length, reading.time);
+    if (repeated === -1) continue;
+    sources[repeated] = reading;
+    faults[repeated] ||= outOfRange;
+  }
+  return { sources, faults };
+}
+
+/** Where `time` is among the first `count` readings, whose times strictly increase; -1 if absent. */
+function indexOfTime(readings: readonly Reading[], count: number, time: number): number {
+  let low = 0;
+  let high = count - 1;
+  while (low <= high) {
+    const middle = (low + high) >> 1;
+    const at = readings[middle]!.time;
+    if (at === time) return middle;
+    if (at < time) low = middle + 1;
+    else high = middle - 1;
+  }
+  return -1;
 }

@@ -80,13 +80,16 @@ export function evaluateReadings(limits: readonly Limit<string>[], state: Episod
   const ladder = toLadder(limits);
   const current: MutableState = { ...state, beyondRuns: { ...state.beyondRuns } };
   const events: EpisodeEvent[] = [];
+  // A local, stored once at the end: a time written to the state per reading would be boxed each time.
+  let lastTime = state.lastTime;
   for (const reading of readings) {
-    if (!isNewer(current.lastTime, reading.time)) continue;
-    current.lastTime = reading.time;
+    if (!isNewer(lastTime, reading.time)) continue;
+    lastTime = reading.time;
     if (reading.fault || !Number.isFinite(reading.value) || ladder.limits.length === 0) continue;
     const event = advance(ladder, current, reading);
     if (event) events.push(event);
   }
+  current.lastTime = lastTime;
   return { state: current, events };
 }
 

@@ -31,16 +31,31 @@ export interface ConditionState {
   readonly active: boolean;
 }
 
-/** The finding for a lasting condition at this reading: only when it begins or ends. */
-export function conditionStep(
-  code: SensorFaultCode,
-  wasActive: boolean,
-  isActive: boolean,
-  time: number,
-  messages: { readonly raised: () => string; readonly resolved: string },
-): SensorFinding | null {
-  if (wasActive === isActive) return null;
-  return isActive
-    ? { kind: "sensor", code, event: "raised", time, message: messages.raised() }
-    : { kind: "sensor", code, event: "resolved", time, message: messages.resolved };
+/**
+ * A detector's one rule, shared by batch inspection and the single-step functions. `advance` takes
+ * a reading into `work`, a private copy of the stored state that it changes in place, appends its
+ * finding if the reading gives one and says whether the reading is a fault: over a batch the
+ * detectors allocate nothing per reading while nothing is found. The stored state is built back
+ * from `work` once, at the end.
+ */
+export interface Detector<Thresholds, State, Work> {
+  readonly begin: (state: State) => Work;
+  readonly advance: (thresholds: Thresholds, work: Work, sample: Sample, findings: SensorFinding[]) => boolean;
+  readonly end: (work: Work) => State;
+}
+
+/** One reading through a detector's rule. */
+export function stepOnce<Thresholds, State, Work>(detector: Detector<Thresholds, State, Work>, thresholds: Thresholds, state: State, sample: Sample): DetectorStep<State> {
+  const work = detector.begin(state);
+  const findings: SensorFinding[] = [];
+  const fault = detector.advance(thresholds, work, sample, findings);
+  return { state: detector.end(work), fault, finding: findings[0] ?? null };
+}
+
+/**
+ * A lasting condition gives a finding only at the reading where it begins or ends, so each batch
+ * does not re-raise it; detectors compare before calling, so the message is built only then.
+ */
+export function conditionFinding(code: SensorFaultCode, isActive: boolean, time: number, message: string): SensorFinding {
+  return { kind: "sensor", code, event: isActive ? "raised" : "resolved", time, message };
 }

@@ -1,9 +1,9 @@
 import type { Reading } from "../episode-machine";
 import { isNewer } from "../time-order";
-import type { ConditionState, DetectorStep, Sample, SensorFinding } from "./finding";
-import { INITIAL_FLAT_LINE, stepFlatLine, type FlatLineState, type FlatLineThresholds } from "./flat-line";
-import { INITIAL_JUMP, stepJump, type JumpState, type JumpThresholds } from "./jump";
-import { INITIAL_SENSOR_RANGE, stepSensorRange, type SensorRangeThresholds } from "./sensor-range";
+import type { ConditionState, Sample, SensorFinding } from "./finding";
+import { flatLineDetector, INITIAL_FLAT_LINE, type FlatLineState, type FlatLineThresholds, type FlatLineWork } from "./flat-line";
+import { INITIAL_JUMP, jumpDetector, type JumpState, type JumpThresholds, type JumpWork } from "./jump";
+import { INITIAL_SENSOR_RANGE, sensorRangeDetector, type SensorRangeThresholds, type SensorRangeWork } from "./sensor-range";
 
 /** A detector whose thresholds are not given does not run (say, a gauge with no known range). */
 export interface SensorHealthThresholds {
@@ -31,53 +31,41 @@ export interface Inspection {
   readonly readings: Reading[];
 }
 
+/** The detectors' private copies of their stored states, changed in place over a batch. */
+interface DetectorWork {
+  readonly flatLine: FlatLineWork;
+  readonly jump: JumpWork;
+  readonly range: SensorRangeWork;
+}
+
 /**
  * Runs every configured detector over a batch. Late and repeated samples follow the same rule as
  * limit evaluation (`isNewer`) and are left out; to take a late sample in, replay the stored samples
  * from a saved state, sorted by time, through this function and then through `replay`.
  */
 export function inspectReadings(thresholds: SensorHealthThresholds, state: SensorHealthState, samples: Iterable<Sample>): Inspection {
-  let current = state;
+  const work: DetectorWork = {
+    flatLine: flatLineDetector.begin(state.flatLine),
+    jump: jumpDetector.begin(state.jump),
+    range: sensorRangeDetector.begin(state.range),
+  };
   const findings: SensorFinding[] = [];
   const readings: Reading[] = [];
+  // A local, stored once at the end: a time written to an object per sample would be boxed each time.
+  let lastTime = state.lastTime;
   for (const sample of samples) {
-    if (!isNewer(current.lastTime, sample.time)) continue;
-    const inspected = inspectSample(thresholds, { ...current, lastTime: sample.time }, sample);
-    current = inspected.state;
-    findings.push(...inspected.findings);
-    readings.push({ time: sample.time, value: sample.value, fault: inspected.fault });
+    if (!isNewer(lastTime, sample.time)) continue;
+    lastTime = sample.time;
+    readings.push({ time: sample.time, value: sample.value, fault: inspectSample(thresholds, work, sample, findings) });
   }
-  return { state: current, findings, readings };
-}
-
-interface SampleInspection {
-  readonly state: SensorHealthState;
-  readonly fault: boolean;
-  readonly findings: SensorFinding[];
+  const detectors = { flatLine: flatLineDetector.end(work.flatLine), jump: jumpDetector.end(work.jump), range: sensorRangeDetector.end(work.range) };
+  return { state: { ...state, lastTime, ...detectors }, findings, readings };
 }
 
 /** A raw value outside the sensor's range means nothing, so it is not fed to the other detectors. */
-function inspectSample(thresholds: SensorHealthThresholds, state: SensorHealthState, sample: Sample): SampleInspection {
-  const range = run(stepSensorRange, thresholds.range, state.range, sample);
-  if (range.fault) return { state: { ...state, range: range.state }, fault: true, findings: findingsOf(range) };
-  const jump = run(stepJump, thresholds.jump, state.jump, sample);
-  const flatLine = run(stepFlatLine, thresholds.flatLine, state.flatLine, sample);
-  return {
-    state: { ...state, range: range.state, jump: jump.state, flatLine: flatLine.state },
-    fault: jump.fault || flatLine.fault,
-    findings: findingsOf(range, jump, flatLine),
-  };
-}
-
-function run<Thresholds, State>(
-  step: (thresholds: Thresholds, state: State, sample: Sample) => DetectorStep<State>,
-  thresholds: Thresholds | undefined,
-  state: State,
-  sample: Sample,
-): DetectorStep<State> {
-  return thresholds === undefined ? { state, fault: false, finding: null } : step(thresholds, state, sample);
-}
-
-function findingsOf(...steps: DetectorStep<unknown>[]): SensorFinding[] {
-  return steps.flatMap((step) => (step.finding ? [step.finding] : []));
+function inspectSample(thresholds: SensorHealthThresholds, work: DetectorWork, sample: Sample, findings: SensorFinding[]): boolean {
+  if (thresholds.range !== undefined && sensorRangeDetector.advance(thresholds.range, work.range, sample, findings)) return true;
+  const jumped = thresholds.jump !== undefined && jumpDetector.advance(thresholds.jump, work.jump, sample, findings);
+  const flat = thresholds.flatLine !== undefined && flatLineDetector.advance(thresholds.flatLine, work.flatLine, sample, findings);
+  return jumped || flat;
 }

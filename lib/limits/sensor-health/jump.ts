@@ -1,4 +1,4 @@
-import type { DetectorStep, Sample, SensorFinding } from "./finding";
+import { stepOnce, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
 
 /**
  * The largest change between two consecutive readings the structure can plausibly make, in the
@@ -14,15 +14,31 @@ export interface JumpState {
 
 export const INITIAL_JUMP: JumpState = { previous: null };
 
+export interface JumpWork {
+  previous: number | null;
+}
+
+export const jumpDetector: Detector<JumpThresholds, JumpState, JumpWork> = {
+  begin: ({ previous }) => ({ previous }),
+  advance: advanceJump,
+  end: ({ previous }) => ({ previous }),
+};
+
+export function stepJump(thresholds: JumpThresholds, state: JumpState, sample: Sample): DetectorStep<JumpState> {
+  return stepOnce(jumpDetector, thresholds, state, sample);
+}
+
 /**
  * Compared with the previous reading whatever it was: after a real offset (a gauge slipping on its
  * bond) the new level becomes the reference instead of every later reading counting as a jump. A
  * single spike therefore shows as two jumps, out and back, and both readings are set aside.
  */
-export function stepJump(thresholds: JumpThresholds, state: JumpState, sample: Sample): DetectorStep<JumpState> {
-  const change = state.previous === null ? 0 : sample.value - state.previous;
+function advanceJump(thresholds: JumpThresholds, work: JumpWork, sample: Sample, findings: SensorFinding[]): boolean {
+  const change = work.previous === null ? 0 : sample.value - work.previous;
   const jumped = Math.abs(change) > thresholds.maxStep;
-  return { state: { previous: sample.value }, fault: jumped, finding: jumped ? jumpFinding(thresholds, change, sample.time) : null };
+  work.previous = sample.value;
+  if (jumped) findings.push(jumpFinding(thresholds, change, sample.time));
+  return jumped;
 }
 
 function jumpFinding(thresholds: JumpThresholds, change: number, time: number): SensorFinding {

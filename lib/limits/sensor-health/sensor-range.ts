@@ -1,4 +1,4 @@
-import { conditionStep, type ConditionState, type DetectorStep, type Sample } from "./finding";
+import { conditionFinding, stepOnce, type ConditionState, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
 
 /** The raw range the sensor and logger channel can report, from the gauge's data sheet. */
 export interface SensorRangeThresholds {
@@ -8,13 +8,31 @@ export interface SensorRangeThresholds {
 
 export const INITIAL_SENSOR_RANGE: ConditionState = { active: false };
 
-/** Written so that a non-finite raw value also counts as outside the range. */
+export interface SensorRangeWork {
+  active: boolean;
+}
+
+export const sensorRangeDetector: Detector<SensorRangeThresholds, ConditionState, SensorRangeWork> = {
+  begin: ({ active }) => ({ active }),
+  advance: advanceSensorRange,
+  end: ({ active }) => ({ active }),
+};
+
 export function stepSensorRange(thresholds: SensorRangeThresholds, state: ConditionState, sample: Sample): DetectorStep<ConditionState> {
+  return stepOnce(sensorRangeDetector, thresholds, state, sample);
+}
+
+/** Written so that a non-finite raw value also counts as outside the range. */
+function advanceSensorRange(thresholds: SensorRangeThresholds, work: SensorRangeWork, sample: Sample, findings: SensorFinding[]): boolean {
   const outside = !(sample.raw >= thresholds.min && sample.raw <= thresholds.max);
-  const finding = conditionStep("out-of-range", state.active, outside, sample.time, {
-    raised: () =>
-      `The raw reading ${sample.raw} is outside the sensor's range of ${thresholds.min} to ${thresholds.max}; the gauge or its wiring has probably failed.`,
-    resolved: "Raw readings are back within the sensor's range.",
-  });
-  return { state: { active: outside }, fault: outside, finding };
+  if (outside !== work.active) {
+    const message = outside ? outsideMessage(thresholds, sample.raw) : "Raw readings are back within the sensor's range.";
+    findings.push(conditionFinding("out-of-range", outside, sample.time, message));
+  }
+  work.active = outside;
+  return outside;
+}
+
+function outsideMessage(thresholds: SensorRangeThresholds, raw: number): string {
+  return `The raw reading ${raw} is outside the sensor's range of ${thresholds.min} to ${thresholds.max}; the gauge or its wiring has probably failed.`;
 }

@@ -83,6 +83,25 @@ describe("flat line", () => {
     const { state } = stepFlatLine({ readings: 3, epsilon: 0 }, { active: false, recent: [1, 2, 3] }, samples([4])[0]!);
     expect(state.recent).toEqual([2, 3, 4]);
   });
+
+  it("cuts a stored window longer than the thresholds now ask for (they were lowered) to the window", () => {
+    const { state } = stepFlatLine({ readings: 3, epsilon: 0 }, { active: false, recent: [1, 2, 3, 4, 5, 6] }, samples([7])[0]!);
+    expect(state.recent).toEqual([5, 6, 7]);
+  });
+
+  it("is flat exactly when the full window's max − min is at most epsilon, non-finite values included (its definition above)", () => {
+    const rawArb = fc.oneof(fc.integer({ min: -3, max: 3 }), fc.constantFrom(Number.NaN, Infinity, -Infinity));
+    fc.assert(
+      fc.property(fc.array(rawArb, { maxLength: 6 }), rawArb, fc.constantFrom(0, 1, 2, Infinity), (recent, raw, epsilon) => {
+        const thresholds = { readings: 4, epsilon };
+        const window = [...recent, raw].slice(-thresholds.readings);
+        const flat = window.length === thresholds.readings && Math.max(...window) - Math.min(...window) <= epsilon;
+        const { state, fault } = stepFlatLine(thresholds, { active: false, recent }, { time: 0, raw, value: raw });
+        expect(state).toEqual({ active: flat, recent: window });
+        expect(fault).toBe(flat);
+      }),
+    );
+  });
 });
 
 describe("jump", () => {
