@@ -69,9 +69,10 @@ async function saveStates(tx: WriteTx, updates: readonly StateUpdate[]) {
   const checkpoints = updates.flatMap(({ gaugeId, checkpoint }) => (checkpoint ? [{ gaugeId, ...checkpoint }] : []));
   if (checkpoints.length === 0) return;
   await tx.insert(evaluationCheckpoints).values(checkpoints).onConflictDoNothing();
-  for (const { gaugeId, time } of checkpoints) {
-    await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, time - CHECKPOINTS_KEPT_MS)));
-  }
+  // One cut-off for all: the earliest keeps at least three days for every gauge.
+  const cutoff = Math.min(...checkpoints.map(({ time }) => time)) - CHECKPOINTS_KEPT_MS;
+  const gaugeIds = checkpoints.map(({ gaugeId }) => gaugeId);
+  await tx.delete(evaluationCheckpoints).where(and(inArray(evaluationCheckpoints.gaugeId, gaugeIds), lt(evaluationCheckpoints.time, cutoff)));
 }
 
 async function checkpointBefore(tx: WriteTx, gaugeId: number, time: number): Promise<Checkpoint | undefined> {

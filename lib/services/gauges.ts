@@ -48,8 +48,14 @@ function viewsOf(rows: Gauge[]): GaugeView[] {
   return rows.map((row) => toGaugeView(row, tagsById, replacedBy));
 }
 
-export function gaugeRowsOf(structureId: number): Promise<Gauge[]> {
-  return getDb().select().from(gauges).where(eq(gauges.structureId, structureId)).orderBy(asc(gauges.tag));
+/** The structure's gauges, or only those tagged in `tags`. */
+export function gaugeRowsOf(structureId: number, tags?: readonly string[]): Promise<Gauge[]> {
+  const ofStructure = eq(gauges.structureId, structureId);
+  return getDb()
+    .select()
+    .from(gauges)
+    .where(tags ? and(ofStructure, inArray(gauges.tag, [...tags])) : ofStructure)
+    .orderBy(asc(gauges.tag));
 }
 
 /** The structure (visible to the actor, who must be allowed `action` on it) and one of its gauges. */

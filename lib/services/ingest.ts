@@ -37,11 +37,15 @@ export interface IngestTarget {
   gauges: ReadonlyMap<string, GaugeEntry>;
 }
 
-export async function openIngestion(actor: Actor, code: string): Promise<IngestTarget> {
+/**
+ * The structure and its gauges, ready to convert; with `tags`, only those gauges: a logger's batch
+ * names a few of a structure's gauges, and each costs a row to read and a converter to prepare.
+ */
+export async function openIngestion(actor: Actor, code: string, tags?: readonly string[]): Promise<IngestTarget> {
   const structure = await getVisibleStructure(actor, code);
   await requirePermission(actor, "readings:ingest", structure);
   const gauges = new Map<string, GaugeEntry>();
-  for (const row of await gaugeRowsOf(structure.id)) {
+  for (const row of await gaugeRowsOf(structure.id, tags)) {
     gauges.set(row.tag, { id: row.id, tag: row.tag, retired: row.status === "retired", converter: prepareGauge(gaugeConfigOf(row)), row });
   }
   return { structure, gauges };
@@ -64,10 +68,23 @@ export async function ingestDecoded(target: IngestTarget, readings: Iterable<Dec
   return storeBatch(target, batch.finish());
 }
 
+/** Past this many different tags a request loads every gauge of the structure rather than a list of tags. */
+const MAX_TAGS_LOOKED_UP = 500;
+
+/** The gauge tags a JSON batch names, or undefined when it names too many to look up one by one. */
+function tagsNamed(readings: readonly unknown[]): string[] | undefined {
+  const tags = new Set<string>();
+  for (const reading of readings) {
+    const gauge = (reading as { gauge?: unknown } | null)?.gauge;
+    if (typeof gauge === "string") tags.add(gauge);
+  }
+  return tags.size > MAX_TAGS_LOOKED_UP ? undefined : [...tags];
+}
+
 /** `POST /readings` with a JSON body: `readings` already parsed, each element still unchecked. */
 export async function ingestJson(actor: Actor, code: string, readings: readonly unknown[]): Promise<IngestResult> {
   if (readings.length > MAX_READINGS_PER_REQUEST) throw tooManyReadings();
-  const target = await openIngestion(actor, code);
+  const target = await openIngestion(actor, code, tagsNamed(readings));
   return ingestDecoded(target, readings.map(decodeJsonReading));
 }
 
