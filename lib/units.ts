@@ -34,6 +34,8 @@ export function perCelsiusToPerFahrenheit(perCelsius: number): number {
 
 export type StressUnit = "MPa" | "ksi";
 export type TemperatureUnit = "°C" | "°F";
+/** Every unit a value is shown in: "°" is a plane angle (a rosette's principal direction). */
+export type DisplayUnit = StressUnit | TemperatureUnit | "µε" | "°";
 
 export function stressIn(unit: StressUnit, mpa: number): number {
   return unit === "ksi" ? mpaToKsi(mpa) : mpa;
@@ -43,15 +45,34 @@ export function temperatureIn(unit: TemperatureUnit, celsius: number): number {
   return unit === "°F" ? celsiusToFahrenheit(celsius) : celsius;
 }
 
-/** "1,234 µε": whole microstrain is the resolution gauges are read to in the field (common practice). */
-export function formatMicrostrain(microstrain: number, fractionDigits = 0): string {
-  return `${microstrain.toLocaleString("en-US", {
-    minimumFractionDigits: fractionDigits,
-    maximumFractionDigits: fractionDigits,
-  })} µε`;
+/**
+ * Decimals each display unit is read to: whole µε is the resolution gauges are read to in the field;
+ * 0.1 MPa and 0.01 ksi (0.07 MPa) are steps of about the same size; a tenth of a degree (common practice).
+ */
+const DISPLAY_DECIMALS: Readonly<Record<DisplayUnit, number>> = { MPa: 1, ksi: 2, "µε": 0, "°C": 1, "°F": 1, "°": 1 };
+
+/** A plane angle's degree sign follows the number without a space (SI Brochure, 9th ed., 5.4.3). */
+const unitSeparator = (unit: DisplayUnit) => (unit === "°" ? "" : " ");
+
+function withUnit(value: number, fractionDigits: number, unit: DisplayUnit): string {
+  // "negative": a small negative value rounded to zero reads 0.0, not -0.0.
+  const number = value.toLocaleString("en-US", { minimumFractionDigits: fractionDigits, maximumFractionDigits: fractionDigits, signDisplay: "negative" });
+  return `${number}${unitSeparator(unit)}${unit}`;
+}
+
+/** "1,234 µε": whole microstrain unless asked for more. */
+export function formatMicrostrain(microstrain: number, fractionDigits = DISPLAY_DECIMALS["µε"]): string {
+  return withUnit(microstrain, fractionDigits, "µε");
+}
+
+/** "123.5 MPa", "17.91 ksi", "2,004 µε", "14.2 °C": a value already in `unit`, rounded as that unit is read; a dash when there is none. */
+export function formatInUnit(value: number | null | undefined, unit: DisplayUnit): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  return withUnit(value, DISPLAY_DECIMALS[unit], unit);
 }
 
 export type UnitSystem = "si" | "us";
+export type DisplayQuantity = "stress" | "strain" | "temperature";
 
 /** The units a person reads stresses and temperatures in; strain is µε in both systems. */
 export function displayUnits(system: UnitSystem): { stress: StressUnit; temperature: TemperatureUnit } {
@@ -59,9 +80,15 @@ export function displayUnits(system: UnitSystem): { stress: StressUnit; temperat
 }
 
 /** A stored SI value (stress MPa, strain µε, temperature °C) in the person's units, with the unit. */
-export function inDisplayUnits(system: UnitSystem, quantity: "stress" | "strain" | "temperature", value: number): { value: number; unit: string } {
+export function inDisplayUnits(system: UnitSystem, quantity: DisplayQuantity, value: number): { value: number; unit: StressUnit | TemperatureUnit | "µε" } {
   const units = displayUnits(system);
   if (quantity === "stress") return { value: stressIn(units.stress, value), unit: units.stress };
   if (quantity === "temperature") return { value: temperatureIn(units.temperature, value), unit: units.temperature };
   return { value, unit: "µε" };
+}
+
+/** "36.26 ksi" for a stored 250 MPa when the person reads US units: conversion and rounding in one. */
+export function formatForDisplay(system: UnitSystem, quantity: DisplayQuantity, value: number): string {
+  const shown = inDisplayUnits(system, quantity, value);
+  return formatInUnit(shown.value, shown.unit);
 }

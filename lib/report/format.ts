@@ -1,7 +1,7 @@
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/mail/format-time";
-import { formatMicrostrain, inDisplayUnits, type UnitSystem } from "@/lib/units";
+import { formatForDisplay, formatMicrostrain, type UnitSystem } from "@/lib/units";
 import { formatHours } from "./gaps";
 import { formatPercent } from "./status";
 
@@ -12,16 +12,6 @@ import { formatPercent } from "./status";
 
 const count = (value: number) => value.toLocaleString("en-US", { maximumFractionDigits: 1 });
 
-export function formatStress(mpa: number, units: UnitSystem): string {
-  const shown = inDisplayUnits(units, "stress", mpa);
-  return `${shown.value.toFixed(units === "us" ? 2 : 1)} ${shown.unit}`;
-}
-
-function formatTemperature(celsius: number, units: UnitSystem): string {
-  const shown = inDisplayUnits(units, "temperature", celsius);
-  return `${shown.value.toFixed(1)} ${shown.unit}`;
-}
-
 /** "-40.0 MPa to 250.0 MPa", or "no readings" when the gauge sent nothing. */
 function formatExtremes(extremes: { min: number; max: number } | null, format: (value: number) => string): string {
   return extremes ? `${format(extremes.min)} to ${format(extremes.max)}` : "no readings";
@@ -29,7 +19,7 @@ function formatExtremes(extremes: { min: number; max: number } | null, format: (
 
 export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "stress">, units: UnitSystem): string {
   const peak = gauge.utilisationPeak;
-  if (peak) return `${Math.round(peak.ratio * 100)} % of yield (${formatStress(peak.yield, units)})`;
+  if (peak) return `${Math.round(peak.ratio * 100)} % of yield (${formatForDisplay(units, "stress", peak.yield)})`;
   return gauge.stress ? "no yield stress set for the material" : "no readings";
 }
 
@@ -58,9 +48,9 @@ function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
 /** What the report says about one gauge, label and value, in the order the page's columns and the PDF's rows show it. */
 export function gaugeFacts(gauge: ReportGauge, units: UnitSystem): { key: string; label: string; value: string }[] {
   return [
-    { key: "stress", label: "Stress, min to max", value: formatExtremes(gauge.stress, (v) => formatStress(v, units)) },
+    { key: "stress", label: "Stress, min to max", value: formatExtremes(gauge.stress, (v) => formatForDisplay(units, "stress", v)) },
     { key: "strain", label: "Strain, min to max", value: formatExtremes(gauge.strain, (v) => formatMicrostrain(v)) },
-    { key: "temperature", label: "Temperature, min to max", value: formatExtremes(gauge.temperature, (v) => formatTemperature(v, units)) },
+    { key: "temperature", label: "Temperature, min to max", value: formatExtremes(gauge.temperature, (v) => formatForDisplay(units, "temperature", v)) },
     { key: "utilisation", label: "Utilisation peak", value: formatUtilisation(gauge, units) },
     { key: "completeness", label: "Data completeness", value: formatReadings(gauge.readings, gauge.expectedIntervalS) },
     { key: "gaps", label: "Gaps", value: formatGapTotal(gauge.gaps) },
@@ -81,7 +71,7 @@ export function summaryFacts(summary: StructureReport["summary"]): [label: strin
 /** A bound or peak in its unit: stress in the reader's units, strain in µε, utilisation in % of yield. */
 export function formatAlertValue(alert: Pick<ReportAlert, "unit">, value: number | null, units: UnitSystem): string {
   if (value === null) return "—";
-  if (alert.unit === "MPa") return formatStress(value, units);
+  if (alert.unit === "MPa") return formatForDisplay(units, "stress", value);
   if (alert.unit === "µε") return formatMicrostrain(value);
   if (alert.unit === "ratio") return `${Math.round(value * 100)} % of yield`;
   return String(value);

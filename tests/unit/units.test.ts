@@ -3,6 +3,8 @@ import {
   celsiusIntervalToFahrenheit,
   celsiusToFahrenheit,
   fahrenheitToCelsius,
+  formatForDisplay,
+  formatInUnit,
   formatMicrostrain,
   ksiToMpa,
   mpaToKsi,
@@ -46,5 +48,30 @@ describe("display units", () => {
   it("formats microstrain with grouping and the unit", () => {
     expect(formatMicrostrain(1234.4)).toBe("1,234 µε");
     expect(formatMicrostrain(-5.25, 1)).toBe("-5.3 µε");
+  });
+
+  it("rounds a value as its unit is read and names the unit", () => {
+    expect(formatInUnit(123.4567, "MPa")).toBe("123.5 MPa");
+    expect(formatInUnit(2004.4, "µε")).toBe("2,004 µε");
+    expect(formatInUnit(14.24, "°C")).toBe("14.2 °C");
+    expect(formatInUnit(-0.04, "MPa")).toBe("0.0 MPa");
+    // SI Brochure (9th ed., 5.4.3): no space before the degree sign of a plane angle.
+    expect(formatInUnit(12.34, "°")).toBe("12.3°");
+  });
+
+  it("shows a stored SI value in the person's units", () => {
+    expect(formatForDisplay("si", "stress", 123.4567)).toBe("123.5 MPa");
+    // NIST SP 811, Appendix B: 1 ksi = 6.894 757 MPa, so 123.4567 MPa = 17.906 ksi.
+    expect(formatForDisplay("us", "stress", 123.4567)).toBe("17.91 ksi");
+    // °F = °C × 9/5 + 32 (NIST SP 811, Appendix B, temperature).
+    expect(formatForDisplay("us", "temperature", 14.2)).toBe("57.6 °F");
+    expect(formatForDisplay("us", "strain", 2004.4)).toBe("2,004 µε");
+  });
+
+  it("shows a dash, never NaN, for a missing value", () => {
+    expect(formatInUnit(Number.NaN, "MPa")).toBe("—");
+    expect(formatInUnit(null, "ksi")).toBe("—");
+    expect(formatInUnit(undefined, "µε")).toBe("—");
+    expect(formatInUnit(Number.POSITIVE_INFINITY, "°F")).toBe("—");
   });
 });
