@@ -8,7 +8,7 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
-import { UplotChart, timeAxis } from "./uplot-chart";
+import { UplotChart, timeChartOptions } from "./uplot-chart";
 
 export const MAX_COMPARED = 6;
 const DAY = 86_400_000;
@@ -40,11 +40,12 @@ export function CompareChart({ structureCode, tags, allTags, end, timeZone }: { 
   const { data, error } = useSWR<SeriesAnswer[]>(key, (urls: string[]) => Promise.all(urls.map((url) => fetchJson<SeriesAnswer>(url))), { refreshInterval: 60_000 });
   const unit = inDisplayUnits(units, quantity, 0).unit;
   const aligned = useMemo(() => (data ? alignMeans(data, (v) => inDisplayUnits(units, quantity, v).value) : null), [data, units, quantity]);
-  const options = useMemo<Omit<uPlot.Options, "width" | "height">>(
-    () => ({
-      axes: [timeAxis(timeZone), { label: `${quantity} (${unit})`, size: 70 }],
-      series: [{ label: "Time" }, ...chosen.map((tag, i) => ({ label: `${tag} (${unit})`, stroke: COLOURS[i], width: 1.5, points: { show: false }, spanGaps: false }))],
-    }),
+  const options = useMemo(
+    () =>
+      timeChartOptions(timeZone, unit, {
+        valueAxis: { label: `${quantity} (${unit})`, size: 70 },
+        series: chosen.map((tag, i) => ({ label: tag, stroke: COLOURS[i], width: 1.5, points: { show: false }, spanGaps: false })),
+      }),
     [chosen, quantity, unit, timeZone],
   );
   const toggle = (tag: string) =>

@@ -8,10 +8,10 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { downloadFile, fetchJson } from "@/lib/api/fetcher";
 import type { Limit } from "@/lib/limits";
 import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
-import { inDisplayUnits } from "@/lib/units";
+import { inDisplayUnits, type DisplayUnit } from "@/lib/units";
 import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { ThermalScatter } from "./thermal-scatter";
-import { UplotChart, timeAxis } from "./uplot-chart";
+import { UplotChart, timeChartOptions } from "./uplot-chart";
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
@@ -105,7 +105,7 @@ function QuantityChart(props: {
   title: string;
   answer: SeriesAnswer | undefined;
   error: Error | undefined;
-  unit: string;
+  unit: DisplayUnit;
   toDisplay: (v: number) => number;
   lines: ReturnType<typeof limitLines>;
   episodes: readonly ChartEpisode[];
@@ -116,44 +116,43 @@ function QuantityChart(props: {
 }) {
   const { answer, toDisplay, lines, episodes, events, unit } = props;
   const data = useMemo(() => (answer ? chartColumns(answer, toDisplay) : null), [answer, toDisplay]);
-  const options = useMemo<Omit<uPlot.Options, "width" | "height">>(
-    () => ({
-      tzDate: (seconds) => uPlotTz(seconds, props.timeZone),
-      cursor: { drag: { x: true, y: false } },
-      legend: { show: true },
-      scales: {
-        y: {
-          // Keep every limit line in view, not only the data.
-          range: (_chart, min, max) => {
-            const values = [min, max, ...lines.map((line) => line.value)].filter(Number.isFinite);
-            const low = Math.min(...values);
-            const high = Math.max(...values);
-            const pad = (high - low) * 0.05 || 1;
-            return [low - pad, high + pad];
+  const options = useMemo(
+    () =>
+      timeChartOptions(props.timeZone, unit, {
+        cursor: { drag: { x: true, y: false } },
+        legend: { show: true },
+        scales: {
+          y: {
+            // Keep every limit line in view, not only the data.
+            range: (_chart, min, max) => {
+              const values = [min, max, ...lines.map((line) => line.value)].filter(Number.isFinite);
+              const low = Math.min(...values);
+              const high = Math.max(...values);
+              const pad = (high - low) * 0.05 || 1;
+              return [low - pad, high + pad];
+            },
           },
         },
-      },
-      axes: [timeAxis(props.timeZone), { label: `${props.title} (${unit})`, size: 70 }],
-      series: [
-        { label: "Time" },
-        { label: `min (${unit})`, stroke: "#7aa7ad", width: 1, points: { show: false } },
-        { label: `max (${unit})`, stroke: "#7aa7ad", width: 1, points: { show: false } },
-        { label: `mean (${unit})`, stroke: "#17565d", width: 1.5, points: { show: false } },
-      ],
-      bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
-      hooks: {
-        draw: [(chart) => drawOverlays(chart, lines, episodes, events)],
-        setSelect: [
-          (chart) => {
-            if (chart.select.width < 5) return;
-            const from = chart.posToVal(chart.select.left, "x") * 1000;
-            const to = chart.posToVal(chart.select.left + chart.select.width, "x") * 1000;
-            chart.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
-            props.onZoom({ from: Math.round(from), to: Math.round(to) });
-          },
+        valueAxis: { label: `${props.title} (${unit})`, size: 70 },
+        series: [
+          { label: "min", stroke: "#7aa7ad", width: 1, points: { show: false } },
+          { label: "max", stroke: "#7aa7ad", width: 1, points: { show: false } },
+          { label: "mean", stroke: "#17565d", width: 1.5, points: { show: false } },
         ],
-      },
-    }),
+        bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
+        hooks: {
+          draw: [(chart) => drawOverlays(chart, lines, episodes, events)],
+          setSelect: [
+            (chart) => {
+              if (chart.select.width < 5) return;
+              const from = chart.posToVal(chart.select.left, "x") * 1000;
+              const to = chart.posToVal(chart.select.left + chart.select.width, "x") * 1000;
+              chart.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
+              props.onZoom({ from: Math.round(from), to: Math.round(to) });
+            },
+          ],
+        },
+      }),
     [lines, episodes, events, unit, props.timeZone],
   );
   return (
@@ -172,14 +171,6 @@ function QuantityChart(props: {
       )}
     </section>
   );
-}
-
-/** uPlot formats axis dates with a Date it reads local fields from: give it one shifted into the structure's zone. */
-function uPlotTz(seconds: number, timeZone: string): Date {
-  const parts = new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", year: "numeric", month: "numeric", day: "numeric", hour: "numeric", minute: "numeric", second: "numeric" })
-    .formatToParts(new Date(seconds * 1000))
-    .reduce<Record<string, number>>((all, part) => ({ ...all, [part.type]: Number(part.value) }), {});
-  return new Date(parts.year!, parts.month! - 1, parts.day!, parts.hour!, parts.minute!, parts.second!);
 }
 
 /**
@@ -229,12 +220,8 @@ export function GaugeCharts({
   const temperature = useSWR<SeriesAnswer>(after && !compact ? seriesUrl(base, "temperature", range) : null, fetchJson, swr);
 
   const display = useMemo(() => {
-    const convert = (quantity: Quantity) => (value: number) => inDisplayUnits(units, quantity, value).value;
-    return {
-      stress: { toDisplay: convert("stress"), unit: inDisplayUnits(units, "stress", 0).unit },
-      strain: { toDisplay: convert("strain"), unit: "µε" },
-      temperature: { toDisplay: convert("temperature"), unit: inDisplayUnits(units, "temperature", 0).unit },
-    };
+    const shown = (quantity: Quantity) => ({ toDisplay: (value: number) => inDisplayUnits(units, quantity, value).value, unit: inDisplayUnits(units, quantity, 0).unit });
+    return { stress: shown("stress"), strain: shown("strain"), temperature: shown("temperature") };
   }, [units]);
   const lines = useMemo(
     () => ({

@@ -2,13 +2,12 @@
 
 import { useMemo, useState } from "react";
 import useSWR from "swr";
-import type uPlot from "uplot";
 import { useUnits } from "@/components/units/units-context";
 import { buttonClass, cardClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
 import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
-import { inDisplayUnits } from "@/lib/units";
-import { UplotChart, timeAxis } from "./uplot-chart";
+import { inDisplayUnits, type DisplayUnit } from "@/lib/units";
+import { UplotChart, timeChartOptions } from "./uplot-chart";
 
 const DAY = 86_400_000;
 const QUANTITIES = [
@@ -21,19 +20,19 @@ const QUANTITIES = [
 function RosetteChart({ url, title, isAngle, timeZone }: { url: string; title: string; isAngle: boolean; timeZone: string }) {
   const units = useUnits();
   const { data, error } = useSWR<SeriesAnswer>(url, fetchJson, { refreshInterval: 60_000 });
-  const unit = isAngle ? "°" : inDisplayUnits(units, "stress", 0).unit;
+  const unit: DisplayUnit = isAngle ? "°" : inDisplayUnits(units, "stress", 0).unit;
   const columns = useMemo(() => (data ? chartColumns(data, (v) => (isAngle ? v : inDisplayUnits(units, "stress", v).value)) : null), [data, units, isAngle]);
-  const options = useMemo<Omit<uPlot.Options, "width" | "height">>(
-    () => ({
-      axes: [timeAxis(timeZone), { label: `${title} (${unit})`, size: 70 }],
-      series: [
-        { label: "Time" },
-        { label: `min (${unit})`, stroke: "#7aa7ad", points: { show: false } },
-        { label: `max (${unit})`, stroke: "#7aa7ad", points: { show: false } },
-        { label: `mean (${unit})`, stroke: "#17565d", width: 1.5, points: { show: false } },
-      ],
-      bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
-    }),
+  const options = useMemo(
+    () =>
+      timeChartOptions(timeZone, unit, {
+        valueAxis: { label: `${title} (${unit})`, size: 70 },
+        series: [
+          { label: "min", stroke: "#7aa7ad", points: { show: false } },
+          { label: "max", stroke: "#7aa7ad", points: { show: false } },
+          { label: "mean", stroke: "#17565d", width: 1.5, points: { show: false } },
+        ],
+        bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
+      }),
     [title, unit, timeZone],
   );
   return (

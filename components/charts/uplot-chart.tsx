@@ -3,6 +3,8 @@
 import { useEffect, useRef } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
+import { legendTime, timeTickLabels, zoneWallClock } from "@/lib/series/time-labels";
+import { formatInUnit, type DisplayUnit } from "@/lib/units";
 
 /**
  * A uPlot chart that follows its container's width. uPlot draws on canvas outside React, so the
@@ -15,7 +17,7 @@ export function UplotChart({
   label,
   onCreate,
 }: {
-  options: Omit<uPlot.Options, "width" | "height">;
+  options: ChartOptions;
   data: uPlot.AlignedData;
   height?: number;
   label: string;
@@ -47,20 +49,25 @@ export function UplotChart({
   return <div ref={box} role="img" aria-label={label} className="w-full" data-testid="chart" />;
 }
 
+type ChartOptions = Omit<uPlot.Options, "width" | "height">;
+
 /**
- * The time axis in day-first dates like the rest of the app, in the structure's time zone: hours
- * when the ticks are less than a day apart (with the date at midnight), days otherwise.
+ * The options every chart of values over time shares, around its own value axis and series: ticks
+ * placed at the structure's midnights and hours and labelled day-first, the legend's time on the
+ * structure's clock, and every legend value rounded with its unit (all series of a chart share one).
  */
-export function timeAxis(timeZone: string): uPlot.Axis {
-  const hours = new Intl.DateTimeFormat("en-GB", { timeZone, hour: "2-digit", minute: "2-digit" });
-  const days = new Intl.DateTimeFormat("en-GB", { timeZone, day: "numeric", month: "short" });
+export function timeChartOptions(
+  timeZone: string,
+  unit: DisplayUnit,
+  { valueAxis, series, ...rest }: Omit<ChartOptions, "axes" | "series" | "tzDate"> & { valueAxis: uPlot.Axis; series: uPlot.Series[] },
+): ChartOptions {
   return {
-    values: (_chart, splits, _axis, _space, increment) =>
-      splits.map((seconds) => {
-        const time = seconds * 1000;
-        if (increment >= 86_400) return days.format(time);
-        const clock = hours.format(time);
-        return clock === "00:00" ? days.format(time) : clock;
-      }),
+    ...rest,
+    tzDate: (seconds) => zoneWallClock(seconds, timeZone),
+    axes: [{ values: (_chart, splits, _axis, _space, increment) => timeTickLabels(splits, increment, timeZone) }, valueAxis],
+    series: [
+      { label: "Time", value: (_chart, seconds) => legendTime(seconds, timeZone) },
+      ...series.map((line) => ({ ...line, value: (_chart: uPlot, value: number | null) => formatInUnit(value, unit) })),
+    ],
   };
 }

@@ -83,6 +83,24 @@ class GaugeChartsPage {
   dragZoom(title: string) {
     return dragAcrossChart(this.page, this.chart(title));
   }
+  /** Points from outside a chart to the middle of its plot, as a person reads a value, and answers its legend's time and mean. */
+  async hoverLegend(title: string): Promise<{ time: string; mean: string }> {
+    const box = (await this.chart(title).locator(".u-over").boundingBox())!;
+    await this.page.mouse.move(box.x - 20, box.y + box.height / 2);
+    await this.page.mouse.move(box.x + box.width / 2, box.y + box.height / 2, { steps: 3 });
+    const value = (label: string) => this.chart(title).locator(".u-legend .u-series").filter({ hasText: label }).locator(".u-value").textContent();
+    return { time: (await value("Time"))!, mean: (await value("mean"))! };
+  }
+}
+
+/** The text uPlot draws on each canvas of the page, kept on the canvas element as `drawnText`: axis labels have no DOM of their own. */
+function recordCanvasText() {
+  const fillText = CanvasRenderingContext2D.prototype.fillText;
+  CanvasRenderingContext2D.prototype.fillText = function (this: CanvasRenderingContext2D, ...args: Parameters<typeof fillText>) {
+    const canvas = this.canvas as HTMLCanvasElement & { drawnText?: string[] };
+    (canvas.drawnText ??= []).push(String(args[0]));
+    fillText.apply(this, args);
+  };
 }
 
 /** Pixels of a canvas: how many differ from the background, and how many of a row match a colour. */
@@ -222,6 +240,69 @@ describe("the gauge page", () => {
     await expect(gaugePage.range()).resolves.not.toBe(before);
     await canvas.waitFor();
     expect((await canvasPixels(gaugePage.canvas("Stress"), null, null)).inked).toBeGreaterThan(drawn.width / 10);
+  });
+
+  it("shows legend values rounded with their unit in the person's units, and day-first time labels", async () => {
+    const page = await engineer.context().newPage();
+    await page.addInitScript(recordCanvasText);
+    const gaugePage = new GaugeChartsPage(page);
+    const fetched = page.waitForResponse(isSeries("stress", (ms) => ms === 7 * DAY));
+    await gaugePage.open("MILL-FB", "LC-M1");
+    const stressResponse = await fetched;
+    const stress = (await stressResponse.json()) as SeriesAnswer;
+    const range = new URL(stressResponse.url()).searchParams;
+    const { timezone } = await (await page.request.get("/api/v1/structures/MILL-FB")).json();
+    await gaugePage.canvas("Stress").waitFor();
+
+    /** The bucket mean the legend's time names, found by writing every bucket's time the way the app's other dates read (en-GB, medium date, short time). */
+    const meanAt = async (legendTime: string) => {
+      const times = await page.evaluate(([t, timeZone]) => t.map((ms) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms)), [stress.t, timezone] as const);
+      const index = times.indexOf(legendTime);
+      expect(index, `a bucket at ${legendTime}`).toBeGreaterThanOrEqual(0);
+      return stress.mean[index]!;
+    };
+
+    /** The legend once it shows `unit`: a chart rebuilt for new units shows dashes until the pointer moves over it again. */
+    const legendIn = async (unit: string) => {
+      let legend = { time: "", mean: "" };
+      await expect.poll(async () => (legend = await gaugePage.hoverLegend("Stress")).mean).toMatch(new RegExp(` ${unit}$`));
+      return legend;
+    };
+
+    try {
+      const si = await legendIn("MPa");
+      // Day first, as "1 Mar 2026, 14:30"; uPlot's own default would read "2026-03-01 2:30pm".
+      expect(si.time).toMatch(/^\d{1,2} [A-Z][a-z]{2,3} \d{4}, \d{2}:\d{2}$/);
+      expect(si.mean).toBe(`${(await meanAt(si.time)).toFixed(1)} MPa`);
+
+      // Day-first date labels on the time axis, for days of the range on the structure's clock.
+      const drawn = await gaugePage.canvas("Stress").evaluate((canvas) => (canvas as HTMLCanvasElement & { drawnText?: string[] }).drawnText ?? []);
+      const days = await page.evaluate(
+        ([from, to, timeZone]) => {
+          const day = new Intl.DateTimeFormat("en-GB", { timeZone, day: "numeric", month: "short" });
+          const names: string[] = [];
+          for (let t = Date.parse(from); t <= Date.parse(to); t += 3_600_000) names.push(day.format(t));
+          return names;
+        },
+        [range.get("from")!, range.get("to")!, timezone] as const,
+      );
+      const dateLabels = drawn.filter((text) => /^\d{1,2} [A-Z][a-z]{2,3}$/.test(text));
+      expect(dateLabels.length, `date labels among ${JSON.stringify(drawn)}`).toBeGreaterThan(0);
+      for (const label of dateLabels) expect(days).toContain(label);
+      // Nothing month-first ("Mar 1", "3/1") or on a 12-hour clock ("2pm"), as uPlot's defaults draw.
+      expect(drawn.filter((text) => /^[A-Z][a-z]{2} \d{1,2}$|^\d{1,2}\/\d{1,2}|\d(am|pm)$/.test(text))).toEqual([]);
+
+      await page.getByLabel("Units", { exact: true }).selectOption("us");
+      await page.getByRole("heading", { name: /^Stress \(ksi/ }).waitFor();
+      const us = await legendIn("ksi");
+      // 1 ksi = 6.894757 MPa (NIST SP 811, Appendix B).
+      expect(us.mean).toBe(`${((await meanAt(us.time)) / 6.894757).toFixed(2)} ksi`);
+      await saveScreenshot(page, "gauge-page-legend-us");
+    } finally {
+      await page.getByLabel("Units", { exact: true }).selectOption("si");
+      await page.getByRole("heading", { name: /^Stress \(MPa/ }).waitFor();
+      await page.close();
+    }
   });
 
   it("exports a CSV equal to the readings the API lists for the same range", async () => {
