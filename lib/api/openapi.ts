@@ -223,7 +223,8 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
     },
     put: {
       summary: "Replace the rosette's limits. Refused as for a gauge's; evaluated on ingest from readings of the three gauges with the same timestamp",
-      notes: "Readings older than the rosette's last evaluated instant are stored but not evaluated against its limits (no replay, unlike a gauge's).",
+      notes:
+        "A reading completing an instant older than the rosette's last evaluated one is evaluated by replaying from an hourly checkpoint, as for a gauge's limits (kept three days); an instant using a reading sensor health or the rated range marks as a fault is skipped.",
       roles: "admin, engineer",
       parameters: [codeParameter, rosetteTagParameter],
       request: rosetteLimitsBody,
