@@ -30,7 +30,7 @@ import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSche
 import { reportQuery } from "./report-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
-import { acknowledgeBody, backtestBody, limitsBody, rosetteLimitsBody } from "@/lib/alerting/schema";
+import { acknowledgeBody, backtestBody, limitsBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -230,6 +230,17 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       request: rosetteLimitsBody,
       response: { status: 200, schema: rosetteLimitListSchema, description: "The limits now in force" },
       errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/rosettes/{tag}/limits/backtest": {
+    post: {
+      summary:
+        "What proposed rosette limits would have raised over [from, to) of stored readings, by the same evaluation as ingestion (faulty gauge readings skipped); nothing is stored",
+      notes: "`readingsChecked` counts the instants at which all three gauges have a reading.",
+      parameters: [codeParameter, rosetteTagParameter],
+      request: rosetteBacktestBody,
+      response: { status: 200, schema: backtestSchema, description: "The alert episodes the limits would have raised" },
+      errors: [400, 401, 404, 413, 415],
     },
   },
   "/structures/{code}/rosettes/{tag}/series": {

@@ -1,16 +1,18 @@
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as limitsRoute from "@/app/api/v1/structures/[code]/rosettes/[tag]/limits/route";
+import * as backtestRoute from "@/app/api/v1/structures/[code]/rosettes/[tag]/limits/backtest/route";
 import * as alertsRoute from "@/app/api/v1/structures/[code]/alerts/route";
 import { getDb } from "@/db/client";
 import { alerts, mailOutbox, rosettes } from "@/db/schema";
 import type { UserActor } from "@/lib/auth/actor";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import { ingestJson } from "@/lib/services/ingest";
+import { limitsOfRosette } from "@/lib/services/rosette-limits";
 import { createRosette } from "@/lib/services/rosettes";
 import type { GaugeInput } from "@/lib/gauges/schema";
 import { microstrainGauge } from "../fixtures/gauges";
-import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
+import { apiRequest, loggerToken, makeStructure, makeUser, params, userToken } from "./helpers";
 
 const tokens: Record<string, string> = {};
 let engineer: UserActor;
@@ -178,5 +180,52 @@ describe("rosette limits and sensor faults", () => {
     expect(result.alerts.opened).toBe(1);
     expect(await alertsOfRosette("RATED")).toEqual([]);
     expect(await alertsOfRosette("INRANGE")).toHaveLength(1);
+  });
+});
+
+describe("rosette limits backtest", () => {
+  const DAY = 86_400_000;
+  const backtest = (token: string, tag: string, body: unknown) =>
+    backtestRoute.POST(apiRequest(`/structures/WEB/rosettes/${tag}/limits/backtest`, { token, body }), params({ code: "WEB", tag }));
+  const period = { from: new Date(T0 - DAY).toISOString(), to: new Date(T0 + DAY).toISOString() };
+
+  it("finds over the stored data exactly the episodes live evaluation recorded, for every rosette above", async () => {
+    const all = await getDb().select().from(rosettes);
+    expect(all.map((rosette) => rosette.tag).sort()).toEqual(["FLAT", "INRANGE", "LATE", "LIVE", "R1", "RATED"]);
+    for (const rosette of all) {
+      const response = await backtest(tokens.owner!, rosette.tag, { limits: await limitsOfRosette(rosette.id), ...period });
+      expect(response.status).toBe(200);
+      const result = await response.json();
+      const recorded = (await alertsOfRosette(rosette.tag)).map((alert) => ({
+        quantity: alert.quantity,
+        level: alert.level,
+        openedAt: alert.openedAt.getTime(),
+        peak: alert.peak,
+        clearedAt: alert.clearedAt?.getTime() ?? null,
+      }));
+      expect(result.episodes, rosette.tag).toEqual(recorded);
+    }
+  });
+
+  it("counts the instants checked and shows what other bounds would have raised", async () => {
+    const result = await (await backtest(tokens.engineer!, "R1", { limits: [{ quantity: "vonMises", level: "warning", upper: 80, persistence: 2 }], ...period })).json();
+    // R1's instants: 20.36, 101.81 and 81.45 MPa; two in a row above 80 MPa open at the third.
+    expect(result).toMatchObject({ from: T0 - DAY, to: T0 + DAY, readingsChecked: 3 });
+    expect(result.episodes).toMatchObject([{ quantity: "vonMises", level: "warning", openedAt: T0 + 2 * TEN_MINUTES, clearedAt: null }]);
+    expect(result.episodes[0].peak).toBeCloseTo(101.81, 1);
+  });
+
+  it("refuses a token whose role may not view the structure, and answers bad input with the field", async () => {
+    const limits = [{ quantity: "vonMises", level: "watch", upper: 100 }];
+    expect((await backtest(await loggerToken("WEB"), "R1", { limits, ...period })).status).toBe(403);
+    const fieldsOf = async (response: Response) => {
+      expect(response.status).toBe(400);
+      return (await response.json()).error.details.issues.map((issue: { path: string }) => issue.path);
+    };
+    expect(await fieldsOf(await backtest(tokens.engineer!, "R1", { limits, from: period.to, to: period.from }))).toEqual(["to"]);
+    expect(await fieldsOf(await backtest(tokens.engineer!, "R1", { limits: [{ quantity: "stress", level: "watch", upper: 100 }], ...period }))).toEqual(["limits.0.quantity"]);
+    expect(await fieldsOf(await backtest(tokens.engineer!, "R1", { limits: [{ quantity: "vonMises", level: "watch", upper: 50, lower: 80 }], ...period }))).toEqual([
+      "limits.0.lower",
+    ]);
   });
 });
