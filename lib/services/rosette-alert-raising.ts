@@ -117,8 +117,9 @@ async function evaluateRosetteInstants(tx: WriteTx, context: RosetteContext, fau
   const first = Math.min(...touched.map(({ times }) => times[0]!));
   const last = Math.max(...touched.map(({ times }) => times.at(-1)!));
   const { lastTime } = stored;
-  const late = lastTime !== null && first <= lastTime ? await earliestCompletedInstant(tx, rosette, touched, first, Math.min(last, lastTime)) : undefined;
-  const checkpoint = late === undefined ? undefined : await checkpointBefore<RosetteEvaluationState>(tx, rosetteEvaluationCheckpoints, rosette.id, late);
+  const lateInstant = lastTime !== null && first <= lastTime ? await earliestCompletedInstant(tx, rosette, touched, first, Math.min(last, lastTime)) : undefined;
+  const checkpoint =
+    lateInstant === undefined ? undefined : await checkpointBefore<RosetteEvaluationState>(tx, rosetteEvaluationCheckpoints, rosette.id, lateInstant);
   if (!checkpoint) {
     // In time, or too late for any checkpoint: only instants after the last one evaluated count.
     const start = lastTime === null ? first : Math.max(first, lastTime + 1);
