@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
 import { ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
 
 export const ROLES = ["admin", "engineer", "technician", "owner"] as const;
@@ -315,18 +315,26 @@ export const evaluationStates = sqliteTable("evaluation_states", {
   state: text("state", { mode: "json" }).$type<unknown>().notNull(),
 });
 
-/** Hourly snapshots of a gauge's evaluation state, so a late reading is evaluated from the state just before it. */
-export const evaluationCheckpoints = sqliteTable(
-  "evaluation_checkpoints",
-  {
-    gaugeId: integer("gauge_id")
-      .notNull()
-      .references(() => gauges.id, { onDelete: "cascade" }),
-    time: integer("time").notNull(),
-    state: text("state", { mode: "json" }).$type<unknown>().notNull(),
-  },
-  (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
-);
+/**
+ * Hourly snapshots of an evaluation state, so a late reading is evaluated from the state just
+ * before it. A gauge's and a rosette's tables differ only in whose id `ownerId` holds; typed alike
+ * (the name as a plain string), one set of queries serves both.
+ */
+function checkpointTable(name: string, ownerColumn: string, owner: () => AnySQLiteColumn) {
+  return sqliteTable(
+    name,
+    {
+      ownerId: integer(ownerColumn)
+        .notNull()
+        .references(owner, { onDelete: "cascade" }),
+      time: integer("time").notNull(),
+      state: text("state", { mode: "json" }).$type<unknown>().notNull(),
+    },
+    (t) => [primaryKey({ columns: [t.ownerId, t.time] })],
+  );
+}
+
+export const evaluationCheckpoints = checkpointTable("evaluation_checkpoints", "gauge_id", () => gauges.id);
 
 /** Limits on a rosette's derived stresses (MPa), evaluated on ingest like a gauge's. */
 export const rosetteLimits = sqliteTable(
@@ -353,6 +361,8 @@ export const rosetteEvaluationStates = sqliteTable("rosette_evaluation_states", 
     .references(() => rosettes.id, { onDelete: "cascade" }),
   state: text("state", { mode: "json" }).$type<unknown>().notNull(),
 });
+
+export const rosetteEvaluationCheckpoints = checkpointTable("rosette_evaluation_checkpoints", "rosette_id", () => rosettes.id);
 
 export const ALERT_KINDS = ["limit", "sensor"] as const;
 

@@ -51,11 +51,11 @@ function proposedLimits(rows: Row[]): Limit[] {
   });
 }
 
-type Backtest = { readingsChecked: number; episodes: AlertEpisode[] } | { error: string };
+type Backtest = { readingsChecked: number; episodes: AlertEpisode<string>[] } | { error: string };
 
 /**
- * The engineer's limit set. For a gauge, with its chart and a check of what the limits would have
- * raised before they are saved; both read one gauge's stored readings, so a rosette goes without.
+ * The engineer's limit set, with a check of what the limits would have raised before they are
+ * saved. For a gauge, also its chart with the bounds drawn; a rosette's charts are on its page.
  */
 export function LimitsEditor({
   structureCode,
@@ -97,7 +97,8 @@ export function LimitsEditor({
 
   async function runBacktest() {
     const to = Date.now();
-    const response = await fetch(`/api/v1/structures/${structureCode}/gauges/${encodeURIComponent(tag)}/limits/backtest`, {
+    const owner = gauge ? "gauges" : "rosettes";
+    const response = await fetch(`/api/v1/structures/${structureCode}/${owner}/${encodeURIComponent(tag)}/limits/backtest`, {
       method: "POST",
       headers: { "content-type": "application/json" },
       body: JSON.stringify({ ...payloadOf(rows), from: new Date(to - Number(days) * DAY).toISOString(), to: new Date(to).toISOString() }),
@@ -221,45 +222,44 @@ export function LimitsEditor({
           />
         </section>
       )}
-      {gauge && (
-        <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
-          <h2 id="backtest-heading" className="font-semibold">
-            What these limits would have raised
-          </h2>
-          <div className="flex flex-wrap items-end gap-3">
-            <label className="flex flex-col gap-1 text-sm font-medium">
-              Over the last
-              <select className={`${inputClass} w-36`} value={days} onChange={(e) => setDays(e.target.value)}>
-                <option value="7">7 days</option>
-                <option value="30">30 days</option>
-                <option value="90">90 days</option>
-                <option value="365">year</option>
-              </select>
-            </label>
-            <button type="button" className={buttonClass("secondary")} onClick={runBacktest}>
-              Check against stored data
-            </button>
-          </div>
-          <div aria-live="polite" data-testid="backtest-result">
-            {backtest && "error" in backtest && <p className="text-sm text-critical">{backtest.error}</p>}
-            {backtest && "episodes" in backtest && (
-              <>
-                <p className="text-sm">
-                  {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")} readings.
-                </p>
-                <ul className="mt-2 space-y-1 text-sm">
-                  {backtest.episodes.map((episode) => (
-                    <li key={`${episode.quantity}-${episode.openedAt}`}>
-                      {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {quantities[episode.quantity]},{" "}
-                      {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
-                    </li>
-                  ))}
-                </ul>
-              </>
-            )}
-          </div>
-        </section>
-      )}
+      <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">
+        <h2 id="backtest-heading" className="font-semibold">
+          What these limits would have raised
+        </h2>
+        <div className="flex flex-wrap items-end gap-3">
+          <label className="flex flex-col gap-1 text-sm font-medium">
+            Over the last
+            <select className={`${inputClass} w-36`} value={days} onChange={(e) => setDays(e.target.value)}>
+              <option value="7">7 days</option>
+              <option value="30">30 days</option>
+              <option value="90">90 days</option>
+              <option value="365">year</option>
+            </select>
+          </label>
+          <button type="button" className={buttonClass("secondary")} onClick={runBacktest}>
+            Check against stored data
+          </button>
+        </div>
+        <div aria-live="polite" data-testid="backtest-result">
+          {backtest && "error" in backtest && <p className="text-sm text-critical">{backtest.error}</p>}
+          {backtest && "episodes" in backtest && (
+            <>
+              <p className="text-sm">
+                {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")}{" "}
+                {gauge ? "readings" : "instants with a reading of all three gauges"}.
+              </p>
+              <ul className="mt-2 space-y-1 text-sm">
+                {backtest.episodes.map((episode) => (
+                  <li key={`${episode.quantity}-${episode.openedAt}`}>
+                    {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {quantities[episode.quantity]},{" "}
+                    {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
+                  </li>
+                ))}
+              </ul>
+            </>
+          )}
+        </div>
+      </section>
     </div>
   );
 }

@@ -1,12 +1,12 @@
-import type { Level, Quantity } from "@/lib/limits";
-import type { QuantityEvent } from "./evaluate-gauge";
+import type { EpisodeEvent, Level, Quantity } from "@/lib/limits";
 
 /** An alert episode as the limits editor lists it: when it opened, how far it rose, when it cleared. */
-export type AlertEpisode = { quantity: Quantity; level: Level; openedAt: number; peak: number; clearedAt: number | null };
+export type AlertEpisode<Q extends string = Quantity> = { quantity: Q; level: Level; openedAt: number; peak: number; clearedAt: number | null };
 
-export function episodesOf(events: readonly QuantityEvent[]): AlertEpisode[] {
-  const episodes: AlertEpisode[] = [];
-  const open = new Map<Quantity, AlertEpisode>();
+/** A gauge's or a rosette's events, all quantities together in time order. */
+export function episodesOf<Q extends string>(events: readonly (EpisodeEvent & { quantity: Q })[]): AlertEpisode<Q>[] {
+  const episodes: AlertEpisode<Q>[] = [];
+  const open = new Map<Q, AlertEpisode<Q>>();
   for (const event of events) {
     const current = open.get(event.quantity);
     if (event.type === "opened") {

@@ -12,7 +12,7 @@ import {
   type SensorHealthState,
   type SensorHealthThresholds,
 } from "@/lib/limits";
-import { Flag } from "@/lib/mechanics";
+import { isOutOfRange } from "@/lib/mechanics";
 
 /**
  * One gauge's alert evaluation over converted readings: sensor health first (a faulty reading
@@ -66,15 +66,24 @@ export function defaultHealthThresholds(input: string): SensorHealthThresholds {
   return { flatLine: { readings: 36, epsilon: 0 }, jump: { maxStep: 1_500 }, range: RAW_RANGE[input] };
 }
 
+/** A stored gauge's setup, the same for live ingestion, the backtests and the rosettes on it. */
+export function gaugeAlertSetup(gauge: { input: string; material: { yield?: number | null } }, limits: readonly Limit[]): GaugeAlertSetup {
+  return { limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
+}
+
 function quantitiesOf(limits: readonly Limit[]): Quantity[] {
   return [...new Set(limits.map((limit) => limit.quantity))];
 }
 
-export function evaluateGauge(
-  setup: GaugeAlertSetup,
-  state: GaugeEvaluationState,
-  readings: readonly EvaluatedReading[],
-): { state: GaugeEvaluationState; events: QuantityEvent[]; findings: SensorFinding[] } {
+export type GaugeEvaluation = {
+  state: GaugeEvaluationState;
+  events: QuantityEvent[];
+  findings: SensorFinding[];
+  /** Times of the readings limit evaluation skipped as faults, in order: a rosette on this gauge skips its instants too. */
+  faultTimes: number[];
+};
+
+export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationState, readings: readonly EvaluatedReading[]): GaugeEvaluation {
   const inspection = inspectReadings(
     setup.health,
     state.health,
@@ -98,7 +107,9 @@ export function evaluateGauge(
     events.push(...evaluation.events.map((event) => ({ ...event, quantity })));
   }
   events.sort((a, b) => a.time - b.time);
-  return { state: { episodes, health: inspection.state }, events, findings: inspection.findings };
+  const faultTimes: number[] = [];
+  for (let index = 0; index < taken.faults.length; index++) if (taken.faults[index]) faultTimes.push(inspection.readings[index]!.time);
+  return { state: { episodes, health: inspection.state }, events, findings: inspection.findings, faultTimes };
 }
 
 /**
@@ -111,7 +122,7 @@ function takenIn(readings: readonly EvaluatedReading[], checked: readonly Readin
   const sources: EvaluatedReading[] = [];
   const faults: boolean[] = [];
   for (const reading of readings) {
-    const outOfRange = (reading.flags & Flag.outOfRange) !== 0;
+    const outOfRange = isOutOfRange(reading.flags);
     // Readings taken in come back in order, each the first reading of its time in the batch.
     const next = checked[sources.length];
     if (next !== undefined && next.time === reading.time) {

@@ -25,7 +25,15 @@ export const acknowledgeBody = z.object({ comment: z.string().trim().min(1, "Say
 
 const MAX_BACKTEST_MS = 366 * 86_400_000;
 
-export const backtestBody = limitsBody
-  .extend({ from: isoTime, to: isoTime })
-  .refine((body) => Date.parse(body.from) < Date.parse(body.to), { path: ["to"], message: "`to` must be after `from`." })
-  .refine((body) => Date.parse(body.to) - Date.parse(body.from) <= MAX_BACKTEST_MS, { path: ["from"], message: "Backtest at most a year at a time." });
+/** The past period [from, to) a backtest checks proposed limits over, for a gauge or a rosette. */
+function withPeriod<Body extends z.ZodType<{ from: string; to: string }>>(body: Body) {
+  return body
+    .refine((value) => Date.parse(value.from) < Date.parse(value.to), { path: ["to"], message: "`to` must be after `from`." })
+    .refine((value) => Date.parse(value.to) - Date.parse(value.from) <= MAX_BACKTEST_MS, { path: ["from"], message: "Backtest at most a year at a time." });
+}
+
+const period = { from: isoTime, to: isoTime };
+
+export const backtestBody = withPeriod(limitsBody.extend(period));
+
+export const rosetteBacktestBody = withPeriod(rosetteLimitsBody.extend(period));

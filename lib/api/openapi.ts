@@ -30,7 +30,7 @@ import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSche
 import { reportQuery } from "./report-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
-import { acknowledgeBody, backtestBody, limitsBody, rosetteLimitsBody } from "@/lib/alerting/schema";
+import { acknowledgeBody, backtestBody, limitsBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -223,12 +223,24 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
     },
     put: {
       summary: "Replace the rosette's limits. Refused as for a gauge's; evaluated on ingest from readings of the three gauges with the same timestamp",
-      notes: "Readings older than the rosette's last evaluated instant are stored but not evaluated against its limits (no replay, unlike a gauge's).",
+      notes:
+        "A reading completing an instant older than the rosette's last evaluated one is evaluated by replaying from an hourly checkpoint, as for a gauge's limits (kept three days); an instant using a reading sensor health or the rated range marks as a fault is skipped.",
       roles: "admin, engineer",
       parameters: [codeParameter, rosetteTagParameter],
       request: rosetteLimitsBody,
       response: { status: 200, schema: rosetteLimitListSchema, description: "The limits now in force" },
       errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/rosettes/{tag}/limits/backtest": {
+    post: {
+      summary:
+        "What proposed rosette limits would have raised over [from, to) of stored readings, by the same evaluation as ingestion (faulty gauge readings skipped); nothing is stored",
+      notes: "`readingsChecked` counts the instants at which all three gauges have a reading.",
+      parameters: [codeParameter, rosetteTagParameter],
+      request: rosetteBacktestBody,
+      response: { status: 200, schema: backtestSchema, description: "The alert episodes the limits would have raised" },
+      errors: [400, 401, 404, 413, 415],
     },
   },
   "/structures/{code}/rosettes/{tag}/series": {

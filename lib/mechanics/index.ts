@@ -12,7 +12,7 @@ export * from "./gauge-config";
 export { prepareGauge, type Conversion, type ConversionResult, type GaugeConverter, type PrepareOptions } from "./convert";
 export type { GaugeConfigErrorCode, ReadingErrorCode } from "./errors";
 export type { Failure, Result } from "./result";
-export { Flag, flagWords, type FlagWord } from "./validity";
+export { Flag, flagWords, isOutOfRange, type FlagWord } from "./validity";
 export { MATERIALS, concreteModulus, normalWeightConcrete, type MaterialId } from "./materials";
 export {
   ROSETTE_LAYOUTS,

@@ -16,6 +16,11 @@ const WORD_OF_FLAG: readonly (readonly [number, FlagWord])[] = [
   [Flag.outOfRange, "out-of-range"],
 ];
 
+/** Past the gauge's rated range: the reading says nothing reliable about the structure. */
+export function isOutOfRange(flags: number): boolean {
+  return (flags & Flag.outOfRange) !== 0;
+}
+
 export function flagWords(flags: number): FlagWord[] {
   return WORD_OF_FLAG.filter(([bit]) => (flags & bit) !== 0).map(([, word]) => word);
 }

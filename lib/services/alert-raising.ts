@@ -1,27 +1,22 @@
-import { and, desc, eq, gt, inArray, isNull, lt, sql } from "drizzle-orm";
+import { and, eq, inArray, isNull, sql } from "drizzle-orm";
 import { bulkSql, type WriteTx } from "@/db/client";
 import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, type Alert, type Gauge } from "@/db/schema";
 import {
-  defaultHealthThresholds,
   evaluateGauge,
+  gaugeAlertSetup,
   initialGaugeEvaluationState,
   type EvaluatedReading,
+  type GaugeAlertSetup,
   type GaugeEvaluationState,
-  type QuantityEvent,
 } from "@/lib/alerting/evaluate-gauge";
 import type { EpisodeEvent, Limit, Quantity, RosetteLimitQuantity, SensorFinding } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
+import { checkpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
 import { limitOfRow } from "./limits";
 
 export type AlertCounts = { opened: number; escalated: number; cleared: number };
 
-/** A state saved after a batch, so a late reading can be evaluated from the state just before it. */
-type Checkpoint = { time: number; state: GaugeEvaluationState };
 type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
-
-const CHECKPOINT_SPACING_MS = 3_600_000;
-/** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
-const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
 
 /** What a gauge's evaluation starts from; loaded for every gauge of a request at once. */
 type GaugeContext = { limits: Limit[]; stored: StoredState; openStaleAlert: Alert | undefined };
@@ -46,17 +41,12 @@ async function loadContexts(tx: WriteTx, gaugeIds: number[]): Promise<Map<number
 }
 
 /** A gauge's state after a batch, and its checkpoint when an hour has passed since the last one. */
-type StateUpdate = { gaugeId: number; lastTime: number | null; stored: StoredState; checkpoint: Checkpoint | null };
+type StateUpdate = { gaugeId: number; lastTime: number | null; stored: StoredState; checkpoint: Checkpoint<GaugeEvaluationState> | null };
 
 function stateUpdate(gaugeId: number, stored: StoredState, state: GaugeEvaluationState): StateUpdate {
   const lastTime = state.health.lastTime;
-  const due = lastTime !== null && (stored.lastCheckpointAt === null || lastTime - stored.lastCheckpointAt >= CHECKPOINT_SPACING_MS);
-  return {
-    gaugeId,
-    lastTime,
-    stored: { current: state, lastCheckpointAt: due ? lastTime : stored.lastCheckpointAt },
-    checkpoint: due ? { time: lastTime, state } : null,
-  };
+  const { lastCheckpointAt, checkpoint } = nextCheckpoint(lastTime, stored.lastCheckpointAt, state);
+  return { gaugeId, lastTime, stored: { current: state, lastCheckpointAt }, checkpoint };
 }
 
 /** Saves every gauge's current state; checkpoints once an hour, kept three days, rather than a history each batch. */
@@ -66,28 +56,8 @@ async function saveStates(tx: WriteTx, updates: readonly StateUpdate[]) {
     .insert(evaluationStates)
     .values(updates.map(({ gaugeId, lastTime, stored }) => ({ gaugeId, lastTime, state: stored })))
     .onConflictDoUpdate({ target: evaluationStates.gaugeId, set: { lastTime: sql`excluded.last_time`, state: sql`excluded.state` } });
-  const checkpoints = updates.flatMap(({ gaugeId, checkpoint }) => (checkpoint ? [{ gaugeId, ...checkpoint }] : []));
-  if (checkpoints.length === 0) return;
-  await tx.insert(evaluationCheckpoints).values(checkpoints).onConflictDoNothing();
-  // One cut-off for all: the earliest keeps at least three days for every gauge.
-  const cutoff = Math.min(...checkpoints.map(({ time }) => time)) - CHECKPOINTS_KEPT_MS;
-  const gaugeIds = checkpoints.map(({ gaugeId }) => gaugeId);
-  await tx.delete(evaluationCheckpoints).where(and(inArray(evaluationCheckpoints.gaugeId, gaugeIds), lt(evaluationCheckpoints.time, cutoff)));
-}
-
-async function checkpointBefore(tx: WriteTx, gaugeId: number, time: number): Promise<Checkpoint | undefined> {
-  const [row] = await tx
-    .select()
-    .from(evaluationCheckpoints)
-    .where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), lt(evaluationCheckpoints.time, time)))
-    .orderBy(desc(evaluationCheckpoints.time))
-    .limit(1);
-  return row && { time: row.time, state: row.state as GaugeEvaluationState };
-}
-
-/** A replay rewrites what happened after its checkpoint, so later checkpoints no longer hold. */
-async function dropCheckpointsAfter(tx: WriteTx, gaugeId: number, time: number) {
-  await tx.delete(evaluationCheckpoints).where(and(eq(evaluationCheckpoints.gaugeId, gaugeId), gt(evaluationCheckpoints.time, time)));
+  const checkpoints = updates.flatMap(({ gaugeId, checkpoint }) => (checkpoint ? [{ ownerId: gaugeId, ...checkpoint }] : []));
+  await saveCheckpoints(tx, evaluationCheckpoints, checkpoints);
 }
 
 /** What a limit alert is about: a gauge's own quantity, or a rosette's (attached to its gauge a). */
@@ -96,28 +66,29 @@ export type AlertSubject = { gauge: Gauge; rosette: { id: number; tag: string } 
 /** An episode event of a gauge's or a rosette's quantity. */
 export type LimitEvent = EpisodeEvent & { quantity: Quantity | RosetteLimitQuantity };
 
-type AlertMatch = { kind: "limit"; quantity: string; rosetteId: number | null } | { kind: "sensor"; code: string };
+/** The alerts on one quantity of a subject; two rosettes may share gauge a, so a rosette's are told apart by the rosette as well. */
+function limitAlertsOf({ gauge, rosette }: AlertSubject, quantity: string) {
+  return and(eq(alerts.gaugeId, gauge.id), eq(alerts.quantity, quantity), rosette === null ? isNull(alerts.rosetteId) : eq(alerts.rosetteId, rosette.id));
+}
 
-async function openAlertOf(tx: WriteTx, gaugeId: number, match: AlertMatch) {
-  // two rosettes may share gauge a, so a rosette's alert is told apart by the rosette as well
-  const condition =
-    match.kind === "limit"
-      ? and(eq(alerts.quantity, match.quantity), match.rosetteId === null ? isNull(alerts.rosetteId) : eq(alerts.rosetteId, match.rosetteId))
-      : eq(alerts.code, match.code);
+async function openAlertWhere(tx: WriteTx, condition: ReturnType<typeof and>) {
   const [row] = await tx
     .select()
     .from(alerts)
-    .where(and(eq(alerts.gaugeId, gaugeId), eq(alerts.kind, match.kind), isNull(alerts.clearedAt), condition))
+    .where(and(isNull(alerts.clearedAt), condition))
     .limit(1);
   return row;
 }
 
-async function alreadyRecorded(tx: WriteTx, gaugeId: number, event: QuantityEvent): Promise<boolean> {
+const openSensorAlert = (tx: WriteTx, gaugeId: number, code: string) =>
+  openAlertWhere(tx, and(eq(alerts.gaugeId, gaugeId), eq(alerts.kind, "sensor"), eq(alerts.code, code)));
+
+async function alreadyRecorded(tx: WriteTx, subject: AlertSubject, event: LimitEvent): Promise<boolean> {
   const rows = await tx
     .select({ id: alertEvents.id })
     .from(alertEvents)
     .innerJoin(alerts, eq(alerts.id, alertEvents.alertId))
-    .where(and(eq(alerts.gaugeId, gaugeId), eq(alerts.quantity, event.quantity), eq(alertEvents.type, event.type), eq(alertEvents.at, new Date(event.time))))
+    .where(and(limitAlertsOf(subject, event.quantity), eq(alertEvents.type, event.type), eq(alertEvents.at, new Date(event.time))))
     .limit(1);
   return rows.length > 0;
 }
@@ -127,7 +98,26 @@ export type Notification =
   | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
   | { kind: "sensor"; alertId: number; type: "opened" | "cleared"; code: string; message: string; time: number };
 
-export async function applyLimitEvent(tx: WriteTx, { gauge, rosette }: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
+/**
+ * Records a subject's limit events in time order. A replay from a checkpoint meets again the events
+ * recorded since that checkpoint; those are left as they are rather than raised twice.
+ */
+export async function applyLimitEvents(
+  tx: WriteTx,
+  subject: AlertSubject,
+  events: readonly LimitEvent[],
+  replayed: boolean,
+  notifications: Notification[],
+  counts: AlertCounts,
+) {
+  for (const event of events) {
+    if (replayed && (await alreadyRecorded(tx, subject, event))) continue;
+    await applyLimitEvent(tx, subject, event, notifications, counts);
+  }
+}
+
+async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
+  const { gauge, rosette } = subject;
   const at = new Date(event.time);
   const rosetteId = rosette?.id ?? null;
   let alertId: number | undefined;
@@ -148,7 +138,7 @@ export async function applyLimitEvent(tx: WriteTx, { gauge, rosette }: AlertSubj
       .returning({ id: alerts.id });
     alertId = created!.id;
   } else {
-    const open = await openAlertOf(tx, gauge.id, { kind: "limit", quantity: event.quantity, rosetteId });
+    const open = await openAlertWhere(tx, and(eq(alerts.kind, "limit"), limitAlertsOf(subject, event.quantity)));
     if (!open) return;
     alertId = open.id;
     await tx
@@ -163,7 +153,7 @@ export async function applyLimitEvent(tx: WriteTx, { gauge, rosette }: AlertSubj
 
 async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
   const at = new Date(finding.time);
-  const open = await openAlertOf(tx, gauge.id, { kind: "sensor", code: finding.code });
+  const open = await openSensorAlert(tx, gauge.id, finding.code);
   if (finding.event === "resolved") {
     if (!open) return;
     await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
@@ -199,38 +189,45 @@ async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: number):
 /** A gauge and the readings this request stored for it. */
 export type InsertedReadings = { gauge: Gauge; readings: readonly EvaluatedReading[] };
 
+/** By gauge id, the times of readings the gauge's evaluation took as faults; gauges without any are absent. */
+export type FaultTimesByGauge = ReadonlyMap<number, ReadonlySet<number>>;
+
 /**
  * Evaluates each gauge's newly stored readings against its limits and sensor health, inside the
  * ingestion transaction, and records what opened, escalated or cleared. Readings older than a
  * gauge's last evaluated one are taken in by replaying from the checkpoint before them; events
- * recorded before are not raised twice.
+ * recorded before are not raised twice. Also answers which readings it took as faults (replayed
+ * ones included), for the rosettes on these gauges.
  */
-export async function evaluateInsertedReadings(tx: WriteTx, inserted: readonly InsertedReadings[]): Promise<AlertCounts> {
+export async function evaluateInsertedReadings(tx: WriteTx, inserted: readonly InsertedReadings[]): Promise<{ counts: AlertCounts; faultTimes: FaultTimesByGauge }> {
   const counts: AlertCounts = { opened: 0, escalated: 0, cleared: 0 };
+  const faultTimes = new Map<number, ReadonlySet<number>>();
   const batches = inserted.filter(({ readings }) => readings.length > 0);
-  if (batches.length === 0) return counts;
+  if (batches.length === 0) return { counts, faultTimes };
   const contexts = await loadContexts(tx, batches.map(({ gauge }) => gauge.id));
   const updates: StateUpdate[] = [];
   for (const { gauge, readings } of batches) {
-    updates.push(await evaluateGaugeReadings(tx, gauge, readings, contexts.get(gauge.id)!, counts));
+    const { update, faults } = await evaluateGaugeReadings(tx, gauge, readings, contexts.get(gauge.id)!, counts);
+    updates.push(update);
+    if (faults.length > 0) faultTimes.set(gauge.id, new Set(faults));
   }
   await saveStates(tx, updates);
-  return counts;
+  return { counts, faultTimes };
 }
 
 async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readonly EvaluatedReading[], context: GaugeContext, counts: AlertCounts) {
-  const setup = { limits: context.limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
+  const setup = gaugeAlertSetup(gauge, context.limits);
   const { stored } = context;
   const lastTime = stored.current.health.lastTime;
   const earliest = inserted.reduce((least, reading) => Math.min(least, reading.time), Infinity);
   const late = lastTime !== null && earliest <= lastTime;
-  const checkpoint = late ? await checkpointBefore(tx, gauge.id, earliest) : undefined;
+  const checkpoint = late ? await checkpointBefore<GaugeEvaluationState>(tx, evaluationCheckpoints, gauge.id, earliest) : undefined;
   if (!checkpoint) {
     // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
     const batch = [...inserted].sort((a, b) => a.time - b.time);
     return applyEvaluation(tx, gauge, setup, context, stored, batch, counts);
   }
-  await dropCheckpointsAfter(tx, gauge.id, checkpoint.time);
+  await dropCheckpointsAfter(tx, evaluationCheckpoints, gauge.id, checkpoint.time);
   const replayed = await storedReadingsAfter(tx, gauge.id, checkpoint.time);
   const fromCheckpoint = { current: checkpoint.state, lastCheckpointAt: checkpoint.time };
   return applyEvaluation(tx, gauge, setup, context, fromCheckpoint, replayed, counts, true);
@@ -239,23 +236,20 @@ async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readon
 async function applyEvaluation(
   tx: WriteTx,
   gauge: Gauge,
-  setup: Parameters<typeof evaluateGauge>[0],
+  setup: GaugeAlertSetup,
   context: GaugeContext,
   from: StoredState,
   batch: EvaluatedReading[],
   counts: AlertCounts,
   replayed = false,
-): Promise<StateUpdate> {
+): Promise<{ update: StateUpdate; faults: number[] }> {
   const notifications: Notification[] = [];
   const result = evaluateGauge(setup, from.current, batch);
-  for (const event of result.events) {
-    if (replayed && (await alreadyRecorded(tx, gauge.id, event))) continue;
-    await applyLimitEvent(tx, { gauge, rosette: null }, event, notifications, counts);
-  }
+  await applyLimitEvents(tx, { gauge, rosette: null }, result.events, replayed, notifications, counts);
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   if (batch.length > 0) await clearStaleAlert(tx, context.openStaleAlert, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
-  return stateUpdate(gauge.id, from, result.state);
+  return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes };
 }
 
 /** Raises (or resolves) one sensor finding found outside ingestion, such as a gauge gone silent. */

@@ -146,18 +146,17 @@ async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: reado
     total.escalated += counts.escalated;
     total.cleared += counts.cleared;
   };
-  add(
-    await evaluateInsertedReadings(
-      tx,
-      inserted.map((rows) => ({
-        gauge: target.gauges.get(rows.tag)!.row,
-        readings: rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! })),
-      })),
-    ),
+  const gauges = await evaluateInsertedReadings(
+    tx,
+    inserted.map((rows) => ({
+      gauge: target.gauges.get(rows.tag)!.row,
+      readings: rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! })),
+    })),
   );
+  add(gauges.counts);
   const gaugesById = new Map([...target.gauges.values()].map((entry) => [entry.id, entry.row]));
-  const spans = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, first: rows.time[0]!, last: rows.time.at(-1)! }));
-  add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, spans));
+  const times = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, times: rows.time }));
+  add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, times, gauges.faultTimes));
   return total;
 }
 

@@ -4,10 +4,10 @@ import { getDb, writeTransaction } from "@/db/client";
 import { gaugeLimits, readings, type Gauge } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { episodesOf, type AlertEpisode } from "@/lib/alerting/episodes";
-import { defaultHealthThresholds, evaluateGauge, initialGaugeEvaluationState } from "@/lib/alerting/evaluate-gauge";
+import { evaluateGauge, gaugeAlertSetup, initialGaugeEvaluationState, type EvaluatedReading } from "@/lib/alerting/evaluate-gauge";
 import type { limitsBody } from "@/lib/alerting/schema";
 import { AppError } from "@/lib/errors";
-import { validateLimits, type Limit, type LimitInput as ProposedLimit, type LimitSetValidation } from "@/lib/limits";
+import { validateLimits, type Limit, type LimitInput as ProposedLimit, type LimitSetValidation, type Quantity } from "@/lib/limits";
 import { recordAudit } from "./audit";
 import { resolveGauge } from "./gauges";
 
@@ -84,18 +84,23 @@ export async function replaceLimits(actor: Actor, code: string, tag: string, inp
   return limitsOfGauge(gauge.id);
 }
 
-export type BacktestResult = { from: number; to: number; readingsChecked: number; episodes: AlertEpisode[] };
+/** For a rosette, `readingsChecked` counts the instants at which all three gauges have a reading. */
+export type BacktestResult<Q extends string = Quantity> = { from: number; to: number; readingsChecked: number; episodes: AlertEpisode<Q>[] };
+
+/** A gauge's stored readings in [from, to), in time order, as its evaluation takes them. */
+export function storedReadingsBetween(gaugeId: number, from: number, to: number): Promise<EvaluatedReading[]> {
+  return getDb()
+    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
+    .from(readings)
+    .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, from), lt(readings.time, to)))
+    .orderBy(asc(readings.time));
+}
 
 /** What the proposed limits would have raised over a past period, by the same code as live ingestion. */
 export async function backtestLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[], from: number, to: number): Promise<BacktestResult> {
   const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
   const limits = checkedLimits(gauge, inputs);
-  const history = await getDb()
-    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
-    .from(readings)
-    .where(and(eq(readings.gaugeId, gauge.id), gte(readings.time, from), lt(readings.time, to)))
-    .orderBy(asc(readings.time));
-  const setup = { limits, yieldStress: gauge.material.yield ?? null, health: defaultHealthThresholds(gauge.input) };
-  const { events } = evaluateGauge(setup, initialGaugeEvaluationState(), history);
+  const history = await storedReadingsBetween(gauge.id, from, to);
+  const { events } = evaluateGauge(gaugeAlertSetup(gauge, limits), initialGaugeEvaluationState(), history);
   return { from, to, readingsChecked: history.length, episodes: episodesOf(events) };
 }

@@ -1,12 +1,16 @@
-import { asc, eq } from "drizzle-orm";
+import { asc, eq, inArray } from "drizzle-orm";
 import type { z } from "zod";
-import { getDb, writeTransaction } from "@/db/client";
-import { rosetteLimits } from "@/db/schema";
+import { getClient, getDb, writeTransaction } from "@/db/client";
+import { gauges, rosetteLimits, type Gauge } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { episodesOf } from "@/lib/alerting/episodes";
+import { evaluateGauge, gaugeAlertSetup, initialGaugeEvaluationState } from "@/lib/alerting/evaluate-gauge";
+import { evaluateRosette, initialRosetteEvaluationState, type FaultTimesOfGauges } from "@/lib/alerting/evaluate-rosette";
 import type { rosetteLimitsBody } from "@/lib/alerting/schema";
 import type { Limit, RosetteLimitQuantity } from "@/lib/limits";
 import { recordAudit } from "./audit";
-import { limitOfRow, validLimitsOrRefuse } from "./limits";
+import { limitOfRow, storedReadingsBetween, validLimitsOrRefuse, type BacktestResult } from "./limits";
+import { MATCHED_STRAINS, matchedInstantOf, matchedStrainsArgs } from "./rosette-series";
 import { resolveRosette } from "./rosettes";
 
 type RosetteLimitInput = z.output<typeof rosetteLimitsBody>["limits"][number];
@@ -58,4 +62,34 @@ export async function replaceRosetteLimits(actor: Actor, code: string, tag: stri
     });
   });
   return limitsOfRosette(rosette.id);
+}
+
+/**
+ * What the proposed limits would have raised over a past period, by the same code as live
+ * ingestion: each gauge's sensor health over its stored readings (faults do not depend on limits,
+ * so none are given), then the rosette's evaluation of the matched instants with those faults.
+ */
+export async function backtestRosetteLimits(
+  actor: Actor,
+  code: string,
+  tag: string,
+  inputs: RosetteLimitInput[],
+  from: number,
+  to: number,
+): Promise<BacktestResult<RosetteLimitQuantity>> {
+  const { rosette } = await resolveRosette(actor, code, tag, "structure:view");
+  const limits = validLimitsOrRefuse(inputs);
+  const rows = await getDb().select().from(gauges).where(inArray(gauges.id, [rosette.gaugeAId, rosette.gaugeBId, rosette.gaugeCId]));
+  const gaugeOf = (id: number) => rows.find((gauge) => gauge.id === id)!;
+  const sensorFaults = async (gauge: Gauge) => {
+    const history = await storedReadingsBetween(gauge.id, from, to);
+    return new Set(evaluateGauge(gaugeAlertSetup(gauge, []), initialGaugeEvaluationState(), history).faultTimes);
+  };
+  const gaugeA = gaugeOf(rosette.gaugeAId);
+  const faultTimes: FaultTimesOfGauges = [await sensorFaults(gaugeA), await sensorFaults(gaugeOf(rosette.gaugeBId)), await sensorFaults(gaugeOf(rosette.gaugeCId))];
+  const matched = await getClient().execute({ sql: MATCHED_STRAINS, args: matchedStrainsArgs(rosette, from, to) });
+  const instants = matched.rows.map(matchedInstantOf);
+  const setup = { layout: rosette.layout, material: gaugeA.material, limits };
+  const { events } = evaluateRosette(setup, initialRosetteEvaluationState(), instants, faultTimes);
+  return { from, to, readingsChecked: instants.length, episodes: episodesOf(events) };
 }

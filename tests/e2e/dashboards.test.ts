@@ -375,6 +375,21 @@ describe("units preference", () => {
   });
 });
 
+describe("the rosette page's limits editor", () => {
+  it("backtests a proposed von Mises bound against the stored instants", async () => {
+    await engineer.goto("/structures/MILL-FB/rosettes/R1");
+    await engineer.getByRole("button", { name: "Add a limit" }).click();
+    await engineer.getByLabel("Upper bound, limit 1").fill("1");
+    await engineer.getByLabel("Over the last").selectOption("90");
+    await engineer.getByRole("button", { name: "Check against stored data" }).click();
+    const result = engineer.getByTestId("backtest-result");
+    await result.getByText(/alert episode/).waitFor();
+    // Any stress state but zero has a von Mises stress above 1 MPa, so the demo's instants raise an episode.
+    await expect(result.textContent()).resolves.toMatch(/over [\d,]+ instants with a reading of all three gauges/);
+    await expect(result.textContent()).resolves.toMatch(/watch on vonMises/);
+  });
+});
+
 describe("screenshots of the main pages", () => {
   it("saves the overview, structure, gauge, alerts, compare and rosette pages", async () => {
     const pages: [string, string, string][] = [

@@ -51,7 +51,7 @@ async function ingest(stresses: number[], startIndex: number) {
   }));
   return writeTransaction(async (tx) => {
     await tx.insert(readings).values(rows.map((r) => ({ gaugeId: gauge.id, time: r.time, value: r.raw, temperature: 10, strain: r.strain, stress: r.stress, flags: 0 })));
-    return evaluateInsertedReadings(tx, [{ gauge, readings: rows }]);
+    return (await evaluateInsertedReadings(tx, [{ gauge, readings: rows }])).counts;
   });
 }
 

@@ -29,14 +29,18 @@ describe("one gauge's alert evaluation", () => {
 
   it("does not raise a structural alert on a reading outside the sensor's rated range", () => {
     const history = [reading(0, 50), reading(1, 300, Flag.outOfRange | Flag.outsideLinearRange), reading(2, 60)];
-    expect(evaluateGauge(setup, initialGaugeEvaluationState(), history).events).toEqual([]);
+    const { events, faultTimes } = evaluateGauge(setup, initialGaugeEvaluationState(), history);
+    expect(events).toEqual([]);
+    expect(faultTimes).toEqual([10 * MINUTE]);
   });
 
   it("tells a stuck channel from a structural event: a flat raw line is a sensor finding", () => {
     const stuck = Array.from({ length: 40 }, (_, i) => ({ ...reading(i, 20), raw: 1.234 }));
-    const { findings, events } = evaluateGauge(setup, initialGaugeEvaluationState(), stuck);
+    const { findings, events, faultTimes } = evaluateGauge(setup, initialGaugeEvaluationState(), stuck);
     expect(findings.map((f) => [f.code, f.event])).toEqual([["flat-line", "raised"]]);
     expect(events).toEqual([]);
+    // 36 identical raw values make a flat line (defaultHealthThresholds): readings 35 to 39 are faults.
+    expect(faultTimes).toEqual([35, 36, 37, 38, 39].map((i) => i * 10 * MINUTE));
   });
 
   it("gives the same events whether readings arrive in one batch or several", () => {

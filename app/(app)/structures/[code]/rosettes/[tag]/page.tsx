@@ -54,8 +54,8 @@ export default async function RosettePage({ params }: Props) {
           Limits
         </h2>
         <p className="mb-3 text-sm text-slate-600 dark:text-slate-400">
-          {canEdit ? "Set by the monitoring engineer." : "Only engineers change limits."} Checked on ingest at the instants all three gauges have a reading; an
-          instant completed after later ones were evaluated is not checked.
+          {canEdit ? "Set by the monitoring engineer." : "Only engineers change limits."} Checked on ingest at the instants all three gauges have a reading,
+          including instants completed late (up to three days); an instant with a faulty gauge reading is skipped.
         </p>
         <LimitsEditor
           structureCode={code}
