@@ -23,10 +23,12 @@ const TIME_BEFORE_EPOCH = failure("invalid-time", "The time is before 1970-01-01
  * `zone` null such times are refused.
  */
 export function parseReadingTime(text: string, zone: string | null): number | Failure<"invalid-time"> {
+  const utc = canonicalUtc(text);
+  if (utc !== undefined) return utc === null ? INVALID_TIME : utc < 0 ? TIME_BEFORE_EPOCH : utc;
   const match = ISO_TIME.exec(text.trim());
   if (!match) return INVALID_TIME;
   const [, year, month, day, hour, minute, second = "0", fraction = "", offset] = match;
-  const wall = wallClock(+year!, +month!, +day!, +hour!, +minute!, +second, fraction);
+  const wall = wallClock(+year!, +month!, +day!, +hour!, +minute!, +second, Number(fraction.slice(0, 3).padEnd(3, "0")));
   if (wall === null) return INVALID_TIME;
   let time: number;
   if (offset !== undefined) {
@@ -52,11 +54,40 @@ function daysInMonth(year: number, month: number): number {
  * The wall-clock fields as if they were UTC, or null when a field is out of range (31 February).
  * Checked by arithmetic rather than through a Date: this runs once per reading.
  */
-function wallClock(year: number, month: number, day: number, hour: number, minute: number, second: number, fraction: string) {
+function wallClock(year: number, month: number, day: number, hour: number, minute: number, second: number, ms: number) {
   // Date.UTC maps years 0–99 to 1900–1999.
   if (year < 100 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) return null;
-  const ms = Number(fraction.slice(0, 3).padEnd(3, "0"));
   return Date.UTC(year, month - 1, day, hour, minute, second, ms);
+}
+
+/** The number the `count` digits of `text` from `from` spell, or -1 if one of them is not a digit. */
+function digitsAt(text: string, from: number, count: number): number {
+  let value = 0;
+  for (let i = from; i < from + count; i++) {
+    const digit = text.charCodeAt(i) - 48;
+    if (digit < 0 || digit > 9) return -1;
+    value = value * 10 + digit;
+  }
+  return value;
+}
+
+/**
+ * The form loggers send most, "2026-03-01T12:00:00Z" with up to three digits of fraction, read
+ * character by character: it runs once per reading, and the general pattern costs several times
+ * more. Epoch ms, null for a day or time that does not exist, undefined for any other form (the
+ * general pattern decides those).
+ */
+function canonicalUtc(text: string): number | null | undefined {
+  const { length } = text;
+  if (length !== 20 && (length < 22 || length > 24)) return undefined;
+  if (text[4] !== "-" || text[7] !== "-" || text[10] !== "T" || text[13] !== ":" || text[16] !== ":" || text[length - 1] !== "Z") return undefined;
+  const digits = length - 21;
+  if (length > 20 && text[19] !== ".") return undefined;
+  const fraction = length > 20 ? digitsAt(text, 20, digits) : 0;
+  const fields = [digitsAt(text, 0, 4), digitsAt(text, 5, 2), digitsAt(text, 8, 2), digitsAt(text, 11, 2), digitsAt(text, 14, 2), digitsAt(text, 17, 2), fraction];
+  if (fields.some((field) => field < 0)) return undefined;
+  const [year, month, day, hour, minute, second] = fields as [number, number, number, number, number, number];
+  return wallClock(year, month, day, hour, minute, second, length > 20 ? fraction * 10 ** (3 - digits) : 0);
 }
 
 function parseOffset(offset: string): number | null {

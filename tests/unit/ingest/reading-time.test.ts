@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { parseReadingTime } from "@/lib/ingest/reading-time";
 
@@ -35,6 +36,20 @@ describe("reading times", () => {
     // 31 December and 30 April exist.
     expect(parseReadingTime("2026-12-31T23:59:59Z", null)).toBe(utc(2026, 11, 31, 23, 59, 59));
     expect(parseReadingTime("2026-04-30T00:00:00Z", null)).toBe(utc(2026, 3, 30, 0, 0));
+  });
+
+  it("reads the common UTC form exactly as ECMAScript's Date.parse and as the same time with a +00:00 offset", () => {
+    // Reference: the ECMAScript date-time string format (ECMA-262 §21.4.1.32), which Date.parse reads for this form.
+    const instants = fc.integer({ min: Date.UTC(1970, 0, 1), max: Date.UTC(2199, 11, 31, 23, 59, 59, 999) });
+    fc.assert(
+      fc.property(instants, fc.integer({ min: 0, max: 3 }), (instant, fractionDigits) => {
+        const iso = new Date(instant).toISOString();
+        const text = fractionDigits === 0 ? iso.slice(0, 19) + "Z" : iso.slice(0, 20 + fractionDigits) + "Z";
+        const expected = Date.parse(text);
+        expect(parseReadingTime(text, null)).toBe(expected);
+        expect(parseReadingTime(text.replace("Z", "+00:00"), null)).toBe(expected);
+      }),
+    );
   });
 
   it("asks for an offset when no zone may be assumed", () => {
