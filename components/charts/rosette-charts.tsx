@@ -3,61 +3,72 @@
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 import { useUnits } from "@/components/units/units-context";
-import { buttonClass, cardClass } from "@/components/ui/styles";
+import { buttonClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
-import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
-import { inDisplayUnits, type DisplayUnit } from "@/lib/units";
-import { UplotChart, timeChartOptions } from "./uplot-chart";
+import { limitLines, ROSETTE_LIMIT_QUANTITIES, type Limit, type RosetteLimitQuantity } from "@/lib/limits";
+import type { SeriesAnswer } from "@/lib/series/chart-data";
+import { inDisplayUnits } from "@/lib/units";
+import { EnvelopeChart, type TimeRange } from "./envelope-chart";
 
 const DAY = 86_400_000;
-const QUANTITIES = [
-  ["sigma1", "Principal stress σ1"],
-  ["sigma2", "Principal stress σ2"],
-  ["vonMises", "von Mises stress"],
-  ["theta", "Principal angle θ (gauge a to σ1)"],
-] as const;
+const POINTS = 800;
+const NO_LIMITS: readonly Limit<string>[] = [];
 
-function RosetteChart({ url, title, isAngle, timeZone }: { url: string; title: string; isAngle: boolean; timeZone: string }) {
+type ChartedQuantity = RosetteLimitQuantity | "theta";
+const TITLE: Record<ChartedQuantity, string> = {
+  sigma1: "Principal stress σ1",
+  sigma2: "Principal stress σ2",
+  vonMises: "von Mises stress",
+  theta: "Principal angle θ (gauge a to σ1)",
+};
+const CHARTED: readonly ChartedQuantity[] = ["sigma1", "sigma2", "vonMises", "theta"];
+/** The principal angle is shown as computed, in degrees, whatever the person's unit system. */
+const AS_ANGLE = { unit: "°", toDisplay: (degrees: number) => degrees } as const;
+
+/** One quantity of a rosette over a range, computed on request from its three gauges, with the bounds of any limits on it. */
+function RosetteChart({
+  structureCode,
+  tag,
+  quantity,
+  range,
+  timeZone,
+  limits = NO_LIMITS,
+}: {
+  structureCode: string;
+  tag: string;
+  quantity: ChartedQuantity;
+  range: TimeRange;
+  timeZone: string;
+  limits?: readonly Limit<string>[];
+}) {
   const units = useUnits();
+  const url =
+    `/api/v1/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(tag)}/series` +
+    `?quantity=${quantity}&points=${POINTS}&from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}`;
   const { data, error } = useSWR<SeriesAnswer>(url, fetchJson, { refreshInterval: 60_000 });
-  const unit: DisplayUnit = isAngle ? "°" : inDisplayUnits(units, "stress", 0).unit;
-  const columns = useMemo(() => (data ? chartColumns(data, (v) => (isAngle ? v : inDisplayUnits(units, "stress", v).value)) : null), [data, units, isAngle]);
-  const options = useMemo(
-    () =>
-      timeChartOptions(timeZone, unit, {
-        valueAxis: { label: `${title} (${unit})`, size: 70 },
-        series: [
-          { label: "min", stroke: "#7aa7ad", points: { show: false } },
-          { label: "max", stroke: "#7aa7ad", points: { show: false } },
-          { label: "mean", stroke: "#17565d", width: 1.5, points: { show: false } },
-        ],
-        bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
-      }),
-    [title, unit, timeZone],
+  const display = useMemo(
+    () => (quantity === "theta" ? AS_ANGLE : { unit: inDisplayUnits(units, "stress", 0).unit, toDisplay: (mpa: number) => inDisplayUnits(units, "stress", mpa).value }),
+    [units, quantity],
   );
+  const lines = useMemo(() => limitLines(limits, quantity, display.toDisplay), [limits, quantity, display]);
   return (
-    <section className={`${cardClass} p-3`}>
-      <h3 className="mb-1 text-sm font-semibold">
-        {title} <span className="font-normal text-slate-500">({unit})</span>
-      </h3>
-      {error ? (
-        <p className="p-6 text-sm text-critical">{error.message}</p>
-      ) : !columns ? (
-        <div className="h-60 animate-pulse rounded bg-slate-100 dark:bg-slate-800" />
-      ) : columns[0].length === 0 ? (
-        <p className="p-6 text-sm text-slate-600">No readings of all three gauges at the same time in this period.</p>
-      ) : (
-        <UplotChart options={options} data={columns} label={`${title} over time`} />
-      )}
-    </section>
+    <EnvelopeChart
+      title={TITLE[quantity]}
+      answer={data}
+      error={error}
+      unit={display.unit}
+      toDisplay={display.toDisplay}
+      timeZone={timeZone}
+      empty="No instants with a reading of all three gauges in this period."
+      lines={lines}
+    />
   );
 }
 
 /** The plane stress state at a rosette over time: principal stresses, von Mises and principal angle. */
 export function RosetteCharts({ structureCode, tag, end, timeZone }: { structureCode: string; tag: string; end: number; timeZone: string }) {
   const [days, setDays] = useState(7);
-  const range = `from=${new Date(end - days * DAY).toISOString()}&to=${new Date(end).toISOString()}`;
-  const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(tag)}/series?points=800&${range}`;
+  const range = { from: end - days * DAY, to: end };
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap gap-2">
@@ -67,9 +78,42 @@ export function RosetteCharts({ structureCode, tag, end, timeZone }: { structure
           </button>
         ))}
       </div>
-      {QUANTITIES.map(([quantity, title]) => (
-        <RosetteChart key={quantity} url={`${base}&quantity=${quantity}`} title={title} isAngle={quantity === "theta"} timeZone={timeZone} />
+      {CHARTED.map((quantity) => (
+        <RosetteChart key={quantity} structureCode={structureCode} tag={tag} quantity={quantity} range={range} timeZone={timeZone} />
       ))}
+    </div>
+  );
+}
+
+/**
+ * Proposed rosette limits drawn on one of the quantities they may bound, for the limits editor:
+ * the quantity of the first bound typed, until the engineer picks another.
+ */
+export function RosetteLimitChart({
+  structureCode,
+  tag,
+  range,
+  timeZone,
+  limits,
+}: {
+  structureCode: string;
+  tag: string;
+  range: TimeRange;
+  timeZone: string;
+  limits: readonly Limit<string>[];
+}) {
+  const [chosen, setChosen] = useState<RosetteLimitQuantity | null>(null);
+  const shown = chosen ?? ROSETTE_LIMIT_QUANTITIES.find((quantity) => quantity === limits[0]?.quantity) ?? ROSETTE_LIMIT_QUANTITIES[0];
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap gap-2" role="group" aria-label="Quantity charted">
+        {ROSETTE_LIMIT_QUANTITIES.map((quantity) => (
+          <button key={quantity} type="button" aria-pressed={quantity === shown} className={buttonClass(quantity === shown ? "primary" : "secondary")} onClick={() => setChosen(quantity)}>
+            {TITLE[quantity]}
+          </button>
+        ))}
+      </div>
+      <RosetteChart structureCode={structureCode} tag={tag} quantity={shown} range={range} timeZone={timeZone} limits={limits} />
     </div>
   );
 }

@@ -1,12 +1,13 @@
 "use client";
 
-import { useState, useTransition } from "react";
+import { useMemo, useState, useTransition } from "react";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import type { ActionState } from "@/lib/actions/action-state";
 import type { AlertEpisode } from "@/lib/alerting/episodes";
 import { LEVELS, type Limit } from "@/lib/limits";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
+import { RosetteLimitChart } from "@/components/charts/rosette-charts";
 
 /** A gauge's quantities and their units; a rosette passes its own. */
 export const GAUGE_QUANTITY_UNITS: Readonly<Record<string, string>> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
@@ -41,13 +42,13 @@ const payloadOf = (rows: Row[]) => ({
 });
 
 /** The bounds as typed so far, for drawing: rows that are not numbers yet are left out. */
-function proposedLimits(rows: Row[]): Limit[] {
+function proposedLimits(rows: Row[]): Limit<string>[] {
   return rows.flatMap((row) => {
     const upper = Number(row.upper);
     const lower = Number(row.lower);
     const bounds = { ...(row.upper.trim() && Number.isFinite(upper) ? { upper } : {}), ...(row.lower.trim() && Number.isFinite(lower) ? { lower } : {}) };
     if (Object.keys(bounds).length === 0) return [];
-    return [{ quantity: row.quantity as Limit["quantity"], level: row.level as Limit["level"], hysteresis: 0, persistence: 1, ...bounds }];
+    return [{ quantity: row.quantity, level: row.level as Limit["level"], hysteresis: 0, persistence: 1, ...bounds }];
   });
 }
 
@@ -55,7 +56,7 @@ type Backtest = { readingsChecked: number; episodes: AlertEpisode<string>[] } | 
 
 /**
  * The engineer's limit set, with a check of what the limits would have raised before they are
- * saved. For a gauge, also its chart with the bounds drawn; a rosette's charts are on its page.
+ * saved, and the last 30 days charted with the bounds as typed drawn across them.
  */
 export function LimitsEditor({
   structureCode,
@@ -67,6 +68,7 @@ export function LimitsEditor({
   quantities = GAUGE_QUANTITY_UNITS,
   unitsNote = "Bounds in the quantity's unit: stress MPa (including the initial stress), strain µε, utilisation as a fraction of yield (0.6 = 60 %).",
   gauge,
+  rosette,
 }: {
   structureCode: string;
   tag: string;
@@ -83,6 +85,10 @@ export function LimitsEditor({
     /** The last reading's time, or null when the gauge has none yet. */
     lastReading: number | null;
   };
+  rosette?: {
+    /** Where its 30 days end: the last reading of its gauges. */
+    end: number;
+  };
 }) {
   const names = Object.keys(quantities);
   const [rows, setRows] = useState<Row[]>(initial.map(rowOf));
@@ -90,6 +96,8 @@ export function LimitsEditor({
   const [days, setDays] = useState("30");
   const [backtest, setBacktest] = useState<Backtest | null>(null);
   const [pending, startTransition] = useTransition();
+  // Kept while the rows are unchanged, so a chart is not built again on every other state change.
+  const drawn = useMemo(() => proposedLimits(rows), [rows]);
   const errors = state.fieldErrors ?? {};
   const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
 
@@ -110,6 +118,23 @@ export function LimitsEditor({
   function submit() {
     startTransition(async () => setState(await save(payloadOf(rows))));
   }
+
+  const chart = gauge
+    ? gauge.lastReading !== null && (
+        <GaugeCharts
+          structureCode={structureCode}
+          tag={tag}
+          timeZone={timeZone}
+          limits={drawn}
+          yieldStress={gauge.yieldStress}
+          episodes={[]}
+          events={[]}
+          end={gauge.lastReading}
+          initialRange={{ from: gauge.lastReading - 30 * DAY, to: gauge.lastReading }}
+          compact
+        />
+      )
+    : rosette && <RosetteLimitChart structureCode={structureCode} tag={tag} timeZone={timeZone} limits={drawn} range={{ from: rosette.end - 30 * DAY, to: rosette.end }} />;
 
   const cell = (index: number, field: keyof Row, label: string) => {
     const problem = errors[`limits.${index}.${field}`];
@@ -205,21 +230,10 @@ export function LimitsEditor({
           <FormMessage state={state} />
         </div>
       )}
-      {gauge && gauge.lastReading !== null && (
+      {chart && (
         <section aria-label="The last 30 days with these bounds">
           <h2 className="mb-2 font-semibold">The last 30 days with these bounds</h2>
-          <GaugeCharts
-            structureCode={structureCode}
-            tag={tag}
-            timeZone={timeZone}
-            limits={proposedLimits(rows)}
-            yieldStress={gauge.yieldStress}
-            episodes={[]}
-            events={[]}
-            end={gauge.lastReading}
-            initialRange={{ from: gauge.lastReading - 30 * DAY, to: gauge.lastReading }}
-            compact
-          />
+          {chart}
         </section>
       )}
       <section className={`${cardClass} space-y-3 p-4`} aria-labelledby="backtest-heading">

@@ -66,6 +66,7 @@ export default async function RosettePage({ params }: Props) {
           save={saveRosetteLimitsAction.bind(null, code, tag)}
           quantities={ROSETTE_QUANTITY_UNITS}
           unitsNote="Bounds in MPa: von Mises stress, and the principal stresses σ₁ (the larger) and σ₂."
+          rosette={{ end }}
         />
       </section>
       <div className="mt-6">

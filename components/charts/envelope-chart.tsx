@@ -1,0 +1,146 @@
+"use client";
+
+import { useMemo } from "react";
+import type uPlot from "uplot";
+import { cardClass } from "@/components/ui/styles";
+import { rangeWithLines, type LimitLine } from "@/lib/limits";
+import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
+import type { DisplayUnit } from "@/lib/units";
+import { UplotChart, timeChartOptions } from "./uplot-chart";
+
+const LEVEL_COLOUR: Record<string, string> = { watch: "#8a6d00", warning: "#b45309", critical: "#b42318" };
+const NONE: readonly never[] = [];
+
+export type ChartEvent = { time: number; label: string };
+export type ChartEpisode = { openedAt: number; clearedAt: number | null; level: string };
+export type TimeRange = { from: number; to: number };
+
+/**
+ * Limit lines, alert episodes and events, drawn on the canvas after the series. The lines actually
+ * stroked are listed in `data-limit-lines` (canvas pixel row included), so tests and assistive
+ * tooling can tell which limits are in view without reading pixels blindly.
+ */
+function drawOverlays(chart: uPlot, lines: readonly LimitLine[], episodes: readonly ChartEpisode[], events: readonly ChartEvent[]) {
+  const { ctx, bbox } = chart;
+  const drawn: { level: string; text: string; value: number; y: number }[] = [];
+  ctx.save();
+  for (const episode of episodes) {
+    const left = Math.max(bbox.left, chart.valToPos(episode.openedAt / 1000, "x", true));
+    const right = Math.min(bbox.left + bbox.width, chart.valToPos((episode.clearedAt ?? Date.now()) / 1000, "x", true));
+    if (right <= left) continue;
+    ctx.fillStyle = `${LEVEL_COLOUR[episode.level] ?? "#8a6d00"}22`;
+    ctx.fillRect(left, bbox.top, Math.max(2, right - left), bbox.height);
+  }
+  ctx.font = `${11 * devicePixelRatio}px sans-serif`;
+  for (const line of lines) {
+    const y = chart.valToPos(line.value, "y", true);
+    if (y < bbox.top || y > bbox.top + bbox.height) continue;
+    ctx.strokeStyle = LEVEL_COLOUR[line.level] ?? "#444";
+    ctx.fillStyle = ctx.strokeStyle;
+    ctx.setLineDash([6 * devicePixelRatio, 4 * devicePixelRatio]);
+    ctx.lineWidth = 1.5 * devicePixelRatio;
+    ctx.beginPath();
+    ctx.moveTo(bbox.left, y);
+    ctx.lineTo(bbox.left + bbox.width, y);
+    ctx.stroke();
+    ctx.fillText(line.text, bbox.left + 4, y - 4);
+    drawn.push({ level: line.level, text: line.text, value: line.value, y: Math.round(y) });
+  }
+  chart.root.dataset.limitLines = JSON.stringify(drawn);
+  ctx.setLineDash([2 * devicePixelRatio, 3 * devicePixelRatio]);
+  ctx.strokeStyle = "#1f6f78";
+  ctx.fillStyle = "#1f6f78";
+  for (const event of events) {
+    const x = chart.valToPos(event.time / 1000, "x", true);
+    if (x < bbox.left || x > bbox.left + bbox.width) continue;
+    ctx.beginPath();
+    ctx.moveTo(x, bbox.top);
+    ctx.lineTo(x, bbox.top + bbox.height);
+    ctx.stroke();
+    ctx.fillText(event.label, x + 3, bbox.top + 12 * devicePixelRatio);
+  }
+  ctx.restore();
+}
+
+/**
+ * One quantity of a series answer over time: the min/max envelope of each interval, so a spike
+ * always shows, its mean, and any limit lines, alert episodes and events. With `onZoom`, dragging
+ * across the chart hands the chosen range back instead of zooming into the data already fetched.
+ */
+export function EnvelopeChart({
+  title,
+  answer,
+  error,
+  unit,
+  toDisplay,
+  timeZone,
+  empty,
+  lines = NONE,
+  episodes = NONE,
+  events = NONE,
+  onZoom,
+  onCreate,
+}: {
+  title: string;
+  answer: SeriesAnswer | undefined;
+  error: Error | undefined;
+  unit: DisplayUnit;
+  /** From the series' stored unit to `unit`. */
+  toDisplay: (value: number) => number;
+  timeZone: string;
+  /** What to say when the answer holds no interval. */
+  empty: string;
+  lines?: readonly LimitLine[];
+  episodes?: readonly ChartEpisode[];
+  events?: readonly ChartEvent[];
+  onZoom?: (range: TimeRange) => void;
+  onCreate?: (chart: uPlot) => void;
+}) {
+  const data = useMemo(() => (answer ? chartColumns(answer, toDisplay) : null), [answer, toDisplay]);
+  const options = useMemo(
+    () =>
+      timeChartOptions(timeZone, unit, {
+        cursor: { drag: { x: true, y: false } },
+        legend: { show: true },
+        scales: { y: { range: (_chart, min, max) => rangeWithLines(min, max, lines) } },
+        valueAxis: { label: `${title} (${unit})`, size: 70 },
+        series: [
+          { label: "min", stroke: "#7aa7ad", width: 1, points: { show: false } },
+          { label: "max", stroke: "#7aa7ad", width: 1, points: { show: false } },
+          { label: "mean", stroke: "#17565d", width: 1.5, points: { show: false } },
+        ],
+        bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
+        hooks: {
+          draw: [(chart) => drawOverlays(chart, lines, episodes, events)],
+          setSelect: onZoom
+            ? [
+                (chart) => {
+                  if (chart.select.width < 5) return;
+                  const from = chart.posToVal(chart.select.left, "x") * 1000;
+                  const to = chart.posToVal(chart.select.left + chart.select.width, "x") * 1000;
+                  chart.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
+                  onZoom({ from: Math.round(from), to: Math.round(to) });
+                },
+              ]
+            : [],
+        },
+      }),
+    [title, lines, episodes, events, unit, timeZone, onZoom],
+  );
+  return (
+    <section className={`${cardClass} p-3`} aria-label={`${title} chart`}>
+      <h3 className="mb-1 text-sm font-semibold">
+        {title} <span className="font-normal text-slate-500">({unit}; band = min to max in each interval, line = mean)</span>
+      </h3>
+      {error ? (
+        <p className="p-6 text-sm text-critical">{error.message}</p>
+      ) : !data ? (
+        <div className="h-60 animate-pulse rounded bg-slate-100 dark:bg-slate-800" aria-label="Loading" />
+      ) : data[0].length === 0 ? (
+        <p className="p-6 text-sm text-slate-600">{empty}</p>
+      ) : (
+        <UplotChart options={options} data={data} label={`${title} over time`} onCreate={onCreate} />
+      )}
+    </section>
+  );
+}
