@@ -75,10 +75,8 @@ class GaugeChartsPage {
     await this.page.getByRole("button", { name: label, exact: true }).click();
     return (await fetched).json();
   }
-  /** The limit lines the chart drew on its canvas, as the draw hook lists them. */
-  async limitLines(title: string): Promise<{ level: string; value: number; y: number }[]> {
-    const attribute = this.chart(title).locator("[data-limit-lines]");
-    return JSON.parse((await attribute.getAttribute("data-limit-lines")) ?? "[]");
+  limitLines(title: string) {
+    return drawnLimitLines(this.chart(title));
   }
   dragZoom(title: string) {
     return dragAcrossChart(this.page, this.chart(title));
@@ -91,6 +89,12 @@ class GaugeChartsPage {
     const value = (label: string) => this.chart(title).locator(".u-legend .u-series").filter({ hasText: label }).locator(".u-value").textContent();
     return { time: (await value("Time"))!, mean: (await value("mean"))! };
   }
+}
+
+/** The limit lines a chart drew on its canvas, as the draw hook lists them. */
+async function drawnLimitLines(chart: Locator): Promise<{ level: string; value: number; y: number }[]> {
+  const attribute = chart.locator("[data-limit-lines]");
+  return JSON.parse((await attribute.getAttribute("data-limit-lines")) ?? "[]");
 }
 
 /** The text uPlot draws on each canvas of the page, kept on the canvas element as `drawnText`: axis labels have no DOM of their own. */
@@ -127,7 +131,7 @@ function canvasPixels(canvas: Locator, row: number | null, rgb: [number, number,
 }
 
 const hex = (colour: string): [number, number, number] => [1, 3, 5].map((i) => parseInt(colour.slice(i, i + 2), 16)) as [number, number, number];
-/** The colours the chart strokes limit levels with (components/charts/gauge-charts.tsx). */
+/** The colours the chart strokes limit levels with (components/charts/envelope-chart.tsx). */
 const LEVEL_RGB: Record<string, [number, number, number]> = { watch: hex("#8a6d00"), warning: hex("#b45309"), critical: hex("#b42318") };
 
 /** Every reading of a range through the JSON listing, page by page. */
@@ -376,7 +380,7 @@ describe("units preference", () => {
 });
 
 describe("the rosette page's limits editor", () => {
-  it("backtests a proposed von Mises bound against the stored instants", async () => {
+  it("backtests a proposed von Mises bound against the stored instants and draws it on the rosette's last 30 days", async () => {
     await engineer.goto("/structures/MILL-FB/rosettes/R1");
     await engineer.getByRole("button", { name: "Add a limit" }).click();
     await engineer.getByLabel("Upper bound, limit 1").fill("1");
@@ -387,6 +391,24 @@ describe("the rosette page's limits editor", () => {
     // Any stress state but zero has a von Mises stress above 1 MPa, so the demo's instants raise an episode.
     await expect(result.textContent()).resolves.toMatch(/over [\d,]+ instants with a reading of all three gauges/);
     await expect(result.textContent()).resolves.toMatch(/watch on vonMises/);
+
+    // The bound is charted on the quantity it bounds, in MPa (the engineer reads SI units here).
+    const proposed = engineer.getByRole("region", { name: "The last 30 days with these bounds" });
+    const vonMises = proposed.getByRole("region", { name: "von Mises stress chart" });
+    const canvas = vonMises.locator("canvas");
+    await canvas.waitFor();
+    await expect.poll(() => drawnLimitLines(vonMises)).toEqual([expect.objectContaining({ level: "watch", value: 1 })]);
+    const [line] = await drawnLimitLines(vonMises);
+    const drawn = await canvasPixels(canvas, null, null);
+    // The dashed line (6 on, 4 off) covers about 60 % of the plot's row in its level's colour.
+    const rows = await Promise.all([line!.y - 1, line!.y, line!.y + 1].map((row) => canvasPixels(canvas, row, LEVEL_RGB.watch!)));
+    expect(Math.max(...rows.map((r) => r.matching))).toBeGreaterThan(drawn.width / 4);
+
+    // Another quantity charted carries none of the von Mises bound.
+    await proposed.getByRole("button", { name: "Principal stress σ1" }).click();
+    const sigma1 = proposed.getByRole("region", { name: "Principal stress σ1 chart" });
+    await sigma1.locator("canvas").waitFor();
+    await expect(drawnLimitLines(sigma1)).resolves.toEqual([]);
   });
 });
 
