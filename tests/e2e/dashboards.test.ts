@@ -410,6 +410,27 @@ describe("the rosette page's limits editor", () => {
     await sigma1.locator("canvas").waitFor();
     await expect(drawnLimitLines(sigma1)).resolves.toEqual([]);
   });
+
+  it("says so plainly when the rosette's gauges never read at the same instant in the 30 days", async () => {
+    const created = await admin.request.post("/api/v1/structures", { data: { code: "E2E-ROS", name: "Dashboard test E2E-ROS", timezone: "UTC" } });
+    expect(created.status()).toBe(201);
+    for (const tag of ["RA", "RB", "RC"]) {
+      const gauge = await admin.request.post("/api/v1/structures/E2E-ROS/gauges", { data: { ...foilGaugeBody(tag), expectedInterval: 600 } });
+      expect(gauge.status()).toBe(201);
+    }
+    const rosette = await admin.request.post("/api/v1/structures/E2E-ROS/rosettes", { data: { tag: "RX", layout: "rectangular", gauges: ["RA", "RB", "RC"] } });
+    expect(rosette.status()).toBe(201);
+    // Gauges a and b read together and c never does: a plane strain state needs all three at one instant.
+    const time = new Date(Date.now() - HOUR).toISOString();
+    const readings = ["RA", "RB"].map((gauge) => ({ gauge, time, value: 0.0121, temperature: 14 }));
+    const sent = await admin.request.post("/api/v1/structures/E2E-ROS/readings", { data: { readings } });
+    expect(sent.status()).toBe(200);
+
+    await admin.goto("/structures/E2E-ROS/rosettes/RX");
+    const proposed = admin.getByRole("region", { name: "The last 30 days with these bounds" });
+    await proposed.getByText("No instants with a reading of all three gauges in this period.").waitFor();
+    await expect(proposed.locator("canvas").count()).resolves.toBe(0);
+  });
 });
 
 describe("screenshots of the main pages", () => {
