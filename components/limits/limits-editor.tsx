@@ -54,6 +54,15 @@ function proposedLimits(rows: Row[]): Limit<string>[] {
 
 type Backtest = { readingsChecked: number; episodes: AlertEpisode<string>[] } | { error: string };
 
+/** Bounds far too tight can raise thousands of episodes; a page listing them all is unreadable. */
+const LISTED_EPISODES = 50;
+
+function levelCounts(episodes: readonly AlertEpisode<string>[]): string {
+  const counts = new Map<string, number>();
+  for (const { level } of episodes) counts.set(level, (counts.get(level) ?? 0) + 1);
+  return [...counts].map(([level, count]) => `${level} ${count.toLocaleString("en-US")}`).join(", ");
+}
+
 /**
  * The engineer's limit set, with a check of what the limits would have raised before they are
  * saved, and the last 30 days charted with the bounds as typed drawn across them.
@@ -262,8 +271,14 @@ export function LimitsEditor({
                 {backtest.episodes.length} alert episode{backtest.episodes.length === 1 ? "" : "s"} over {backtest.readingsChecked.toLocaleString("en-US")}{" "}
                 {gauge ? "readings" : "instants with a reading of all three gauges"}.
               </p>
+              {backtest.episodes.length > LISTED_EPISODES && (
+                <p className="text-sm text-slate-500 dark:text-slate-400">
+                  By level: {levelCounts(backtest.episodes)}. The first {LISTED_EPISODES} are listed; {(backtest.episodes.length - LISTED_EPISODES).toLocaleString("en-US")} more
+                  follow.
+                </p>
+              )}
               <ul className="mt-2 space-y-1 text-sm">
-                {backtest.episodes.map((episode) => (
+                {backtest.episodes.slice(0, LISTED_EPISODES).map((episode) => (
                   <li key={`${episode.quantity}-${episode.openedAt}`}>
                     {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {quantities[episode.quantity]},{" "}
                     {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}

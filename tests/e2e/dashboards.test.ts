@@ -391,6 +391,9 @@ describe("the rosette page's limits editor", () => {
     // Any stress state but zero has a von Mises stress above 1 MPa, so the demo's instants raise an episode.
     await expect(result.textContent()).resolves.toMatch(/over [\d,]+ instants with a reading of all three gauges/);
     await expect(result.textContent()).resolves.toMatch(/watch on vonMises/);
+    // A bound this tight raises thousands of episodes: they are counted, and only the first 50 listed.
+    await expect(result.textContent()).resolves.toMatch(/By level: watch [\d,]+\. The first 50 are listed; [\d,]+ more follow\./);
+    await expect(result.getByRole("listitem").count()).resolves.toBe(50);
 
     // The bound is charted on the quantity it bounds, in MPa (the engineer reads SI units here).
     const proposed = engineer.getByRole("region", { name: "The last 30 days with these bounds" });
