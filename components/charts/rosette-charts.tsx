@@ -8,11 +8,15 @@ import { fetchJson } from "@/lib/api/fetcher";
 import { limitLines, ROSETTE_LIMIT_QUANTITIES, type Limit, type RosetteLimitQuantity } from "@/lib/limits";
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
-import { EnvelopeChart, type TimeRange } from "./envelope-chart";
+import { EnvelopeChart, type ChartEpisode, type ChartEvent, type TimeRange } from "./envelope-chart";
 
 const DAY = 86_400_000;
 const POINTS = 800;
 const NO_LIMITS: readonly Limit<string>[] = [];
+const NONE: readonly never[] = [];
+
+/** An alert episode of one of the rosette's quantities, drawn on that quantity's chart. */
+export type RosetteEpisode = ChartEpisode & { quantity: string };
 
 type ChartedQuantity = RosetteLimitQuantity | "theta";
 const TITLE: Record<ChartedQuantity, string> = {
@@ -33,6 +37,8 @@ function RosetteChart({
   range,
   timeZone,
   limits = NO_LIMITS,
+  episodes = NONE,
+  events = NONE,
 }: {
   structureCode: string;
   tag: string;
@@ -40,6 +46,8 @@ function RosetteChart({
   range: TimeRange;
   timeZone: string;
   limits?: readonly Limit<string>[];
+  episodes?: readonly ChartEpisode[];
+  events?: readonly ChartEvent[];
 }) {
   const units = useUnits();
   const url =
@@ -61,12 +69,31 @@ function RosetteChart({
       timeZone={timeZone}
       empty="No instants with a reading of all three gauges in this period."
       lines={lines}
+      episodes={episodes}
+      events={events}
     />
   );
 }
 
 /** The plane stress state at a rosette over time: principal stresses, von Mises and principal angle. */
-export function RosetteCharts({ structureCode, tag, end, timeZone }: { structureCode: string; tag: string; end: number; timeZone: string }) {
+export function RosetteCharts({
+  structureCode,
+  tag,
+  end,
+  timeZone,
+  limits = NO_LIMITS,
+  episodes = NONE,
+  events = NONE,
+}: {
+  structureCode: string;
+  tag: string;
+  end: number;
+  timeZone: string;
+  /** The rosette's limits, each drawn on the quantity it bounds. */
+  limits?: readonly Limit<string>[];
+  episodes?: readonly RosetteEpisode[];
+  events?: readonly ChartEvent[];
+}) {
   const [days, setDays] = useState(7);
   const range = { from: end - days * DAY, to: end };
   return (
@@ -79,7 +106,17 @@ export function RosetteCharts({ structureCode, tag, end, timeZone }: { structure
         ))}
       </div>
       {CHARTED.map((quantity) => (
-        <RosetteChart key={quantity} structureCode={structureCode} tag={tag} quantity={quantity} range={range} timeZone={timeZone} />
+        <RosetteChart
+          key={quantity}
+          structureCode={structureCode}
+          tag={tag}
+          quantity={quantity}
+          range={range}
+          timeZone={timeZone}
+          limits={limits}
+          episodes={episodes.filter((episode) => episode.quantity === quantity)}
+          events={events}
+        />
       ))}
     </div>
   );

@@ -414,6 +414,26 @@ describe("the rosette page's limits editor", () => {
     await expect(drawnLimitLines(sigma1)).resolves.toEqual([]);
   });
 
+  it("draws the rosette's saved limits on the chart of the quantity they bound", async () => {
+    const saved = await engineer.request.put("/api/v1/structures/MILL-FB/rosettes/R1/limits", {
+      data: { limits: [{ quantity: "vonMises", level: "warning", upper: 250 }] },
+    });
+    expect(saved.status()).toBe(200);
+    try {
+      await engineer.goto("/structures/MILL-FB/rosettes/R1");
+      // The page's own charts come before the editor's.
+      const vonMises = engineer.getByRole("region", { name: "von Mises stress chart" }).first();
+      await vonMises.locator("canvas").waitFor();
+      await expect.poll(() => drawnLimitLines(vonMises)).toEqual([expect.objectContaining({ level: "warning", value: 250 })]);
+      const sigma1 = engineer.getByRole("region", { name: "Principal stress σ1 chart" }).first();
+      await sigma1.locator("canvas").waitFor();
+      await expect(drawnLimitLines(sigma1)).resolves.toEqual([]);
+    } finally {
+      // Leave the demo rosette without limits for the other tests.
+      expect((await engineer.request.put("/api/v1/structures/MILL-FB/rosettes/R1/limits", { data: { limits: [] } })).status()).toBe(200);
+    }
+  });
+
   it("says so plainly when the rosette's gauges never read at the same instant in the 30 days", async () => {
     const created = await admin.request.post("/api/v1/structures", { data: { code: "E2E-ROS", name: "Dashboard test E2E-ROS", timezone: "UTC" } });
     expect(created.status()).toBe(201);

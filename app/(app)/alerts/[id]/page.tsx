@@ -14,6 +14,7 @@ import { requireUser } from "@/lib/auth/session";
 import { getAlert } from "@/lib/services/alerts";
 import { getGauge } from "@/lib/services/gauges";
 import { getLimits } from "@/lib/services/limits";
+import { getRosetteLimits } from "@/lib/services/rosette-limits";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { handleAlertAction } from "../actions";
@@ -29,10 +30,11 @@ export default async function AlertPage({ params }: Props) {
   const user = await requireUser();
   const { alert, history } = await pageGuard(Number.isInteger(id) ? getAlert(user, id) : Promise.reject(new Error("bad id")));
   const structure = await pageGuard(getVisibleStructure(user, alert.structure));
-  const [canHandle, gauge, limits] = await Promise.all([
+  const [canHandle, gauge, limits, rosetteLimits] = await Promise.all([
     may(user, "alert:acknowledge", structure),
     getGauge(user, structure.code, alert.gauge),
     getLimits(user, structure.code, alert.gauge),
+    alert.rosette ? getRosetteLimits(user, structure.code, alert.rosette) : [],
   ]);
   const openedAt = Date.parse(alert.openedAt);
   const clearedAt = alert.clearedAt ? Date.parse(alert.clearedAt) : null;
@@ -114,7 +116,15 @@ export default async function AlertPage({ params }: Props) {
         </h2>
         {/* a rosette's alert is about its derived stresses, which gauge a's chart and limits do not show */}
         {alert.rosette ? (
-          <RosetteCharts structureCode={structure.code} tag={alert.rosette} end={around.to} timeZone={structure.timezone} />
+          <RosetteCharts
+            structureCode={structure.code}
+            tag={alert.rosette}
+            end={around.to}
+            timeZone={structure.timezone}
+            limits={rosetteLimits}
+            episodes={alert.kind === "limit" && alert.quantity ? [{ quantity: alert.quantity, openedAt, clearedAt, level: alert.level }] : []}
+            events={[{ time: openedAt, label: "opened" }]}
+          />
         ) : (
           <GaugeCharts
             structureCode={structure.code}

@@ -48,7 +48,7 @@ export default async function RosettePage({ params }: Props) {
           </>
         }
       />
-      <RosetteCharts structureCode={code} tag={tag} end={end} timeZone={structure.timezone} />
+      <RosetteCharts structureCode={code} tag={tag} end={end} timeZone={structure.timezone} limits={limits} />
       <section className="mt-6" aria-labelledby="rosette-limits">
         <h2 id="rosette-limits" className="mb-2 text-lg font-semibold">
           Limits
