@@ -29,6 +29,16 @@ const CHARTED: readonly ChartedQuantity[] = ["sigma1", "sigma2", "vonMises", "th
 /** The principal angle is shown as computed, in degrees, whatever the person's unit system. */
 const AS_ANGLE = { unit: "°", toDisplay: (degrees: number) => degrees } as const;
 
+/** Which rosette, in which zone, and what is drawn over its series: its limits (each on the quantity it bounds), episodes and events. */
+type RosetteChartProps<Episode> = {
+  structureCode: string;
+  tag: string;
+  timeZone: string;
+  limits?: readonly Limit<string>[];
+  episodes?: readonly Episode[];
+  events?: readonly ChartEvent[];
+};
+
 /** One quantity of a rosette over a range, computed on request from its three gauges, with the bounds of any limits on it. */
 function RosetteChart({
   structureCode,
@@ -39,16 +49,7 @@ function RosetteChart({
   limits = NO_LIMITS,
   episodes = NONE,
   events = NONE,
-}: {
-  structureCode: string;
-  tag: string;
-  quantity: ChartedQuantity;
-  range: TimeRange;
-  timeZone: string;
-  limits?: readonly Limit<string>[];
-  episodes?: readonly ChartEpisode[];
-  events?: readonly ChartEvent[];
-}) {
+}: RosetteChartProps<ChartEpisode> & { quantity: ChartedQuantity; range: TimeRange }) {
   const units = useUnits();
   const url =
     `/api/v1/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(tag)}/series` +
@@ -76,24 +77,7 @@ function RosetteChart({
 }
 
 /** The plane stress state at a rosette over time: principal stresses, von Mises and principal angle. */
-export function RosetteCharts({
-  structureCode,
-  tag,
-  end,
-  timeZone,
-  limits = NO_LIMITS,
-  episodes = NONE,
-  events = NONE,
-}: {
-  structureCode: string;
-  tag: string;
-  end: number;
-  timeZone: string;
-  /** The rosette's limits, each drawn on the quantity it bounds. */
-  limits?: readonly Limit<string>[];
-  episodes?: readonly RosetteEpisode[];
-  events?: readonly ChartEvent[];
-}) {
+export function RosetteCharts({ end, episodes = NONE, ...shared }: RosetteChartProps<RosetteEpisode> & { end: number }) {
   const [days, setDays] = useState(7);
   const range = { from: end - days * DAY, to: end };
   return (
@@ -106,17 +90,7 @@ export function RosetteCharts({
         ))}
       </div>
       {CHARTED.map((quantity) => (
-        <RosetteChart
-          key={quantity}
-          structureCode={structureCode}
-          tag={tag}
-          quantity={quantity}
-          range={range}
-          timeZone={timeZone}
-          limits={limits}
-          episodes={episodes.filter((episode) => episode.quantity === quantity)}
-          events={events}
-        />
+        <RosetteChart key={quantity} {...shared} quantity={quantity} range={range} episodes={episodes.filter((episode) => episode.quantity === quantity)} />
       ))}
     </div>
   );
