@@ -10,7 +10,7 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getRosetteLimits } from "@/lib/services/rosette-limits";
 import { listRosettes } from "@/lib/services/rosettes";
-import { gaugeStatuses } from "@/lib/services/status";
+import { latestReadingOf } from "@/lib/services/status";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { saveRosetteLimitsAction } from "../../gauges/actions";
 
@@ -28,12 +28,13 @@ export default async function RosettePage({ params }: Props) {
   const structure = await pageGuard(getVisibleStructure(user, code));
   const rosette = (await listRosettes(user, code)).find((candidate) => candidate.tag === tag);
   if (!rosette) notFound();
-  const [statuses, limits, canEdit] = await Promise.all([
-    gaugeStatuses(structure),
+  // The charts end at the rosette's own last reading: its three gauges, not every gauge of the structure.
+  const [latest, limits, canEdit] = await Promise.all([
+    Promise.all(rosette.gauges.map((gauge) => latestReadingOf(user, code, gauge))),
     pageGuard(getRosetteLimits(user, code, tag)),
     may(user, "limits:edit", structure),
   ]);
-  const end = Math.max(0, ...statuses.filter((s) => rosette.gauges.includes(s.tag)).map((s) => s.latest?.time ?? 0)) || Date.now();
+  const end = Math.max(0, ...latest.map((reading) => reading?.time ?? 0)) || Date.now();
   return (
     <>
       <PageHeader
