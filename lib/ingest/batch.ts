@@ -2,6 +2,7 @@ import type { Gauge } from "@/db/schema";
 import type { Failure, GaugeConfigErrorCode, GaugeConverter } from "@/lib/mechanics";
 import { failure } from "@/lib/mechanics/result";
 import { MINUTE } from "@/lib/series";
+import { beforeZeroProblem, temperatureProblem } from "./plausibility";
 import { isProblem, type DecodedReading } from "./reading-input";
 import type { Rejection } from "./rejections";
 
@@ -13,6 +14,8 @@ export interface GaugeEntry {
   id: number;
   tag: string;
   retired: boolean;
+  /** Epoch ms of the gauge's earliest zero reading: readings before it have no reference. */
+  firstZeroTime: number;
   converter: GaugeConverter | Failure<GaugeConfigErrorCode>;
   /** The stored gauge, for what evaluation needs beyond conversion (limits, yield, input). */
   row: Gauge;
@@ -89,6 +92,8 @@ export function createBatch(gauges: ReadonlyMap<string, GaugeEntry>, now: number
       });
     }
     if (reading.time > latest) return reject(position, TIME_IN_FUTURE);
+    const implausible = beforeZeroProblem(reading.time, gauge.firstZeroTime, gauge.tag) ?? temperatureProblem(reading.temperature);
+    if (implausible) return reject(position, implausible);
     const result = gauge.converter.convert(reading.value, reading.temperature);
     if (!result.ok) return reject(position, result);
     let rows = collected.get(gauge.tag);

@@ -1,5 +1,5 @@
 import { ROLLUP_RESOLUTIONS, rollupKey, type Rollup } from "@/lib/series";
-import type { GaugeRows } from "./batch";
+import { selectRows, type GaugeRows } from "./batch";
 
 /** Columns of the rollups table, in the order `rollupValues` lays them out. */
 export const ROLLUP_COLUMNS = [
@@ -25,17 +25,20 @@ const ROLLUPS = Object.keys(ROLLUP_RESOLUTIONS) as Rollup[];
  * The roll-up rows of newly stored readings (time-ordered, as GaugeRows are), one per touched
  * hour and day, as flat SQL parameters appended to `out`. They are merged into stored rows by
  * min/max/sum/count, which do not depend on order, so late readings need nothing special.
- * Returns the number of rows appended.
+ * Returns the number of rows appended. A reading whose strain or stress is not finite is left out
+ * (ingestion rejects such readings first): one Infinity would make every later sum of its
+ * bucket Infinity or NaN, which SQLite stores as NULL.
  */
 export function appendRollupValues(rows: GaugeRows, out: (number | null)[]): number {
-  const { time, strain, stress, temperature } = rows;
+  const finite = finiteRows(rows);
+  const { time, strain, stress, temperature } = finite;
   let appended = 0;
   for (const rollup of ROLLUPS) {
     for (let start = 0; start < time.length; ) {
       const bucket = rollupKey(time[start]!, rollup);
       let end = start + 1;
       while (end < time.length && rollupKey(time[end]!, rollup) === bucket) end++;
-      out.push(rows.gaugeId, ROLLUP_RESOLUTIONS[rollup], bucket, end - start);
+      out.push(finite.gaugeId, ROLLUP_RESOLUTIONS[rollup], bucket, end - start);
       pushRange(out, strain, start, end);
       pushRange(out, stress, start, end);
       pushTemperatures(out, temperature, start, end);
@@ -44,6 +47,14 @@ export function appendRollupValues(rows: GaugeRows, out: (number | null)[]): num
     }
   }
   return appended;
+}
+
+function finiteRows(rows: GaugeRows): GaugeRows {
+  const { strain, stress } = rows;
+  let allFinite = true;
+  for (let i = 0; i < strain.length && allFinite; i++) allFinite = Number.isFinite(strain[i]) && Number.isFinite(stress[i]);
+  if (allFinite) return rows;
+  return selectRows(rows, Array.from(strain.keys()).filter((i) => Number.isFinite(strain[i]) && Number.isFinite(stress[i])));
 }
 
 function pushRange(out: (number | null)[], values: readonly number[], start: number, end: number) {
@@ -67,7 +78,7 @@ function pushTemperatures(out: (number | null)[], values: readonly (number | nul
   let sum = 0;
   for (let i = start; i < end; i++) {
     const value = values[i];
-    if (value === null || value === undefined) continue;
+    if (value == null || !Number.isFinite(value)) continue;
     count++;
     if (value < min) min = value;
     if (value > max) max = value;

@@ -82,6 +82,8 @@ export function prepareGauge(config: GaugeConfig, options: PrepareOptions = {}):
     if (Number.isNaN(indicated)) return impossibleValue;
     const strain = knownTemperature === null ? indicated : indicated + evaluatePolynomial(coefficients, knownTemperature);
     const stress = uniaxialStress(material.E, strain, initialStress);
+    // A huge but finite raw value (1e308) can overflow on the way; stored, it would poison every sum over it.
+    if (!Number.isFinite(strain) || !Number.isFinite(stress)) return READING_FAILURES.notFinite;
     output.indicatedStrain = indicated;
     output.strain = strain;
     output.totalStrain =

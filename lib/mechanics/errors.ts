@@ -21,6 +21,7 @@ export type GaugeConfigErrorCode =
 export type ReadingErrorCode =
   | "non-finite-value"
   | "non-finite-temperature"
+  | "not-finite"
   | "temperature-required"
   | "non-positive-frequency"
   | "non-positive-digits"
@@ -32,6 +33,10 @@ export const READING_FAILURES = {
   nonFiniteTemperature: failure(
     "non-finite-temperature",
     "The reading's temperature is not a finite number; send it in °C or leave it out.",
+  ),
+  notFinite: failure(
+    "not-finite",
+    "The reading converts to a strain or stress too large to be a number (it overflows); check the value's unit and the logger channel. Other readings of the batch are kept.",
   ),
   temperatureRequired: failure(
     "temperature-required",

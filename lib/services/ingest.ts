@@ -1,5 +1,6 @@
-import { bulkSql, writeTransaction, type WriteTx } from "@/db/client";
-import type { Structure } from "@/db/schema";
+import { inArray, min } from "drizzle-orm";
+import { bulkSql, getDb, writeTransaction, type WriteTx } from "@/db/client";
+import { zeroReadings, type Structure } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError } from "@/lib/errors";
@@ -45,10 +46,30 @@ export async function openIngestion(actor: Actor, code: string, tags?: readonly 
   const structure = await getVisibleStructure(actor, code);
   await requirePermission(actor, "readings:ingest", structure);
   const gauges = new Map<string, GaugeEntry>();
-  for (const row of await gaugeRowsOf(structure.id, tags)) {
-    gauges.set(row.tag, { id: row.id, tag: row.tag, retired: row.status === "retired", converter: prepareGauge(gaugeConfigOf(row)), row });
+  const rows = await gaugeRowsOf(structure.id, tags);
+  const firstZeros = await firstZeroTimes(rows.map((row) => row.id));
+  for (const row of rows) {
+    gauges.set(row.tag, {
+      id: row.id,
+      tag: row.tag,
+      retired: row.status === "retired",
+      firstZeroTime: Math.min(firstZeros.get(row.id) ?? Infinity, row.zeroTime.getTime()),
+      converter: prepareGauge(gaugeConfigOf(row)),
+      row,
+    });
   }
   return { structure, gauges };
+}
+
+/** Each gauge's earliest zero reading: the one in force at installation, or an earlier one typed later as a correction. */
+async function firstZeroTimes(gaugeIds: number[]): Promise<Map<number, number>> {
+  if (gaugeIds.length === 0) return new Map();
+  const rows = await getDb()
+    .select({ gaugeId: zeroReadings.gaugeId, time: min(zeroReadings.time) })
+    .from(zeroReadings)
+    .where(inArray(zeroReadings.gaugeId, gaugeIds))
+    .groupBy(zeroReadings.gaugeId);
+  return new Map(rows.flatMap((row) => (row.time ? [[row.gaugeId, row.time.getTime()] as const] : [])));
 }
 
 const tooManyReadings = () =>

@@ -20,7 +20,7 @@ export const STRAIN_GAUGE = {
   input: "microstrain",
   gaugeFactor: 2,
   material: { E: 200000, nu: 0.3, alpha: 12 },
-  zero: { value: 0, temperature: 20, time: "2026-01-01T00:00:00Z" },
+  zero: { value: 0, temperature: 20, time: "2024-01-01T00:00:00Z" },
 } as const;
 
 /** Vibrating wire in Hz: compensation by the wire's expansion coefficient needs a temperature per reading. */
@@ -31,7 +31,7 @@ export const WIRE_GAUGE = {
   gaugeFactor: 3.304,
   thermal: { method: "cte", gaugeCte: 12.2 },
   material: { E: 30000, nu: 0.2, alpha: 10 },
-  zero: { value: 800, temperature: 12, time: "2026-01-01T00:00:00Z" },
+  zero: { value: 800, temperature: 12, time: "2024-01-01T00:00:00Z" },
 } as const;
 
 /** Creates a structure with S1, VW and a retired gauge OLD, and the given members. */
