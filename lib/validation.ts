@@ -21,9 +21,23 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
+/**
+ * Line breaks and tabs (become a space), other C0 and C1 control characters, and the bidirectional
+ * embedding, override and isolate marks (U+202A–U+202E, U+2066–U+2069): none belongs in a name or a
+ * note, and each can forge a line of an e-mail header or a log, or make text read backwards.
+ */
+const LINE_BREAKS = /[\t\n\r\v\f\u0085\u2028\u2029]+/g;
+const INVISIBLE_CONTROLS = /[\u0000-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/g;
+
+export function stripControlCharacters(text: string): string {
+  return text.replace(LINE_BREAKS, " ").replace(INVISIBLE_CONTROLS, "");
+}
+
+/** Every name and free-text field starts here, so control characters never reach storage; `.trim()` and length checks follow. */
+export const plainText = (params?: Parameters<typeof z.string>[0]) => z.string(params).overwrite(stripControlCharacters);
+
 export const optionalText = (max: number) =>
-  z
-    .string()
+  plainText()
     .trim()
     .max(max, `Keep it under ${max} characters.`)
     .transform((value) => value || undefined)
@@ -40,7 +54,7 @@ export const timeZone = z
 
 export const createStructureInput = z.object({
   code: structureCode.meta({ description: "Short unique code, 2–32 of A-Z a-z 0-9 - _", example: "FB-01" }),
-  name: z.string().trim().min(1, "Give the structure a name.").max(200, "Keep the name under 200 characters."),
+  name: plainText().trim().min(1, "Give the structure a name.").max(200, "Keep the name under 200 characters."),
   location: optionalText(200),
   timezone: timeZone.optional().default("UTC").meta({ description: "IANA time zone, default UTC" }),
   description: optionalText(2000),
@@ -58,13 +72,13 @@ export const password = z
 
 export const createUserInput = z.object({
   email,
-  name: z.string().trim().min(1, "Enter the person's name.").max(200),
+  name: plainText().trim().min(1, "Enter the person's name.").max(200),
   role,
   password,
 });
 export type CreateUserInput = z.infer<typeof createUserInput>;
 
-export const tokenName = z.string().trim().min(1, "Name the token after what will use it.").max(100);
+export const tokenName = plainText().trim().min(1, "Name the token after what will use it.").max(100);
 
 export const inviteUserInput = createUserInput.omit({ password: true });
 export type InviteUserInput = z.infer<typeof inviteUserInput>;

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { LEVELS, QUANTITIES, ROSETTE_LIMIT_QUANTITIES } from "@/lib/limits";
 import { isoTime } from "@/lib/gauges/schema";
+import { plainText } from "@/lib/validation";
 
 const finite = z.number({ error: "Enter a number." }).refine(Number.isFinite, "Enter a finite number.");
 
@@ -21,7 +22,7 @@ export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for str
 
 export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette");
 
-export const acknowledgeBody = z.object({ comment: z.string().trim().min(1, "Say what was checked or done.").max(2000) });
+export const acknowledgeBody = z.object({ comment: plainText().trim().min(1, "Say what was checked or done.").max(2000) });
 
 const MAX_BACKTEST_MS = 366 * 86_400_000;
 

@@ -1,13 +1,12 @@
 import { z } from "zod";
-import { optionalText } from "@/lib/validation";
+import { optionalText, plainText } from "@/lib/validation";
 
 /** Text fields sent with uploads, and a gauge's place on a drawing; shared by the API and the pages. */
 
 const TITLE_MAX = 120;
 
 export const drawingFields = z.object({
-  title: z
-    .string({ error: 'Give the drawing a title, e.g. "North elevation".' })
+  title: plainText({ error: 'Give the drawing a title, e.g. "North elevation".' })
     .trim()
     .min(1, 'Give the drawing a title, e.g. "North elevation".')
     .max(TITLE_MAX, `Keep the title under ${TITLE_MAX} characters.`),

@@ -3,11 +3,12 @@
 import { z } from "zod";
 import { formAction } from "@/lib/actions/form-action";
 import { handleAlert } from "@/lib/services/alerts";
+import { plainText } from "@/lib/validation";
 
 const handling = z.object({
   alertId: z.coerce.number().int().positive(),
   handling: z.enum(["acknowledged", "note", "cleared"]),
-  text: z.string().trim().min(1, "Write what was checked or done.").max(2000),
+  text: plainText().trim().min(1, "Write what was checked or done.").max(2000),
 });
 
 const DONE = { acknowledged: "Alert acknowledged.", note: "Note added.", cleared: "Alert cleared." } as const;

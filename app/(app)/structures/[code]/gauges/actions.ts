@@ -10,7 +10,7 @@ import { replaceLimits } from "@/lib/services/limits";
 import { replaceRosetteLimits } from "@/lib/services/rosette-limits";
 import { setAlertMailMode } from "@/lib/services/memberships";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
-import { optionalText } from "@/lib/validation";
+import { optionalText, plainText } from "@/lib/validation";
 import { parseWith } from "@/lib/api/http";
 
 const structurePath = (code: string) => `/structures/${code}`;
@@ -41,7 +41,7 @@ export async function editGaugeAction(code: string, tag: string, payload: unknow
 
 export async function replaceGaugeAction(code: string, oldTag: string, payload: unknown): Promise<ActionState> {
   return objectAction(
-    gaugeInput.and(z.object({ reason: z.string().trim().min(1, "Say why the gauge is replaced.").max(500) })),
+    gaugeInput.and(z.object({ reason: plainText().trim().min(1, "Say why the gauge is replaced.").max(500) })),
     payload,
     async (input, user) => {
       await replaceGauge(user, code, oldTag, input, input.reason);
@@ -82,7 +82,7 @@ export const recordZeroAction = formAction(
 );
 
 export const retireGaugeAction = formAction(
-  z.object({ code: z.string(), tag: z.string(), reason: z.string().trim().min(1, "Say why the gauge is retired.").max(500) }),
+  z.object({ code: z.string(), tag: z.string(), reason: plainText().trim().min(1, "Say why the gauge is retired.").max(500) }),
   async ({ code, tag, reason }, user) => {
     await retireGauge(user, code, tag, reason);
     return { message: `Gauge ${tag} retired; it accepts no more readings.` };
