@@ -16,6 +16,30 @@ const number = z.number({ error: "Enter a number." }).refine(Number.isFinite, "E
 const positive = number.refine((v) => v > 0, "Must be greater than zero.");
 const optional = <T extends z.ZodType>(schema: T) => schema.nullish().transform((v) => v ?? null);
 
+/**
+ * What a practitioner would accept at registration; a value outside is a unit or a typing error,
+ * answered on its field. Bounds from memory of handbook values, stated with each.
+ */
+export const PLAUSIBLE = {
+  /** MPa: timber and polymers (about 1 000) to tungsten (about 400 000); steel is about 200 000. */
+  modulus: { min: 1_000, max: 500_000 },
+  /** Structural materials lie between about 0.1 (some concretes, cast iron) and 0.45 (lead, timber across the grain). */
+  poisson: { min: 0.05, max: 0.49 },
+  /** MPa: up to prestressing strand, about 1 860. */
+  yield: { min: 1, max: 2_500 },
+  /** Metallic foil and wire gauges: about 2.0 (constantan, Karma) to 3.6 (isoelastic alloy). */
+  foilGaugeFactor: { min: 1, max: 5 },
+  /** Vibrating-wire gauge constants are a fraction of a µε to a few µε per digit. */
+  wireGaugeConstant: { min: 0.05, max: 20 },
+  /** Ω: foil gauges are made at 60 to 5 000 Ω, most often 120, 350 or 1 000. */
+  gaugeResistance: { min: 50, max: 10_000 },
+  /** Ω in the gauge's arm: a few ohms per hundred metres of ordinary instrument cable. */
+  leadResistance: { min: 0, max: 200 },
+} as const;
+
+const within = (range: { min: number; max: number }, what: string) =>
+  number.refine((v) => v >= range.min && v <= range.max, `${what} lies between ${range.min.toLocaleString("en-US")} and ${range.max.toLocaleString("en-US")}.`);
+
 export const gaugeTag = z
   .string({ error: "Give the gauge a tag." })
   .regex(/^[A-Za-z0-9_.-]{1,32}$/, "Use 1 to 32 letters, digits, '-', '_' or '.' (no spaces).");
@@ -24,10 +48,10 @@ export const isoTime = z.iso.datetime({ offset: true, error: "Use an ISO-8601 ti
 
 export const materialInput = z.object({
   name: optionalText(100),
-  E: positive.meta({ description: "Young's modulus, MPa" }),
-  nu: number.refine((v) => v > 0 && v < 0.5, "Poisson's ratio lies between 0 and 0.5 for structural materials."),
+  E: within(PLAUSIBLE.modulus, "Young's modulus in MPa (steel about 200,000, concrete 25,000 to 45,000)").meta({ description: "Young's modulus, MPa" }),
+  nu: within(PLAUSIBLE.poisson, "Poisson's ratio of structural materials"),
   alpha: number.refine((v) => Math.abs(v) < 100, "Expansion coefficient in µε/°C; structural materials lie well under 100."),
-  yield: optional(positive).meta({ description: "Yield or proportional limit, MPa" }),
+  yield: optional(within(PLAUSIBLE.yield, "The yield in MPa")).meta({ description: "Yield or proportional limit, MPa" }),
 });
 
 export const thermalInput = z.discriminatedUnion(
@@ -62,8 +86,8 @@ export const gaugeFields = z.object({
   loggerGaugeFactor: optional(positive),
   batchFactor: optional(positive),
   polarity: z.union([z.literal(1), z.literal(-1)], { error: "Polarity is 1 or -1." }).default(1),
-  leadResistance: optional(number.refine((v) => v >= 0, "Resistance cannot be negative.")).meta({ description: "Ω" }),
-  gaugeResistance: optional(positive).meta({ description: "Ω" }),
+  leadResistance: optional(within(PLAUSIBLE.leadResistance, "The lead resistance in Ω")).meta({ description: "Ω" }),
+  gaugeResistance: optional(within(PLAUSIBLE.gaugeResistance, "The gauge resistance in Ω (usually 120, 350 or 1,000)")).meta({ description: "Ω" }),
   thermal: optional(thermalInput),
   material: materialInput,
   initialStress: number.default(0).meta({ description: "MPa" }),
@@ -108,11 +132,25 @@ function checkConsistency(gauge: GaugeFields, ctx: z.RefinementCtx) {
     ctx.addIssue({ code: "custom", path: ["bridge"], message: "Vibrating-wire gauges have no bridge; leave it empty." });
     return;
   }
+  for (const issue of gaugeFactorIssues(gauge)) ctx.addIssue({ code: "custom", ...issue });
   // The mechanics core has the last word on what it can convert.
   const prepared = prepareGauge(toGaugeConfig(gauge));
   if (!prepared.ok) {
     ctx.addIssue({ code: "custom", path: (FIELD_OF_PROBLEM[prepared.code] ?? "").split(".").filter(Boolean), message: prepared.message });
   }
+}
+
+/** A foil gauge factor and a vibrating wire's gauge constant share a field but not a range. */
+function gaugeFactorIssues(gauge: GaugeFields): { path: string[]; message: string }[] {
+  const foil = gauge.kind === "foil";
+  const range = foil ? PLAUSIBLE.foilGaugeFactor : PLAUSIBLE.wireGaugeConstant;
+  const what = foil ? "A foil gauge factor (about 2 for constantan foil)" : "A vibrating wire's gauge constant in µε per digit";
+  const outside = (value: number | null) => value !== null && (value < range.min || value > range.max);
+  const message = `${what} lies between ${range.min} and ${range.max}; check the gauge's data sheet.`;
+  return [
+    ...(outside(gauge.gaugeFactor) ? [{ path: ["gaugeFactor"], message }] : []),
+    ...(foil && outside(gauge.loggerGaugeFactor) ? [{ path: ["loggerGaugeFactor"], message }] : []),
+  ];
 }
 
 /** The gauge as the mechanics core takes it. */

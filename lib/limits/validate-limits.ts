@@ -93,12 +93,18 @@ function hysteresisProblem({ upper, lower, hysteresis = 0 }: LimitInput<string>)
   return null;
 }
 
+/**
+ * Persistence filters out a reading or two of noise (common practice: 1 to a few readings); a
+ * thousand readings is a week at 10-minute intervals, past which an alert would come too late to act on.
+ */
+export const MAX_PERSISTENCE = 1_000;
+
 function persistenceProblem({ persistence = 1 }: LimitInput<string>): FieldProblem | null {
-  if (Number.isInteger(persistence) && persistence >= 1) return null;
+  if (Number.isInteger(persistence) && persistence >= 1 && persistence <= MAX_PERSISTENCE) return null;
   return {
     field: "persistence",
     code: "invalid-persistence",
-    message: "The persistence must be a whole number of readings, 1 or more.",
+    message: `The persistence must be a whole number of readings from 1 to ${MAX_PERSISTENCE.toLocaleString("en-US")}.`,
   };
 }
 

@@ -8,6 +8,12 @@ export const UPLOAD_LIMIT_BYTES: Record<FileKind, number> = {
   drawing: 20_000_000,
 };
 
+/**
+ * An A0 sheet (841 × 1 189 mm, ISO 216) scanned at 300 dpi is about 9 900 × 14 000 pixels; a
+ * header claiming more is a damaged file or one made to exhaust the memory of whoever draws it.
+ */
+export const MAX_IMAGE_SIDE_PX = 20_000;
+
 const KIND_NAMES: Record<FileKind, string> = { photo: "Photos", drawing: "Drawings" };
 
 export const ACCEPTED_TYPE_NAMES = Object.values(IMAGE_TYPES)
@@ -49,6 +55,14 @@ export function checkUpload(bytes: Uint8Array, kind: FileKind): ImageInfo {
     throw new AppError("bad_request", `The file starts like a ${IMAGE_TYPES[inspection.type].name} image but its header is damaged or cut short.`, {
       field: "file",
     });
+  }
+  const { width, height } = inspection.image;
+  if (width > MAX_IMAGE_SIDE_PX || height > MAX_IMAGE_SIDE_PX) {
+    throw new AppError(
+      "bad_request",
+      `The image is ${width} × ${height} pixels; at most ${MAX_IMAGE_SIDE_PX.toLocaleString("en-US")} pixels a side are accepted. Export it at a lower resolution.`,
+      { field: "file" },
+    );
   }
   return inspection.image;
 }

@@ -48,7 +48,7 @@ describe("gauge actions, role by role", () => {
 
   it("answers a duplicate tag on its field, and nothing is half-saved", async () => {
     as("engineer");
-    const duplicate = await registerGaugeAction("ACT", { ...gauge("T-1"), gaugeFactor: 9 });
+    const duplicate = await registerGaugeAction("ACT", { ...gauge("T-1"), gaugeFactor: 2.2 });
     expect(duplicate.fieldErrors?.tag?.[0]).toContain('"T-1"');
     expect((await getGauge(users.engineer!, "ACT", "T-1")).gaugeFactor).toBe(2.05);
   });
