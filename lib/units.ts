@@ -71,6 +71,12 @@ export function formatInUnit(value: number | null | undefined, unit: DisplayUnit
   return withUnit(value, DISPLAY_DECIMALS[unit], unit);
 }
 
+/** "87 % of yield" for a utilisation |σ| / yield of 0.87; a dash when unknown or not a finite number, never "Infinity %". */
+export function formatShareOfYield(ratio: number | null | undefined): string {
+  if (ratio === null || ratio === undefined || !Number.isFinite(ratio)) return "—";
+  return `${Math.round(ratio * 100)} % of yield`;
+}
+
 export type UnitSystem = "si" | "us";
 export type DisplayQuantity = "stress" | "strain" | "temperature";
 

@@ -1,5 +1,6 @@
 import { formatDistanceStrict } from "date-fns";
 import type { StructureSummary } from "@/lib/services/status";
+import { formatShareOfYield } from "@/lib/units";
 import { GaugeStateBadge } from "./state-badge";
 
 /** What an owner needs at a glance: the worst state, what is open, how hard it worked, how fresh the data are. */
@@ -23,7 +24,7 @@ export function StructureGlance({ summary, timeZone }: { summary: StructureSumma
           {summary.sensorAlerts > 0 && `; ${summary.sensorAlerts} sensor`}
         </dd>
         <dt className="text-slate-500 dark:text-slate-400">Peak, last 24 h</dt>
-        <dd>{summary.peakUtilisation24h === null ? "—" : `${(summary.peakUtilisation24h * 100).toFixed(0)} % of yield`}</dd>
+        <dd>{formatShareOfYield(summary.peakUtilisation24h)}</dd>
         <dt className="text-slate-500 dark:text-slate-400">Last reading</dt>
         <dd>
           {summary.lastReadingAt === null

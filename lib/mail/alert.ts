@@ -1,5 +1,5 @@
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits/limit";
-import { formatMicrostrain } from "@/lib/units";
+import { formatMicrostrain, formatShareOfYield } from "@/lib/units";
 import { formatInTimeZone } from "./format-time";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -32,7 +32,7 @@ export const ALERT_CAUTION =
 /** "212.4 MPa", "1,234 µε", "87 % of yield"; a rosette's quantities are stresses. */
 export function formatQuantityValue(quantity: AlertEventFacts["quantity"], value: number): string {
   if (quantity === "strain") return formatMicrostrain(value);
-  if (quantity === "utilisation") return `${Math.round(value * 100)} % of yield`;
+  if (quantity === "utilisation") return formatShareOfYield(value);
   return `${value.toFixed(1)} MPa`;
 }
 

@@ -1,7 +1,7 @@
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/mail/format-time";
-import { formatForDisplay, formatMicrostrain, type UnitSystem } from "@/lib/units";
+import { formatForDisplay, formatMicrostrain, formatShareOfYield, type UnitSystem } from "@/lib/units";
 import { formatHours } from "./gaps";
 import { formatPercent } from "./status";
 
@@ -19,7 +19,7 @@ function formatExtremes(extremes: { min: number; max: number } | null, format: (
 
 export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "stress">, units: UnitSystem): string {
   const peak = gauge.utilisationPeak;
-  if (peak) return `${Math.round(peak.ratio * 100)} % of yield (${formatForDisplay(units, "stress", peak.yield)})`;
+  if (peak) return `${formatShareOfYield(peak.ratio)} (${formatForDisplay(units, "stress", peak.yield)})`;
   return gauge.stress ? "no yield stress set for the material" : "no readings";
 }
 
@@ -73,7 +73,7 @@ export function formatAlertValue(alert: Pick<ReportAlert, "unit">, value: number
   if (value === null) return "—";
   if (alert.unit === "MPa") return formatForDisplay(units, "stress", value);
   if (alert.unit === "µε") return formatMicrostrain(value);
-  if (alert.unit === "ratio") return `${Math.round(value * 100)} % of yield`;
+  if (alert.unit === "ratio") return formatShareOfYield(value);
   return String(value);
 }
 

@@ -2,15 +2,18 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatigue/route";
 import * as seriesRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/series/route";
 import { getClient } from "@/db/client";
+import type { UserActor } from "@/lib/auth/actor";
+import { structureReport } from "@/lib/services/report";
 import { apiRequest, makeUser, params, userToken } from "./helpers";
 import { makeIngestStructure, postReadings, rollupMismatches, storedCount } from "./readings-fixtures";
 
 let token: string;
+let engineer: UserActor;
 const T0 = Date.UTC(2026, 2, 1, 12);
 const at = (minutes: number) => new Date(T0 + minutes * 60_000).toISOString();
 
 beforeAll(async () => {
-  const engineer = await makeUser("engineer");
+  engineer = await makeUser("engineer");
   token = await userToken(engineer.email);
   await makeIngestStructure("PV", [engineer]);
 });
@@ -68,6 +71,10 @@ describe("a value that overflows on conversion", () => {
     const fatigue = await fatigueRoute.GET(apiRequest(`/structures/PV/gauges/S1/fatigue?${query}&category=71`, { token }), params({ code: "PV", tag: "S1" }));
     expect(fatigue.status).toBe(200);
     expect(JSON.stringify(await fatigue.json())).not.toMatch(/Infinity|NaN/);
+    const report = await structureReport(engineer, "PV", { from: new Date(Date.UTC(2026, 2, 1)), to: new Date(Date.UTC(2026, 2, 2)) }, new Date(Date.UTC(2026, 2, 3)));
+    const s1 = report.gauges.find((gauge) => gauge.tag === "S1")!;
+    expect(s1.stress).toMatchObject({ max: expect.closeTo(20, 9), min: expect.closeTo(10, 9) });
+    expect(JSON.stringify(report)).not.toMatch(/Infinity|NaN/);
   });
 });
 

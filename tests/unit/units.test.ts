@@ -75,3 +75,14 @@ describe("display units", () => {
     expect(formatInUnit(Number.POSITIVE_INFINITY, "°F")).toBe("—");
   });
 });
+
+describe("share of yield", () => {
+  it("reads a utilisation as a whole percentage and never prints Infinity or NaN", async () => {
+    const { formatShareOfYield } = await import("@/lib/units");
+    // |σ| / yield = 0.874 is 87 % (rounded to the whole percent).
+    expect(formatShareOfYield(0.874)).toBe("87 % of yield");
+    expect(formatShareOfYield(Infinity)).toBe("—");
+    expect(formatShareOfYield(Number.NaN)).toBe("—");
+    expect(formatShareOfYield(null)).toBe("—");
+  });
+});
