@@ -67,18 +67,27 @@ export const gaugeFatigueSchema = z
     periodSeconds: z.number().meta({ description: "Seconds from `from` to `to`" }),
     firstReading: z.string().nullable().meta({ description: "First reading counted (UTC); null when none" }),
     lastReading: z.string().nullable().meta({ description: "Last reading counted (UTC); null when none" }),
-    observedSeconds: z.number().meta({
+    observedSeconds: z.number().meta({ description: "Seconds from the first to the last reading counted" }),
+    coveredSeconds: z.number().meta({
       description:
-        "Seconds from the first to the last reading counted. Rates use it, not the period, so that a period only partly covered by data does not dilute the rate and overstate the life",
+        "Seconds covered by data: the sum of the intervals between readings counted, leaving out gaps longer than `longestCoveredIntervalSeconds`. The rate divides by it, so that an outage does not dilute the rate and overstate the life",
+    }),
+    gapsLeftOut: z.number().int().meta({ description: "Intervals without readings longer than `longestCoveredIntervalSeconds`, left out of `coveredSeconds`" }),
+    gapSeconds: z.number().meta({ description: "Their total length, seconds" }),
+    longestCoveredIntervalSeconds: z.number().meta({ description: "3 × the gauge's expected interval (600 s when it has none)" }),
+    zeroEpochs: z.number().int().meta({
+      description: "Histories counted one by one: rainflow restarts at each new zero reading, so the step a re-zero makes is never counted as a stress range",
     }),
     readingsUsed: z.number().int(),
     readingsOutsideLinearRange: z.number().int().meta({
       description:
         "Readings counted although flagged outside-linear-range: real stress, but the S-N approach assumes elastic stress ranges, so many of them make the estimate doubtful",
     }),
-    readingsSkipped: z.number().int().meta({ description: "Readings left out because the gauge read beyond its rated range (a sensor condition)" }),
+    readingsSkipped: z.number().int().meta({
+      description: "Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range)",
+    }),
     rangeBinWidth: z.number().meta({ description: "Width of the range bins, MPa" }),
-    damageRatePerYear: z.number().nullable().meta({ description: "Damage per Julian year at the observed rate; null with fewer than two readings" }),
+    damageRatePerYear: z.number().nullable().meta({ description: "Damage per Julian year over the time covered by data; null when no time is covered" }),
     yearsToDamageOne: z
       .number()
       .nullable()

@@ -10,6 +10,7 @@
  * createFatigueTally does the page-by-page folding and also keeps the histogram and matrix.
  */
 export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
+export { createFatigueHistory, type FatigueHistory, type HistoryCoverage } from "./history";
 export { binRanges, mergeIntoCells, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
 export {
   DETAIL_CATEGORIES,

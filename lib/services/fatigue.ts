@@ -1,18 +1,21 @@
 import { and, asc, eq, gte, lt } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { readings } from "@/db/schema";
+import { readings, zeroReadings, type Gauge } from "@/db/schema";
 import type { z } from "zod";
 import type { gaugeFatigueSchema } from "@/lib/api/schemas";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";
+import { defaultHealthThresholds } from "@/lib/alerting/evaluate-gauge";
+import { DEFAULT_EXPECTED_INTERVAL_S, STALE_AFTER_INTERVALS } from "@/lib/alerting/gauge-state";
 import {
+  createFatigueHistory,
   createFatigueTally,
-  createRainflowCounter,
   damageRatePerYear,
   yearsToReachDamage,
   type RainflowMatrix,
 } from "@/lib/fatigue";
-import { Flag } from "@/lib/mechanics";
+import { initialSensorHealthState, inspectReadings } from "@/lib/limits";
+import { Flag, isOutOfRange } from "@/lib/mechanics";
 import { resolveGauge } from "./gauges";
 
 /** Range bins of 1 MPa: fine beside the usual categories' cut-offs of about 15 to 65 MPa. */
@@ -25,13 +28,13 @@ const PAGE_SIZE = 20_000;
 /** The fatigue endpoint's body; the fields are documented on the schema. */
 export type GaugeFatigue = z.output<typeof gaugeFatigueSchema>;
 
-type StressReading = { time: number; stress: number; flags: number };
+type StressReading = { time: number; value: number; strain: number; stress: number; flags: number };
 
 /** A gauge's readings in [from, to) in time order, a page at a time by keyset on t. */
 async function* readingPages(gaugeId: number, from: number, to: number, pageSize: number): AsyncGenerator<StressReading[]> {
   for (let after = from; ; ) {
     const page = await getDb()
-      .select({ time: readings.time, stress: readings.stress, flags: readings.flags })
+      .select({ time: readings.time, value: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
       .from(readings)
       .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, after), lt(readings.time, to)))
       .orderBy(asc(readings.time))
@@ -42,6 +45,33 @@ async function* readingPages(gaugeId: number, from: number, to: number, pageSize
     after = page.at(-1)!.time + 1;
   }
 }
+
+/**
+ * The one rule for which stored readings fatigue leaves out as faulty: beyond the gauge's rated
+ * range, or found faulty by the sensor-health detectors (a jump or spike, a flat line, a raw value
+ * outside the sensor's range). The detectors run again here over the period because readings do
+ * not yet store their verdict; once they do, this reads the stored verdict instead.
+ */
+function isFaultyReading(reading: StressReading, sensorFault: boolean): boolean {
+  return isOutOfRange(reading.flags) || sensorFault;
+}
+
+/**
+ * Times after which stress comes from another zero reading: for every zero but the one in force
+ * at installation, both when it was read on site and when it was recorded, since readings stored
+ * between the two were converted with the previous zero.
+ */
+async function zeroEpochStarts(gauge: Gauge): Promise<number[]> {
+  const zeros = await getDb()
+    .select({ time: zeroReadings.time, setAt: zeroReadings.setAt })
+    .from(zeroReadings)
+    .where(eq(zeroReadings.gaugeId, gauge.id))
+    .orderBy(asc(zeroReadings.id));
+  return zeros.slice(1).flatMap((zero) => [zero.time.getTime(), zero.setAt.getTime()]);
+}
+
+/** Intervals between readings longer than this are outages, not covered time: the stale-data rule's silence. */
+const longestCoveredIntervalMs = (gauge: Gauge) => STALE_AFTER_INTERVALS * (gauge.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S) * 1000;
 
 /**
  * Fatigue of one gauge over [from, to): rainflow counting (ASTM E1049) over the stored stress,
@@ -66,32 +96,39 @@ export async function gaugeFatigue(
     );
   }
 
-  const counter = createRainflowCounter();
+  const history = createFatigueHistory(await zeroEpochStarts(gauge), longestCoveredIntervalMs(gauge));
   const tally = createFatigueTally(category, FATIGUE_RANGE_BIN_MPA, FATIGUE_MEAN_BIN_MPA);
+  const healthThresholds = defaultHealthThresholds(gauge.input);
+  let health = initialSensorHealthState();
   let readingsUsed = 0;
   let readingsSkipped = 0;
   let readingsOutsideLinearRange = 0;
   let first: number | null = null;
   let last: number | null = null;
   for await (const page of readingPages(gauge.id, query.from.getTime(), query.to.getTime(), options.pageSize ?? PAGE_SIZE)) {
-    for (const { time, stress, flags } of page) {
-      if (flags & Flag.outOfRange) {
+    // Times are unique and ascending, so the inspection keeps every reading, in the page's order.
+    const inspection = inspectReadings(healthThresholds, health, page.map((reading) => ({ time: reading.time, raw: reading.value, value: reading.strain })));
+    health = inspection.state;
+    page.forEach((reading, i) => {
+      if (isFaultyReading(reading, inspection.readings[i]!.fault === true)) {
         readingsSkipped++;
-        continue;
+        return;
       }
-      if (flags & Flag.outsideLinearRange) readingsOutsideLinearRange++;
-      counter.push(stress);
+      if (reading.flags & Flag.outsideLinearRange) readingsOutsideLinearRange++;
+      history.push(reading.time, reading.stress);
       readingsUsed++;
-      first ??= time;
-      last = time;
-    }
-    tally.add(counter.takeCounted());
+      first ??= reading.time;
+      last = reading.time;
+    });
+    tally.add(history.takeCounted());
   }
-  tally.add(counter.finish());
+  tally.add(history.finish());
 
   const summary = tally.summary();
+  const coverage = history.coverage();
   const observedSeconds = first === null || last === null ? 0 : (last - first) / 1000;
-  const rate = observedSeconds > 0 ? damageRatePerYear(summary.damage, observedSeconds) : null;
+  const coveredSeconds = coverage.coveredMs / 1000;
+  const rate = coveredSeconds > 0 ? damageRatePerYear(summary.damage, coveredSeconds) : null;
   const years = rate === null ? null : yearsToReachDamage(rate);
   return {
     fatigue: {
@@ -102,6 +139,11 @@ export async function gaugeFatigue(
       firstReading: first === null ? null : new Date(first).toISOString(),
       lastReading: last === null ? null : new Date(last).toISOString(),
       observedSeconds,
+      coveredSeconds,
+      gapsLeftOut: coverage.gaps,
+      gapSeconds: coverage.gapMs / 1000,
+      longestCoveredIntervalSeconds: longestCoveredIntervalMs(gauge) / 1000,
+      zeroEpochs: coverage.epochs,
       readingsUsed,
       readingsOutsideLinearRange,
       readingsSkipped,

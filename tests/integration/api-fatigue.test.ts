@@ -37,7 +37,8 @@ const gauge = (tag: string, detailCategory: number | null) =>
   });
 
 type Row = typeof readings.$inferInsert;
-const row = (gaugeId: number, time: number, stress: number, flags = 0): Row => ({ gaugeId, time, value: 0, strain: 0, stress, flags });
+// The raw value follows the stress, as a live channel does: sensor health reads a constant raw value as a flat line.
+const row = (gaugeId: number, time: number, stress: number, flags = 0): Row => ({ gaugeId, time, value: stress, strain: 0, stress, flags });
 
 async function insertReadings(rows: Row[]) {
   // SQLite allows 32 766 bound parameters per statement; a reading binds 7.
