@@ -36,6 +36,16 @@ async function fetchFatigue(url: string): Promise<GaugeFatigue> {
   return body;
 }
 
+const DAY_S = 86_400;
+
+/** What the rate divides by: the time readings cover, with the outages left out said so. */
+function rateBasis(fatigue: GaugeFatigue): string {
+  const covered = `over ${count(fatigue.coveredSeconds / DAY_S)} days covered by readings`;
+  if (fatigue.gapsLeftOut === 0) return covered;
+  const gaps = fatigue.gapsLeftOut === 1 ? "1 gap" : `${count(fatigue.gapsLeftOut)} gaps`;
+  return `${covered}; ${gaps} longer than ${count(fatigue.longestCoveredIntervalSeconds / 60)} min (${count(fatigue.gapSeconds / DAY_S)} days in all) left out`;
+}
+
 function lifeText(fatigue: GaugeFatigue): string {
   if (fatigue.damageRatePerYear === 0) return "∞ — no damaging cycles at this rate";
   if (fatigue.yearsToDamageOne === null) return "— (too few readings for a rate)";
@@ -157,11 +167,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
   const cutOff = snCurveLimits(fatigue.category).cutOffLimit;
   const figures: [string, string, string][] = [
     ["Damage in the period", formatScientific(fatigue.damage), "Miner sum D; D = 1 is the nominal end of fatigue life"],
-    [
-      "Damage rate",
-      fatigue.damageRatePerYear === null ? "—" : `${formatScientific(fatigue.damageRatePerYear)} per year`,
-      `at the rate observed over ${count(fatigue.observedSeconds / 86_400)} days of readings`,
-    ],
+    ["Damage rate", fatigue.damageRatePerYear === null ? "—" : `${formatScientific(fatigue.damageRatePerYear)} per year`, rateBasis(fatigue)],
     ["Life at that rate", lifeText(fatigue), "years for the rate to reach D = 1; damage before monitoring began is unknown"],
     ["Cycles counted", count(fatigue.cyclesCounted), `rainflow, half cycles as ½; from ${count(fatigue.readingsUsed)} readings`],
   ];
@@ -178,7 +184,8 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
           </div>
         ))}
       </dl>
-      {(fatigue.readingsOutsideLinearRange > 0 || fatigue.readingsSkipped > 0) && (
+      <CountingNote />
+      {(fatigue.readingsOutsideLinearRange > 0 || fatigue.readingsSkipped > 0 || fatigue.zeroEpochs > 1) && (
         <ul className="space-y-1 rounded-md bg-amber-50 px-4 py-3 text-sm text-amber-950 dark:bg-amber-950/40 dark:text-amber-100">
           {fatigue.readingsOutsideLinearRange > 0 && (
             <li>
@@ -186,7 +193,18 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
               ranges: read the estimate with more care.
             </li>
           )}
-          {fatigue.readingsSkipped > 0 && <li>{count(fatigue.readingsSkipped)} readings beyond the gauge&apos;s rated range were left out as a sensor condition.</li>}
+          {fatigue.zeroEpochs > 1 && (
+            <li>
+              The gauge was zeroed again in the period: its {fatigue.zeroEpochs} stretches between zero readings were counted one by one, so the step
+              of a new zero is not counted as a stress range.
+            </li>
+          )}
+          {fatigue.readingsSkipped > 0 && (
+            <li>
+              {count(fatigue.readingsSkipped)} faulty readings were left out: beyond the gauge&apos;s rated range, or found faulty by sensor health (a
+              jump or spike, a flat line).
+            </li>
+          )}
         </ul>
       )}
       <figure className={`${cardClass} space-y-3 p-4`}>
@@ -207,5 +225,16 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
         </a>
       </figure>
     </div>
+  );
+}
+
+/** What the stress history counted here can and cannot see; readings are its only source today. */
+function CountingNote() {
+  return (
+    <p data-testid="fatigue-source" className="rounded-md bg-slate-100 px-4 py-3 text-sm text-slate-700 dark:bg-slate-800 dark:text-slate-200">
+      Counted from readings minutes apart, which see only daily and seasonal cycles (temperature, slowly changing loads). The cycles of
+      traffic, wind or machinery last seconds and fall between readings, so the damage here can be far below the real damage and the life
+      far above it.
+    </p>
   );
 }

@@ -2,7 +2,7 @@ import { createClient } from "@libsql/client";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { fatigueSummary, formatScientific, rainflow } from "@/lib/fatigue";
-import { PHONE, SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
+import { DESKTOP, PHONE, SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -47,8 +47,9 @@ async function storeReadings(stresses: number[], end: number) {
   const gaugeId = Number(found.rows[0]!.id);
   const start = end - stresses.length * INTERVAL_MS;
   await client.execute({
-    sql: `INSERT INTO readings (gauge_id, t, value, strain, stress, flags) VALUES ${stresses.map(() => "(?, ?, 0, 0, ?, 0)").join(", ")}`,
-    args: stresses.flatMap((stress, i) => [gaugeId, start + i * INTERVAL_MS, stress]),
+    // The raw value follows the stress as a live channel's does: a constant one reads as a flat line, a sensor fault.
+    sql: `INSERT INTO readings (gauge_id, t, value, strain, stress, flags) VALUES ${stresses.map(() => "(?, ?, ?, 0, ?, 0)").join(", ")}`,
+    args: stresses.flatMap((stress, i) => [gaugeId, start + i * INTERVAL_MS, stress, stress]),
   });
   client.close();
 }
@@ -82,6 +83,9 @@ describe("the fatigue view", () => {
     await page.getByRole("img", { name: /cycles \(log scale\) against stress range Δσ in MPa/ }).waitFor();
     await expect.poll(() => fatigue.barPixels()).toBeGreaterThan(50);
     await page.getByText(/depends on the detail category the engineer chose/).waitFor();
+    await page.getByText(/readings minutes apart, which see only daily and seasonal cycles/).waitFor();
+    // 20 days of readings every 10 minutes with no outage: the rate divides by the 20 days they cover.
+    await page.getByText(/over 20 days covered by readings$/).waitFor();
     await page.getByText(/nominal stress ranges at the detail/).waitFor();
 
     const csvLink = page.getByRole("link", { name: "Download the rainflow matrix (CSV)" });
@@ -97,5 +101,15 @@ describe("the fatigue view", () => {
     await page.getByLabel("First day").fill("2024-01-01");
     await page.getByLabel("Last day").fill("2024-01-31");
     await page.getByText("No readings in this period").waitFor();
+  });
+
+  it("shows the basis of the rate and what counting from readings misses on a desktop", async () => {
+    const page = await (await newContext(browser, DESKTOP)).newPage();
+    await new SignInPage(page).signInAs("engineer");
+    await page.goto(`/structures/MILL-FB/gauges/${TAG}/fatigue`);
+    await page.getByTestId("fatigue-damage").waitFor({ timeout: 20_000 });
+    await page.getByTestId("fatigue-source").getByText(/traffic, wind or machinery/).waitFor();
+    await page.getByText(/days covered by readings/).waitFor();
+    await saveScreenshot(page, "fatigue-desktop");
   });
 });
