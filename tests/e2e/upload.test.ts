@@ -51,15 +51,20 @@ afterAll(async () => {
   fs.rmSync(folder, { recursive: true, force: true });
 });
 
-/** A logger file of LC-M1 (quarter bridge, mV/V) every minute in January 2025, local times, with three bad rows. */
+/**
+ * A logger file of LC-M1 (quarter bridge, mV/V) every minute for two days from ten days ago, local
+ * times, with three bad rows. The demo gauges were zeroed 91 days ago, so the file comes after
+ * their zero; at half a minute past, no row repeats a seeded 10-minute reading.
+ */
 function loggerFile(): string {
+  const start = Math.floor((Date.now() - 10 * 86_400_000) / 86_400_000) * 86_400_000 + 8 * 3_600_000 + 30_000;
+  const timeOf = (i: number) => new Date(start + i * 60_000).toISOString().slice(0, 19).replace("T", " ");
   const rows = ["gauge,time,value,temperature"];
   for (let i = 0; i < 3000; i++) {
-    const time = new Date(Date.UTC(2025, 0, 6, 8, 0) + i * 60_000).toISOString().slice(0, 19).replace("T", " ");
-    rows.push(`LC-M1,${time},${(0.0123 + 0.0004 * Math.sin(i / 30)).toFixed(6)},${(4 + i / 1000).toFixed(2)}`);
+    rows.push(`LC-M1,${timeOf(i)},${(0.0123 + 0.0004 * Math.sin(i / 30)).toFixed(6)},${(4 + i / 1000).toFixed(2)}`);
   }
-  rows[11] = "LC-M1,2025-01-06 08:10:00,not-read,4.01"; // line 12
-  rows[501] = "LC-X9,2025-01-06 16:20:00,0.0123,4.5"; // line 502
+  rows[11] = `LC-M1,${timeOf(10)},not-read,4.01`; // line 12
+  rows[501] = `LC-X9,${timeOf(500)},0.0123,4.5`; // line 502
   rows[2001] = "LC-M1,06/01/2025 17:20,0.0123,5.0"; // line 2002
   const file = path.join(folder, "footbridge-january.csv");
   fs.writeFileSync(file, `${rows.join("\n")}\n`);
