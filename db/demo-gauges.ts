@@ -75,6 +75,8 @@ export const DEMO_GAUGES: DemoGauge[] = [
       gaugeResistance: 350,
       zero: { value: 0.0123, temperature: 11.5 },
       initialStress: 38,
+      // The repaired lower chord: a fillet-welded cover plate end at the gauge (invented assessment, EN 1993-1-9 style category).
+      detailCategory: 71,
     }),
     story: (start) => ({
       trafficAmplitude: 55,
@@ -94,6 +96,7 @@ export const DEMO_GAUGES: DemoGauge[] = [
       gaugeFactor: 2.05,
       zero: { value: -0.0041, temperature: 11.5 },
       initialStress: 31,
+      detailCategory: 80,
     }),
     story: (start) => ({
       trafficAmplitude: 40,
@@ -113,6 +116,7 @@ export const DEMO_GAUGES: DemoGauge[] = [
       bridge: "half-bending",
       gaugeFactor: 2.08,
       zero: { value: 0.0007, temperature: 11.5 },
+      detailCategory: 90,
     }),
     // A slowly debonding gauge: its reading creeps away from the member's real strain.
     story: (start) => ({ trafficAmplitude: 30, driftPerDay: 1.6, offline: footbridgeOutage(start) }),

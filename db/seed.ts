@@ -12,7 +12,8 @@ import { gaugeConfigOf } from "@/lib/gauges/record";
 import { syntheticReadings, type SyntheticReading } from "@/lib/demo";
 import { and, eq, inArray, min } from "drizzle-orm";
 import { getDb } from "./client";
-import { gauges, zeroReadings } from "./schema";
+import { zeroReadings } from "./schema";
+import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
 import { DEMO_DAYS, DEMO_GAUGES, DEMO_LIMITS, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 import { listDrawings, placeGauge, uploadDrawing } from "@/lib/services/files";
 import { getLimits, replaceLimits } from "@/lib/services/limits";
@@ -113,8 +114,11 @@ async function seedLimits() {
   }
 }
 
-/** Creates what is missing of the demo scenario; running it again changes nothing. */
-export async function seedDemo(now = Date.now()): Promise<void> {
+/**
+ * Creates what is missing of the demo scenario; running it again changes nothing. Without
+ * `readings`, the gauges stay silent until a logger (jobs/demo-logger.ts) reports.
+ */
+export async function seedDemo(now = Date.now(), { readings = true }: { readings?: boolean } = {}): Promise<void> {
   for (const structure of DEMO_STRUCTURES) {
     if (!(await findStructureByCode(structure.code))) await createStructure(null, structure);
   }
@@ -127,11 +131,11 @@ export async function seedDemo(now = Date.now()): Promise<void> {
   await seedGauges(now);
   await seedDrawings();
   await seedLimits();
-  await seedReadings();
+  if (readings) await seedReadings();
 }
 
 /** Fixed, so every seeded database holds the same invented readings. */
-const DEMO_SEED = 20_260_301;
+export const DEMO_SEED = 20_260_301;
 const SEED_BATCH = 5_000;
 
 /**
@@ -147,23 +151,29 @@ async function readingsStart(structureCode: string, gaugeIds: number[]): Promise
   return row.installed.getTime() + INSTALLED_BEFORE_READINGS_MS;
 }
 
+export const DEMO_STRUCTURE_CODES = DEMO_STRUCTURES.map((structure) => structure.code);
+
+/**
+ * What tells a demo structure's story: the ingestion target its installer sends to, the time the
+ * story starts, and each demo gauge's synthetic source with its expected interval.
+ */
+export async function demoStory(structureCode: string) {
+  const installer = (await installers())[structureCode]!;
+  const target = await openIngestion(installer, structureCode);
+  const start = await readingsStart(structureCode, [...target.gauges.values()].map((gauge) => gauge.id));
+  const gauges = DEMO_GAUGES.filter((gauge) => gauge.structure === structureCode && target.gauges.has(gauge.input.tag)).map(({ input, story }) => {
+    const { id, retired, row } = target.gauges.get(input.tag)!;
+    return { tag: input.tag, gaugeId: id, retired, intervalMs: (row.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S) * 1000, config: gaugeConfigOf(row), story: story(start) };
+  });
+  return { target, start, gauges };
+}
+
 /** 90 days of 10-minute readings per demo gauge, through the ingestion service like any logger's. */
 async function seedReadings() {
-  const installerOf = await installers();
-  for (const [structureCode, installer] of Object.entries(installerOf)) {
-    const target = await openIngestion(installer, structureCode);
-    const demo = DEMO_GAUGES.filter((gauge) => gauge.structure === structureCode);
-    const stored = await getDb()
-      .select()
-      .from(gauges)
-      .where(inArray(gauges.id, [...target.gauges.values()].map((gauge) => gauge.id)));
-    const start = await readingsStart(structureCode, stored.map((row) => row.id));
-    const synthetic = demo.map(({ input, story }) => {
-      const row = stored.find((candidate) => candidate.tag === input.tag)!;
-      return { tag: input.tag, config: gaugeConfigOf(row), story: story(start) };
-    });
+  for (const structureCode of DEMO_STRUCTURE_CODES) {
+    const { target, start, gauges } = await demoStory(structureCode);
     let batch: SyntheticReading[] = [];
-    for (const reading of syntheticReadings({ start, days: DEMO_DAYS, seed: DEMO_SEED, gauges: synthetic })) {
+    for (const reading of syntheticReadings({ start, days: DEMO_DAYS, seed: DEMO_SEED, gauges })) {
       batch.push(reading);
       if (batch.length === SEED_BATCH) {
         await ingestDecoded(target, batch);

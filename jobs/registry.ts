@@ -32,7 +32,16 @@ export const JOBS: Job[] = [
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
   // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.
   { name: "monthly-report", schedule: "0 0 7 1 * *", timezone: "UTC", leaseMs: 30 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
+  // Loaded only when enabled: it carries the whole demo scenario.
+  ...(demoLoggerEnabled()
+    ? [{ name: "demo-logger", schedule: "15 * * * * *", leaseMs: 5 * 60_000, run: async (signal: AbortSignal) => (await import("./demo-logger")).runDemoLogger(Date.now(), signal) }]
+    : []),
 ];
+
+/** DEMO_LOGGER=on, set by `npm run demo` alone, keeps the demo's gauges reporting; never on a real installation. */
+export function demoLoggerEnabled(): boolean {
+  return process.env.DEMO_LOGGER === "on";
+}
 
 /** JOBS=off keeps a process from running jobs: tests, benchmarks, or web servers beside a separate `npm run jobs`. */
 export function jobsEnabled(): boolean {

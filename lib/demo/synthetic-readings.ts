@@ -59,6 +59,13 @@ export interface SyntheticOptions {
   start: number;
   /** Defaults to 90. */
   days?: number;
+  /**
+   * Epoch ms: readings before it are drawn but not converted or yielded, so a logger continuing the
+   * story from its last reading sends exactly what a run from `start` would. Defaults to `start`.
+   */
+  from?: number;
+  /** Epoch ms, exclusive: the end of the readings instead of `days`. */
+  until?: number;
   /** Ms between readings; defaults to 10 minutes. */
   interval?: number;
   /** Defaults to 1. */
@@ -99,19 +106,20 @@ const WEATHER_MEMORY = 3 * DAY;
  * changes the other readings.
  */
 export function* syntheticReadings(options: SyntheticOptions): Generator<SyntheticReading, void, undefined> {
-  const { start, days = 90, interval = 10 * MINUTE, seed = 1, gauges } = options;
+  const { start, days = 90, interval = 10 * MINUTE, seed = 1, gauges, from = start } = options;
   if (!Number.isSafeInteger(start) || !Number.isSafeInteger(interval) || interval <= 0 || !(days > 0)) {
     throw new RangeError("Synthetic readings need an integer start, a positive integer interval and a positive number of days.");
   }
   const climate = { ...DEFAULT_CLIMATE, ...options.climate };
   const weather = weatherWalk(climate, interval, mulberry32(seed));
   const stories = gauges.map((gauge) => gaugeStory(gauge, climate, start, mulberry32(streamSeed(seed, gauge.tag))));
-  const steps = Math.floor((days * DAY) / interval);
+  const steps = options.until === undefined ? Math.floor((days * DAY) / interval) : Math.ceil((options.until - start) / interval);
   for (let step = 0; step < steps; step++) {
     const time = start + step * interval;
     const siteTemperature = seasonalTemperature(climate, time) + weather();
+    const wanted = time >= from;
     for (const story of stories) {
-      const reading = story(time, interval, siteTemperature);
+      const reading = story(time, interval, siteTemperature, wanted);
       if (reading) yield reading;
     }
   }
@@ -139,14 +147,15 @@ function weatherWalk(climate: SyntheticClimate, interval: number, random: Random
   };
 }
 
-type GaugeStep = (time: number, interval: number, siteTemperature: number) => SyntheticReading | null;
+/** Every step draws its random numbers; only a `wanted` one is converted into a reading. */
+type GaugeStep = (time: number, interval: number, siteTemperature: number, wanted: boolean) => SyntheticReading | null;
 
 function gaugeStory({ tag, config, story = {} }: SyntheticGauge, climate: SyntheticClimate, start: number, random: Random): GaugeStep {
   const toRaw: InverseConversion = prepareInverseConversion(config);
   const referenceTemperature = config.zero.temperature ?? climate.meanTemperature;
   const { trafficAmplitude = 0, noise = 1.5, driftPerDay = 0, thermalRestraint = 0, spikes = [], offline, sustainedLoad } = story;
   const restrainedStrainPerDegree = -thermalRestraint * config.material.alpha;
-  return (time, interval, siteTemperature) => {
+  return (time, interval, siteTemperature, wanted) => {
     const temperature = siteTemperature + climate.thermometerNoise * gaussian(random);
     const traffic = random() < trafficIntensity(time) ? trafficAmplitude * (0.4 + 0.6 * random()) : 0;
     let strain =
@@ -156,7 +165,7 @@ function gaugeStory({ tag, config, story = {} }: SyntheticGauge, climate: Synthe
       restrainedStrainPerDegree * (temperature - referenceTemperature);
     if (sustainedLoad && within(sustainedLoad, time)) strain += sustainedLoad.strain;
     for (const spike of spikes) if (time >= spike.time && time < spike.time + interval) strain += spike.strain;
-    if (offline && within(offline, time)) return null;
+    if (!wanted || (offline && within(offline, time))) return null;
     return { gauge: tag, time, value: toRaw(strain, temperature), temperature, mechanicalStrain: strain };
   };
 }

@@ -163,3 +163,22 @@ describe("synthetic readings", () => {
     expect(() => generate({ days: -1 })).toThrow(RangeError);
   });
 });
+
+describe("continuing the story", () => {
+  it("sends from `from` to `until` exactly the readings a run from the start sends there", () => {
+    const options = { start: START, seed: 7, gauges: GAUGES };
+    const from = START + 2 * DAY + 5 * MINUTE;
+    const until = START + 3 * DAY;
+    const whole = [...syntheticReadings({ ...options, days: 3 })].filter((reading) => reading.time >= from);
+    const continued = [...syntheticReadings({ ...options, from, until })];
+    expect(continued).toEqual(whole);
+    // By hand: from 2 days 5 minutes to 3 days at 10-minute steps is 143 steps (the 2-day step is before `from`).
+    expect(new Set(continued.map((reading) => reading.time)).size).toBe(READINGS_PER_DAY - 1);
+  });
+
+  it("goes on past the seeded days on the same grid", () => {
+    const options = { start: START, seed: 7, gauges: GAUGES.slice(0, 1) };
+    const later = [...syntheticReadings({ ...options, from: START + 100 * DAY, until: START + 100 * DAY + HOUR })];
+    expect(later.map((reading) => reading.time)).toEqual(Array.from({ length: 6 }, (_, i) => START + 100 * DAY + i * 10 * MINUTE));
+  });
+});
