@@ -33,7 +33,7 @@ export type GaugeTableRow = {
 };
 
 const column = createColumnHelper<GaugeTableRow>();
-const fixed = (value: number | null, digits: number) => (value === null ? "—" : value.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits }));
+const fixed = (value: number | null, digits: number) => (value === null || !Number.isFinite(value) ? "—" : value.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits }));
 
 /** The structure's gauges with their current values: sortable, filterable, units as the person chose. */
 export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: string; timeZone: string; rows: GaugeTableRow[] }) {
