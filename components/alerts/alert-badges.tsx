@@ -1,17 +1,13 @@
+import { STATE_LOOK } from "@/lib/alerting/condition-display";
 import type { AlertView } from "@/lib/services/alerts";
+import { ConditionShape } from "./condition-shape";
 
-const LEVEL_STYLE: Record<string, { className: string; symbol: string }> = {
-  watch: { className: "border-watch/50 bg-yellow-50 text-watch dark:bg-yellow-950/40 dark:text-yellow-200", symbol: "◆" },
-  warning: { className: "border-warning/50 bg-orange-50 text-warning dark:bg-orange-950/40 dark:text-orange-200", symbol: "▲" },
-  critical: { className: "border-critical/50 bg-red-50 text-critical dark:bg-red-950/40 dark:text-red-200", symbol: "■" },
-};
-
-/** Level as a word and a shape, so it reads without colour. */
+/** Level as a word and the shape the gauge's condition takes at that level, so it reads without colour. */
 export function LevelBadge({ level }: { level: string }) {
-  const style = LEVEL_STYLE[level] ?? LEVEL_STYLE.watch!;
+  const state = level === "critical" || level === "warning" ? level : "watch";
   return (
-    <span className={`inline-flex items-center gap-1 rounded border px-1.5 py-0.5 text-xs font-semibold ${style.className}`}>
-      <span aria-hidden>{style.symbol}</span>
+    <span className={`inline-flex items-center gap-1 rounded border px-1.5 py-0.5 text-xs font-semibold ${STATE_LOOK[state].badge}`}>
+      <ConditionShape state={state} className="size-3" />
       {level}
     </span>
   );

@@ -1,7 +1,9 @@
 import { formatDistanceStrict } from "date-fns";
 import type { StructureSummary } from "@/lib/services/status";
 import { formatShareOfYield } from "@/lib/units";
-import { GaugeStateBadge } from "./state-badge";
+import { CONDITION_STATES } from "@/lib/alerting/condition";
+import { STATE_LOOK } from "@/lib/alerting/condition-display";
+import { ConditionBadge } from "./state-badge";
 
 /** What an owner needs at a glance: the worst state, what is open, how hard it worked, how fresh the data are. */
 export function StructureGlance({ summary, timeZone }: { summary: StructureSummary; timeZone: string }) {
@@ -10,7 +12,7 @@ export function StructureGlance({ summary, timeZone }: { summary: StructureSumma
   return (
     <div className="mt-3 space-y-2 text-sm" data-testid="structure-glance">
       <div className="flex flex-wrap items-center gap-2">
-        <GaugeStateBadge state={summary.state} />
+        <ConditionBadge condition={{ state: summary.state, faults: [], stale: false }} />
         {summary.stale && (
           <span className="text-xs font-semibold text-critical" data-testid="stale-mark">
             Data stopped arriving — this is not an all clear
@@ -24,7 +26,10 @@ export function StructureGlance({ summary, timeZone }: { summary: StructureSumma
           {summary.sensorAlerts > 0 && `; ${summary.sensorAlerts} sensor`}
         </dd>
         <dt className="text-slate-500 dark:text-slate-400">Peak, last 24 h</dt>
-        <dd>{formatShareOfYield(summary.peakUtilisation24h)}</dd>
+        <dd>
+          {formatShareOfYield(summary.peakUtilisation24h)}
+          {summary.peakLeavesOut > 0 && ` (${summary.peakLeavesOut === 1 ? "1 gauge" : `${summary.peakLeavesOut} gauges`} in sensor fault left out)`}
+        </dd>
         <dt className="text-slate-500 dark:text-slate-400">Last reading</dt>
         <dd>
           {summary.lastReadingAt === null
@@ -32,7 +37,11 @@ export function StructureGlance({ summary, timeZone }: { summary: StructureSumma
             : `${local(summary.lastReadingAt)} (${formatDistanceStrict(summary.lastReadingAt, Date.now(), { addSuffix: true })})`}
         </dd>
         <dt className="text-slate-500 dark:text-slate-400">Gauges</dt>
-        <dd>{summary.gaugeCount} active · times in {timeZone}</dd>
+        <dd data-testid="gauges-by-condition">
+          {summary.gaugeCount} active
+          {CONDITION_STATES.filter((state) => summary.gaugesIn[state]).map((state) => ` · ${summary.gaugesIn[state]} ${STATE_LOOK[state].word.toLowerCase()}`)} · times in{" "}
+          {timeZone}
+        </dd>
       </dl>
     </div>
   );

@@ -5,12 +5,15 @@ import type { FileView } from "@/lib/services/files";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
-import { GaugeMarker, MarkerLegend, type MarkerState } from "./gauge-marker";
+import type { ShownState } from "@/lib/alerting/condition-display";
+import { GaugeMarker, MarkerLegend } from "./gauge-marker";
 
 export type BoardGauge = {
   tag: string;
   label: string | null;
-  state?: MarkerState;
+  state: ShownState;
+  /** The condition in words. */
+  stateText: string;
   placement: { id: number; x: number; y: number } | null;
 };
 
@@ -158,6 +161,7 @@ export function DrawingBoard({
               x={gauge.placement!.x}
               y={gauge.placement!.y}
               state={gauge.state}
+              text={gauge.stateText}
               href={`/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(gauge.tag)}`}
               passive={placing}
             />

@@ -7,8 +7,8 @@ import { megabytes } from "@/lib/storage/upload-rules";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cardClass } from "@/components/ui/styles";
 import { DrawingUpload } from "./drawing-upload";
-import { GaugeMarker, MarkerLegend, markerStateOf } from "./gauge-marker";
-import type { GaugeState } from "@/lib/alerting/gauge-state";
+import { GaugeMarker, MarkerLegend } from "./gauge-marker";
+import type { ShownState } from "@/lib/alerting/condition-display";
 
 /** The structure page's drawings: each opens to place gauges on it; those allowed can add more. */
 export async function StructureDrawings({
@@ -19,7 +19,7 @@ export async function StructureDrawings({
   user: UserActor;
   structure: Structure;
   /** Gauges placed on drawings, with their state now. */
-  markers: { tag: string; state: GaugeState; placement: { id: number; x: number; y: number } | null }[];
+  markers: { tag: string; state: ShownState; stateText: string; placement: { id: number; x: number; y: number } | null }[];
 }) {
   const [drawings, canUpload] = await Promise.all([listDrawings(user, structure.code), may(user, "gauge:register", structure)]);
   return (
@@ -51,7 +51,8 @@ export async function StructureDrawings({
                         x={marker.placement!.x}
                         y={marker.placement!.y}
                         href={`/structures/${encodeURIComponent(structure.code)}/gauges/${encodeURIComponent(marker.tag)}`}
-                        state={markerStateOf(marker.state)}
+                        state={marker.state}
+                        text={marker.stateText}
                         passive
                       />
                     ))}

@@ -11,10 +11,11 @@ import {
   useReactTable,
   type SortingState,
 } from "@tanstack/react-table";
-import { GaugeStateBadge } from "@/components/alerts/state-badge";
+import { ConditionBadge } from "@/components/alerts/state-badge";
 import { useUnits } from "@/components/units/units-context";
 import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
-import { STATE_ORDER, type GaugeState } from "@/lib/alerting/gauge-state";
+import { bySeverity, type GaugeCondition } from "@/lib/alerting/condition";
+import { conditionText } from "@/lib/alerting/condition-display";
 import { inDisplayUnits } from "@/lib/units";
 
 /** One row: the gauge, how it is read, and its latest converted reading (SI, as stored). */
@@ -23,7 +24,8 @@ export type GaugeTableRow = {
   label: string | null;
   member: string | null;
   sensor: string;
-  state: GaugeState;
+  condition: GaugeCondition;
+  retired: boolean;
   openAlerts: number;
   time: number | null;
   strain: number | null;
@@ -46,10 +48,12 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
 
   const columns = useMemo(
     () => [
-      column.accessor("state", {
-        header: "State",
-        sortingFn: (a, b) => STATE_ORDER.indexOf(a.original.state) - STATE_ORDER.indexOf(b.original.state),
-        cell: (info) => <GaugeStateBadge state={info.getValue()} />,
+      // The words are the filter's text, so "sensor fault" or "stale" finds those gauges.
+      column.accessor((row) => conditionText(row.condition, row.retired), {
+        id: "state",
+        header: "Condition",
+        sortingFn: (a, b) => Number(a.original.retired) - Number(b.original.retired) || bySeverity(a.original.condition.state, b.original.condition.state),
+        cell: (info) => <ConditionBadge condition={info.row.original.condition} retired={info.row.original.retired} />,
       }),
       column.accessor("tag", {
         header: "Gauge",

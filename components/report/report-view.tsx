@@ -1,18 +1,18 @@
 "use client";
 
-import { GaugeStateBadge } from "@/components/alerts/state-badge";
+import { ConditionBadge } from "@/components/alerts/state-badge";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { useUnits } from "@/components/units/units-context";
-import type { GaugeState } from "@/lib/alerting/gauge-state";
+import type { ConditionState } from "@/lib/alerting/condition";
 import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/mail/format-time";
 import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
 import type { PeriodLevel } from "@/lib/report/status";
 import type { UnitSystem } from "@/lib/units";
 
-/** The period's level as the state badge shows it: "all clear" reads as within limits. */
-const BADGE_OF: Record<PeriodLevel, GaugeState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "ok", "no-data": "no-data" };
+/** The period's level as the condition badge shows it: "all clear" reads as within limits. */
+const BADGE_OF: Record<PeriodLevel, ConditionState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "within-limits", "no-data": "no-data" };
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -34,9 +34,9 @@ export function ReportView({ report }: { report: StructureReport }) {
   const facts: [string, React.ReactNode][] = [
     ...summaryFacts(summary),
     [
-      "State now",
+      "Condition now",
       <span key="now" className="inline-flex flex-wrap items-center gap-2">
-        <GaugeStateBadge state={summary.current.state} />
+        <ConditionBadge condition={{ state: summary.current.state, faults: [], stale: summary.current.stale }} />
         <span className="text-slate-600 dark:text-slate-400">last reading {last}</span>
       </span>,
     ],
@@ -46,7 +46,7 @@ export function ReportView({ report }: { report: StructureReport }) {
       <Section id="summary-heading" title="Summary">
         <div className={`${cardClass} space-y-3 p-4`}>
           <p className="flex flex-wrap items-center gap-2 font-medium" data-testid="report-level">
-            <GaugeStateBadge state={BADGE_OF[summary.level]} />
+            <ConditionBadge condition={{ state: BADGE_OF[summary.level], faults: [], stale: false }} />
             {summary.headline}
           </p>
           <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
@@ -73,7 +73,7 @@ export function ReportView({ report }: { report: StructureReport }) {
                 loggers and their network link.
               </EmptyState>
             )}
-            <GaugeTable gauges={report.gauges} units={units} />
+            <GaugeTable gauges={report.gauges} units={units} timeZone={zone} />
             <GapLists gauges={report.gauges} timeZone={zone} />
           </>
         )}
@@ -105,8 +105,8 @@ export function ReportView({ report }: { report: StructureReport }) {
   );
 }
 
-function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: UnitSystem }) {
-  const columns = ["Gauge", ...gaugeFacts(gauges[0]!, units).map((fact) => fact.label)];
+function GaugeTable({ gauges, units, timeZone }: { gauges: ReportGauge[]; units: UnitSystem; timeZone: string }) {
+  const columns = ["Gauge", ...gaugeFacts(gauges[0]!, units, timeZone).map((fact) => fact.label)];
   return (
     <div className={`${cardClass} overflow-x-auto print:overflow-visible`}>
       <table className={`${tableClass} print:text-xs`}>
@@ -127,8 +127,8 @@ function GaugeTable({ gauges, units }: { gauges: ReportGauge[]; units: UnitSyste
                 {gauge.status === "retired" && <span className="ml-1 text-xs text-slate-500">(retired)</span>}
                 <span className="block text-xs font-normal text-slate-500 dark:text-slate-400">{[gauge.label, gauge.member].filter(Boolean).join(" · ")}</span>
               </th>
-              {gaugeFacts(gauge, units).map((fact) => (
-                <td key={fact.key} className={`${tdClass} tabular-nums`}>
+              {gaugeFacts(gauge, units, timeZone).map((fact) => (
+                <td key={fact.key} className={`${tdClass} tabular-nums`} data-fact={fact.key}>
                   {fact.value}
                 </td>
               ))}
@@ -145,7 +145,7 @@ function GapLists({ gauges, timeZone }: { gauges: ReportGauge[]; timeZone: strin
   if (withGaps.length === 0) return null;
   return (
     <div className={`${cardClass} space-y-3 p-4 text-sm`}>
-      <h3 className="font-semibold">Hours without readings</h3>
+      <h3 className="font-semibold">Gaps: runs of hours without readings (times in {timeZone})</h3>
       {withGaps.map((gauge) => (
         <div key={gauge.tag} className="break-inside-avoid">
           <p className="font-mono font-semibold">{gauge.tag}</p>

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ALERT_KINDS, ALERT_LEVELS, GAUGE_STATUSES } from "@/db/schema";
-import { STATE_ORDER } from "@/lib/alerting/gauge-state";
+import { CONDITION_STATES } from "@/lib/alerting/condition";
+import { conditionSchema } from "./schemas";
 import { PERIOD_LEVELS } from "@/lib/report/status";
 
 /** Response of GET /structures/{code}/report: the periodic structure report. Times are UTC ISO-8601. */
@@ -9,14 +10,20 @@ const extremes = <U extends string>(unit: U, what: string) =>
   z
     .object({ min: z.number(), max: z.number(), unit: z.literal(unit) })
     .nullable()
-    .meta({ description: `Lowest and highest ${what} of the period, ${unit}, from the daily roll-ups; null without readings` });
+    .meta({ description: `Lowest and highest ${what} of the period, ${unit}, of the readings believed (see leftOut); null without such readings` });
 
 const count = z.number().int();
 
 const readingCounts = z.object({
   received: count,
   expected: count.meta({ description: "Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now)" }),
-  completeness: z.number().nullable().meta({ description: "received ÷ expected as a ratio (1 = 100 %); null when nothing was expected" }),
+  completeness: z
+    .number()
+    .nullable()
+    .meta({ description: "received ÷ expected as a ratio (1 = 100 %), never above 1; null when nothing was expected" }),
+  surplus: count.meta({
+    description: "Readings received beyond those expected: more than a few mean the registered expected interval is longer than the logger's",
+  }),
 });
 
 export const reportGaugeSchema = z.object({
@@ -30,6 +37,17 @@ export const reportGaugeSchema = z.object({
     .nullable()
     .meta({ description: "Part of the period in which the gauge was installed, not retired, and not in the future" }),
   readings: readingCounts,
+  condition: conditionSchema.meta({ description: "The gauge's condition when the report is made" }),
+  leftOut: z
+    .object({
+      readings: count,
+      reason: z.string(),
+    })
+    .nullable()
+    .meta({
+      description:
+        "Readings left out of the extremes and the utilisation peak because the sensor was in fault when they were taken (an open jump, flat-line or out-of-range alert) or they lie beyond the gauge's rated range; null when none",
+    }),
   stress: extremes("MPa", "stress"),
   strain: extremes("µε", "stress-producing strain"),
   temperature: extremes("°C", "temperature"),
@@ -40,7 +58,7 @@ export const reportGaugeSchema = z.object({
   gaps: z.object({
     list: z
       .array(z.object({ start: z.string(), end: z.string(), hours: z.number() }))
-      .meta({ description: "Runs of whole hours without readings, oldest first, at most 10" }),
+      .meta({ description: "Runs of whole hours without readings (longer than the expected interval), oldest first, at most 10; start and end UTC" }),
     more: count.meta({ description: "Runs not listed" }),
     totalHours: z.number().meta({ description: "Hours in all runs, listed or not" }),
   }),
@@ -105,7 +123,11 @@ export const structureReportSchema = z
         .meta({ description: "Alerts open at any time in the period, limit alerts by level, sensor alerts apart" }),
       readings: readingCounts,
       current: z
-        .object({ state: z.enum(STATE_ORDER), stale: z.boolean(), lastReadingAt: z.string().nullable() })
+        .object({
+          state: z.enum(CONDITION_STATES).meta({ description: "The worst condition of the structure's active gauges now" }),
+          stale: z.boolean(),
+          lastReadingAt: z.string().nullable(),
+        })
         .meta({ description: "How the structure stands now, when the report is made" }),
     }),
     gauges: z.array(reportGaugeSchema).meta({ description: "Gauges installed at some time in the period, by tag" }),

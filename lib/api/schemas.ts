@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { FILE_KINDS } from "@/db/schema";
 import { IMAGE_TYPES, type ImageType } from "@/lib/storage/image-type";
+import { CONDITION_STATES } from "@/lib/alerting/condition";
 import { QUANTITIES, ROSETTE_LIMIT_QUANTITIES } from "@/lib/limits";
 
 /** Response shapes of /api/v1, documented in the OpenAPI document. */
@@ -28,9 +29,23 @@ export const structureSchema = z
 
 export const structureListSchema = z.object({ structures: z.array(structureSchema) });
 
+export const conditionSchema = z
+  .object({
+    state: z.enum(CONDITION_STATES).meta({
+      description:
+        "The first that holds, in this order: critical, warning, watch (an open limit alert of that level), sensor-fault (an open sensor fault: its readings are not believed), no-data (no reading yet, or none for three expected intervals), within-limits, no-limits (readings arrive but the gauge has no limits to judge them by)",
+    }),
+    since: z.string().nullable().meta({ description: "Since when the state holds, UTC; null when it cannot be told" }),
+    faults: z.array(z.string()).meta({ description: "Codes of the open sensor faults (jump, flat-line, out-of-range), oldest first" }),
+    stale: z.boolean().meta({ description: "No reading for three expected intervals: the data are old whatever the state" }),
+  })
+  .meta({ id: "GaugeCondition" });
+
 export const structureDetailSchema = structureSchema
   .extend({
-    gauges: z.array(z.record(z.string(), z.unknown())).meta({ description: "The structure's gauges" }),
+    gauges: z
+      .array(z.object({ condition: conditionSchema }).catchall(z.unknown()))
+      .meta({ description: "The structure's gauges, each with every gauge field and its condition now" }),
     openAlerts: z.number().int(),
   })
   .meta({ id: "StructureDetail" });

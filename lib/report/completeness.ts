@@ -18,10 +18,10 @@ export function expectedReadings(span: Span | null, intervalS: number): number {
 }
 
 /**
- * Received ÷ expected, null when nothing was expected. Not capped at 1: a logger sending more
- * often than its registered interval shows as over 100 %, which tells the engineer the interval
- * in the registry is wrong.
+ * Received ÷ expected, null when nothing was expected, and never above 1: readings arriving more
+ * often than the registered interval do not make up for hours without any (the surplus is
+ * reported apart, as it tells the engineer the registered interval is wrong).
  */
 export function completeness(received: number, expected: number): number | null {
-  return expected > 0 ? received / expected : null;
+  return expected > 0 ? Math.min(received, expected) / expected : null;
 }

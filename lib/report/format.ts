@@ -2,6 +2,7 @@ import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/mail/format-time";
 import { formatForDisplay, formatMicrostrain, formatShareOfYield, type UnitSystem } from "@/lib/units";
+import { conditionText } from "@/lib/alerting/condition-display";
 import { formatHours } from "./gaps";
 import { formatPercent } from "./status";
 
@@ -26,7 +27,8 @@ export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "
 function formatReadings(readings: ReportGauge["readings"], intervalS?: number): string {
   const share = readings.completeness === null ? "none expected" : formatPercent(readings.completeness);
   const every = intervalS === undefined ? "" : `, one expected every ${count(intervalS)} s`;
-  return `${count(readings.received)} of ${count(readings.expected)} expected readings (${share})${every}`;
+  const surplus = readings.surplus > 0 ? `; ${count(readings.surplus)} more than expected: check the registered interval` : "";
+  return `${count(readings.received)} readings received, ${count(readings.expected)} expected (${share} complete)${every}${surplus}`;
 }
 
 function formatGapTotal(gaps: ReportGauge["gaps"]): string {
@@ -36,7 +38,17 @@ function formatGapTotal(gaps: ReportGauge["gaps"]): string {
 }
 
 export function formatGap(gap: ReportGauge["gaps"]["list"][number], timeZone: string): string {
-  return `${formatInTimeZone(new Date(gap.start), timeZone)} to ${formatInTimeZone(new Date(gap.end), timeZone)} (${formatHours(gap.hours)})`;
+  return `${formatInTimeZone(new Date(gap.start), timeZone)} to ${formatInTimeZone(new Date(gap.end), timeZone)}, ${formatHours(gap.hours)} without readings`;
+}
+
+/** "Sensor fault (jump) since 2026-11-03 14:10 CET": the gauge's condition when the report was made. */
+export function formatCondition(condition: ReportGauge["condition"], status: ReportGauge["status"], timeZone: string): string {
+  const since = condition.since && status !== "retired" ? ` since ${formatInTimeZone(new Date(condition.since), timeZone)}` : "";
+  return `${conditionText(condition, status === "retired")}${since}`;
+}
+
+function withLeftOut(text: string, gauge: ReportGauge): string {
+  return gauge.leftOut ? `${text} (${count(gauge.leftOut.readings)} readings left out: ${gauge.leftOut.reason})` : text;
 }
 
 function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
@@ -46,9 +58,10 @@ function formatFatigue(fatigue: ReportGauge["fatigue"]): string {
 }
 
 /** What the report says about one gauge, label and value, in the order the page's columns and the PDF's rows show it. */
-export function gaugeFacts(gauge: ReportGauge, units: UnitSystem): { key: string; label: string; value: string }[] {
+export function gaugeFacts(gauge: ReportGauge, units: UnitSystem, timeZone: string): { key: string; label: string; value: string }[] {
   return [
-    { key: "stress", label: "Stress, min to max", value: formatExtremes(gauge.stress, (v) => formatForDisplay(units, "stress", v)) },
+    { key: "condition", label: "Condition now", value: formatCondition(gauge.condition, gauge.status, timeZone) },
+    { key: "stress", label: "Stress, min to max", value: withLeftOut(formatExtremes(gauge.stress, (v) => formatForDisplay(units, "stress", v)), gauge) },
     { key: "strain", label: "Strain, min to max", value: formatExtremes(gauge.strain, (v) => formatMicrostrain(v)) },
     { key: "temperature", label: "Temperature, min to max", value: formatExtremes(gauge.temperature, (v) => formatForDisplay(units, "temperature", v)) },
     { key: "utilisation", label: "Utilisation peak", value: formatUtilisation(gauge, units) },

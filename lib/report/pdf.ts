@@ -3,6 +3,7 @@ import type { StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/mail/format-time";
 import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "./format";
 import { pdfText } from "./pdf-text";
+import { conditionText } from "@/lib/alerting/condition-display";
 
 /**
  * The report as an A4 PDF, in SI units. Built with pdfkit and its standard Helvetica, so no font
@@ -13,8 +14,8 @@ import { pdfText } from "./pdf-text";
 const MARGIN = 50;
 const FOOTER_SPACE = 30;
 const LABEL_WIDTH = 150;
-/** Heading and seven table rows of one gauge, in points. */
-const GAUGE_BLOCK_HEIGHT = 170;
+/** Heading and eight table rows of one gauge, in points. */
+const GAUGE_BLOCK_HEIGHT = 200;
 const INK = "#0f172a";
 const MUTED = "#475569";
 const RULE = "#cbd5e1";
@@ -77,7 +78,7 @@ function summary(doc: Doc, report: StructureReport) {
   tableRow(doc, "Status over the period", s.level);
   for (const [label, value] of summaryFacts(s)) tableRow(doc, label, value);
   const last = s.current.lastReadingAt ? formatInTimeZone(new Date(s.current.lastReadingAt), structure.timezone) : "none yet";
-  tableRow(doc, "State now", `${s.current.state}${s.current.stale ? " (data stale)" : ""}; last reading ${last}`);
+  tableRow(doc, "Condition now", `${conditionText({ state: s.current.state, faults: [], stale: s.current.stale })}; last reading ${last}`);
   tableRow(doc, "Gauges in the report", String(report.gauges.length));
 }
 
@@ -94,7 +95,7 @@ function gaugeTables(doc: Doc, report: StructureReport) {
     keepTogether(doc, Math.min(GAUGE_BLOCK_HEIGHT + 12 * gapLines, doc.page.height - 2 * MARGIN - FOOTER_SPACE));
     const where = [gauge.label, gauge.member].filter(Boolean).join(", ");
     heading(doc, `Gauge ${gauge.tag}${where ? ` - ${where}` : ""}${gauge.status === "retired" ? " (retired)" : ""}`, 11);
-    for (const fact of gaugeFacts(gauge, "si")) {
+    for (const fact of gaugeFacts(gauge, "si", zone)) {
       tableRow(doc, fact.label, fact.value);
       if (fact.key !== "gaps") continue;
       for (const gap of gauge.gaps.list) paragraph(doc, `- ${formatGap(gap, zone)}`, { indent: LABEL_WIDTH + 8, size: 9 });

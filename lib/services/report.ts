@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, gt, gte, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { alertEvents, alerts, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
+import { alertEvents, alerts, readings, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
+import { Flag } from "@/lib/mechanics/validity";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import type { Actor } from "@/lib/auth/actor";
@@ -13,13 +14,14 @@ import { periodHeadline, periodLevel } from "@/lib/report/status";
 import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { gaugeRowsOf } from "./gauges";
-import { structureSummary } from "./status";
+import { conditionView, gaugeStatuses, structureSummary, type ConditionView } from "./status";
 import { getVisibleStructure } from "./structures";
 
 /** Gap runs listed per gauge; a dead logger for a month would otherwise fill pages. */
 const GAPS_LISTED = 10;
 
 const iso = (ms: number) => new Date(ms).toISOString();
+const HOUR_MS = 3_600_000;
 
 /** When each gauge began: its first zero reading (installation on site) or its registration, whichever came first. */
 async function installedAt(gaugeRows: Gauge[]): Promise<Map<number, number>> {
@@ -61,27 +63,102 @@ async function dailyTotals(gaugeIds: number[], period: Span) {
   return new Map(rows.map((row) => [row.gaugeId, row]));
 }
 
-/** Per gauge, the starts of the hours in the period that hold at least one reading. */
-async function hoursWithReadings(gaugeIds: number[], period: Span): Promise<Map<number, number[]>> {
+type HourCount = { bucket: number; count: number };
+
+/** Per gauge, the hours in the period that hold readings, with how many, oldest first. */
+async function hoursWithReadings(gaugeIds: number[], period: Span): Promise<Map<number, HourCount[]>> {
   const rows = await getDb()
-    .select({ gaugeId: rollups.gaugeId, bucket: rollups.bucket })
+    .select({ gaugeId: rollups.gaugeId, bucket: rollups.bucket, count: rollups.count })
     .from(rollups)
-    .where(and(rollupsWithin(gaugeIds, "hourly", period), gt(rollups.count, 0)));
-  const byGauge = new Map<number, number[]>();
-  for (const row of rows) byGauge.set(row.gaugeId, [...(byGauge.get(row.gaugeId) ?? []), row.bucket]);
+    .where(and(rollupsWithin(gaugeIds, "hourly", period), gt(rollups.count, 0)))
+    .orderBy(asc(rollups.gaugeId), asc(rollups.bucket));
+  const byGauge = new Map<number, HourCount[]>();
+  for (const row of rows) {
+    const hours = byGauge.get(row.gaugeId) ?? [];
+    hours.push({ bucket: row.bucket, count: row.count });
+    byGauge.set(row.gaugeId, hours);
+  }
   return byGauge;
+}
+
+/** Sensor faults that make readings unbelievable; a stale alert has no readings to doubt. */
+const FAULT_CODES = ["jump", "flat-line", "out-of-range"];
+
+/**
+ * Per gauge with a sensor fault open at some time in the period, the extremes of the readings taken
+ * outside every fault and within the gauge's rated range, and how many were left out. Such gauges
+ * are few, so reading their raw rows costs little; the others keep their daily roll-ups.
+ */
+async function believedExtremes(structureId: number, gaugeIds: number[], period: Span) {
+  const faults = await getDb()
+    .select({ gaugeId: alerts.gaugeId, openedAt: alerts.openedAt, clearedAt: alerts.clearedAt })
+    .from(alerts)
+    .where(
+      and(
+        eq(alerts.structureId, structureId),
+        eq(alerts.kind, "sensor"),
+        inArray(alerts.code, FAULT_CODES),
+        lt(alerts.openedAt, new Date(period.end)),
+        or(isNull(alerts.clearedAt), gte(alerts.clearedAt, new Date(period.start))),
+      ),
+    );
+  const suspects = [...new Set(faults.map((fault) => fault.gaugeId))].filter((id) => gaugeIds.includes(id));
+  const result = new Map<number, Totals & { leftOut: number }>();
+  for (const gaugeId of suspects) {
+    const inFault = or(
+      ...faults
+        .filter((fault) => fault.gaugeId === gaugeId)
+        .map((fault) => and(gte(readings.time, fault.openedAt.getTime()), fault.clearedAt ? lt(readings.time, fault.clearedAt.getTime()) : undefined)),
+    );
+    const believed = sql`not (${inFault}) and (${readings.flags} & ${Flag.outOfRange}) = 0`;
+    const [row] = await getDb()
+      .select({
+        gaugeId: readings.gaugeId,
+        count: sql<number>`sum(case when ${believed} then 1 else 0 end)`,
+        all: sql<number>`count(*)`,
+        strainMin: sql<number>`min(case when ${believed} then ${readings.strain} end)`,
+        strainMax: sql<number>`max(case when ${believed} then ${readings.strain} end)`,
+        stressMin: sql<number>`min(case when ${believed} then ${readings.stress} end)`,
+        stressMax: sql<number>`max(case when ${believed} then ${readings.stress} end)`,
+        temperatureMin: sql<number | null>`min(case when ${believed} then ${readings.temperature} end)`,
+        temperatureMax: sql<number | null>`max(case when ${believed} then ${readings.temperature} end)`,
+      })
+      .from(readings)
+      .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, period.start), lt(readings.time, period.end)))
+      .groupBy(readings.gaugeId);
+    if (row) result.set(gaugeId, { ...row, count: Number(row.count), leftOut: Number(row.all) - Number(row.count) });
+  }
+  return result;
 }
 
 type Totals = Awaited<ReturnType<typeof dailyTotals>> extends Map<number, infer T> ? T : never;
 
-function gaugeSection(gauge: Gauge, totals: Totals | undefined, span: Span | null, hours: number[], fatigue: ReportGauge["fatigue"]): ReportGauge {
+type GaugeFacts = {
+  totals: Totals | undefined;
+  /** Set when some readings were not believed: the extremes of the others. */
+  believed: (Totals & { leftOut: number }) | undefined;
+  span: Span | null;
+  hours: HourCount[];
+  condition: ConditionView;
+  fatigue: ReportGauge["fatigue"];
+};
+
+const LEFT_OUT_REASON = "taken while a sensor fault (jump, flat line or beyond rated range) was open, or beyond the gauge's rated range";
+
+function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, condition, fatigue }: GaugeFacts): ReportGauge {
   const intervalS = gauge.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S;
-  const received = Number(totals?.count ?? 0);
+  const inSpan = span ? hours.filter((hour) => hour.bucket + HOUR_MS > span.start && hour.bucket < span.end) : [];
+  const received = inSpan.reduce((sum, hour) => sum + hour.count, 0);
   const expected = expectedReadings(span, intervalS);
-  const gaps = missingHourRuns(hours, span, intervalS);
+  const gaps = missingHourRuns(
+    inSpan.map((hour) => hour.bucket),
+    span,
+    intervalS,
+  );
   const listed = firstOf(gaps, GAPS_LISTED);
   const yieldStress = gauge.material.yield ?? null;
-  const has = totals !== undefined && received > 0;
+  const totals = believed ?? allTotals;
+  const has = totals !== undefined && Number(totals.count) > 0;
   return {
     tag: gauge.tag,
     label: gauge.label,
@@ -89,7 +166,9 @@ function gaugeSection(gauge: Gauge, totals: Totals | undefined, span: Span | nul
     status: gauge.status,
     expectedIntervalS: intervalS,
     activeSpan: span && { from: iso(span.start), to: iso(span.end) },
-    readings: { received, expected, completeness: completeness(received, expected) },
+    readings: readingShare(received, expected),
+    condition,
+    leftOut: believed && believed.leftOut > 0 ? { readings: believed.leftOut, reason: LEFT_OUT_REASON } : null,
     stress: has ? { min: totals.stressMin, max: totals.stressMax, unit: "MPa" } : null,
     strain: has ? { min: totals.strainMin, max: totals.strainMax, unit: "µε" } : null,
     temperature:
@@ -106,6 +185,13 @@ function gaugeSection(gauge: Gauge, totals: Totals | undefined, span: Span | nul
     fatigue,
   };
 }
+
+const readingShare = (received: number, expected: number) => ({
+  received,
+  expected,
+  completeness: completeness(received, expected),
+  surplus: Math.max(0, received - expected),
+});
 
 const ALERT_UNITS: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "ratio" };
 
@@ -177,16 +263,23 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
   const span: Span = { start: period.from.getTime(), end: period.to.getTime() };
 
   const allGauges = await gaugeRowsOf(structure.id);
-  const installed = allGauges.length ? await installedAt(allGauges) : new Map<number, number>();
-  const lifeOf = (gauge: Gauge) => ({ start: installed.get(gauge.id)!, end: gauge.retiredAt?.getTime() ?? null });
-  // A gauge belongs in the report if it was on the structure at some time in the period.
-  const inPeriod = allGauges.filter((gauge) => lifeOf(gauge).start < span.end && (lifeOf(gauge).end ?? Infinity) > span.start);
-  const ids = inPeriod.map((gauge) => gauge.id);
-  const [totals, hours, current] = await Promise.all([
-    ids.length ? dailyTotals(ids, span) : new Map<number, Totals>(),
-    ids.length ? hoursWithReadings(ids, span) : new Map<number, number[]>(),
+  const allIds = allGauges.map((gauge) => gauge.id);
+  const [installed, totals, hours, believed, statuses, current] = await Promise.all([
+    allIds.length ? installedAt(allGauges) : new Map<number, number>(),
+    allIds.length ? dailyTotals(allIds, span) : new Map<number, Totals>(),
+    allIds.length ? hoursWithReadings(allIds, span) : new Map<number, HourCount[]>(),
+    allIds.length ? believedExtremes(structure.id, allIds, span) : new Map<number, Totals & { leftOut: number }>(),
+    gaugeStatuses(structure, now.getTime()),
     structureSummary(structure, now.getTime()),
   ]);
+  // A gauge that sent readings was on the structure, whatever its registration says.
+  const lifeOf = (gauge: Gauge) => ({
+    start: Math.min(installed.get(gauge.id)!, hours.get(gauge.id)?.[0]?.bucket ?? Infinity),
+    end: gauge.retiredAt?.getTime() ?? null,
+  });
+  // A gauge belongs in the report if it was on the structure at some time in the period.
+  const inPeriod = allGauges.filter((gauge) => lifeOf(gauge).start < span.end && (lifeOf(gauge).end ?? Infinity) > span.start);
+  const conditionOf = new Map(statuses.map((status) => [status.tag, conditionView(status.condition)]));
 
   const gauges: ReportGauge[] = [];
   for (const gauge of inPeriod) {
@@ -200,15 +293,26 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
             cyclesCounted: f.cyclesCounted,
             readingsUsed: f.readingsUsed,
           }));
-    gauges.push(gaugeSection(gauge, totals.get(gauge.id), activeSpan(lifeOf(gauge), span, now.getTime()), hours.get(gauge.id) ?? [], fatigue));
+    gauges.push(
+      gaugeSection(gauge, {
+        totals: totals.get(gauge.id),
+        believed: believed.get(gauge.id),
+        span: activeSpan(lifeOf(gauge), span, now.getTime()),
+        hours: hours.get(gauge.id) ?? [],
+        condition: conditionOf.get(gauge.tag)!,
+        fatigue,
+      }),
+    )
   }
 
   const reportAlerts = await alertsOf(structure.id, span, new Map(allGauges.map((gauge) => [gauge.id, gauge.tag])));
   const received = gauges.reduce((sum, gauge) => sum + gauge.readings.received, 0);
   const expected = gauges.reduce((sum, gauge) => sum + gauge.readings.expected, 0);
+  // A gauge sending too often does not make up for one that is silent.
+  const onSchedule = gauges.reduce((sum, gauge) => sum + Math.min(gauge.readings.received, gauge.readings.expected), 0);
   const limitLevels = reportAlerts.filter((alert) => alert.kind === "limit").map((alert) => alert.level);
   const level = periodLevel(limitLevels, received);
-  const share = completeness(received, expected);
+  const share = completeness(onSchedule, expected);
   return {
     structure: { code: structure.code, name: structure.name, location: structure.location, timezone: structure.timezone },
     period: { from: period.from.toISOString(), to: period.to.toISOString(), lastDay: dayText(lastDay(period)), name: periodName(period), key: periodKey(period) },
@@ -222,7 +326,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
         critical: limitLevels.filter((l) => l === "critical").length,
         sensor: reportAlerts.filter((alert) => alert.kind === "sensor").length,
       },
-      readings: { received, expected, completeness: share },
+      readings: { ...readingShare(received, expected), completeness: share },
       current: { state: current.state, stale: current.stale, lastReadingAt: current.lastReadingAt === null ? null : iso(current.lastReadingAt) },
     },
     gauges,

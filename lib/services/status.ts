@@ -1,114 +1,210 @@
-import { and, desc, eq, gte, isNull } from "drizzle-orm";
+import { and, eq, gte, inArray, isNotNull, isNull, max, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { alerts, readings, rollups, type Gauge, type Structure } from "@/db/schema";
-import { DEFAULT_EXPECTED_INTERVAL_S, gaugeState, isStale, worstState, type GaugeState } from "@/lib/alerting/gauge-state";
+import { alerts, gaugeLimits, gauges, readings, rollups, type Gauge, type Structure } from "@/db/schema";
+import { gaugeCondition, worstCondition, type ConditionState, type GaugeCondition } from "@/lib/alerting/condition";
+import { DEFAULT_EXPECTED_INTERVAL_S, isStale } from "@/lib/alerting/gauge-state";
 import { ROLLUP_RESOLUTIONS } from "@/lib/series";
-import { gaugeRowsOf, resolveGauge } from "./gauges";
+import { gaugeRowsOf, listGauges, resolveGauge } from "./gauges";
+import { getVisibleStructure } from "./structures";
 import type { Actor } from "@/lib/auth/actor";
 
 export type LatestReading = { time: number; strain: number; stress: number; temperature: number | null; utilisation: number | null; flags: number };
 
-export type GaugeStatus = { tag: string; label: string | null; member: string | null; state: GaugeState; latest: LatestReading | null; openAlerts: number };
+export type GaugeStatus = {
+  tag: string;
+  label: string | null;
+  member: string | null;
+  retired: boolean;
+  condition: GaugeCondition;
+  latest: LatestReading | null;
+  openAlerts: number;
+};
 
-async function latestReading(gauge: Gauge): Promise<LatestReading | null> {
-  const [row] = await getDb()
-    .select({ time: readings.time, strain: readings.strain, stress: readings.stress, temperature: readings.temperature, flags: readings.flags })
-    .from(readings)
-    .where(eq(readings.gaugeId, gauge.id))
-    .orderBy(desc(readings.time))
-    .limit(1);
-  if (!row) return null;
+const withUtilisation = (gauge: Gauge, row: Omit<LatestReading, "utilisation">): LatestReading => {
   const yieldStress = gauge.material.yield ?? null;
   return { ...row, utilisation: yieldStress ? Math.abs(row.stress) / yieldStress : null };
-}
+};
 
 /** One gauge's latest reading, for pages about that gauge alone. */
 export async function latestReadingOf(actor: Actor, code: string, tag: string): Promise<LatestReading | null> {
   const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
-  return latestReading(gauge);
+  const latest = (await readingEnds(eq(gauges.id, gauge.id))).get(gauge.id)?.latest;
+  return latest ? withUtilisation(gauge, latest) : null;
 }
 
-async function openAlertLevels(structureId: number) {
+/**
+ * Per gauge chosen, its first reading's time and its latest reading, in one query: the correlated
+ * min/max each seek the readings' primary key instead of scanning a gauge's history.
+ */
+async function readingEnds(which: SQL) {
   const rows = await getDb()
-    .select({ gaugeId: alerts.gaugeId, level: alerts.level, kind: alerts.kind })
-    .from(alerts)
-    .where(and(eq(alerts.structureId, structureId), isNull(alerts.clearedAt)));
-  const byGauge = new Map<number, string[]>();
-  for (const row of rows) {
-    // A sensor fault is not a structural level: it shows as the sensor's own alert, not as watch/warning.
-    if (row.kind === "limit") byGauge.set(row.gaugeId, [...(byGauge.get(row.gaugeId) ?? []), row.level]);
-  }
-  return { byGauge, count: (gaugeId: number) => rows.filter((row) => row.gaugeId === gaugeId).length };
-}
-
-/** Every gauge of the structure with its latest reading and its state, now. */
-export async function gaugeStatuses(structure: Structure, now = Date.now()): Promise<GaugeStatus[]> {
-  return statusesOf(structure, await gaugeRowsOf(structure.id), now);
-}
-
-async function statusesOf(structure: Structure, gauges: Gauge[], now: number): Promise<GaugeStatus[]> {
-  const open = await openAlertLevels(structure.id);
-  return Promise.all(
-    gauges.map(async (gauge) => {
-      const latest = gauge.status === "retired" ? null : await latestReading(gauge);
-      const state = gaugeState({
-        retired: gauge.status === "retired",
-        openLevels: open.byGauge.get(gauge.id) ?? [],
-        lastReadingAt: latest?.time ?? null,
-        expectedIntervalS: gauge.expectedInterval,
-        now,
-      });
-      return { tag: gauge.tag, label: gauge.label, member: gauge.member, state, latest, openAlerts: open.count(gauge.id) };
-    }),
+    .select({
+      gaugeId: gauges.id,
+      firstAt: sql<number | null>`(select min(r.t) from readings r where r.gauge_id = ${gauges.id})`,
+      time: readings.time,
+      strain: readings.strain,
+      stress: readings.stress,
+      temperature: readings.temperature,
+      flags: readings.flags,
+    })
+    .from(gauges)
+    .leftJoin(readings, and(eq(readings.gaugeId, gauges.id), eq(readings.time, sql`(select max(r.t) from readings r where r.gauge_id = ${gauges.id})`)))
+    .where(which);
+  return new Map(
+    rows.map((row) => [
+      row.gaugeId,
+      {
+        firstAt: row.firstAt === null ? null : Number(row.firstAt),
+        latest: row.time === null ? null : { time: row.time, strain: row.strain!, stress: row.stress!, temperature: row.temperature, flags: row.flags! },
+      },
+    ]),
   );
 }
 
-/** Highest |σ| / yield over the last day, from the hourly roll-ups (so a spike counts). */
-async function peakUtilisation(gauges: Gauge[], since: number): Promise<number | null> {
+/**
+ * The open alerts of a structure. A sensor fault is, for now, an open sensor alert on the gauge:
+ * `sensorFaults` is the one place that says so.
+ */
+async function openAlertsOf(structureId: number) {
+  const rows = await getDb()
+    .select({ gaugeId: alerts.gaugeId, kind: alerts.kind, level: alerts.level, code: alerts.code, openedAt: alerts.openedAt })
+    .from(alerts)
+    .where(and(eq(alerts.structureId, structureId), isNull(alerts.clearedAt)));
+  const of = (gaugeId: number) => rows.filter((row) => row.gaugeId === gaugeId);
+  return {
+    rows,
+    count: (gaugeId: number) => of(gaugeId).length,
+    limitAlerts: (gaugeId: number) => of(gaugeId).filter((row) => row.kind === "limit").map((row) => ({ level: row.level, openedAt: row.openedAt.getTime() })),
+    sensorFaults: (gaugeId: number) => of(gaugeId).filter((row) => row.kind === "sensor").map((row) => ({ code: row.code, openedAt: row.openedAt.getTime() })),
+  };
+}
+
+/** When each gauge's last limit alert cleared. */
+async function lastLimitClears(structureId: number): Promise<Map<number, number>> {
+  const rows = await getDb()
+    .select({ gaugeId: alerts.gaugeId, at: max(alerts.clearedAt) })
+    .from(alerts)
+    .where(and(eq(alerts.structureId, structureId), eq(alerts.kind, "limit"), isNotNull(alerts.clearedAt)))
+    .groupBy(alerts.gaugeId);
+  return new Map(rows.filter((row) => row.at !== null).map((row) => [row.gaugeId, new Date(row.at!).getTime()]));
+}
+
+async function gaugesWithLimits(structureId: number): Promise<Set<number>> {
+  const rows = await getDb()
+    .selectDistinct({ gaugeId: gaugeLimits.gaugeId })
+    .from(gaugeLimits)
+    .innerJoin(gauges, eq(gauges.id, gaugeLimits.gaugeId))
+    .where(eq(gauges.structureId, structureId));
+  return new Set(rows.map((row) => row.gaugeId));
+}
+
+/**
+ * Every gauge of the structure with its latest reading and its condition now, from a fixed number
+ * of queries whatever the number of gauges.
+ */
+export async function gaugeStatuses(structure: Structure, now = Date.now()): Promise<GaugeStatus[]> {
+  return (await statusesOf(structure, await gaugeRowsOf(structure.id), now)).statuses;
+}
+
+async function statusesOf(structure: Structure, gaugeRows: Gauge[], now: number) {
+  const [ends, open, clears, limited] = await Promise.all([
+    readingEnds(eq(gauges.structureId, structure.id)),
+    openAlertsOf(structure.id),
+    lastLimitClears(structure.id),
+    gaugesWithLimits(structure.id),
+  ]);
+  const statuses = gaugeRows.map((gauge): GaugeStatus => {
+    const end = ends.get(gauge.id);
+    const latest = end?.latest ? withUtilisation(gauge, end.latest) : null;
+    const condition = gaugeCondition({
+      openLimitAlerts: open.limitAlerts(gauge.id),
+      openSensorAlerts: open.sensorFaults(gauge.id),
+      firstReadingAt: end?.firstAt ?? null,
+      lastReadingAt: latest?.time ?? null,
+      lastLimitClearedAt: clears.get(gauge.id) ?? null,
+      expectedIntervalS: gauge.expectedInterval,
+      hasLimits: limited.has(gauge.id),
+      registeredAt: gauge.createdAt.getTime(),
+      now,
+    });
+    return { tag: gauge.tag, label: gauge.label, member: gauge.member, retired: gauge.status === "retired", condition, latest, openAlerts: open.count(gauge.id) };
+  });
+  return { statuses, open };
+}
+
+/**
+ * Highest |σ| / yield over the last day per gauge, from the hourly roll-ups (so a spike counts),
+ * in one query.
+ */
+async function peakUtilisation(gaugeRows: Gauge[], since: number): Promise<number | null> {
+  const withYield = gaugeRows.filter((gauge) => gauge.material.yield);
+  if (withYield.length === 0) return null;
+  const rows = await getDb()
+    .select({ gaugeId: rollups.gaugeId, max: sql<number>`max(${rollups.stressMax})`, min: sql<number>`min(${rollups.stressMin})` })
+    .from(rollups)
+    .where(and(inArray(rollups.gaugeId, withYield.map((gauge) => gauge.id)), eq(rollups.resolution, ROLLUP_RESOLUTIONS.hourly), gte(rollups.bucket, since)))
+    .groupBy(rollups.gaugeId);
+  const yieldOf = new Map(withYield.map((gauge) => [gauge.id, gauge.material.yield!]));
   let peak: number | null = null;
-  for (const gauge of gauges) {
-    const yieldStress = gauge.material.yield;
-    if (!yieldStress || gauge.status === "retired") continue;
-    const rows = await getDb()
-      .select({ max: rollups.stressMax, min: rollups.stressMin })
-      .from(rollups)
-      .where(and(eq(rollups.gaugeId, gauge.id), eq(rollups.resolution, ROLLUP_RESOLUTIONS.hourly), gte(rollups.bucket, since)));
-    for (const row of rows) peak = Math.max(peak ?? 0, Math.abs(row.max) / yieldStress, Math.abs(row.min) / yieldStress);
-  }
+  for (const row of rows) peak = Math.max(peak ?? 0, Math.abs(row.max) / yieldOf.get(row.gaugeId)!, Math.abs(row.min) / yieldOf.get(row.gaugeId)!);
   return peak;
 }
 
 export type StructureSummary = {
-  state: GaugeState;
+  /** The worst condition of the structure's active gauges. */
+  state: ConditionState;
+  /** How many active gauges are in each condition. */
+  gaugesIn: Partial<Record<ConditionState, number>>;
   openAlerts: Record<"watch" | "warning" | "critical", number>;
   sensorAlerts: number;
+  /** Peak over the gauges whose readings are believed: a gauge in sensor fault is left out. */
   peakUtilisation24h: number | null;
+  /** Gauges left out of the peak because their sensor is in fault. */
+  peakLeavesOut: number;
   lastReadingAt: number | null;
   stale: boolean;
   gaugeCount: number;
 };
 
 export async function structureSummary(structure: Structure, now = Date.now()): Promise<StructureSummary> {
-  const gauges = await gaugeRowsOf(structure.id);
-  const statuses = await statusesOf(structure, gauges, now);
-  const openRows = await getDb()
-    .select({ level: alerts.level, kind: alerts.kind })
-    .from(alerts)
-    .where(and(eq(alerts.structureId, structure.id), isNull(alerts.clearedAt)));
+  const gaugeRows = await gaugeRowsOf(structure.id);
+  const { statuses, open } = await statusesOf(structure, gaugeRows, now);
+  const active = gaugeRows.filter((gauge) => gauge.status === "active");
+  const activeStatuses = statuses.filter((status) => !status.retired);
+  const faulty = new Set(activeStatuses.filter((status) => status.condition.faults.length > 0).map((status) => status.tag));
   const lastReadingAt = statuses.reduce<number | null>((last, status) => Math.max(last ?? 0, status.latest?.time ?? 0) || last, null);
-  const active = gauges.filter((gauge) => gauge.status === "active");
+  const gaugesIn: Partial<Record<ConditionState, number>> = {};
+  for (const status of activeStatuses) gaugesIn[status.condition.state] = (gaugesIn[status.condition.state] ?? 0) + 1;
+  const limitOpen = (level: string) => open.rows.filter((row) => row.kind === "limit" && row.level === level).length;
   return {
-    state: worstState(statuses.map((status) => status.state)),
-    openAlerts: {
-      watch: openRows.filter((row) => row.kind === "limit" && row.level === "watch").length,
-      warning: openRows.filter((row) => row.kind === "limit" && row.level === "warning").length,
-      critical: openRows.filter((row) => row.kind === "limit" && row.level === "critical").length,
-    },
-    sensorAlerts: openRows.filter((row) => row.kind === "sensor").length,
-    peakUtilisation24h: await peakUtilisation(gauges, now - 86_400_000),
+    state: worstCondition(activeStatuses.map((status) => status.condition.state)),
+    gaugesIn,
+    openAlerts: { watch: limitOpen("watch"), warning: limitOpen("warning"), critical: limitOpen("critical") },
+    sensorAlerts: open.rows.filter((row) => row.kind === "sensor").length,
+    peakUtilisation24h: await peakUtilisation(
+      active.filter((gauge) => !faulty.has(gauge.tag)),
+      now - 86_400_000,
+    ),
+    peakLeavesOut: faulty.size,
     lastReadingAt,
     // The structure is stale when even its newest reading is: nothing at all is arriving.
     stale: active.length > 0 && isStale(lastReadingAt, Math.max(...active.map((g) => g.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S)), now),
     gaugeCount: active.length,
   };
+}
+
+/** A condition as the API and the browser get it: times in ISO-8601 UTC. */
+export type ConditionView = Omit<GaugeCondition, "since"> & { since: string | null };
+
+export const conditionView = (condition: GaugeCondition): ConditionView => ({
+  ...condition,
+  since: condition.since === null ? null : new Date(condition.since).toISOString(),
+});
+
+/** The structure's gauges as the API lists them, each with its condition now (GET /structures/{code}). */
+export async function listGaugesWithConditions(actor: Actor, code: string, now = Date.now()) {
+  const structure = await getVisibleStructure(actor, code);
+  const [views, statuses] = await Promise.all([listGauges(actor, code), gaugeStatuses(structure, now)]);
+  const conditionOf = new Map(statuses.map((status) => [status.tag, conditionView(status.condition)]));
+  return { structure, gauges: views.map((view) => ({ ...view, condition: conditionOf.get(view.tag)! })) };
 }

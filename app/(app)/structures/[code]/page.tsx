@@ -19,6 +19,7 @@ import { requireUser } from "@/lib/auth/session";
 import { listAlerts } from "@/lib/services/alerts";
 import { listGauges, type GaugeView } from "@/lib/services/gauges";
 import { gaugeStatuses, type GaugeStatus } from "@/lib/services/status";
+import { conditionText, shownState } from "@/lib/alerting/condition-display";
 import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
@@ -51,15 +52,16 @@ const KIND_TEXT: Record<string, string> = { foil: "foil", "vibrating-wire": "vib
 function gaugeTableRows(gauges: GaugeView[], statuses: GaugeStatus[]): GaugeTableRow[] {
   const statusOf = new Map(statuses.map((status) => [status.tag, status]));
   return gauges.map((gauge) => {
-    const status = statusOf.get(gauge.tag);
-    const latest = status?.latest ?? null;
+    const status = statusOf.get(gauge.tag)!;
+    const latest = status.latest;
     return {
       tag: gauge.tag,
       label: gauge.label ?? null,
       member: gauge.member ?? null,
       sensor: `${KIND_TEXT[gauge.kind]}, ${gauge.input}${gauge.bridge ? `, ${gauge.bridge}` : ""}`,
-      state: status?.state ?? "no-data",
-      openAlerts: status?.openAlerts ?? 0,
+      condition: status.condition,
+      retired: status.retired,
+      openAlerts: status.openAlerts,
       time: latest?.time ?? null,
       strain: latest?.strain ?? null,
       stress: latest?.stress ?? null,
@@ -82,6 +84,7 @@ export default async function StructurePage({ params }: Props) {
     may(user, "token:manage", structure),
     may(user, "readings:ingest", structure),
   ]);
+  const rows = gaugeTableRows(gauges, statuses);
   const tokens = canManageTokens ? await listLoggerTokens(user, code) : [];
   const mailMode = await alertMailModeOf(user.id, structure.id);
   return (
@@ -131,7 +134,7 @@ export default async function StructurePage({ params }: Props) {
             <p>Register each gauge as it is installed; once its logger sends readings, its strain, stress and state show here.</p>
           </EmptyState>
         ) : (
-          <GaugeTable structureCode={code} timeZone={structure.timezone} rows={gaugeTableRows(gauges, statuses)} />
+          <GaugeTable structureCode={code} timeZone={structure.timezone} rows={rows} />
         )}
       </Section>
       <Section
@@ -160,7 +163,12 @@ export default async function StructurePage({ params }: Props) {
       <StructureDrawings
         user={user}
         structure={structure}
-        markers={gauges.map((gauge) => ({ tag: gauge.tag, placement: gauge.drawing, state: statuses.find((status) => status.tag === gauge.tag)?.state ?? "no-data" }))}
+        markers={rows.map((row, i) => ({
+          tag: row.tag,
+          placement: gauges[i]!.drawing,
+          state: shownState(row.condition, row.retired),
+          stateText: conditionText(row.condition, row.retired),
+        }))}
       />
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>

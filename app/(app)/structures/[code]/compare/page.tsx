@@ -16,7 +16,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const { code } = await params;
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
-  const statuses = (await gaugeStatuses(structure)).filter((status) => status.state !== "retired");
+  const statuses = (await gaugeStatuses(structure)).filter((status) => !status.retired);
   const requested = ((await searchParams).gauges ?? "").split(",").filter((tag) => statuses.some((s) => s.tag === tag));
   const end = Math.max(0, ...statuses.map((status) => status.latest?.time ?? 0)) || Date.now();
   return (

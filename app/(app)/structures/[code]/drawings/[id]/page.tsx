@@ -11,7 +11,7 @@ import { fileId } from "@/lib/files/schema";
 import { getDrawing } from "@/lib/services/files";
 import { listGauges } from "@/lib/services/gauges";
 import { gaugeStatuses } from "@/lib/services/status";
-import { markerStateOf } from "@/components/drawings/gauge-marker";
+import { conditionText, shownState } from "@/lib/alerting/condition-display";
 import { getVisibleStructure } from "@/lib/services/structures";
 
 type Props = { params: Promise<{ code: string; id: string }> };
@@ -32,14 +32,18 @@ export default async function DrawingPage({ params }: Props) {
     gaugeStatuses(structure),
     may(user, "gauge:register", structure),
   ]);
-  const stateOf = new Map(statuses.map((status) => [status.tag, markerStateOf(status.state)]));
+  const statusOf = new Map(statuses.map((status) => [status.tag, status]));
   // Only what the board shows goes to the browser.
-  const boardGauges: BoardGauge[] = gauges.map((gauge) => ({
-    tag: gauge.tag,
-    label: gauge.label ?? null,
-    state: stateOf.get(gauge.tag),
-    placement: gauge.drawing,
-  }));
+  const boardGauges: BoardGauge[] = gauges.map((gauge) => {
+    const status = statusOf.get(gauge.tag)!;
+    return {
+      tag: gauge.tag,
+      label: gauge.label ?? null,
+      state: shownState(status.condition, status.retired),
+      stateText: conditionText(status.condition, status.retired),
+      placement: gauge.drawing,
+    };
+  });
   return (
     <>
       <PageHeader
