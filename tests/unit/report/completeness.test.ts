@@ -30,7 +30,11 @@ describe("data completeness", () => {
     expect(completeness(0, 0)).toBeNull();
   });
 
-  it("shows a logger sending more often than registered as over 100 %", () => {
-    expect(completeness(300, 150)).toBe(2);
+  // A share of what was expected cannot exceed the whole (by definition): extra readings in one hour
+  // do not fill another hour's silence.
+  it("never rises above 100 %, however many extra readings arrive", () => {
+    expect(completeness(300, 150)).toBe(1);
+    expect(completeness(23_130, 255)).toBe(1);
+    expect(completeness(75, 150)).toBe(0.5);
   });
 });
