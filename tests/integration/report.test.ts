@@ -112,8 +112,10 @@ beforeAll(async () => {
     ]);
   await handleAlert(engineer, alert!.id, "acknowledged", "Crane lift on the deck, planned and supervised");
   await handleAlert(owners[0]!, alert!.id, "note", "Seen, thank you");
-  // A sensor alert opened in September and still open: part of October's record.
-  await getDb().insert(alerts).values({ structureId: alert!.structureId, gaugeId: g1, kind: "sensor", level: "watch", code: "flat-line", openedAt: new Date(Date.UTC(2026, 8, 28)) });
+  // A sensor alert opened in September and still open: part of October's record. It is on the
+  // silent G3, so no reading of G1 is doubted (the report leaves out readings taken under a fault).
+  const g3 = await gaugeId("RPT", "G3");
+  await getDb().insert(alerts).values({ structureId: alert!.structureId, gaugeId: g3, kind: "sensor", level: "watch", code: "flat-line", openedAt: new Date(Date.UTC(2026, 8, 28)) });
   // A limit alert over before October began: not part of it.
   await getDb()
     .insert(alerts)
@@ -135,15 +137,15 @@ describe("the structure report", () => {
   it("measures completeness and finds the planted gap (by hand: 31 × 144 = 4464 expected, 72 missing)", async () => {
     const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
     const [g1, g2, g3] = report.gauges;
-    expect(g1!.readings).toEqual({ received: 4392, expected: 4464, completeness: 4392 / 4464 });
+    expect(g1!.readings).toEqual({ received: 4392, expected: 4464, completeness: 4392 / 4464, surplus: 0 });
     expect(g1!.gaps).toEqual({ list: [{ start: "2026-10-10T06:00:00.000Z", end: "2026-10-10T18:00:00.000Z", hours: 12 }], more: 0, totalHours: 12 });
     expect(g2!.readings.completeness).toBe(1);
     expect(g2!.gaps.totalHours).toBe(0);
     // Installed on the 16th: 16 days × 144 expected, none received, one gap of 16 × 24 = 384 hours.
-    expect(g3!.readings).toEqual({ received: 0, expected: 2304, completeness: 0 });
+    expect(g3!.readings).toEqual({ received: 0, expected: 2304, completeness: 0, surplus: 0 });
     expect(g3!.gaps.list).toEqual([{ start: "2026-10-16T00:00:00.000Z", end: "2026-11-01T00:00:00.000Z", hours: 384 }]);
     expect(g3!.stress).toBeNull();
-    expect(report.summary.readings).toEqual({ received: 4392 + 4464, expected: 4464 * 2 + 2304, completeness: (4392 + 4464) / (4464 * 2 + 2304) });
+    expect(report.summary.readings).toEqual({ received: 4392 + 4464, expected: 4464 * 2 + 2304, completeness: (4392 + 4464) / (4464 * 2 + 2304), surplus: 0 });
   });
 
   it("takes fatigue damage from the fatigue service where a category is set, and says 'not assessed' elsewhere", async () => {
@@ -183,7 +185,7 @@ describe("the structure report", () => {
     expect(august.summary.level).toBe("no-data");
     // 3 November: the gauges are installed and nothing came in.
     const silentDay = await structureReport(owners[0]!, "RPT", { from: new Date(Date.UTC(2026, 10, 3)), to: new Date(Date.UTC(2026, 10, 4)) }, new Date(Date.UTC(2026, 10, 5)));
-    expect(silentDay.gauges.map((gauge) => gauge.readings)).toEqual(Array(3).fill({ received: 0, expected: 144, completeness: 0 }));
+    expect(silentDay.gauges.map((gauge) => gauge.readings)).toEqual(Array(3).fill({ received: 0, expected: 144, completeness: 0, surplus: 0 }));
     expect(silentDay.summary.level).toBe("no-data");
   });
 });
@@ -248,8 +250,8 @@ describe("the report PDF", () => {
     expect(text).toContain("Gauge G1");
     expect(text).toContain("-40.0 MPa to 250.0 MPa");
     expect(text).toContain("1,190 microstrain");
-    expect(text).toContain("4,392 of 4,464 expected readings (98.4 %)");
-    expect(text).toContain("2026-10-10 06:00 UTC to 2026-10-10 18:00 UTC (12 h)");
+    expect(text).toContain("4,392 readings received, 4,464 expected (98.4 % complete)");
+    expect(text).toContain("2026-10-10 06:00 UTC to 2026-10-10 18:00 UTC, 12 h without readings");
     expect(text).toContain("acknowledged by Test engineer");
     expect(text).toContain("not assessed");
     expect(text).toContain("Monitoring supplements inspection and never replaces it.");
