@@ -28,6 +28,7 @@ import { fatigueQuery } from "./fatigue-query";
 import { REJECTION_CODES } from "@/lib/ingest/rejections";
 import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSchema } from "./readings-schemas";
 import { reportQuery } from "./report-query";
+import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
 import { acknowledgeBody, backtestBody, limitsBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
@@ -118,7 +119,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
   },
   "/structures/{code}": {
     get: {
-      summary: "One structure with its gauges and count of open alerts",
+      summary: "One structure with its gauges, each with its condition now (`condition: { state, since, faults, stale }`), and its count of open alerts",
       parameters: [codeParameter],
       response: { status: 200, schema: structureDetailSchema, description: "The structure" },
       errors: [401, 404],
@@ -260,8 +261,8 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
   },
   "/structures/{code}/alerts": {
     get: {
-      summary: "Alerts of a structure, newest first; state=open (default), acknowledged, cleared or all",
-      parameters: [codeParameter, { name: "state", in: "query", description: "open | acknowledged | cleared | all" }],
+      summary: "Alerts of a structure, newest first, filtered and paged: `total` counts every match, `nextCursor` fetches the next page",
+      parameters: [codeParameter, ...queryParameters(alertListQuery)],
       response: { status: 200, schema: alertListSchema, description: "The alerts" },
       errors: [400, 401, 404],
     },

@@ -171,4 +171,8 @@ export const alertSchema = z
     comment: z.string().nullable(),
   })
   .meta({ id: "Alert" });
-export const alertListSchema = z.object({ alerts: z.array(alertSchema) });
+export const alertListSchema = z.object({
+  alerts: z.array(alertSchema),
+  total: z.number().int().meta({ description: "Alerts matching the filters in all, on every page" }),
+  nextCursor: z.string().nullable().meta({ description: "Pass as `cursor` for the next page; null on the last page" }),
+});

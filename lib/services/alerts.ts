@@ -1,14 +1,15 @@
-import { and, desc, eq, inArray, isNotNull, isNull, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, inArray, isNotNull, isNull, lt, or, type SQL } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, gauges, rosettes, structures, users, type Alert } from "@/db/schema";
 import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError } from "@/lib/errors";
+import type { AlertFilter, AlertState } from "@/lib/alerting/filters";
 import { recordAudit } from "./audit";
+import { resolveGauge } from "./gauges";
 import { getVisibleStructure, listStructuresFor } from "./structures";
 
-export const ALERT_STATES = ["open", "acknowledged", "cleared", "all"] as const;
-export type AlertState = (typeof ALERT_STATES)[number];
+export { ALERT_STATES, type AlertState } from "@/lib/alerting/filters";
 
 /** An alert as the API contract shows it, with where it is for the app's lists. */
 export type AlertView = {
@@ -58,6 +59,50 @@ function alertQuery(where: (SQL | undefined)[]) {
     .orderBy(desc(alerts.openedAt), desc(alerts.id));
 }
 
+/** Which alerts a list shows, and which page of them: filtered, counted and paged in the database. */
+export type AlertQuery = AlertFilter & {
+  /** Only this gauge's alerts (its own and those of rosettes it is gauge a of). */
+  gauge?: string;
+  limit: number;
+  /** Rows to skip (pages of a screen), or… */
+  offset?: number;
+  /** …the `nextCursor` of the previous page (the API), which stays right while new alerts arrive. */
+  cursor?: string;
+};
+
+export type AlertPage = { alerts: AlertView[]; total: number; nextCursor: string | null };
+
+/** Newest first, so a cursor is the last row's opening time and id: "1764760000000.42". */
+const cursorOf = (alert: Alert) => `${alert.openedAt.getTime()}.${alert.id}`;
+
+function afterCursor(cursor: string | undefined): SQL | undefined {
+  if (cursor === undefined) return undefined;
+  const [at, id] = cursor.split(".").map(Number);
+  if (!Number.isSafeInteger(at) || !Number.isSafeInteger(id)) throw new AppError("validation_failed", "cursor is the nextCursor of the previous page.");
+  return or(lt(alerts.openedAt, new Date(at!)), and(eq(alerts.openedAt, new Date(at!)), lt(alerts.id, id!)));
+}
+
+function filterConditions(filter: AlertFilter): (SQL | undefined)[] {
+  return [
+    stateCondition(filter.state),
+    filter.level === "any" ? undefined : eq(alerts.level, filter.level),
+    filter.kind === "any" ? undefined : eq(alerts.kind, filter.kind),
+  ];
+}
+
+async function alertPage(scope: SQL, query: AlertQuery): Promise<AlertPage> {
+  const where = [scope, ...filterConditions(query)];
+  const [rows, [counted]] = await Promise.all([
+    alertQuery([...where, afterCursor(query.cursor)])
+      .limit(query.limit + 1)
+      .offset(query.offset ?? 0),
+    getDb().select({ total: count() }).from(alerts).where(and(...where)),
+  ]);
+  const more = rows.length > query.limit;
+  const shown = rows.slice(0, query.limit);
+  return { alerts: shown.map(toAlertView), total: counted?.total ?? 0, nextCursor: more ? cursorOf(shown.at(-1)!.alert) : null };
+}
+
 type AlertRow = Awaited<ReturnType<typeof alertQuery>>[number];
 
 function toAlertView({ alert, structure, gauge, rosette, acknowledgedBy }: AlertRow): AlertView {
@@ -81,19 +126,46 @@ function toAlertView({ alert, structure, gauge, rosette, acknowledgedBy }: Alert
   };
 }
 
-export async function listAlerts(actor: Actor, code: string, state: AlertState, limit = 500): Promise<AlertView[]> {
+/** One page of a structure's alerts (or of one gauge's) with the filter's total. */
+export async function listAlerts(actor: Actor, code: string, query: AlertQuery): Promise<AlertPage> {
   const structure = await getVisibleStructure(actor, code);
   await requirePermission(actor, "structure:view", structure);
-  const rows = await alertQuery([eq(alerts.structureId, structure.id), stateCondition(state)]).limit(limit);
-  return rows.map(toAlertView);
+  if (query.gauge === undefined) return alertPage(eq(alerts.structureId, structure.id), query);
+  const [gauge] = await getDb()
+    .select({ id: gauges.id })
+    .from(gauges)
+    .where(and(eq(gauges.structureId, structure.id), eq(gauges.tag, query.gauge)));
+  if (!gauge) throw new AppError("not_found", `Gauge ${query.gauge} was not found on ${structure.code}.`);
+  return alertPage(eq(alerts.gaugeId, gauge.id), query);
 }
 
-/** Alerts of every structure the actor may see, for the cross-structure list. */
-export async function listAlertsAcross(actor: Actor, state: AlertState, limit = 500): Promise<AlertView[]> {
+/** Episodes drawn on a gauge's charts at most; past that the page says how many it left out. */
+export const EPISODES_DRAWN = 2_000;
+
+/** The gauge's own limit alerts (not its rosettes'), newest first, as spans for its charts, with how many there are. */
+export async function listGaugeEpisodes(actor: Actor, code: string, tag: string) {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  const own = and(eq(alerts.gaugeId, gauge.id), eq(alerts.kind, "limit"), isNull(alerts.rosetteId));
+  const [rows, [counted]] = await Promise.all([
+    getDb()
+      .select({ openedAt: alerts.openedAt, clearedAt: alerts.clearedAt, level: alerts.level })
+      .from(alerts)
+      .where(own)
+      .orderBy(desc(alerts.openedAt), desc(alerts.id))
+      .limit(EPISODES_DRAWN),
+    getDb().select({ total: count() }).from(alerts).where(own),
+  ]);
+  return {
+    episodes: rows.map((row) => ({ openedAt: row.openedAt.getTime(), clearedAt: row.clearedAt?.getTime() ?? null, level: row.level })),
+    total: counted?.total ?? 0,
+  };
+}
+
+/** One page of the alerts of every structure the actor may see, for the cross-structure list. */
+export async function listAlertsAcross(actor: Actor, query: AlertQuery): Promise<AlertPage> {
   const visible = (await listStructuresFor(actor)).map((structure) => structure.id);
-  if (visible.length === 0) return [];
-  const rows = await alertQuery([inArray(alerts.structureId, visible), stateCondition(state)]).limit(limit);
-  return rows.map(toAlertView);
+  if (visible.length === 0) return { alerts: [], total: 0, nextCursor: null };
+  return alertPage(inArray(alerts.structureId, visible), query);
 }
 
 export async function countOpenAlerts(structureId: number): Promise<number> {

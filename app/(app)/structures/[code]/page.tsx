@@ -79,7 +79,7 @@ export default async function StructurePage({ params }: Props) {
     listGauges(user, code),
     gaugeStatuses(structure),
     listRosettes(user, code),
-    listAlerts(user, code, "all", 8),
+    listAlerts(user, code, { state: "all", level: "any", kind: "any", limit: 8 }),
     may(user, "gauge:register", structure),
     may(user, "token:manage", structure),
     may(user, "readings:ingest", structure),
@@ -146,7 +146,12 @@ export default async function StructurePage({ params }: Props) {
           </Link>
         }
       >
-        <AlertTable alerts={recentAlerts} timeZones={{ [structure.code]: structure.timezone }} />
+        <AlertTable alerts={recentAlerts.alerts} timeZones={{ [structure.code]: structure.timezone }} />
+        {recentAlerts.total > recentAlerts.alerts.length && (
+          <p className="text-sm text-slate-600 dark:text-slate-400" data-testid="recent-alerts-count">
+            The {recentAlerts.alerts.length} newest of {recentAlerts.total.toLocaleString("en-US")} alerts on this structure.
+          </p>
+        )}
         {mailMode && (user.role === "owner" || user.role === "engineer") && (
           <ActionForm action={alertMailAction} className="flex flex-wrap items-end gap-3" label="My alert e-mails">
             <input type="hidden" name="code" value={structure.code} />

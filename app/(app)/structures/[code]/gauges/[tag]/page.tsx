@@ -16,14 +16,20 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listGaugePhotos } from "@/lib/services/files";
-import { listAlerts } from "@/lib/services/alerts";
+import { listAlerts, listGaugeEpisodes } from "@/lib/services/alerts";
+import { AlertFilters } from "@/components/alerts/alert-filters";
+import { AlertTable } from "@/components/alerts/alert-table";
+import { ConditionBadge } from "@/components/alerts/state-badge";
+import { Pager } from "@/components/ui/pager";
+import { ALERTS_PER_PAGE, alertListParamsOf, pageOffset } from "@/lib/alerting/filters";
+import { formatInTimeZone } from "@/lib/mail/format-time";
 import { getLimits } from "@/lib/services/limits";
-import { latestReadingOf } from "@/lib/services/status";
+import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { retireGaugeAction } from "../actions";
 
-type Props = { params: Promise<{ code: string; tag: string }> };
+type Props = { params: Promise<{ code: string; tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { code, tag } = await params;
@@ -43,8 +49,9 @@ function changeText(before: unknown, after: unknown): string {
     .join("; ");
 }
 
-export default async function GaugePage({ params }: Props) {
+export default async function GaugePage({ params, searchParams }: Props) {
   const { code, tag: rawTag } = await params;
+  const { page, ...filter } = alertListParamsOf(await searchParams, { state: "all" });
   const tag = decodeURIComponent(rawTag);
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
@@ -54,21 +61,21 @@ export default async function GaugePage({ params }: Props) {
     may(user, "zero:record", structure),
     may(user, "audit:view", structure),
   ]);
-  const [zeros, audit, photos, limits, alerts, latest] = await Promise.all([
+  const [zeros, audit, photos, limits, alerts, episodes, statuses] = await Promise.all([
     zeroHistory(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
     getLimits(user, code, tag),
-    listAlerts(user, code, "all"),
-    latestReadingOf(user, code, tag),
+    listAlerts(user, code, { ...filter, gauge: tag, limit: ALERTS_PER_PAGE, offset: pageOffset(page) }),
+    listGaugeEpisodes(user, code, tag),
+    gaugeStatuses(structure),
   ]);
+  const status = statuses.find((candidate) => candidate.tag === gauge.tag)!;
+  const latest = status.latest;
   const chartEvents = [
     ...zeros.slice(0, -1).map((zero) => ({ time: zero.time.getTime(), label: "re-zeroed" })),
     ...(gauge.replaces ? [{ time: Date.parse(gauge.createdAt), label: `replaced ${gauge.replaces}` }] : []),
   ];
-  const chartEpisodes = alerts
-    .filter((alert) => alert.gauge === tag && alert.kind === "limit" && alert.rosette === null)
-    .map((alert) => ({ openedAt: Date.parse(alert.openedAt), clearedAt: alert.clearedAt ? Date.parse(alert.clearedAt) : null, level: alert.level }));
   const active = gauge.status === "active";
   const base = `/structures/${code}/gauges`;
   return (
@@ -101,7 +108,14 @@ export default async function GaugePage({ params }: Props) {
           </>
         }
       />
-      <div className="mb-6 flex flex-wrap gap-2 text-sm" data-testid="gauge-status">
+      <div className="mb-6 flex flex-wrap items-center gap-2 text-sm" data-testid="gauge-status">
+        <ConditionBadge condition={status.condition} retired={status.retired} />
+        {!status.retired && status.condition.since !== null && (
+          <span className="text-slate-600 dark:text-slate-400">since {formatInTimeZone(new Date(status.condition.since), structure.timezone)}</span>
+        )}
+        {status.condition.state === "sensor-fault" && (
+          <span className="font-medium text-critical">Its readings are in doubt: check the gauge, its bond and the logger channel before trusting them.</span>
+        )}
         <span className={`rounded-full px-2.5 py-0.5 font-medium ${active ? "bg-emerald-100 text-emerald-900 dark:bg-emerald-950 dark:text-emerald-200" : "bg-slate-200 text-slate-700 dark:bg-slate-800 dark:text-slate-300"}`}>
           {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt) : ""}`}
         </span>
@@ -128,6 +142,12 @@ export default async function GaugePage({ params }: Props) {
         <h2 id="history" className="mb-2 text-lg font-semibold">
           History
         </h2>
+        {episodes.total > episodes.episodes.length && (
+          <p className="mb-2 text-sm text-slate-600 dark:text-slate-400" data-testid="episodes-drawn">
+            The charts shade the {episodes.episodes.length.toLocaleString("en-US")} newest of {episodes.total.toLocaleString("en-US")} alert episodes of this
+            gauge; the list below has them all.
+          </p>
+        )}
         {latest ? (
           <GaugeCharts
             structureCode={code}
@@ -135,7 +155,7 @@ export default async function GaugePage({ params }: Props) {
             timeZone={structure.timezone}
             limits={limits}
             yieldStress={gauge.material.yield ?? null}
-            episodes={chartEpisodes}
+            episodes={episodes.episodes}
             events={chartEvents}
             end={latest.time}
           />
@@ -144,6 +164,14 @@ export default async function GaugePage({ params }: Props) {
             <p>Charts appear once the logger sends data or a logger file is uploaded.</p>
           </EmptyState>
         )}
+      </section>
+      <section className="mb-6" aria-labelledby="gauge-alerts">
+        <h2 id="gauge-alerts" className="mb-2 text-lg font-semibold">
+          Alerts on this gauge
+        </h2>
+        <AlertFilters {...filter} />
+        <AlertTable alerts={alerts.alerts} timeZones={{ [structure.code]: structure.timezone }} />
+        <Pager total={alerts.total} page={page} perPage={ALERTS_PER_PAGE} query={filter} noun="alerts" />
       </section>
       <div className="grid gap-6 lg:grid-cols-2">
         <section className={`${cardClass} p-4`} aria-labelledby="configuration">

@@ -1,10 +1,8 @@
-import { z } from "zod";
+import { alertListQuery } from "@/lib/api/alert-query";
 import { apiRoute, json, parseWith } from "@/lib/api/http";
-import { ALERT_STATES, listAlerts } from "@/lib/services/alerts";
-
-const query = z.object({ state: z.enum(ALERT_STATES, { error: `state is one of ${ALERT_STATES.join(", ")}.` }).default("open") });
+import { listAlerts } from "@/lib/services/alerts";
 
 export const GET = apiRoute<{ code: string }>(async ({ request, actor, params }) => {
-  const { state } = parseWith(query, Object.fromEntries(new URL(request.url).searchParams));
-  return json({ alerts: await listAlerts(actor, params.code, state) });
+  const query = parseWith(alertListQuery, Object.fromEntries(new URL(request.url).searchParams));
+  return json(await listAlerts(actor, params.code, query));
 });
