@@ -4,7 +4,8 @@ import { useMemo } from "react";
 import type uPlot from "uplot";
 import { cardClass } from "@/components/ui/styles";
 import { rangeWithLines, type LimitLine } from "@/lib/limits";
-import { chartColumns, type SeriesAnswer } from "@/lib/series/chart-data";
+import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
+import { chartColumns, gapThreshold, type SeriesAnswer } from "@/lib/series/chart-data";
 import type { DisplayUnit } from "@/lib/units";
 import { UplotChart, timeChartOptions } from "./uplot-chart";
 
@@ -63,6 +64,19 @@ function drawOverlays(chart: uPlot, lines: readonly LimitLine[], episodes: reado
 }
 
 /**
+ * Where the lines stop for want of readings, in canvas pixels, on the chart's root (as
+ * `data-breaks`), so tests and assistive tooling can find the gaps without guessing.
+ */
+function markBreaks(chart: uPlot) {
+  const [x, ...values] = chart.data;
+  const breaks: { time: number; x: number }[] = [];
+  x.forEach((seconds, i) => {
+    if (values.every((column) => column[i] === null)) breaks.push({ time: seconds * 1000, x: Math.round(chart.valToPos(seconds, "x", true)) });
+  });
+  chart.root.dataset.breaks = JSON.stringify(breaks);
+}
+
+/**
  * One quantity of a series answer over time: the min/max envelope of each interval, so a spike
  * always shows, its mean, and any limit lines, alert episodes and events. With `onZoom`, dragging
  * across the chart hands the chosen range back instead of zooming into the data already fetched.
@@ -80,6 +94,7 @@ export function EnvelopeChart({
   events = NONE,
   onZoom,
   onCreate,
+  expectedIntervalS,
 }: {
   title: string;
   answer: SeriesAnswer | undefined;
@@ -95,8 +110,13 @@ export function EnvelopeChart({
   events?: readonly ChartEvent[];
   onZoom?: (range: TimeRange) => void;
   onCreate?: (chart: uPlot) => void;
+  /** The gauge's interval between readings, s: silences longer than it break the line. */
+  expectedIntervalS?: number | null;
 }) {
-  const data = useMemo(() => (answer ? chartColumns(answer, toDisplay) : null), [answer, toDisplay]);
+  const data = useMemo(
+    () => (answer ? chartColumns(answer, toDisplay, gapThreshold(expectedIntervalS ?? DEFAULT_EXPECTED_INTERVAL_S, answer.bucketWidth)) : null),
+    [answer, toDisplay, expectedIntervalS],
+  );
   const options = useMemo(
     () =>
       timeChartOptions(timeZone, unit, {
@@ -111,7 +131,7 @@ export function EnvelopeChart({
         ],
         bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
         hooks: {
-          draw: [(chart) => drawOverlays(chart, lines, episodes, events)],
+          draw: [(chart) => drawOverlays(chart, lines, episodes, events), markBreaks],
           setSelect: onZoom
             ? [
                 (chart) => {
@@ -130,7 +150,7 @@ export function EnvelopeChart({
   return (
     <section className={`${cardClass} p-3`} aria-label={`${title} chart`}>
       <h3 className="mb-1 text-sm font-semibold">
-        {title} <span className="font-normal text-slate-500">({unit}; band = min to max in each interval, line = mean)</span>
+        {title} <span className="font-normal text-slate-500">({unit}; band = min to max in each interval, line = mean; breaks where no readings arrived)</span>
       </h3>
       {error ? (
         <p className="p-6 text-sm text-critical">{error.message}</p>

@@ -48,6 +48,7 @@ export function GaugeCharts({
   end,
   initialRange,
   compact = false,
+  expectedIntervalS,
 }: {
   structureCode: string;
   tag: string;
@@ -62,6 +63,8 @@ export function GaugeCharts({
   initialRange?: TimeRange;
   /** Stress and strain only, without exports and scatter: for the limits editor and alert pages. */
   compact?: boolean;
+  /** Seconds between the gauge's readings: a longer silence breaks the lines. */
+  expectedIntervalS?: number | null;
 }) {
   const units = useUnits();
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}`;
@@ -166,6 +169,7 @@ export function GaugeCharts({
           events={events}
           onZoom={setRange}
           onCreate={(chart) => charts.set(quantity, chart)}
+          expectedIntervalS={expectedIntervalS}
         />
       ))}
       {!compact && <ThermalScatter strain={strain.data} temperature={temperature.data} temperatureUnit={display.temperature.unit} toDisplayTemperature={display.temperature.toDisplay} />}

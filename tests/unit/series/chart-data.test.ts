@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { chartColumns, leastSquaresSlope, pairByTime, type SeriesAnswer } from "@/lib/series/chart-data";
+import { chartColumns, gapThreshold, leastSquaresSlope, pairByTime, type SeriesAnswer } from "@/lib/series/chart-data";
 
 const series = (t: number[], mean: number[]): SeriesAnswer => ({ quantity: "q", unit: "u", t, min: mean, max: mean, mean, count: t.map(() => 1) });
 
@@ -30,5 +30,40 @@ describe("a structure's days", () => {
     expect(startOfDayIn("2026-07-01", "Europe/London")).toBe(Date.UTC(2026, 5, 30, 23));
     expect(startOfDayIn("2026-07-01", "America/Chicago")).toBe(Date.UTC(2026, 6, 1, 5));
     expect(startOfDayIn("not a day", "UTC")).toBeNull();
+  });
+});
+
+// A line drawn across a span without readings shows data nobody measured (common practice in
+// plotting measured series: leave gaps as gaps).
+describe("gaps in chart data", () => {
+  const TEN_MINUTES = 600_000;
+  const DAY = 86_400_000;
+  const times = [0, 1, 2, 3].map((i) => i * TEN_MINUTES);
+  const afterGap = times.map((t) => t + 3 * TEN_MINUTES + 12 * DAY);
+  const withGap = series([...times, ...afterGap], [1, 2, 3, 4, 5, 6, 7, 8]);
+
+  it("puts one empty point in a 12-day silence, in the line and in both edges of the band", () => {
+    const [t, min, max, mean] = chartColumns(withGap, (v) => v, gapThreshold(600, 60_000));
+    expect(t).toHaveLength(9);
+    expect([min[4], max[4], mean[4]]).toEqual([null, null, null]);
+    // Half-way between the last reading before the gap and the first after it, in seconds.
+    expect(t[4]).toBe((times[3]! + afterGap[0]!) / 2000);
+    expect(mean.filter((value) => value === null)).toHaveLength(1);
+    expect(t).toEqual([...t].sort((a, b) => a - b));
+  });
+
+  it("keeps a steady logger's line whole, and breaks it on one missed reading", () => {
+    const steady = chartColumns(series(times, [1, 2, 3, 4]), (v) => v, gapThreshold(600, 60_000));
+    expect(steady[3]).toEqual([1, 2, 3, 4]);
+    const missedOne = chartColumns(series([0, TEN_MINUTES, 3 * TEN_MINUTES], [1, 2, 3]), (v) => v, gapThreshold(600, 60_000));
+    expect(missedOne[3]).toEqual([1, 2, null, 3]);
+  });
+
+  it("does not break a coarse view at every empty bucket", () => {
+    // Day buckets over a year: readings every 10 minutes fill every day; one empty day is two bucket
+    // widths between starts, under three.
+    expect(gapThreshold(600, DAY)).toBe(3 * DAY);
+    const days = chartColumns(series([0, DAY, 3 * DAY], [1, 2, 3]), (v) => v, gapThreshold(600, DAY));
+    expect(days[3]).toEqual([1, 2, 3]);
   });
 });

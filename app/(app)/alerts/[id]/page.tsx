@@ -137,6 +137,7 @@ export default async function AlertPage({ params }: Props) {
             end={around.to}
             initialRange={around}
             compact
+            expectedIntervalS={gauge.expectedInterval}
           />
         )}
       </section>

@@ -158,6 +158,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             episodes={episodes.episodes}
             events={chartEvents}
             end={latest.time}
+            expectedIntervalS={gauge.expectedInterval}
           />
         ) : (
           <EmptyState title="No readings yet">
