@@ -1,9 +1,11 @@
 import { and, eq, gte, inArray, lt } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
-import { alertEvents, alerts, gauges, rosettes, structureMembers, structures, users } from "@/db/schema";
+import { alertEvents, alerts, gauges, rosettes, structureMembers, structures, users, type Structure } from "@/db/schema";
 import type { AlertEventFacts } from "@/lib/mail/alert";
 import type { Level } from "@/lib/limits";
-import { buildDigestMail } from "@/lib/mail/digest";
+import { buildDigestMail, type GaugeConditionLine } from "@/lib/mail/digest";
+import { conditionText } from "@/lib/alerting/condition-display";
+import { gaugeStatuses } from "@/lib/services/status";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 
@@ -35,6 +37,13 @@ function factsOf({ event, alert, gauge, rosette }: EventRow): AlertEventFacts {
   };
 }
 
+/** The structure's active gauges that are not within their limits now, in the condition's words. */
+async function notWithinLimits(structure: Structure, now: number): Promise<GaugeConditionLine[]> {
+  return (await gaugeStatuses(structure, now))
+    .filter((status) => !status.retired && status.condition.state !== "within-limits")
+    .map((status) => ({ tag: status.tag, condition: conditionText(status.condition) }));
+}
+
 /**
  * Once a day, everyone who chose the digest gets the alert events of the last 24 hours on the
  * structures they follow, in one e-mail (none when nothing happened).
@@ -58,11 +67,18 @@ export async function runDailyDigest(now = Date.now()): Promise<string> {
     entry.structures.push(structure);
     byUser.set(user.id, entry);
   }
+  const conditions = new Map<number, Promise<GaugeConditionLine[]>>();
+  // Each structure's conditions are gathered once, however many people follow it.
+  const conditionsOf = (structure: Structure) => {
+    if (!conditions.has(structure.id)) conditions.set(structure.id, notWithinLimits(structure, now));
+    return conditions.get(structure.id)!;
+  };
   let queued = 0;
   for (const { user, structures: followed } of byUser.values()) {
-    const sections = followed
+    const withEvents = followed
       .map((structure) => ({ structure, events: events.filter((row) => row.alert.structureId === structure.id).map(factsOf) }))
       .filter((section) => section.events.length > 0);
+    const sections = await Promise.all(withEvents.map(async (section) => ({ ...section, conditions: await conditionsOf(section.structure) })));
     if (sections.length === 0) continue;
     const mail = buildDigestMail({ recipientName: user.name, period, structures: sections }, appUrl());
     const added = await writeTransaction((tx) => queueMail(tx, { ...mail, to: user.email, toUserId: user.id, kind: "digest", dedupeKey: `digest:${period}:${user.id}` }));

@@ -6,14 +6,24 @@ export type DigestMailInput = {
   recipientName: string;
   /** The period the digest covers, as the reader should see it ("2026-07-01"). */
   period: string;
-  structures: { structure: AlertStructure; events: AlertEventFacts[] }[];
+  structures: { structure: AlertStructure; events: AlertEventFacts[]; conditions?: GaugeConditionLine[] }[];
 };
+
+/** A gauge that is not within its limits now, and its condition in words ("Sensor fault (jump)"). */
+export type GaugeConditionLine = { tag: string; condition: string };
+
+/** "Now: G1 sensor fault (jump); G3 no current data", or that every gauge is within its limits. */
+function conditionsLine(conditions: GaugeConditionLine[] | undefined): string | null {
+  if (conditions === undefined) return null;
+  if (conditions.length === 0) return "Now: every gauge is within its limits.";
+  return `Now, not within limits: ${conditions.map((line) => `${line.tag} ${line.condition.toLowerCase()}`).join("; ")}.`;
+}
 
 /** One e-mail a day for people who chose the digest: every alert event of their structures, oldest first. */
 export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMail {
   const total = input.structures.reduce((sum, s) => sum + s.events.length, 0);
   const subject = `Hookeline daily summary ${input.period}: ${total === 1 ? "1 alert event" : `${total} alert events`}`;
-  const sections = input.structures.map(({ structure, events }) => {
+  const sections = input.structures.map(({ structure, events, conditions }) => {
     const ordered = [...events].sort((a, b) => a.at.getTime() - b.at.getTime());
     const lines = ordered.map((facts) => {
       const { headline, value, bound } = describeAlertEvent(facts);
@@ -25,13 +35,17 @@ export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMa
         link: place.link,
       };
     });
-    return { title: `${structure.name} (${structure.code}), times in ${structure.timezone}`, lines };
+    return { title: `${structure.name} (${structure.code}), times in ${structure.timezone}`, lines, now: conditionsLine(conditions) };
   });
   const opening = `Hello ${input.recipientName}, here are the alert events of ${input.period} on the structures you follow.`;
   const text = [
     opening,
     ...sections.map((s) =>
-      [s.title, ...(s.lines.length ? s.lines.map((l) => `- ${l.time}  ${l.gauge}  ${l.what}\n  ${l.link}`) : ["- no alert events"])].join("\n"),
+      [
+        s.title,
+        ...(s.lines.length ? s.lines.map((l) => `- ${l.time}  ${l.gauge}  ${l.what}\n  ${l.link}`) : ["- no alert events"]),
+        ...(s.now ? [s.now] : []),
+      ].join("\n"),
     ),
     ALERT_CAUTION,
   ].join("\n\n");
@@ -41,7 +55,8 @@ export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMa
           .map((l) => `<li>${escapeHtml(l.time)} <a href="${escapeHtml(l.link)}">${escapeHtml(l.gauge)}</a> ${escapeHtml(l.what)}</li>`)
           .join("\n")
       : "<li>no alert events</li>";
-    return `<h2 style="font-size:16px;margin:20px 0 8px">${escapeHtml(s.title)}</h2>\n<ul style="padding-left:20px;margin:0">${items}</ul>`;
+    const now = s.now ? `\n${htmlParagraph(s.now)}` : "";
+    return `<h2 style="font-size:16px;margin:20px 0 8px">${escapeHtml(s.title)}</h2>\n<ul style="padding-left:20px;margin:0">${items}</ul>${now}`;
   });
   const html = htmlFrame(subject, [htmlParagraph(opening), ...htmlSections].join("\n"), ALERT_CAUTION);
   return { subject, text, html };

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { buildAlertMail, formatQuantityValue, type AlertMailInput } from "@/lib/mail/alert";
 import { buildDigestMail } from "@/lib/mail/digest";
+import { conditionText } from "@/lib/alerting/condition-display";
 import { formatInTimeZone } from "@/lib/mail/format-time";
 import { buildInvitationMail } from "@/lib/mail/invitation";
 import { buildPasswordResetMail } from "@/lib/mail/password-reset";
@@ -95,6 +96,30 @@ describe("daily digest", () => {
     expect(mail.text).toContain(`${APP}/structures/MILL-FB/gauges/LC-03`);
     expect(mail.text).toContain("Orchard Street Parking Deck (ORCH-PD), times in Europe/London\n- no alert events");
     expect(mail.html).toContain("Monitoring supplements inspection");
+  });
+
+  it("says which gauges are not within limits now, in the words of their condition", () => {
+    const mail = buildDigestMail(
+      {
+        recipientName: "Iris Calder",
+        period: "2026-07-01",
+        structures: [
+          {
+            structure: alert.structure,
+            events: [alert],
+            conditions: [
+              { tag: "LC-03", condition: conditionText({ state: "sensor-fault", faults: ["jump"], stale: false }) },
+              { tag: "LC-04", condition: conditionText({ state: "no-limits", faults: [], stale: false }) },
+            ],
+          },
+          { structure: { code: "ORCH-PD", name: "Orchard Street Parking Deck", timezone: "Europe/London" }, events: [alert], conditions: [] },
+        ],
+      },
+      APP,
+    );
+    expect(mail.text).toContain("Now, not within limits: LC-03 sensor fault (jump); LC-04 no limits.");
+    expect(mail.text).toContain("Now: every gauge is within its limits.");
+    expect(mail.html).toContain("LC-03 sensor fault (jump)");
   });
 });
 
