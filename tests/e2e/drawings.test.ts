@@ -123,8 +123,8 @@ describe("drawings on a phone", () => {
     // Within one CSS pixel of where the tap landed.
     expect(Math.abs(placed.x - 0.3) * placed.canvas.width).toBeLessThan(1.5);
     expect(Math.abs(placed.y - 0.6) * placed.canvas.height).toBeLessThan(1.5);
-    // A gauge without readings yet has no state to show.
-    await expect(drawing.marker(TAG).getAttribute("data-state")).resolves.toBe("unassessed");
+    // A gauge without readings yet shows that it has no data, never a fine state.
+    await expect(drawing.marker(TAG).getAttribute("data-state")).resolves.toBe("no-data");
     await saveScreenshot(page, "drawing-placement-phone");
   });
 });
