@@ -24,10 +24,12 @@ export function Pager({
   const last = Math.min(total, page * perPage);
   const href = (to: number) => `?${new URLSearchParams({ ...query, page: String(to) })}`;
   const count = (n: number) => n.toLocaleString("en-US");
+  // An empty list says so itself.
+  if (total === 0) return null;
   return (
     <nav aria-label={`Pages of ${noun}`} className="mt-3 flex flex-wrap items-center gap-3 text-sm" data-testid="pager">
       <p data-testid="pager-count">
-        {total === 0 ? `No ${noun}` : `${noun[0]!.toUpperCase()}${noun.slice(1)} ${count(first)}–${count(last)} of ${count(total)}`}
+        {`${noun[0]!.toUpperCase()}${noun.slice(1)} ${count(first)}–${count(last)} of ${count(total)}`}
         {pages > 1 && ` · page ${count(page)} of ${count(pages)}`}
       </p>
       {page > 1 && (

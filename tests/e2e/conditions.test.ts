@@ -1,4 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createClient } from "@libsql/client";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { APIResponse, Browser, Locator, Page } from "playwright-core";
 import { DESKTOP, PHONE, SignInPage, baseUrl, launchBrowser, newContext, saveScreenshot } from "./browser";
 import { pngImage } from "../fixtures/images";
@@ -151,5 +152,39 @@ describe("a chart over a logger gap", () => {
     // after the gap, where readings arrive again and the line is drawn.
     expect(await meanPixels(Math.round(size * 0.95))).toBeGreaterThan(0);
     await saveScreenshot(engineer, "chart-with-gap");
+  });
+});
+
+describe("the alert list past 500 alerts", () => {
+  it("counts every alert and reaches the second page and the last", async () => {
+    // 520 cleared alerts planted straight in the database on J1, more than the old list's silent
+    // 500-row cap; cleared, so J1's condition stays what the tests above read.
+    const db = createClient({ url: inject("databaseUrl") });
+    const [gauge] = (await db.execute({ sql: "SELECT g.id, g.structure_id FROM gauges g JOIN structures s ON s.id = g.structure_id WHERE s.code = ? AND g.tag = 'J1'", args: [CODE] }))
+      .rows as unknown as { id: number; structure_id: number }[];
+    const opened = now - 30 * 24 * HOUR;
+    for (let i = 0; i < 520; i += 130) {
+      const rows = Array.from({ length: 130 }, (_, j) => [gauge!.structure_id, gauge!.id, opened + (i + j) * MINUTE, opened + (i + j) * MINUTE + 30_000]);
+      await db.execute({
+        sql: `INSERT INTO alerts (structure_id, gauge_id, kind, level, quantity, opened_at, bound, peak, cleared_at) VALUES ${rows.map(() => "(?, ?, 'limit', 'watch', 'strain', ?, 100, 120, ?)").join(", ")}`,
+        args: rows.flat(),
+      });
+    }
+    const total = Number((await db.execute("SELECT count(*) AS total FROM alerts")).rows[0]!.total);
+    db.close();
+    expect(total).toBeGreaterThan(520);
+
+    await engineer.goto("/alerts?state=all");
+    const count = engineer.getByTestId("pager-count");
+    const pages = Math.ceil(total / 50);
+    await expect(count.textContent()).resolves.toBe(`Alerts 1–50 of ${total.toLocaleString("en-US")} · page 1 of ${pages}`);
+    await expect(engineer.getByTestId("alert-row").count()).resolves.toBe(50);
+    await engineer.getByRole("link", { name: "Next page" }).click();
+    await engineer.waitForURL((url) => url.searchParams.get("page") === "2" && url.searchParams.get("state") === "all");
+    await expect(count.textContent()).resolves.toBe(`Alerts 51–100 of ${total.toLocaleString("en-US")} · page 2 of ${pages}`);
+    await engineer.goto(`/alerts?state=all&page=${pages}`);
+    await expect(engineer.getByTestId("alert-row").count()).resolves.toBe(total - (pages - 1) * 50);
+    await expect(engineer.getByRole("link", { name: "Next page" }).count()).resolves.toBe(0);
+    await saveScreenshot(engineer, "alerts-last-page");
   });
 });
