@@ -1,7 +1,12 @@
+import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 export default defineConfig({
-  resolve: { tsconfigPaths: true },
+  // Tests import server modules directly; outside Next's server bundles the marker would throw.
+  resolve: {
+    tsconfigPaths: true,
+    alias: { "server-only": fileURLToPath(new URL("node_modules/server-only/empty.js", import.meta.url)) },
+  },
   test: {
     projects: [
       {

@@ -101,10 +101,15 @@ export const auditLog = sqliteTable(
 );
 
 /** Failed sign-ins per e-mail address, used to slow down password guessing. */
+/**
+ * Recent failed sign-ins, one row per account e-mail and one per client address (key
+ * `address:<ip>`, which no e-mail can be). `locked_until` refuses further tries until then.
+ */
 export const signInFailures = sqliteTable("sign_in_failures", {
   emailKey: text("email_key").primaryKey(),
   failures: integer("failures").notNull(),
   lastFailureAt: integer("last_failure_at", { mode: "timestamp_ms" }).notNull(),
+  lockedUntil: integer("locked_until", { mode: "timestamp_ms" }),
 });
 
 export type User = typeof users.$inferSelect;
@@ -420,7 +425,7 @@ export type RosetteLimit = typeof rosetteLimits.$inferSelect;
 export type Alert = typeof alerts.$inferSelect;
 export type AlertEvent = typeof alertEvents.$inferSelect;
 
-export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report"] as const;
+export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report", "sign-in-lock"] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 export const MAIL_STATES = ["queued", "sending", "sent", "failed"] as const;

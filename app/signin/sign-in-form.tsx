@@ -27,7 +27,11 @@ export function SignInForm() {
       return;
     }
     setPending(false);
-    setError("That e-mail and password do not match an active account. Check both and try again.");
+    setError(
+      result?.error === "locked"
+        ? "Signing in is paused for a quarter hour after repeated wrong passwords. Wait, or choose a new password with “Forgot your password?”."
+        : "That e-mail and password do not match an active account. Check both and try again.",
+    );
   }
 
   return (

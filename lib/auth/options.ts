@@ -1,8 +1,12 @@
+import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { verifyCredentials } from "./sign-in";
+import { clientAddressOf, verifyCredentials } from "./sign-in";
 
 const SESSION_HOURS = 12;
+
+/** What the sign-in form receives as `error` when the account or address is paused. */
+export const SIGN_IN_LOCKED = "locked";
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: SESSION_HOURS * 3600 },
@@ -11,10 +15,15 @@ export const authOptions: NextAuthOptions = {
     CredentialsProvider({
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
-      async authorize(credentials) {
+      async authorize(credentials, request) {
         if (!credentials?.email || !credentials.password) return null;
-        const actor = await verifyCredentials(credentials.email, credentials.password);
-        return actor ? { id: String(actor.id), email: actor.email, name: actor.name, role: actor.role } : null;
+        const outcome = await verifyCredentials(credentials.email, credentials.password, clientAddressOf(request.headers ?? {}));
+        if ("refused" in outcome) {
+          if (outcome.refused === "locked") throw new Error(SIGN_IN_LOCKED);
+          return null;
+        }
+        const { actor } = outcome;
+        return { id: String(actor.id), email: actor.email, name: actor.name, role: actor.role };
       },
     }),
   ],

@@ -1,51 +1,121 @@
-import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import "server-only";
+import { eq, sql } from "drizzle-orm";
+import { getDb, writeTransaction } from "@/db/client";
 import { signInFailures } from "@/db/schema";
+import { appUrl } from "@/lib/mail/message";
+import { queueMail } from "@/lib/mail/outbox";
+import { buildSignInLockMail } from "@/lib/mail/sign-in-lock";
 import { findUserByEmail } from "@/lib/services/users";
 import type { UserActor } from "./actor";
 import { spendPasswordCheckTime, verifyPassword } from "./passwords";
 
-const FREE_ATTEMPTS = 3;
-const MAX_DELAY_MS = 8_000;
+/** Failures are forgotten after this long without another one. */
 const FAILURE_MEMORY_MS = 15 * 60_000;
 
-/** How long to hold back the answer after this many recent failures: doubling, capped. */
-export function signInDelayMs(recentFailures: number): number {
-  if (recentFailures < FREE_ATTEMPTS) return 0;
-  return Math.min(MAX_DELAY_MS, 500 * 2 ** (recentFailures - FREE_ATTEMPTS));
-}
+/**
+ * Per account: every fifth failure in a row pauses sign-in for a quarter hour. Per client
+ * address: fifty failures (over any accounts) pause that address, so one machine cannot try a
+ * common password on every account. Common practice (OWASP Authentication Cheat Sheet: account
+ * lock-out after a small number of failures, for a limited time, with the owner notified).
+ */
+export const SIGN_IN_LIMITS = {
+  account: { failures: 5, lockMs: 15 * 60_000 },
+  address: { failures: 50, lockMs: 15 * 60_000 },
+} as const;
 
-async function recentFailures(emailKey: string): Promise<number> {
-  const [row] = await getDb().select().from(signInFailures).where(eq(signInFailures.emailKey, emailKey)).limit(1);
-  if (!row || Date.now() - row.lastFailureAt.getTime() > FAILURE_MEMORY_MS) return 0;
-  return row.failures;
-}
+type Scope = keyof typeof SIGN_IN_LIMITS;
 
-async function noteFailure(emailKey: string, previous: number) {
-  const now = new Date();
-  await getDb()
-    .insert(signInFailures)
-    .values({ emailKey, failures: previous + 1, lastFailureAt: now })
-    .onConflictDoUpdate({ target: signInFailures.emailKey, set: { failures: previous + 1, lastFailureAt: now } });
-}
+const addressKey = (address: string) => `address:${address}`;
 
-const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+async function lockedUntil(key: string, now: number): Promise<number | null> {
+  const [row] = await getDb()
+    .select({ lockedUntil: signInFailures.lockedUntil })
+    .from(signInFailures)
+    .where(eq(signInFailures.emailKey, key))
+    .limit(1);
+  const until = row?.lockedUntil?.getTime();
+  return until !== undefined && until > now ? until : null;
+}
 
 /**
- * Checks an e-mail and password. Unknown e-mails cost the same time as wrong passwords,
- * and repeated failures on one address are slowed down.
+ * Counts one failure in one statement, so parallel guesses each count: the row's count goes up
+ * by one (or restarts at one after a quiet spell) and every `failures`-th failure sets the lock.
+ * Returns the new count and whether this failure is the one that locked.
  */
-export async function verifyCredentials(email: string, password: string): Promise<UserActor | null> {
-  const emailKey = email.trim().toLowerCase();
-  const failures = await recentFailures(emailKey);
-  await sleep(signInDelayMs(failures));
-  const user = await findUserByEmail(emailKey);
-  const passwordMatches = user ? await verifyPassword(password, user.passwordHash) : (await spendPasswordCheckTime(password), false);
-  if (!user || !passwordMatches || !user.active) {
-    await noteFailure(emailKey, failures);
-    return null;
-  }
-  if (failures > 0) await getDb().delete(signInFailures).where(eq(signInFailures.emailKey, emailKey));
-  return { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role };
+async function countFailure(key: string, scope: Scope, now: number): Promise<{ failures: number; locked: boolean }> {
+  const { failures: limit, lockMs } = SIGN_IN_LIMITS[scope];
+  const quietSince = now - FAILURE_MEMORY_MS;
+  const next = sql`(case when ${signInFailures.lastFailureAt} < ${quietSince} then 1 else ${signInFailures.failures} + 1 end)`;
+  const [row] = await getDb()
+    .insert(signInFailures)
+    .values({ emailKey: key, failures: 1, lastFailureAt: new Date(now) })
+    .onConflictDoUpdate({
+      target: signInFailures.emailKey,
+      set: {
+        failures: next,
+        lastFailureAt: new Date(now),
+        lockedUntil: sql`case when ${next} % ${limit} = 0 then ${now + lockMs} else ${signInFailures.lockedUntil} end`,
+      },
+    })
+    .returning({ failures: signInFailures.failures });
+  const failures = row!.failures;
+  return { failures, locked: failures % limit === 0 };
 }
 
+async function mailLockedOwner(email: string, failures: number, now: number) {
+  const user = await findUserByEmail(email);
+  if (!user || !user.active) return;
+  const { lockMs } = SIGN_IN_LIMITS.account;
+  await writeTransaction((tx) =>
+    queueMail(tx, {
+      ...buildSignInLockMail({ name: user.name, failures, lockedMinutes: lockMs / 60_000, resetLink: `${appUrl()}/reset` }),
+      to: user.email,
+      toUserId: user.id,
+      kind: "sign-in-lock",
+      // One message per lock-out window, however many guesses arrive at once.
+      dedupeKey: `sign-in-lock:${user.id}:${Math.floor(now / lockMs)}`,
+    }),
+  );
+}
+
+/** Why a sign-in was refused; the sign-in page says the same for all but `locked`. */
+export type SignInOutcome = { actor: UserActor } | { refused: "credentials" | "locked" };
+
+/**
+ * Checks an e-mail and password. Unknown e-mails cost the same time as wrong passwords. While an
+ * account or the client address is locked the answer comes at once, without checking the
+ * password, so guesses gain nothing from waiting or from more connections. The right password
+ * on an account that is not locked is never held back.
+ */
+export async function verifyCredentials(
+  email: string,
+  password: string,
+  clientAddress: string | null,
+  now = Date.now(),
+): Promise<SignInOutcome> {
+  const emailKey = email.trim().toLowerCase();
+  const keys = clientAddress ? [emailKey, addressKey(clientAddress)] : [emailKey];
+  for (const key of keys) if (await lockedUntil(key, now)) return { refused: "locked" };
+
+  const user = await findUserByEmail(emailKey);
+  const passwordMatches = user ? await verifyPassword(password, user.passwordHash) : (await spendPasswordCheckTime(password), false);
+  if (user && passwordMatches && user.active) {
+    await getDb().delete(signInFailures).where(eq(signInFailures.emailKey, emailKey));
+    return { actor: { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role } };
+  }
+  const account = await countFailure(emailKey, "account", now);
+  if (account.locked) await mailLockedOwner(emailKey, account.failures, now);
+  if (clientAddress) await countFailure(addressKey(clientAddress), "address", now);
+  return { refused: "credentials" };
+}
+
+/**
+ * The client's address as the nearest proxy saw it: the last `X-Forwarded-For` entry (Next.js
+ * sets the header from the socket when no proxy did). A proxy in front must append to it.
+ */
+export function clientAddressOf(headers: Headers | Record<string, string | string[] | undefined>): string | null {
+  const raw = headers instanceof Headers ? headers.get("x-forwarded-for") : headers["x-forwarded-for"];
+  const value = Array.isArray(raw) ? raw.join(",") : raw;
+  const last = value?.split(",").at(-1)?.trim();
+  return last || null;
+}

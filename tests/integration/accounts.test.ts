@@ -34,7 +34,7 @@ describe("invitations", () => {
   it("mails a link through SMTP that sets the password once; then the person signs in", async () => {
     const admin = await makeUser("admin", "inviter@test.example");
     await inviteUser(admin, { email: "newcomer@test.example", name: "Nia Newcomer", role: "owner" });
-    expect(await verifyCredentials("newcomer@test.example", "")).toBeNull();
+    expect(await verifyCredentials("newcomer@test.example", "", null)).toEqual({ refused: "credentials" });
 
     await runOutboxSender({ holder: "test" });
     const [mail] = await getDb().select().from(caughtMail);
@@ -44,7 +44,7 @@ describe("invitations", () => {
 
     expect(await checkAccountLink(token, "invitation")).toEqual({ name: "Nia Newcomer", email: "newcomer@test.example" });
     await setPasswordWithLink(token, "invitation", "chosen-password");
-    expect(await verifyCredentials("newcomer@test.example", "chosen-password")).toMatchObject({ role: "owner", name: "Nia Newcomer" });
+    expect(await verifyCredentials("newcomer@test.example", "chosen-password", null)).toMatchObject({ actor: { role: "owner", name: "Nia Newcomer" } });
 
     expect(await checkAccountLink(token, "invitation")).toBeNull();
     await expect(setPasswordWithLink(token, "invitation", "another-password")).rejects.toThrow(LINK_UNUSABLE);
@@ -72,9 +72,9 @@ describe("password reset", () => {
     const token = tokenIn(text!, "/reset/confirm");
     await expect(setPasswordWithLink(token, "invitation", "wrong-purpose")).rejects.toThrow(LINK_UNUSABLE);
     await setPasswordWithLink(token, "password-reset", "remembered-now");
-    expect(await verifyCredentials("forgetful@test.example", "remembered-now")).not.toBeNull();
+    expect(await verifyCredentials("forgetful@test.example", "remembered-now", null)).toHaveProperty("actor");
     await expect(setPasswordWithLink(token, "password-reset", "once-more-please")).rejects.toThrow(LINK_UNUSABLE);
-    expect(await verifyCredentials("forgetful@test.example", "remembered-now")).not.toBeNull();
+    expect(await verifyCredentials("forgetful@test.example", "remembered-now", null)).toHaveProperty("actor");
   });
 
   it("expires 60 minutes after it was sent", async () => {

@@ -1,0 +1,1 @@
+ALTER TABLE `sign_in_failures` ADD `locked_until` integer;
