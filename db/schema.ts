@@ -22,6 +22,11 @@ export const users = sqliteTable("users", {
   active: integer("active", { mode: "boolean" }).notNull().default(true),
   /** Display units in the app: SI (MPa, °C) or US customary (ksi, °F); the API is always SI. */
   units: text("units", { enum: ["si", "us"] }).notNull().default("si"),
+  /**
+   * Goes up whenever every session of the user must end (password set, role changed, account
+   * deactivated, "sign out everywhere"); a session signed in under another number is refused.
+   */
+  sessionVersion: integer("session_version").notNull().default(0),
   createdAt: createdAt(),
 });
 
@@ -110,6 +115,13 @@ export const signInFailures = sqliteTable("sign_in_failures", {
   failures: integer("failures").notNull(),
   lastFailureAt: integer("last_failure_at", { mode: "timestamp_ms" }).notNull(),
   lockedUntil: integer("locked_until", { mode: "timestamp_ms" }),
+});
+
+/** Sessions signed out before their cookie expires: a copy of the cookie must not work either. */
+export const endedSessions = sqliteTable("ended_sessions", {
+  sessionId: text("session_id").primaryKey(),
+  /** When the cookie would have expired anyway; the row is useless after that. */
+  expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
 });
 
 export type User = typeof users.$inferSelect;

@@ -6,12 +6,13 @@ import { issuesOf } from "@/lib/api/http";
 import { AppError } from "@/lib/errors";
 import { addMember } from "@/lib/services/memberships";
 import { createToken } from "@/lib/services/tokens";
-import { createUser } from "@/lib/services/users";
-import { createUserInput, email, structureCode, tokenName } from "@/lib/validation";
+import { createUser, setPasswordFromCommandLine } from "@/lib/services/users";
+import { createUserInput, email, password, structureCode, tokenName } from "@/lib/validation";
 
 const USAGE = `Usage:
   npm run admin -- user add --email E --name N --role admin|engineer|technician|owner --password P
   npm run admin -- member add --email E --structure CODE
+  npm run admin -- user password --email E --password P   (sets it and ends that user's sessions)
   npm run admin -- token create --email E --name LABEL        (user token)
   npm run admin -- token create --structure CODE --name LABEL (logger token)
 The new token is printed alone on the last line. DATABASE_URL selects the database, as for the app.`;
@@ -42,6 +43,12 @@ async function run(command: string): Promise<void> {
       const input = parse(createUserInput, values);
       const user = await createUser(null, input);
       console.log(`User ${user.email} (${user.role}) created.`);
+      return;
+    }
+    case "user password": {
+      const input = parse(z.object({ email, password }), values);
+      await setPasswordFromCommandLine(input.email, input.password);
+      console.log(`Password of ${input.email} set; every session of theirs has ended.`);
       return;
     }
     case "member add": {

@@ -33,7 +33,7 @@ function step(label: string, command: string, args: string[]) {
   if (result.status !== 0) process.exit(result.status ?? 1);
 }
 
-step("Database and demo data", "npx", ["tsx", "scripts/seed.ts"]);
+step("Database and demo data", "npx", ["tsx", "--conditions=react-server", "scripts/seed.ts"]);
 step("Production build", "npx", ["next", "build"]);
 console.log(`\n▸ Hookeline on ${env.NEXTAUTH_URL} — sign-ins are listed in README.md`);
 const server = spawn("npx", ["next", "start", "-p", port], { stdio: "inherit", env });

@@ -3,24 +3,32 @@
 import { signOut } from "next-auth/react";
 import { useState } from "react";
 import { buttonClass } from "@/components/ui/styles";
+import { signOutEverywhereAction } from "./actions";
 
 export function SignOutButton() {
-  const [pending, setPending] = useState(false);
+  const [pending, setPending] = useState<"here" | "everywhere" | null>(null);
+  async function signOutFrom(where: "here" | "everywhere") {
+    setPending(where);
+    if (where === "everywhere") await signOutEverywhereAction();
+    await signOut({ callbackUrl: "/signin" });
+  }
   return (
-    <div className="flex justify-center gap-2">
-      <a href="/" className={buttonClass("secondary")}>
-        Stay signed in
-      </a>
+    <div className="space-y-3">
+      <div className="flex justify-center gap-2">
+        <a href="/" className={buttonClass("secondary")}>
+          Stay signed in
+        </a>
+        <button type="button" className={buttonClass()} disabled={pending !== null} onClick={() => void signOutFrom("here")}>
+          {pending === "here" ? "Signing out…" : "Sign out"}
+        </button>
+      </div>
       <button
         type="button"
-        className={buttonClass()}
-        disabled={pending}
-        onClick={() => {
-          setPending(true);
-          void signOut({ callbackUrl: "/signin" });
-        }}
+        className="text-sm font-medium text-accent underline disabled:opacity-60"
+        disabled={pending !== null}
+        onClick={() => void signOutFrom("everywhere")}
       >
-        {pending ? "Signing out…" : "Sign out"}
+        {pending === "everywhere" ? "Signing out everywhere…" : "Sign out on every device"}
       </button>
     </div>
   );

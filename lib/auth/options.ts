@@ -1,6 +1,8 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import { endSession } from "./session-claims";
 import { clientAddressOf, verifyCredentials } from "./sign-in";
 
 const SESSION_HOURS = 12;
@@ -22,22 +24,33 @@ export const authOptions: NextAuthOptions = {
           if (outcome.refused === "locked") throw new Error(SIGN_IN_LOCKED);
           return null;
         }
-        const { actor } = outcome;
-        return { id: String(actor.id), email: actor.email, name: actor.name, role: actor.role };
+        const { actor, sessionVersion } = outcome;
+        return { id: String(actor.id), email: actor.email, name: actor.name, role: actor.role, sessionVersion };
       },
     }),
   ],
   callbacks: {
     jwt({ token, user }) {
-      if (user) token.role = user.role;
+      if (user) {
+        token.role = user.role;
+        token.sessionVersion = user.sessionVersion;
+        token.sessionId = randomUUID();
+      }
       return token;
     },
     session({ session, token }) {
       if (session.user) {
         session.user.id = token.sub!;
         session.user.role = token.role;
+        session.user.sessionVersion = token.sessionVersion;
+        session.user.sessionId = token.sessionId;
       }
       return session;
+    },
+  },
+  events: {
+    async signOut({ token }) {
+      if (token?.sessionId) await endSession(token.sessionId, new Date(Number(token.exp ?? 0) * 1000 || Date.now() + SESSION_HOURS * 3600_000));
     },
   },
 };

@@ -79,7 +79,7 @@ async function mailLockedOwner(email: string, failures: number, now: number) {
 }
 
 /** Why a sign-in was refused; the sign-in page says the same for all but `locked`. */
-export type SignInOutcome = { actor: UserActor } | { refused: "credentials" | "locked" };
+export type SignInOutcome = { actor: UserActor; sessionVersion: number } | { refused: "credentials" | "locked" };
 
 /**
  * Checks an e-mail and password. Unknown e-mails cost the same time as wrong passwords. While an
@@ -101,7 +101,10 @@ export async function verifyCredentials(
   const passwordMatches = user ? await verifyPassword(password, user.passwordHash) : (await spendPasswordCheckTime(password), false);
   if (user && passwordMatches && user.active) {
     await getDb().delete(signInFailures).where(eq(signInFailures.emailKey, emailKey));
-    return { actor: { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role } };
+    return {
+      actor: { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role },
+      sessionVersion: user.sessionVersion,
+    };
   }
   const account = await countFailure(emailKey, "account", now);
   if (account.locked) await mailLockedOwner(emailKey, account.failures, now);

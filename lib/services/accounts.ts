@@ -1,3 +1,4 @@
+import "server-only";
 import { randomBytes } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { writeTransaction } from "@/db/client";
@@ -13,7 +14,7 @@ import { queueMail } from "@/lib/mail/outbox";
 import { buildPasswordResetMail } from "@/lib/mail/password-reset";
 import type { InviteUserInput } from "@/lib/validation";
 import { recordAudit } from "./audit";
-import { findUserByEmail, getUserById, insertUser, type UserView } from "./users";
+import { endEverySessionOf, findUserByEmail, getUserById, insertUser, type UserView } from "./users";
 
 /** Where each kind of link leads: the page that asks for the new password. */
 const LINK_PAGES: Record<LinkPurpose, string> = { invitation: "/welcome", "password-reset": "/reset/confirm" };
@@ -97,7 +98,7 @@ export async function setPasswordWithLink(token: string, purpose: LinkPurpose, p
     // Only if the password is still the one the link was signed with: of two uses at once, one wins.
     const changed = await tx
       .update(users)
-      .set({ passwordHash })
+      .set({ passwordHash, ...endEverySessionOf })
       .where(and(eq(users.id, user.id), eq(users.passwordHash, user.passwordHash)))
       .returning({ id: users.id });
     if (changed.length === 0) throw new AppError("bad_request", LINK_UNUSABLE);

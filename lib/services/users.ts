@@ -1,4 +1,5 @@
-import { asc, eq } from "drizzle-orm";
+import "server-only";
+import { asc, eq, sql } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction, type WriteTx } from "@/db/client";
 import { users, type Role, type User } from "@/db/schema";
 import type { Actor, UserActor } from "@/lib/auth/actor";
@@ -82,6 +83,9 @@ export async function createUser(actor: Actor | null, input: CreateUserInput): P
   return insertUser(actor, input, await hashPassword(input.password), "user.create");
 }
 
+/** For an UPDATE of users: every session signed in so far stops working. */
+export const endEverySessionOf = { sessionVersion: sql`${users.sessionVersion} + 1` };
+
 type UserChange = { role?: Role; active?: boolean };
 
 export async function updateUser(actor: Actor, userId: number, change: UserChange): Promise<void> {
@@ -93,9 +97,30 @@ export async function updateUser(actor: Actor, userId: number, change: UserChang
   }
   const before = { role: user.role, active: user.active };
   const after = { ...before, ...change };
+  // A new role or a closed account must not wait for old sessions to expire.
+  const endsSessions = after.role !== before.role || (before.active && !after.active);
   await writeTransaction(async (tx) => {
-    await tx.update(users).set(change).where(eq(users.id, userId));
+    await tx.update(users).set({ ...change, ...(endsSessions ? endEverySessionOf : {}) }).where(eq(users.id, userId));
     await recordAudit(tx, { actor, action: "user.update", entityType: "user", entityKey: user.email, before, after });
+  });
+}
+
+/** From the command line: sets a user's password and ends every session they have. */
+export async function setPasswordFromCommandLine(email: string, password: string): Promise<void> {
+  const user = await findUserByEmail(email);
+  if (!user) throw notFound(`User ${email}`);
+  const passwordHash = await hashPassword(password);
+  await writeTransaction(async (tx) => {
+    await tx.update(users).set({ passwordHash, ...endEverySessionOf }).where(eq(users.id, user.id));
+    await recordAudit(tx, { actor: null, action: "user.set-password", entityType: "user", entityKey: user.email });
+  });
+}
+
+/** "Sign out everywhere": every session of the user ends, this one included. */
+export async function endEverySession(actor: UserActor): Promise<void> {
+  await writeTransaction(async (tx) => {
+    await tx.update(users).set(endEverySessionOf).where(eq(users.id, actor.id));
+    await recordAudit(tx, { actor, action: "user.sign-out-everywhere", entityType: "user", entityKey: actor.email });
   });
 }
 

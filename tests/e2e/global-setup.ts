@@ -44,7 +44,7 @@ export default async function setup(project: TestProject) {
     // The server's own mail catcher, on a port of its own so a demo running on 2525 is not disturbed.
     LOCAL_SMTP_PORT: String(await freePort()),
   };
-  const seeded = spawnSync("npx", ["tsx", "scripts/seed.ts"], { env, encoding: "utf8" });
+  const seeded = spawnSync("npx", ["tsx", "--conditions=react-server", "scripts/seed.ts"], { env, encoding: "utf8" });
   if (seeded.status !== 0) throw new Error(`Seeding failed:\n${seeded.stdout}\n${seeded.stderr}`);
 
   let output = "";

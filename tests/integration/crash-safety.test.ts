@@ -13,7 +13,7 @@ afterAll(() => fs.rmSync(folder, { recursive: true, force: true }));
 /** Starts the child and SIGKILLs it once its transaction has written into the WAL file, before it commits. */
 function ingestAndKill(file: string): Promise<{ output: string; signal: NodeJS.Signals | null }> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ["--import", "tsx", "tests/integration/crash-child.ts"], { env: { ...process.env, DATABASE_URL: `file:${file}`, CRASH_BATCH: String(CRASH_BATCH) } });
+    const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/integration/crash-child.ts"], { env: { ...process.env, DATABASE_URL: `file:${file}`, CRASH_BATCH: String(CRASH_BATCH) } });
     let output = "";
     let poll: NodeJS.Timeout | undefined;
     child.stdout.on("data", (chunk) => {

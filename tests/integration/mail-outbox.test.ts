@@ -102,7 +102,7 @@ describe("outbox sender against a real SMTP server", () => {
     for (const to of addresses) await queue({ to });
     const runOnce = () =>
       new Promise<string>((resolve, reject) => {
-        const child = spawn("node_modules/.bin/tsx", ["scripts/jobs.ts", "--once", "mail-outbox"], { env: { ...process.env } });
+        const child = spawn("node_modules/.bin/tsx", ["--conditions=react-server", "scripts/jobs.ts", "--once", "mail-outbox"], { env: { ...process.env } });
         let output = "";
         child.stdout.on("data", (chunk) => (output += chunk));
         child.stderr.on("data", (chunk) => (output += chunk));

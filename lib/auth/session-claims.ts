@@ -1,0 +1,36 @@
+import "server-only";
+import { eq, lt } from "drizzle-orm";
+import { getDb, writeTransaction } from "@/db/client";
+import { endedSessions } from "@/db/schema";
+import { getUserById } from "@/lib/services/users";
+import type { UserActor } from "./actor";
+
+/** What the session cookie says about its holder (the JWT's claims). */
+export type SessionClaims = { sub?: string; sessionVersion?: number; sessionId?: string };
+
+/**
+ * The user a session belongs to as the database knows them now, or null when the session no
+ * longer counts: the account is gone or deactivated, its sessions were ended since (password,
+ * role, "sign out everywhere"), or this session was signed out and its cookie copied.
+ */
+export async function userForSession(claims: SessionClaims | null | undefined): Promise<UserActor | null> {
+  const id = Number(claims?.sub);
+  if (!claims || !Number.isInteger(id) || !claims.sessionId) return null;
+  const user = await getUserById(id);
+  if (!user || !user.active || user.sessionVersion !== claims.sessionVersion) return null;
+  const [ended] = await getDb()
+    .select({ sessionId: endedSessions.sessionId })
+    .from(endedSessions)
+    .where(eq(endedSessions.sessionId, claims.sessionId))
+    .limit(1);
+  if (ended) return null;
+  return { kind: "user", id: user.id, email: user.email, name: user.name, role: user.role };
+}
+
+/** Signing out: the session stays refused until its cookie would have expired anyway. */
+export async function endSession(sessionId: string, expiresAt: Date, now = new Date()): Promise<void> {
+  await writeTransaction(async (tx) => {
+    await tx.delete(endedSessions).where(lt(endedSessions.expiresAt, now));
+    await tx.insert(endedSessions).values({ sessionId, expiresAt }).onConflictDoNothing();
+  });
+}
