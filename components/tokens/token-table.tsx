@@ -1,6 +1,6 @@
 import { formatDistanceToNow } from "date-fns";
 import { ActionForm } from "@/components/ui/action-form";
-import { SubmitButton } from "@/components/ui/submit-button";
+import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { revokeTokenAction } from "@/lib/actions/token-actions";
 import type { TokenView } from "@/lib/services/tokens";
@@ -35,7 +35,13 @@ export function TokenTable({ tokens }: { tokens: TokenView[] }) {
                 ) : (
                   <ActionForm action={revokeTokenAction} label={`Revoke ${t.name}`}>
                     <input type="hidden" name="tokenId" value={t.id} />
-                    <SubmitButton variant="danger" pendingLabel="Revoking…">Revoke</SubmitButton>
+                    <ConfirmSubmitButton
+                      question={`Revoke "${t.name}"? Whatever uses it is refused from then on.`}
+                      confirmLabel="Yes, revoke"
+                      pendingLabel="Revoking…"
+                    >
+                      Revoke
+                    </ConfirmSubmitButton>
                   </ActionForm>
                 )}
               </td>

@@ -38,6 +38,7 @@ describe("administration", () => {
     await admin.reload();
     const row = admin.getByTestId("user-row").filter({ hasText: "lena@hookeline.example" });
     await row.getByRole("button", { name: "Deactivate" }).click();
+    await row.getByRole("button", { name: "Yes, deactivate" }).click();
     await row.getByText("deactivated", { exact: true }).waitFor();
     await saveScreenshot(admin, "admin-users");
 
@@ -79,6 +80,7 @@ describe("administration", () => {
     const row = admin.getByTestId("token-row").filter({ hasText: "logger at pier 2" });
     await expect(row.getByText("less than a minute ago").count()).resolves.toBe(1);
     await row.getByRole("button", { name: "Revoke" }).click();
+    await row.getByRole("button", { name: "Yes, revoke" }).click();
     await row.getByText(/revoked/).waitFor();
     expect((await call()).status).toBe(401);
     await saveScreenshot(admin, "admin-tokens");

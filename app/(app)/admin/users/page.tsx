@@ -4,6 +4,7 @@ import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
+import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { NewUserFields } from "@/components/users/new-user-fields";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
@@ -68,9 +69,19 @@ export default async function UsersPage() {
                         <input type="hidden" name="userId" value={user.id} />
                         <input type="hidden" name="active" value={String(!user.active)} />
                         <span className={user.active ? "" : "font-medium text-critical"}>{user.active ? "active" : "deactivated"}</span>
-                        <SubmitButton variant={user.active ? "danger" : "secondary"} pendingLabel="…">
-                          {user.active ? "Deactivate" : "Reactivate"}
-                        </SubmitButton>
+                        {user.active ? (
+                          <ConfirmSubmitButton
+                            question={`Deactivate ${user.email}? Their sessions and tokens stop working.`}
+                            confirmLabel="Yes, deactivate"
+                            pendingLabel="…"
+                          >
+                            Deactivate
+                          </ConfirmSubmitButton>
+                        ) : (
+                          <SubmitButton variant="secondary" pendingLabel="…">
+                            Reactivate
+                          </SubmitButton>
+                        )}
                       </ActionForm>
                     )}
                   </td>

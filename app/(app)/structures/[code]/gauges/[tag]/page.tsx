@@ -10,7 +10,7 @@ import { ActionForm } from "@/components/ui/action-form";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
-import { SubmitButton } from "@/components/ui/submit-button";
+import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
 import { buttonClass, cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
@@ -273,7 +273,9 @@ export default async function GaugePage({ params, searchParams }: Props) {
             <input type="hidden" name="code" value={code} />
             <input type="hidden" name="tag" value={tag} />
             <Field name="reason" label="Why" required />
-            <SubmitButton variant="danger" pendingLabel="Retiring…">Retire</SubmitButton>
+            <ConfirmSubmitButton question={`Retire ${tag}? It accepts no more readings.`} confirmLabel="Yes, retire" pendingLabel="Retiring…">
+              Retire
+            </ConfirmSubmitButton>
           </ActionForm>
         </section>
       )}
