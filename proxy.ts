@@ -15,6 +15,13 @@ const isPublic = (pathname: string) => PUBLIC_PAGES.some((page) => pathname === 
  */
 export async function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  if (isForeignServerAction(request)) {
+    // Next.js refuses these too, but as a 500; say plainly that it is not allowed.
+    return NextResponse.json(
+      { error: { code: "forbidden", message: "Forms of other sites may not act here." } },
+      { status: 403, headers: { connection: "close" } },
+    );
+  }
   if (!isPublic(pathname) && !(await getToken({ req: request, secret: process.env.NEXTAUTH_SECRET }))) {
     const signIn = new URL("/signin", request.url);
     signIn.searchParams.set("callbackUrl", `${pathname}${search}`);
@@ -29,6 +36,19 @@ export async function proxy(request: NextRequest) {
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set("content-security-policy", csp);
   return response;
+}
+
+/** A server action posted by a page of another site (the browser names that site in Origin). */
+function isForeignServerAction(request: NextRequest): boolean {
+  if (request.method !== "POST" || !request.headers.has("next-action")) return false;
+  const origin = request.headers.get("origin");
+  if (!origin) return false;
+  const hosts = [request.headers.get("x-forwarded-host"), request.headers.get("host")].filter(Boolean);
+  try {
+    return !hosts.includes(new URL(origin).host);
+  } catch {
+    return true;
+  }
 }
 
 export const config = {

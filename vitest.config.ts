@@ -24,6 +24,21 @@ export default defineConfig({
         },
       },
       {
+        // The attacks as a suite, against the production build with the demo seeded (like the
+        // browser tests, without a browser): a few minutes on two cores.
+        extends: true,
+        test: {
+          name: "security",
+          environment: "node",
+          include: ["tests/security/**/*.test.ts"],
+          globalSetup: ["tests/e2e/global-setup.ts"],
+          setupFiles: ["tests/security/setup.ts"],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+      {
         extends: true,
         test: {
           name: "browser",

@@ -1,8 +1,11 @@
+import "server-only";
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { Actor } from "@/lib/auth/actor";
+import { requireRouteAccess } from "@/lib/auth/authorize";
 import { userForSessionCookie } from "@/lib/auth/request-session";
 import { actorForToken, bearerFrom } from "@/lib/auth/tokens";
+import { ruleFor } from "./route-rules";
 
 const DEFAULT_JSON_LIMIT_BYTES = 1_000_000;
 
@@ -14,11 +17,24 @@ export function errorBody(error: AppError) {
   return { error: { code: error.code, message: error.message, ...(error.details === undefined ? {} : { details: error.details }) } };
 }
 
-/** Turns any thrown value into the contract's error format; unexpected ones are logged, never shown. */
-export function errorResponse(error: unknown): Response {
-  if (error instanceof AppError) return json(errorBody(error), error.status);
-  console.error("Unexpected error in an API route", error);
-  return json({ error: { code: "internal_error", message: "Something went wrong on the server; it has been logged." } }, 500);
+/**
+ * Turns any thrown value into the contract's error format; unexpected ones are logged, never shown.
+ * A refused request that came with a body closes the connection: the body may be unread (a 413 from
+ * the declared length, a 401 before reading), and the next request on that socket must not wait
+ * behind it.
+ */
+export function errorResponse(error: unknown, request?: Request): Response {
+  const response =
+    error instanceof AppError
+      ? json(errorBody(error), error.status)
+      : (console.error("Unexpected error in an API route", error),
+        json({ error: { code: "internal_error", message: "Something went wrong on the server; it has been logged." } }, 500));
+  if (request && hasBody(request)) response.headers.set("connection", "close");
+  return response;
+}
+
+function hasBody(request: Request): boolean {
+  return Number(request.headers.get("content-length")) > 0 || request.headers.has("transfer-encoding");
 }
 
 /** Zod's issues as the per-field list the API and forms report. */
@@ -122,24 +138,50 @@ export async function readFormData(request: Request, limitBytes: number): Promis
 type RouteContext<P> = { params: Promise<P> };
 type ApiHandler<P> = (call: { request: Request; params: P; actor: Actor }) => Promise<Response>;
 
+const READ_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * A browser sends its cookies along with a form or fetch another site makes it send: a write
+ * authenticated by cookie must come from the app's own pages. Tokens are not sent by browsers
+ * on their own, so bearer calls need no such check.
+ */
+function refuseForeignOrigin(request: Request) {
+  if (READ_METHODS.has(request.method)) return;
+  const origin = request.headers.get("origin");
+  const own = new Set([new URL(request.url).origin, process.env.NEXTAUTH_URL && new URL(process.env.NEXTAUTH_URL).origin]);
+  const host = request.headers.get("host");
+  if (host) own.add(`${new URL(request.url).protocol}//${host}`);
+  const foreign = origin ? !own.has(origin) : request.headers.get("sec-fetch-site") === "cross-site";
+  if (foreign) throw new AppError("forbidden", "Requests from other sites may not change anything here; use an API token.");
+}
+
 /** Who calls: a bearer token (loggers, scripts), or else the app's own pages with the browser's session. */
 async function authenticate(request: Request): Promise<Actor> {
   const authorization = request.headers.get("authorization");
   if (!authorization) {
+    refuseForeignOrigin(request);
     const user = await userForSessionCookie(request);
     if (user) return user;
   }
   return actorForToken(bearerFrom(authorization));
 }
 
-/** Wraps an /api/v1 handler: authentication first, every error in the contract's format. */
+/**
+ * Wraps an /api/v1 handler: the route's rule (lib/api/route-rules.ts) and authentication first,
+ * then the handler; every error in the contract's format.
+ */
 export function apiRoute<P>(handler: ApiHandler<P>) {
   return async (request: Request, context: RouteContext<P>): Promise<Response> => {
     try {
+      const rule = ruleFor(request.method, new URL(request.url).pathname);
+      if (!rule || rule === "public") throw new Error(`No rule in ROUTE_RULES for ${request.method} ${request.url}`);
       const actor = await authenticate(request);
-      return await handler({ request, params: await context.params, actor });
+      const params = await context.params;
+      const code = (params as { code?: unknown } | undefined)?.code;
+      await requireRouteAccess(actor, rule, typeof code === "string" ? code : undefined);
+      return await handler({ request, params, actor });
     } catch (error) {
-      return errorResponse(error);
+      return errorResponse(error, request);
     }
   };
 }

@@ -1,6 +1,7 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { structureMembers } from "@/db/schema";
+import { structureMembers, structures } from "@/db/schema";
 import { AppError, forbidden } from "@/lib/errors";
 import type { Actor } from "./actor";
 import { isStructureScoped, roleAllows, seesAllStructures, type Action } from "./permissions";
@@ -37,10 +38,32 @@ export async function requirePermission(actor: Actor, action: Action, structure?
   }
   if (structure && !(await canSeeStructure(actor, structure))) throw structureNotVisible(structure);
   if (actor.kind === "logger") {
-    if (action !== "readings:ingest") throw forbidden("A logger token may only send readings.");
+    if (action !== "readings:ingest") throw forbidden(LOGGER_ONLY_SENDS);
     return;
   }
   if (!roleAllows(actor.role, action)) throw forbidden(`The ${actor.role} role may not do this.`);
+}
+
+const LOGGER_ONLY_SENDS = "A logger token may only send readings.";
+
+/**
+ * The door of an API route, before its body is read or anything it names is looked up beyond
+ * the structure: loggers only where readings are sent, people only with a role that allows the
+ * route's action, and a structure the caller may not see answers as one that does not exist.
+ */
+export async function requireRouteAccess(actor: Actor, rule: Action | "signed-in", structureCode?: string): Promise<void> {
+  if (actor.kind === "logger") {
+    if (rule !== "readings:ingest") throw forbidden(LOGGER_ONLY_SENDS);
+  } else if (rule !== "signed-in" && !roleAllows(actor.role, rule)) {
+    throw forbidden(`The ${actor.role} role may not do this.`);
+  }
+  if (rule === "signed-in" || !isStructureScoped(rule) || structureCode === undefined) return;
+  const [structure] = await getDb()
+    .select({ id: structures.id, code: structures.code })
+    .from(structures)
+    .where(eq(structures.code, structureCode))
+    .limit(1);
+  if (!structure || !(await canSeeStructure(actor, structure))) throw structureNotVisible({ id: 0, code: structureCode });
 }
 
 /** The same decision as requirePermission, as a yes/no for showing or hiding controls. */

@@ -1,10 +1,12 @@
+import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { apiTokens, structures, users, type TokenKind } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
-import { requirePermission } from "@/lib/auth/authorize";
+import { may, requirePermission } from "@/lib/auth/authorize";
+import { roleAllows } from "@/lib/auth/permissions";
 import { generateToken, hashToken, tokenHint } from "@/lib/auth/tokens";
-import { notFound } from "@/lib/errors";
+import { forbidden, notFound } from "@/lib/errors";
 import { recordAudit } from "./audit";
 import { findStructureByCode } from "./structures";
 import { findUserByEmail } from "./users";
@@ -26,13 +28,18 @@ export type IssuedToken = { id: number; token: string };
 
 type TokenOwner = { kind: "user"; email: string } | { kind: "logger"; structureCode: string };
 
+/**
+ * The permission comes first, then the lookup: someone who may not manage user tokens learns
+ * nothing about which e-mail addresses have accounts.
+ */
 async function authorizeTokenOwner(actor: Actor | null, owner: TokenOwner) {
   if (owner.kind === "user") {
+    if (actor) await requirePermission(actor, "users:manage");
     const user = await findUserByEmail(owner.email);
     if (!user) throw notFound(`User ${owner.email}`);
-    if (actor) await requirePermission(actor, "users:manage");
     return { userId: user.id, structureId: null, entityKey: user.email };
   }
+  if (actor?.kind === "logger" || (actor && !roleAllows(actor.role, "token:manage"))) throw forbidden("Your role may not manage tokens.");
   const structure = await findStructureByCode(owner.structureCode);
   if (!structure) throw notFound(`Structure "${owner.structureCode}"`);
   if (actor) await requirePermission(actor, "token:manage", structure);
@@ -95,13 +102,16 @@ export async function listLoggerTokens(actor: Actor, structureCode: string): Pro
   return tokenViewQuery().where(eq(apiTokens.structureId, structure.id)).orderBy(desc(apiTokens.createdAt));
 }
 
+/** A token the actor may not manage answers like one that does not exist. */
 export async function revokeToken(actor: Actor, tokenId: number): Promise<void> {
+  if (actor.kind === "logger" || !(roleAllows(actor.role, "users:manage") || roleAllows(actor.role, "token:manage"))) {
+    throw forbidden("Your role may not revoke tokens.");
+  }
   const [token] = await tokenViewQuery().where(eq(apiTokens.id, tokenId)).limit(1);
-  if (!token) throw notFound("Token");
-  await authorizeTokenOwner(
-    actor,
-    token.kind === "user" ? { kind: "user", email: token.userEmail! } : { kind: "logger", structureCode: token.structureCode! },
-  );
+  const structure = token?.structureCode ? await findStructureByCode(token.structureCode) : undefined;
+  const mayRevoke =
+    token && (token.kind === "user" ? await may(actor, "users:manage") : Boolean(structure) && (await may(actor, "token:manage", structure)));
+  if (!token || !mayRevoke) throw notFound("Token");
   if (token.revokedAt) return;
   await writeTransaction(async (tx) => {
     await tx.update(apiTokens).set({ revokedAt: new Date() }).where(eq(apiTokens.id, tokenId));

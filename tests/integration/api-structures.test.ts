@@ -44,7 +44,11 @@ describe("GET /structures", () => {
     expect(await codes(tokens.engineer!)).toEqual(["BRIDGE-A", "DECK-B"]);
     expect(await codes(tokens.technician!)).toEqual(["BRIDGE-A"]);
     expect(await codes(tokens.owner!)).toEqual(["BRIDGE-A"]);
-    expect(await codes(tokens.logger!)).toEqual(["BRIDGE-A"]);
+  });
+
+  it("refuses a logger token: it may only send readings, not read its structure's name and place", async () => {
+    const response = await list.GET(apiRequest("/structures", { token: tokens.logger! }), noParams);
+    await expectError(response, 403, "forbidden");
   });
 
   it("answers 401 without a token, with a malformed header and with an unknown token", async () => {

@@ -12,3 +12,5 @@ export const POST = apiRoute(async ({ request, actor }) => {
   const created = await createStructure(actor, input);
   return json(toStructureView(created), 201);
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -22,3 +22,5 @@ export const DELETE = apiRoute<Params>(async ({ actor, params }) => {
   await removeFile(actor, parseWith(fileId, params.id));
   return new Response(null, { status: 204 });
 });
+
+export * from "@/lib/api/method-not-allowed";

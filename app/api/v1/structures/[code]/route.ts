@@ -7,3 +7,5 @@ export const GET = apiRoute<{ code: string }>(async ({ actor, params }) => {
   const { structure, gauges } = await listGaugesWithConditions(actor, params.code);
   return json({ ...toStructureView(structure), gauges, openAlerts: await countOpenAlerts(structure.id) });
 });
+
+export * from "@/lib/api/method-not-allowed";

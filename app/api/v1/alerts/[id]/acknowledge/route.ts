@@ -10,3 +10,5 @@ export const POST = apiRoute<{ id: string }>(async ({ request, actor, params }) 
   const { comment } = await readJson(request, acknowledgeBody);
   return json(await handleAlert(actor, id, "acknowledged", comment));
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -6,3 +6,5 @@ export const GET = apiRoute<{ code: string }>(async ({ request, actor, params })
   const query = parseWith(alertListQuery, Object.fromEntries(new URL(request.url).searchParams));
   return json(await listAlerts(actor, params.code, query));
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -10,3 +10,5 @@ export const GET = apiRoute<Params>(async ({ actor, params }) => json({ drawings
 export const POST = apiRoute<Params>(async ({ request, actor, params }) =>
   json(await uploadDrawing(actor, params.code, await readUpload(request, "drawing")), 201),
 );
+
+export * from "@/lib/api/method-not-allowed";

@@ -10,3 +10,5 @@ export const POST = apiRoute<Params>(async ({ request, actor, params }) => {
   const input = await readJson(request, gaugeInput);
   return json(await createGauge(actor, params.code, input), 201);
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -20,3 +20,5 @@ export const POST = apiRoute<Params>(async ({ request, actor, params }) => {
       throw new AppError("unsupported_media_type", "Send readings as application/json or text/csv (Content-Type header).");
   }
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -22,3 +22,5 @@ export const POST = apiRoute<Params>(async ({ request, actor, params }) => {
     send({ type: "done", ...report });
   });
 });
+
+export * from "@/lib/api/method-not-allowed";

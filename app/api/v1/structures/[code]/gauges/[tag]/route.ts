@@ -13,3 +13,5 @@ export const PATCH = apiRoute<Params>(async ({ request, actor, params }) => {
 
 /** Retires the gauge: it accepts no more readings, and its history is kept. */
 export const DELETE = apiRoute<Params>(async ({ actor, params }) => json(await retireGauge(actor, params.code, params.tag)));
+
+export * from "@/lib/api/method-not-allowed";

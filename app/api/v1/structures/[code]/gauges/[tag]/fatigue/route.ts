@@ -20,3 +20,5 @@ export const GET = apiRoute<Params>(async ({ request, actor, params }) => {
     },
   });
 });
+
+export * from "@/lib/api/method-not-allowed";

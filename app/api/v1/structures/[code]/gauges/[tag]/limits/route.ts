@@ -10,3 +10,5 @@ export const PUT = apiRoute<Params>(async ({ request, actor, params }) => {
   const body = await readJson(request, limitsBody);
   return json({ limits: await replaceLimits(actor, params.code, params.tag, body.limits) });
 });
+
+export * from "@/lib/api/method-not-allowed";

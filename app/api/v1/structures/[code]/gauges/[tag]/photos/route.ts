@@ -10,3 +10,5 @@ export const GET = apiRoute<Params>(async ({ actor, params }) => json({ photos: 
 export const POST = apiRoute<Params>(async ({ request, actor, params }) =>
   json(await uploadGaugePhoto(actor, params.code, params.tag, await readUpload(request, "photo")), 201),
 );
+
+export * from "@/lib/api/method-not-allowed";

@@ -8,3 +8,5 @@ type Params = { code: string; tag: string };
 export const PUT = apiRoute<Params>(async ({ request, actor, params }) =>
   json(await placeGauge(actor, params.code, params.tag, await readJson(request, placementInput))),
 );
+
+export * from "@/lib/api/method-not-allowed";

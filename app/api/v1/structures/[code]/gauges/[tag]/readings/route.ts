@@ -18,3 +18,5 @@ export const GET = apiRoute<Params>(async ({ request, actor, params }) => {
   }
   return json(await listReadings(actor, params.code, params.tag, query));
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -6,3 +6,5 @@ export const POST = apiRoute<{ code: string; tag: string }>(async ({ request, ac
   const zero = await readJson(request, zeroRequest);
   return json(await recordZero(actor, params.code, params.tag, zero));
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -5,3 +5,5 @@ import { getRosetteSeries } from "@/lib/services/rosette-series";
 export const GET = apiRoute<{ code: string; tag: string }>(async ({ request, actor, params }) =>
   json(await getRosetteSeries(actor, params.code, params.tag, parseQuery(request, rosetteSeriesQuerySchema))),
 );
+
+export * from "@/lib/api/method-not-allowed";

@@ -7,3 +7,5 @@ export const POST = apiRoute<{ code: string; tag: string }>(async ({ request, ac
   const body = await readJson(request, backtestBody);
   return json(await backtestLimits(actor, params.code, params.tag, body.limits, Date.parse(body.from), Date.parse(body.to)));
 });
+
+export * from "@/lib/api/method-not-allowed";
