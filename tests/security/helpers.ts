@@ -85,7 +85,8 @@ export async function signInOverHttp(email: string, password: string, clientAddr
     body: new URLSearchParams({ csrfToken, email, password, json: "true" }),
   });
   const session = response.headers.getSetCookie().find((c) => c.startsWith("next-auth.session-token="));
-  const location = response.headers.get("location") ?? "";
+  // With json=true next-auth answers { url } (where the page would go) instead of redirecting.
+  const location = response.headers.get("location") ?? ((await response.json().catch(() => ({}))) as { url?: string }).url ?? "";
   return {
     cookie: session ? `${session.split(";")[0]}; ${csrfCookie}` : null,
     error: new URL(location, baseUrl()).searchParams.get("error"),

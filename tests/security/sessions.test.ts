@@ -1,0 +1,61 @@
+import { spawnSync } from "node:child_process";
+import { beforeAll, describe, expect, it } from "vitest";
+import { createUser } from "@/lib/services/users";
+import { baseUrl, serverDb, signInOverHttp } from "./helpers";
+
+// OWASP Session Management Cheat Sheet: a session ends on the server at sign-out and when the
+// password changes; a copy of the cookie made before must not keep working.
+const whoAmI = (cookie: string) => fetch(`${baseUrl()}/api/v1/structures`, { headers: { cookie } });
+
+beforeAll(async () => {
+  for (const who of ["guessed", "replayed", "reset"]) {
+    await createUser(null, { email: `${who}@sessions.example`, name: `Session ${who}`, role: "owner", password: "right-password" });
+  }
+});
+
+describe("sign-in throttling over HTTP", () => {
+  it("counts all of 20 parallel wrong passwords, locks the account, mails its owner once and refuses the right password at once", async () => {
+    const guesses = await Promise.all(
+      Array.from({ length: 20 }, (_, i) => signInOverHttp("guessed@sessions.example", `wrong-${i}`, `203.0.113.${i + 1}`)),
+    );
+    expect(guesses.every((g) => g.cookie === null)).toBe(true);
+    const { rows } = await serverDb().execute("select failures, locked_until from sign_in_failures where email_key = 'guessed@sessions.example'");
+    expect(rows[0]!.failures).toBe(20);
+    expect(Number(rows[0]!.locked_until)).toBeGreaterThan(Date.now());
+    const mails = await serverDb().execute("select kind from mail_outbox where to_address = 'guessed@sessions.example'");
+    expect(mails.rows.map((r) => r.kind)).toEqual(["sign-in-lock"]);
+    const right = await signInOverHttp("guessed@sessions.example", "right-password", "203.0.113.99");
+    expect(right).toMatchObject({ cookie: null, error: "locked" });
+  });
+});
+
+describe("session replay", () => {
+  it("a cookie copied before signing out is refused after it", async () => {
+    const { cookie, csrfToken } = await signInOverHttp("replayed@sessions.example", "right-password");
+    expect(cookie).not.toBeNull();
+    expect((await whoAmI(cookie!)).status).toBe(200);
+    const signOut = await fetch(`${baseUrl()}/api/auth/signout`, {
+      method: "POST",
+      redirect: "manual",
+      headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie! },
+      body: new URLSearchParams({ csrfToken, json: "true" }),
+    });
+    expect(signOut.status).toBeLessThan(400);
+    expect((await whoAmI(cookie!)).status).toBe(401);
+    const page = await fetch(`${baseUrl()}/`, { headers: { cookie: cookie! }, redirect: "manual" });
+    expect(page.status === 307 || page.headers.get("location") !== null || (await page.text()).includes("Sign in")).toBe(true);
+  });
+
+  it("a cookie from before `npm run admin -- user password` is refused after it", async () => {
+    const { cookie } = await signInOverHttp("reset@sessions.example", "right-password");
+    expect((await whoAmI(cookie!)).status).toBe(200);
+    const cli = spawnSync(
+      "node_modules/.bin/tsx",
+      ["--conditions=react-server", "scripts/admin.ts", "user", "password", "--email", "reset@sessions.example", "--password", "another-password"],
+      { env: process.env, encoding: "utf8" },
+    );
+    expect(cli.status, cli.stderr).toBe(0);
+    expect((await whoAmI(cookie!)).status).toBe(401);
+    expect((await signInOverHttp("reset@sessions.example", "another-password")).cookie).not.toBeNull();
+  });
+});
