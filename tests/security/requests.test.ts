@@ -72,7 +72,8 @@ describe("foreign origins", () => {
 
   it("a cookie-authenticated upload from another site is refused with the contract's 403 and stores nothing", async () => {
     const before = await storedFingerprint();
-    for (const headers of [{ origin: "https://evil.example" }, { origin: "null" }, { "sec-fetch-site": "cross-site" }]) {
+    const foreign: Record<string, string>[] = [{ origin: "https://evil.example" }, { origin: "null" }, { "sec-fetch-site": "cross-site" }];
+    for (const headers of foreign) {
       const response = await fetch(`${baseUrl()}${photos}`, { method: "POST", headers: { cookie: engineerCookie, ...headers }, body: photoForm() });
       expect(response.status, JSON.stringify(headers)).toBe(403);
       expect((await expectContractError(response, JSON.stringify(headers))).code).toBe("forbidden");

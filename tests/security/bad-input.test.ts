@@ -1,0 +1,170 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { createToken } from "@/lib/services/tokens";
+import { foilGaugeBody } from "../fixtures/gauges";
+import { baseUrl, expectContractError, serverDb, storedFingerprint } from "./helpers";
+
+// Bad input of every kind over every route, from the classes of OWASP's Input Validation Cheat
+// Sheet and of IEEE 754 (NaN, Infinity, the largest double 1.797…e308): each is refused in the API
+// contract's error shape (or, for readings, rejected one by one), never a 500, and nothing stored changes.
+type Case = {
+  label: string;
+  method: string;
+  path: string;
+  body?: string | FormData;
+  type?: string;
+  /** Readings are judged one by one: a 200 whose readings were all rejected is the right answer. */
+  perReading?: boolean;
+};
+
+const json = (value: unknown) => JSON.stringify(value);
+const far = ["275760-09-13T00:00:00.001Z", "+999999-01-01T00:00:00Z", "0000-00-00T00:00:00Z", "2026-02-30T12:00:00Z", "2026-13-45T25:61:00Z", "9999-12-31T23:59:59Z", "yesterday", ""];
+const hostile = ["<script>alert(1)</script>", "'; DROP TABLE users; --", "\" OR 1=1 --", "\u0000\u0001\u0007", "\u202eBF-LLIM", "👷‍♀️🏗️", "A".repeat(10_000), "line\r\nbreak"];
+const numbersJson = ["1e999", "-1e999", "NaN", "Infinity", "1.7976931348623157e308", "-0", "\"12\"", "null", "true", "[]", "{}"];
+
+function corpus(): Case[] {
+  const cases: Case[] = [];
+  const add = (c: Case) => cases.push(c);
+  const S = "/api/v1/structures";
+  const G = `${S}/MILL-FB/gauges`;
+
+  // Structures: codes, names and zones of every wrong kind.
+  for (const code of [123, null, "", "A", "x".repeat(33), "MILL FB", "MILL-FB", ...hostile]) add({ label: `structure code ${json(code).slice(0, 40)}`, method: "POST", path: S, body: json({ code, name: "Probe" }) });
+  for (const timezone of ["Mars/Olympus_Mons", "<b>UTC</b>", 1e308, "UTC\u0000", "+25:00"]) add({ label: `structure timezone ${json(timezone)}`, method: "POST", path: S, body: json({ code: "PROBE-TZ", name: "Probe", timezone }) });
+  for (const name of [5, "", null, "x".repeat(100_000)]) add({ label: `structure name ${json(name).slice(0, 30)}`, method: "POST", path: S, body: json({ code: "PROBE-N", name }) });
+
+  // Bodies that are not what the route reads.
+  for (const [label, body, type] of [
+    ["not JSON", "{", "application/json"],
+    ["NaN literal", '{"code":NaN}', "application/json"],
+    ["BOM before JSON", "\ufeff{}", "application/json"],
+    ["JSON array", "[1,2]", "application/json"],
+    ["empty body", "", "application/json"],
+    ["deep nesting", "[".repeat(50_000) + "]".repeat(50_000), "application/json"],
+    ["form body", "code=A&name=B", "application/x-www-form-urlencoded"],
+    ["XML", "<structure><code>A</code></structure>", "application/xml"],
+    ["2 MB of JSON", json({ code: "BIG", name: "x".repeat(2_000_000) }), "application/json"],
+  ] as const) add({ label: `structures: ${label}`, method: "POST", path: S, body, type });
+
+  // Gauges: numbers past what a double holds, wrong types, hostile tags.
+  for (const raw of numbersJson) add({ label: `gauge factor ${raw}`, method: "POST", path: G, body: json(foilGaugeBody("PROBE-GF")).replace('"gaugeFactor":2.1', `"gaugeFactor":${raw}`) });
+  for (const tag of [...hostile, "", 7]) add({ label: `gauge tag ${json(tag).slice(0, 30)}`, method: "POST", path: G, body: json(foilGaugeBody(tag as string)) });
+  for (const E of [0, -210000, "210000", null]) add({ label: `gauge E ${json(E)}`, method: "POST", path: G, body: json({ ...foilGaugeBody("PROBE-E"), material: { E, nu: 0.3, alpha: 12, yield: 355 } }) });
+  add({ label: "gauge that exists already", method: "POST", path: G, body: json(foilGaugeBody("LC-M1")) });
+  for (const change of [{ label: 5 }, { gaugeFactor: "2" }, { material: { E: -1 } }, { expectedInterval: -5 }]) add({ label: `gauge change ${json(change)}`, method: "PATCH", path: `${G}/LC-M1`, body: json(change) });
+
+  // Limits and their backtest.
+  for (const limit of [
+    { quantity: "stress", level: "critical", upper: "1e999" },
+    { quantity: "stress", level: "mega", upper: 100 },
+    { quantity: "<script>", level: "watch", upper: 100 },
+    { quantity: "stress", level: "warning", upper: 10, lower: 20 },
+    { quantity: "stress", level: "warning", upper: 10, hysteresis: -1 },
+    { quantity: "stress", level: "warning", upper: 10, persistence: 1.5 },
+    { quantity: "stress", level: "warning", upper: 10, persistence: 1e308 },
+    { quantity: "stress", level: "warning" },
+  ]) add({ label: `limit ${json(limit)}`, method: "PUT", path: `${G}/LC-M1/limits`, body: json({ limits: [limit] }) });
+  add({ label: "limits not a list", method: "PUT", path: `${G}/LC-M1/limits`, body: json({ limits: "all of them" }) });
+  for (const from of far) add({ label: `backtest from ${from}`, method: "POST", path: `${G}/LC-M1/limits/backtest`, body: json({ limits: [], from, to: "2026-01-01T00:00:00Z" }) });
+  add({ label: "backtest backwards", method: "POST", path: `${G}/LC-M1/limits/backtest`, body: json({ limits: [], from: "2026-02-01T00:00:00Z", to: "2026-01-01T00:00:00Z" }) });
+
+  // Zero readings.
+  for (const zero of [{ value: "NaN", temperature: 10, time: "2026-01-01T00:00:00Z" }, { value: 1, temperature: 10, time: far[0] }, { value: 1, temperature: "warm", time: "2026-01-01T00:00:00Z" }, { fromReadings: 0 }, { fromReadings: -3 }, { fromReadings: 1.5 }, { fromReadings: 1e308 }, {}])
+    add({ label: `zero ${json(zero)}`, method: "POST", path: `${G}/LC-M1/zero`, body: json(zero) });
+
+  // Readings: each bad on its own; the request stores none of them.
+  const readings = `${S}/MILL-FB/readings`;
+  for (const time of far) add({ label: `reading at ${time}`, method: "POST", path: readings, perReading: true, body: json({ readings: [{ gauge: "LC-M1", time, value: 0.1, temperature: 10 }] }) });
+  for (const raw of ["1e999", "-1e999", "\"0.1\"", "null", "{}"]) add({ label: `reading value ${raw}`, method: "POST", path: readings, perReading: true, body: `{"readings":[{"gauge":"LC-M1","time":"2026-01-01T00:00:00Z","value":${raw},"temperature":10}]}` });
+  for (const gauge of [...hostile.slice(0, 5), "lc-m1", "RETIRED?"]) add({ label: `reading for gauge ${json(gauge).slice(0, 30)}`, method: "POST", path: readings, perReading: true, body: json({ readings: [{ gauge, time: "2026-01-01T00:00:00Z", value: 0.1, temperature: 10 }] }) });
+  add({ label: "readings not a list", method: "POST", path: readings, body: json({ readings: { gauge: "LC-M1" } }) });
+  add({ label: "readings as text/plain", method: "POST", path: readings, body: "gauge,time,value", type: "text/plain" });
+  add({ label: "readings CSV with a foreign header", method: "POST", path: `${readings}?timezone=UTC`, body: "sensor;when;reading\nLC-M1;now;1\n", type: "text/csv" });
+  add({ label: "readings CSV with control characters", method: "POST", path: `${readings}?timezone=UTC`, perReading: true, body: "gauge,time,value,temperature\nLC-M1\u0000,2026-01-01T00:00:00Z,0.1,10\nLC-M1,2026-01-01T00:00:00Z\u0007,0.1,10\n", type: "text/csv" });
+  add({ label: "readings CSV in a bad zone", method: "POST", path: `${readings}?timezone=Nowhere/Else`, body: "gauge,time,value,temperature\n", type: "text/csv" });
+  add({ label: "readings CSV that is a zip file", method: "POST", path: `${readings}?timezone=UTC`, perReading: true, body: "PK\u0003\u0004\u0014\u0000\u0000\u0000\u0008\u0000", type: "text/csv" });
+
+  // Files disguised as images and drawings.
+  const file = (name: string, type: string, bytes: string | Uint8Array<ArrayBuffer>, title = "probe") => {
+    const form = new FormData();
+    form.set("title", title);
+    form.set("file", new Blob([typeof bytes === "string" ? new TextEncoder().encode(bytes) : bytes], { type }), name);
+    return form;
+  };
+  const disguised = [
+    file("photo.png", "image/png", "<html><script>alert(1)</script></html>"),
+    file("photo.jpg", "image/jpeg", "MZ\u0090\u0000\u0003\u0000\u0000\u0000 executable"),
+    file("photo.svg", "image/svg+xml", '<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'),
+    file("photo.gif", "image/gif", "GIF89a<script>alert(1)</script>"),
+    file("photo.png", "image/png", new Uint8Array([0x89, 0x50, 0x4e, 0x47])),
+    file("empty.png", "image/png", new Uint8Array()),
+    file("photo.php.png", "image/png", "<?php system($_GET['c']); ?>"),
+    file("../../etc/passwd", "image/png", "root:x:0:0"),
+  ];
+  disguised.forEach((body, i) => add({ label: `disguised photo ${i}`, method: "POST", path: `${G}/LC-M1/photos`, body }));
+  disguised.forEach((body, i) => add({ label: `disguised drawing ${i}`, method: "POST", path: `${S}/MILL-FB/drawings`, body }));
+  add({ label: "drawing without a file", method: "POST", path: `${S}/MILL-FB/drawings`, body: (() => { const f = new FormData(); f.set("title", "x"); return f; })() });
+  add({ label: "upload as JSON", method: "POST", path: `${S}/MILL-FB/uploads`, body: "{}", type: "application/json" });
+
+  // Placement and rosettes.
+  for (const placement of [{ drawingId: 1, x: 1e999, y: 0.5 }, { drawingId: 1, x: -0.1, y: 0.5 }, { drawingId: "1", x: 0.5, y: 0.5 }, { drawingId: 999_999, x: 0.5, y: 0.5 }, { x: 0.5 }])
+    add({ label: `placement ${json(placement)}`, method: "PUT", path: `${G}/LC-M1/placement`, body: json(placement).replace("null", "1e999") });
+  for (const rosette of [{ tag: "R9", layout: "rectangular", gauges: ["LC-M1", "LC-M1", "LC-M1"] }, { tag: "R9", layout: "<b>", gauges: ["GP-R1a", "GP-R1b", "GP-R1c"] }, { tag: "R9", layout: "rectangular", gauges: "GP-R1a" }, { tag: "R1", layout: "rectangular", gauges: ["GP-R1a", "GP-R1b", "GP-R1c"] }])
+    add({ label: `rosette ${json(rosette)}`, method: "POST", path: `${S}/MILL-FB/rosettes`, body: json(rosette) });
+  add({ label: "rosette limit on an unknown quantity", method: "PUT", path: `${S}/MILL-FB/rosettes/R1/limits`, body: json({ limits: [{ quantity: "sigma9", level: "warning", upper: 1 }] }) });
+  add({ label: "rosette backtest far", method: "POST", path: `${S}/MILL-FB/rosettes/R1/limits/backtest`, body: json({ limits: [], from: far[0], to: far[1] }) });
+  add({ label: "acknowledgement comment a number", method: "POST", path: "/api/v1/alerts/1/acknowledge", body: json({ comment: 5 }) });
+  add({ label: "acknowledgement of alert NaN", method: "POST", path: "/api/v1/alerts/NaN/acknowledge", body: json({ comment: "ok" }) });
+
+  // Names in the path and the query.
+  const pathNames = ["%3Cscript%3E", "'%20OR%201%3D1--", "%00", "..%2F..%2Fetc%2Fpasswd", "x".repeat(3000), "MILL-FB%E2%80%AE", "%F0%9F%92%A5", "1e308"];
+  for (const name of pathNames) {
+    add({ label: `structure named ${name.slice(0, 24)}`, method: "GET", path: `${S}/${name}` });
+    add({ label: `gauge named ${name.slice(0, 24)}`, method: "GET", path: `${G}/${name}/series` });
+    add({ label: `file numbered ${name.slice(0, 24)}`, method: "GET", path: `/api/v1/files/${name}` });
+  }
+  for (const query of ["from=NaN&to=NaN", `from=${far[0]}&to=${far[1]}`, "from=2026-02-01T00:00:00Z&to=2026-01-01T00:00:00Z", "points=0", "points=1e308", "points=-1", "quantity=%3Cscript%3E", "from=1e308"])
+    add({ label: `series ?${query.slice(0, 40)}`, method: "GET", path: `${G}/LC-M1/series?${query}` });
+  for (const query of ["limit=1e308", "limit=0", "cursor=%27%3B--", "cursor=" + "A".repeat(5000), "from=%00"]) add({ label: `readings ?${query.slice(0, 30)}`, method: "GET", path: `${G}/LC-M1/readings?${query}` });
+  for (const query of ["month=2026-13", "month=%3Cb%3E", "month=99999-01", "format=exe"]) add({ label: `report ?${query}`, method: "GET", path: `${S}/MILL-FB/report?${query}` });
+  for (const query of ["from=NaN", "to=1e308", "bins=-1"]) add({ label: `fatigue ?${query}`, method: "GET", path: `${G}/LC-M1/fatigue?${query}` });
+  for (const query of ["state=%3Cb%3E", "limit=1e999", "from=yesterday"]) add({ label: `alerts ?${query}`, method: "GET", path: `${S}/MILL-FB/alerts?${query}` });
+  return cases;
+}
+
+let token: string;
+let adminToken: string;
+beforeAll(async () => {
+  token = (await createToken(null, { kind: "user", email: "engineer@hookeline.example" }, "bad input")).token;
+  adminToken = (await createToken(null, { kind: "user", email: "admin@hookeline.example" }, "bad input")).token;
+});
+
+describe("bad-input corpus", () => {
+  const cases = corpus();
+
+  it("has at least 150 cases over every route that takes input", () => {
+    expect(cases.length).toBeGreaterThanOrEqual(150);
+    console.info(`bad-input corpus: ${cases.length} cases`);
+  });
+
+  it.each(cases.map((c) => [c.label, c] as const))("%s", async (label, c) => {
+    const before = await storedFingerprint();
+    const readingsBefore = (await serverDb().execute("select count(*) as n from readings")).rows[0]!.n;
+    const headers: Record<string, string> = { authorization: `Bearer ${c.path === "/api/v1/structures" ? adminToken : token}` };
+    if (typeof c.body === "string") headers["content-type"] = c.type ?? "application/json";
+    const response = await fetch(`${baseUrl()}${c.path}`, { method: c.method, headers, body: c.body });
+    expect(response.status, label).toBeLessThan(500);
+    if (c.perReading && response.status === 200) {
+      const report = (await response.json()) as { accepted: number; rejected: unknown[] };
+      expect(report.accepted, label).toBe(0);
+      expect(report.rejected.length, label).toBeGreaterThan(0);
+    } else if (c.method === "GET" && response.status === 200) {
+      // A query the route reads leniently (an unknown parameter ignored) is no error; nothing to store either.
+      await response.body?.cancel();
+    } else {
+      expect(response.status, label).toBeGreaterThanOrEqual(400);
+      await expectContractError(response, label);
+    }
+    expect(await storedFingerprint(), label).toBe(before);
+    expect((await serverDb().execute("select count(*) as n from readings")).rows[0]!.n, label).toBe(readingsBefore);
+  });
+});
