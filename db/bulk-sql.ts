@@ -1,3 +1,4 @@
+import "server-only";
 import type { InArgs, InValue, Transaction } from "@libsql/client";
 
 export type SqlValue = InValue;

@@ -1,3 +1,4 @@
+import "server-only";
 import { deflateSync } from "node:zlib";
 
 /**

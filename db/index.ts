@@ -1,2 +1,3 @@
+import "server-only";
 export * from "./client";
 export * as schema from "./schema";

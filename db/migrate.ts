@@ -1,3 +1,4 @@
+import "server-only";
 import path from "node:path";
 import { migrate } from "drizzle-orm/libsql/migrator";
 import { databaseReady, getDb } from "./client";

@@ -1,3 +1,4 @@
+import "server-only";
 import Libsql from "libsql";
 import { drizzle, type SqliteRemoteDatabase } from "drizzle-orm/sqlite-proxy";
 import * as schema from "./schema";

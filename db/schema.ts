@@ -2,8 +2,9 @@ import { sql } from "drizzle-orm";
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
 import { ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
 
-export const ROLES = ["admin", "engineer", "technician", "owner"] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES } from "../lib/auth/roles";
+
+export { ROLES, type Role } from "../lib/auth/roles";
 
 /** A millisecond timestamp column that defaults to the moment the row is written. */
 const writtenAt = (name: string) =>

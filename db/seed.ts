@@ -1,3 +1,4 @@
+import "server-only";
 import type { Role } from "./schema";
 import { createStructure, findStructureByCode } from "@/lib/services/structures";
 import { addMember } from "@/lib/services/memberships";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, gte, inArray, lt } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, gauges, rosettes, structureMembers, structures, users, type Structure } from "@/db/schema";

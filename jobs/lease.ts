@@ -1,3 +1,4 @@
+import "server-only";
 import { randomBytes } from "node:crypto";
 import os from "node:os";
 import { and, eq, lt, or } from "drizzle-orm";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { mailOutbox, structureMembers, structures, users, type Structure, type User } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, inArray, lt, lte, or } from "drizzle-orm";
 import type { Transporter } from "nodemailer";
 import { getDb } from "@/db/client";

@@ -1,3 +1,4 @@
+import "server-only";
 import { createTask } from "node-cron";
 import { PROCESS_HOLDER, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";

@@ -1,3 +1,4 @@
+import "server-only";
 import { getClient } from "@/db/client";
 import { ROLLUP_RESOLUTIONS } from "@/lib/series";
 

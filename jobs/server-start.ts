@@ -1,3 +1,4 @@
+import "server-only";
 import { migrateDatabase } from "@/db/migrate";
 import { startMailCatcher } from "@/lib/mail/local-smtp-server";
 import { startJobs } from "./registry";

@@ -1,3 +1,4 @@
+import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { gauges, readings, type Gauge } from "@/db/schema";

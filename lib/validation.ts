@@ -1,6 +1,5 @@
 import { z } from "zod";
-import { ROLES } from "@/db/schema";
-import { MIN_PASSWORD_LENGTH } from "@/lib/auth/passwords";
+import { MIN_PASSWORD_LENGTH, ROLES } from "@/lib/auth/roles";
 
 /** Schemas shared by server actions, the API and the command line. */
 

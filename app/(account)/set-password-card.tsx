@@ -5,7 +5,7 @@ import { Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { cardClass } from "@/components/ui/styles";
 import type { LinkPurpose } from "@/lib/auth/account-links";
-import { MIN_PASSWORD_LENGTH } from "@/lib/auth/passwords";
+import { MIN_PASSWORD_LENGTH } from "@/lib/auth/roles";
 import { checkAccountLink, LINK_UNUSABLE } from "@/lib/services/accounts";
 
 /**

@@ -1,3 +1,4 @@
+import "server-only";
 import { revalidatePath } from "next/cache";
 import type { z } from "zod";
 import { issuesOf } from "@/lib/api/http";

@@ -1,3 +1,4 @@
+import "server-only";
 import { forbidden, notFound } from "next/navigation";
 import { AppError } from "@/lib/errors";
 

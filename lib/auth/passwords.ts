@@ -1,7 +1,7 @@
+import "server-only";
 import bcrypt from "bcryptjs";
 
 const COST = 10;
-export const MIN_PASSWORD_LENGTH = 8;
 
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, COST);

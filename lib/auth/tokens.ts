@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";

@@ -1,3 +1,4 @@
+import "server-only";
 import type { AddressInfo } from "node:net";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerDataStream, type SMTPServerSession } from "smtp-server";

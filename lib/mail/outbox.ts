@@ -1,3 +1,4 @@
+import "server-only";
 import type { WriteTx } from "@/db/client";
 import { mailOutbox, type MailAttachment, type MailKind } from "@/db/schema";
 import type { BuiltMail } from "./message";

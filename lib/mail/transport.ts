@@ -1,3 +1,4 @@
+import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
 
 export const DEFAULT_LOCAL_SMTP_PORT = 2525;

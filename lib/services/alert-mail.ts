@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
 import { structureMembers, structures, users, type Gauge } from "@/db/schema";

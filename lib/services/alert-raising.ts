@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray, isNull, sql } from "drizzle-orm";
 import { bulkSql, type WriteTx } from "@/db/client";
 import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, type Alert, type Gauge } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, count, desc, eq, inArray, isNotNull, isNull, lt, or, type SQL } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, gauges, rosettes, structures, users, type Alert } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { auditLog } from "@/db/schema";
 import type { WriteTx } from "@/db/client";
 import { actorLabel, type Actor } from "@/lib/auth/actor";

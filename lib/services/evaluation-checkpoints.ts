@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, gt, inArray, lt } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
 import type { evaluationCheckpoints } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, gte, lt } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { readings, zeroReadings, type Gauge } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { getDb, writeTransaction, type WriteTx } from "@/db/client";
 import { files, gauges, structures, type FileKind, type Gauge, type StoredFile, type Structure } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction, type WriteTx } from "@/db/client";
 import { auditLog, gauges, readings, zeroReadings, type Gauge, type Structure } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { inArray, min } from "drizzle-orm";
 import { bulkSql, getDb, writeTransaction, type WriteTx } from "@/db/client";
 import { zeroReadings, type Structure } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, gte, lt } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, writeTransaction } from "@/db/client";

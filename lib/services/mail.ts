@@ -1,3 +1,4 @@
+import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { caughtMail, mailOutbox, type CaughtMail } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
 import { structureMembers, structures, users } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { getClient } from "@/db/client";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";

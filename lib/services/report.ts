@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, desc, eq, gt, gte, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { alertEvents, alerts, readings, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";

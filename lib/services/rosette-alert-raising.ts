@@ -1,3 +1,4 @@
+import "server-only";
 import { eq, inArray, sql } from "drizzle-orm";
 import { bulkSql, type WriteTx } from "@/db/client";
 import { gauges, rosetteEvaluationCheckpoints, rosetteEvaluationStates, rosetteLimits, rosettes, type Gauge, type Rosette } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import type { z } from "zod";
 import { getClient, getDb, writeTransaction } from "@/db/client";

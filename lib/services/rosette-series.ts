@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { getClient, getDb } from "@/db/client";
 import { gauges, type Rosette } from "@/db/schema";

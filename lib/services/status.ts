@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, gte, inArray, isNotNull, isNull, max, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { alerts, gaugeLimits, gauges, readings, rollups, type Gauge, type Structure } from "@/db/schema";

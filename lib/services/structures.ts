@@ -1,3 +1,4 @@
+import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
 import { structureMembers, structures, type Structure } from "@/db/schema";
