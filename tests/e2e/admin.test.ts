@@ -70,10 +70,17 @@ describe("administration", () => {
     const token = (await form.getByTestId("new-secret").textContent())!.trim();
     expect(token).toMatch(/^hkl_/);
 
-    const call = () => fetch(`${baseUrl()}/api/v1/structures`, { headers: { authorization: `Bearer ${token}` } });
+    const call = () =>
+      fetch(`${baseUrl()}/api/v1/structures/MILL-FB/readings`, {
+        method: "POST",
+        headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
+        body: JSON.stringify({ readings: [] }),
+      });
     const answer = await call();
     expect(answer.status).toBe(200);
-    expect((await answer.json()).structures.map((s: { code: string }) => s.code)).toEqual(["MILL-FB"]);
+    expect(await answer.json()).toMatchObject({ accepted: 0, rejected: [] });
+    // It sends readings and nothing else: not even its structure's name.
+    expect((await fetch(`${baseUrl()}/api/v1/structures`, { headers: { authorization: `Bearer ${token}` } })).status).toBe(403);
 
     await admin.reload();
     await expect(admin.getByText(token).count()).resolves.toBe(0);

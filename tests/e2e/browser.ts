@@ -65,7 +65,7 @@ export class SignInPage {
 
 export async function signOut(page: Page) {
   await page.getByRole("link", { name: "Sign out" }).click();
-  await page.getByRole("button", { name: "Sign out" }).click();
+  await page.getByRole("button", { name: "Sign out", exact: true }).click();
   await page.waitForURL((url) => url.pathname === "/signin");
 }
 
