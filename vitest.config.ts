@@ -1,5 +1,19 @@
 import { fileURLToPath } from "node:url";
-import { defineConfig } from "vitest/config";
+import { defineConfig, type TestProjectInlineConfiguration } from "vitest/config";
+
+function integration(name: string, writer: "native" | "client"): TestProjectInlineConfiguration {
+  return {
+    extends: true,
+    test: {
+      name,
+      environment: "node",
+      include: ["tests/integration/**/*.test.ts"],
+      setupFiles: ["tests/integration/setup.ts"],
+      testTimeout: 30_000,
+      env: { DATABASE_WRITER: writer },
+    },
+  };
+}
 
 export default defineConfig({
   // Tests import server modules directly; outside Next's server bundles the marker would throw.
@@ -13,16 +27,9 @@ export default defineConfig({
         extends: true,
         test: { name: "unit", environment: "node", include: ["tests/unit/**/*.test.ts"] },
       },
-      {
-        extends: true,
-        test: {
-          name: "integration",
-          environment: "node",
-          include: ["tests/integration/**/*.test.ts"],
-          setupFiles: ["tests/integration/setup.ts"],
-          testTimeout: 30_000,
-        },
-      },
+      integration("integration", "native"),
+      // The same tests with every transaction through @libsql/client, as with a libSQL server URL.
+      integration("integration-client", "client"),
       {
         // The attacks as a suite, against the production build with the demo seeded (like the
         // browser tests, without a browser): a few minutes on two cores.

@@ -57,7 +57,9 @@ function connection(): Connection {
   const client = openClient(url);
   const db = drizzle(client, { schema });
   const ready = applyPragmas(client, url);
-  const file = embeddedFile(url);
+  // DATABASE_WRITER=client sends an embedded file's transactions through @libsql/client too: the
+  // path a libSQL server URL takes, so the tests can run it without a server.
+  const file = process.env.DATABASE_WRITER === "client" ? null : embeddedFile(url);
   const created: Connection = { url, client, db, ready, writer: file === null ? null : openNativeWriter(file, BUSY_TIMEOUT_MS) };
   globalForDb.hookelineDb = created;
   return created;
