@@ -82,9 +82,7 @@ export const gaugeFields = z.object({
   kind: z.enum(GAUGE_KINDS, { error: "Choose foil or vibrating-wire." }),
   input: z.enum(INPUTS, { error: `Choose the logger's output: ${INPUTS.join(", ")}.` }),
   bridge: optional(z.enum(BRIDGES, { error: `Choose the bridge: ${BRIDGES.join(", ")}.` })),
-  // Semiconductor gauges reach a GF of about 150 and vibrating-wire constants are a few µε per
-  // digit (from memory); a thousand or more is a typing slip that would make every reading ~0.
-  gaugeFactor: positive.max(1000, "A gauge factor (or vibrating-wire gauge constant) of 1000 or more is no real gauge's; check the datasheet.").meta({ description: "Foil: gauge factor GF. Vibrating wire: gauge constant G, µε per digit" }),
+  gaugeFactor: positive.meta({ description: "Foil: gauge factor GF. Vibrating wire: gauge constant G, µε per digit" }),
   loggerGaugeFactor: optional(positive),
   batchFactor: optional(positive),
   polarity: z.union([z.literal(1), z.literal(-1)], { error: "Polarity is 1 or -1." }).default(1),

@@ -1,1 +1,0 @@
-ALTER TABLE `sign_in_failures` ADD `locked_until` integer;
