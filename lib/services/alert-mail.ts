@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
 import { structureMembers, structures, users, type Gauge } from "@/db/schema";
+import { ALERT_MAIL_ROLES } from "@/lib/auth/permissions";
 import { buildAlertMail } from "@/lib/mail/alert";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
@@ -20,7 +21,7 @@ async function immediateRecipients(tx: WriteTx, structureId: number) {
         eq(structureMembers.structureId, structureId),
         eq(structureMembers.alertMail, "immediate"),
         eq(users.active, true),
-        inArray(users.role, ["owner", "engineer"]),
+        inArray(users.role, [...ALERT_MAIL_ROLES]),
       ),
     );
 }
