@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { getClient } from "@/db/client";
 import type { Structure } from "@/db/schema";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
@@ -15,14 +15,19 @@ const reading = (time: number, stress: number): StoredReading => ({ time, stress
 
 let bridge: Structure;
 let empty: Structure;
+let single: Structure;
 
 beforeAll(async () => {
   const admin = await makeUser("admin");
   empty = await makeStructure("EMPTY");
   bridge = await makeStructure("SUMM");
+  single = await makeStructure("ONE");
   for (const tag of ["A", "B"]) {
     await createGauge(admin, "SUMM", microstrainGauge(tag, { material: { E: E_STEEL, nu: 0.3, alpha: 12, yield: YIELD }, zero: { value: 0, temperature: 12, time: "2026-10-01T00:00:00Z" } }));
   }
+  await createGauge(admin, "ONE", microstrainGauge("C", { material: { E: E_STEEL, nu: 0.3, alpha: 12, yield: YIELD }, zero: { value: 0, temperature: 12, time: "2026-10-01T00:00:00Z" } }));
+  const gaugeC = (await resolveGauge(admin, "ONE", "C", "structure:view")).gauge;
+  await storeReadings(getClient(), gaugeC.id, [reading(NOW - HOUR, 20)]);
   const gaugeA = (await resolveGauge(admin, "SUMM", "A", "structure:view")).gauge;
   const gaugeB = (await resolveGauge(admin, "SUMM", "B", "structure:view")).gauge;
   // A: a tensile spike 3 h ago, then back to 50 MPa; B: its largest magnitude is compressive.
@@ -48,5 +53,19 @@ describe("structure summaries in one batch", () => {
       ["B", 10],
     ]);
     expect(statuses[0]!.latest!.utilisation).toBeCloseTo(50 / YIELD, 12);
+  });
+
+  it("asks the database the same number of times for one structure as for several", async () => {
+    const client = getClient();
+    const calls = () => vi.mocked(client.execute).mock.calls.length + vi.mocked(client.batch).mock.calls.length;
+    vi.spyOn(client, "execute");
+    vi.spyOn(client, "batch");
+    await structureSummaries([bridge], NOW);
+    const forOne = calls();
+    await structureSummaries([bridge, single], NOW);
+    const forTwo = calls() - forOne;
+    vi.restoreAllMocks();
+    expect(forOne).toBeGreaterThan(0);
+    expect(forTwo).toBe(forOne);
   });
 });
