@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { parseReadingTime } from "@/lib/ingest/reading-time";
 import { DEFAULT_SERIES_POINTS, MAX_SERIES_POINTS, WEEK } from "@/lib/series";
-import { parseWith } from "./http";
+import { parseWith } from "@/lib/validation";
 
 /**
  * Request and response schemas of the readings endpoints. Readings inside the array are checked

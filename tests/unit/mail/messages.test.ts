@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { buildAlertMail, formatQuantityValue, type AlertMailInput } from "@/lib/mail/alert";
 import { buildDigestMail } from "@/lib/mail/digest";
 import { conditionText } from "@/lib/alerting/condition-display";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { buildInvitationMail } from "@/lib/mail/invitation";
 import { buildPasswordResetMail } from "@/lib/mail/password-reset";
 

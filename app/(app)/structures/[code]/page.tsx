@@ -27,7 +27,7 @@ import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
 import { alertMailModeOf } from "@/lib/services/memberships";
-import { alertMailAction } from "./gauges/actions";
+import { alertMailAction, createRosetteAction } from "./gauges/actions";
 
 type Props = { params: Promise<{ code: string }> };
 
@@ -182,7 +182,7 @@ export default async function StructurePage({ params }: Props) {
       </Suspense>
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>
-          <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} />
+          <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} createRosette={createRosetteAction} />
         </div>
       </Section>
       {canManageTokens && (

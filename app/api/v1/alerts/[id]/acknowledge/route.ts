@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { apiRoute, json, parseWith, readJson } from "@/lib/api/http";
+import { apiRoute, json, readJson } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { acknowledgeBody } from "@/lib/alerting/schema";
 import { handleAlert } from "@/lib/services/alerts";
 
