@@ -76,7 +76,7 @@ export const createStructureInput = z.object({
   location: optionalText(200),
   timezone: timeZone.optional().default("UTC").meta({ description: "IANA time zone, default UTC" }),
   description: optionalText(2000),
-});
+}).meta({ id: "StructureInput" });
 export type CreateStructureInput = z.infer<typeof createStructureInput>;
 
 export const email = z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address."));

@@ -18,11 +18,13 @@ function limitsBodyOf<Q extends readonly [string, ...string[]]>(quantities: Q, u
   return z.object({ limits: z.array(limitInput).max(30, `At most 30 limits per ${owner}.`) });
 }
 
-export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for strain, a fraction of yield for utilisation", "gauge");
+export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for strain, a fraction of yield for utilisation", "gauge").meta({ id: "LimitsInput" });
 
-export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette");
+export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette").meta({
+  id: "RosetteLimitsInput",
+});
 
-export const acknowledgeBody = z.object({ comment: plainText().trim().min(1, "Say what was checked or done.").max(2000) });
+export const acknowledgeBody = z.object({ comment: plainText().trim().min(1, "Say what was checked or done.").max(2000) }).meta({ id: "AcknowledgeInput" });
 
 const MAX_BACKTEST_MS = 366 * 86_400_000;
 
@@ -35,6 +37,6 @@ function withPeriod<Body extends z.ZodType<{ from: string; to: string }>>(body: 
 
 const period = { from: isoTime, to: isoTime };
 
-export const backtestBody = withPeriod(limitsBody.extend(period));
+export const backtestBody = withPeriod(limitsBody.extend(period)).meta({ id: "BacktestInput" });
 
-export const rosetteBacktestBody = withPeriod(rosetteLimitsBody.extend(period));
+export const rosetteBacktestBody = withPeriod(rosetteLimitsBody.extend(period)).meta({ id: "RosetteBacktestInput" });

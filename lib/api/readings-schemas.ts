@@ -19,7 +19,7 @@ export const ingestReadingsInput = z.object({
       { error: 'Send "readings" as an array of readings.' },
     )
     .meta({ description: "At most 50 000 readings (and 10 MB) per request; more is a 413." }),
-});
+}).meta({ id: "ReadingsInput" });
 
 export const ingestResultSchema = z
   .object({
