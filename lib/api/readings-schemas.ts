@@ -101,6 +101,10 @@ export const readingsQuerySchema = z
   .object({
     limit: integer(1, MAX_READINGS_PAGE, 1000).meta({ description: "Readings per page (default 1000, max 10 000); CSV ignores it" }),
     cursor: z.string().optional().meta({ description: "`nextCursor` of the previous page" }),
+    header: z
+      .enum(["names", "units"], { error: 'header is "names" or "units".' })
+      .default("names")
+      .meta({ description: "CSV only: `names` (default) for the contract's column names, `units` for the same columns named with their units, e.g. `strain (µε)`, for spreadsheets" }),
   })
   .and(timeRange);
 

@@ -76,6 +76,9 @@ export function startLocalSmtpServer(options: LocalSmtpOptions): Promise<LocalSm
 
 const globalForCatcher = globalThis as unknown as { hookelineMailCatcher?: Promise<LocalSmtpServer | null> };
 
+/** The catcher's port belongs to someone this instance must not send its mail to. */
+export class MailPortTaken extends Error {}
+
 /** The first line whoever listens on the port sends, or "" when it says nothing within 3 s. */
 function greetingOn(port: number): Promise<string> {
   return new Promise((resolve) => {
@@ -108,7 +111,7 @@ export async function openMailCatcher(port: number): Promise<LocalSmtpServer | n
   } catch (error) {
     if ((error as NodeJS.ErrnoException).code !== "EADDRINUSE") throw error;
     const holder = portHolder(await greetingOn(port), databaseFingerprint(databaseUrl()));
-    if (holder.kind !== "same-database") throw new Error(portRefusal(port, holder, await freePort()));
+    if (holder.kind !== "same-database") throw new MailPortTaken(portRefusal(port, holder, await freePort()));
     console.warn(`Port ${port} is taken by the mail catcher of another Hookeline instance on this database; it catches this one's mail too.`);
     return null;
   }
