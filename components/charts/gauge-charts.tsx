@@ -104,7 +104,7 @@ export function GaugeCharts({
 
   async function exportCsv() {
     setProblem(null);
-    const query = `from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}`;
+    const query = `from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}&header=units`;
     await downloadFile(`${base}/readings?${query}`, "text/csv", `${structureCode}-${tag}-readings.csv`).catch((error: Error) => setProblem(error.message));
   }
 

@@ -369,13 +369,16 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       summary: "Stored readings of a gauge with their derived values, oldest first",
       notes:
         "Pages of `limit` readings; pass `nextCursor` back as `cursor` for the next page (absent on the last). " +
-        "With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored.",
+        "With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored. " +
+        "Raw value and temperature are written as received; strain and stress to the resolution of the gauge's readings (one step of the finest raw decimal, through the gauge's conversion). " +
+        "`header=units` names the same columns with their units (`time (UTC)`, `value (<input unit>)`, `temperature (°C)`, `strain (µε)`, `stress (MPa)`, `flags`) after a UTF-8 byte-order mark, for spreadsheets.",
       parameters: [
         codeParameter,
         tagParameter,
         ...rangeParameters,
         { name: "limit", in: "query", description: "Readings per page, 1–10 000 (default 1000)" },
         { name: "cursor", in: "query", description: "`nextCursor` of the previous page" },
+        { name: "header", in: "query", description: "CSV only: `names` (default) or `units`" },
       ],
       response: { status: 200, schema: readingsPageSchema, description: "A page of readings" },
       alternative: { contentType: "text/csv", description: "Every reading of the range as CSV (Accept: text/csv)" },

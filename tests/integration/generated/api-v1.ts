@@ -394,7 +394,7 @@ export interface paths {
         };
         /**
          * Stored readings of a gauge with their derived values, oldest first
-         * @description Pages of `limit` readings; pass `nextCursor` back as `cursor` for the next page (absent on the last). With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored.
+         * @description Pages of `limit` readings; pass `nextCursor` back as `cursor` for the next page (absent on the last). With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored. Raw value and temperature are written as received; strain and stress to the resolution of the gauge's readings (one step of the finest raw decimal, through the gauge's conversion). `header=units` names the same columns with their units (`time (UTC)`, `value (<input unit>)`, `temperature (°C)`, `strain (µε)`, `stress (MPa)`, `flags`) after a UTF-8 byte-order mark, for spreadsheets.
          */
         get: operations["getStructuresByCodeGaugesByTagReadings"];
         put?: never;
@@ -2977,6 +2977,8 @@ export interface operations {
                 limit?: string;
                 /** @description `nextCursor` of the previous page */
                 cursor?: string;
+                /** @description CSV only: `names` (default) or `units` */
+                header?: string;
             };
             header?: never;
             path: {
