@@ -152,6 +152,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         {latest ? (
           <GaugeCharts
             structureCode={code}
+            structureName={structure.name}
             tag={tag}
             timeZone={structure.timezone}
             limits={limits}
