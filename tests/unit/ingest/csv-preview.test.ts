@@ -13,7 +13,10 @@ const FILE =
 
 async function serverRows(text: string): Promise<string[][]> {
   const rows: string[][] = [];
-  for await (const row of csvRows([text])) rows.push(row.fields);
+  const body = (async function* () {
+    yield text;
+  })();
+  for await (const row of csvRows(body)) rows.push(row.fields);
   return rows;
 }
 
