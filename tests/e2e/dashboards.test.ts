@@ -355,6 +355,8 @@ describe("the gauge page", () => {
     const saved = await download;
     expect(saved.suggestedFilename()).toMatch(/^MILL-FB-LC-Q1-stress-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.png$/);
     const png = fs.readFileSync(await saved.path());
+    fs.mkdirSync("test-results/screenshots", { recursive: true });
+    fs.writeFileSync("test-results/screenshots/gauge-stress-export.png", png);
     // PNG signature, then the IHDR chunk's width and height (ISO/IEC 15948, section 11.2.2).
     expect([...png.subarray(1, 4)].map((byte) => String.fromCharCode(byte)).join("")).toBe("PNG");
     const size = { width: png.readUInt32BE(16), height: png.readUInt32BE(20) };
