@@ -27,7 +27,7 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** One structure with its gauges and count of open alerts */
+        /** One structure with its gauges, each with its condition now (`condition: { state, since, faults, stale }`), and its count of open alerts */
         get: operations["getStructuresByCode"];
         put?: never;
         post?: never;
@@ -232,7 +232,7 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** Alerts of a structure, newest first; state=open (default), acknowledged, cleared or all */
+        /** Alerts of a structure, newest first, filtered and paged: `total` counts every match, `nextCursor` fetches the next page */
         get: operations["getStructuresByCodeAlerts"];
         put?: never;
         post?: never;
@@ -494,6 +494,10 @@ export interface components {
         };
         AlertList: {
             alerts: components["schemas"]["Alert"][];
+            /** @description Alerts matching the filters in all, on every page */
+            total: number;
+            /** @description Pass as `cursor` for the next page; null on the last page */
+            nextCursor: string | null;
         };
         Backtest: {
             /** @description epoch ms */
@@ -565,6 +569,19 @@ export interface components {
         /** @description The gauge: every field of the request, plus status, retiredAt, replaces, replacedBy, drawing (`{ id, x, y } | null`) and createdAt */
         Gauge: {
             [key: string]: unknown;
+        };
+        GaugeCondition: {
+            /**
+             * @description The first that holds, in this order: critical, warning, watch (an open limit alert of that level), sensor-fault (an open sensor fault: its readings are not believed), no-data (no reading yet, or none for three expected intervals), within-limits, no-limits (readings arrive but the gauge has no limits to judge them by)
+             * @enum {string}
+             */
+            state: "critical" | "warning" | "watch" | "sensor-fault" | "no-data" | "within-limits" | "no-limits";
+            /** @description Since when the state holds, UTC; null when it cannot be told */
+            since: string | null;
+            /** @description Codes of the open sensor faults (jump, flat-line, out-of-range), oldest first */
+            faults: string[];
+            /** @description No reading for three expected intervals: the data are old whatever the state */
+            stale: boolean;
         };
         GaugeFatigue: {
             /** @description Rainflow histogram: occupied range bins ascending, half cycles counted as 0.5 */
@@ -916,8 +933,12 @@ export interface components {
             description: string | null;
             /** @description UTC, ISO-8601 with milliseconds */
             createdAt: string;
-            /** @description The structure's gauges */
-            gauges: components["schemas"]["Gauge"][];
+            /** @description The structure's gauges, each with every gauge field and its condition now */
+            gauges: ({
+                condition: components["schemas"]["GaugeCondition"];
+            } & {
+                [key: string]: unknown;
+            })[];
             openAlerts: number;
         };
         StructureInput: {
@@ -976,13 +997,18 @@ export interface components {
                     received: number;
                     /** @description Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now) */
                     expected: number;
-                    /** @description received ÷ expected as a ratio (1 = 100 %); null when nothing was expected */
+                    /** @description received ÷ expected as a ratio (1 = 100 %), never above 1; null when nothing was expected */
                     completeness: number | null;
+                    /** @description Readings received beyond those expected: more than a few mean the registered expected interval is longer than the logger's */
+                    surplus: number;
                 };
                 /** @description How the structure stands now, when the report is made */
                 current: {
-                    /** @enum {string} */
-                    state: "critical" | "warning" | "watch" | "stale" | "no-data" | "ok" | "retired";
+                    /**
+                     * @description The worst condition of the structure's active gauges now
+                     * @enum {string}
+                     */
+                    state: "critical" | "warning" | "watch" | "sensor-fault" | "no-data" | "within-limits" | "no-limits";
                     stale: boolean;
                     lastReadingAt: string | null;
                 };
@@ -1005,24 +1031,33 @@ export interface components {
                     received: number;
                     /** @description Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now) */
                     expected: number;
-                    /** @description received ÷ expected as a ratio (1 = 100 %); null when nothing was expected */
+                    /** @description received ÷ expected as a ratio (1 = 100 %), never above 1; null when nothing was expected */
                     completeness: number | null;
+                    /** @description Readings received beyond those expected: more than a few mean the registered expected interval is longer than the logger's */
+                    surplus: number;
                 };
-                /** @description Lowest and highest stress of the period, MPa, from the daily roll-ups; null without readings */
+                /** @description The gauge's condition when the report is made */
+                condition: components["schemas"]["GaugeCondition"];
+                /** @description Readings left out of the extremes and the utilisation peak because the sensor was in fault when they were taken (an open jump, flat-line or out-of-range alert) or they lie beyond the gauge's rated range; null when none */
+                leftOut: {
+                    readings: number;
+                    reason: string;
+                } | null;
+                /** @description Lowest and highest stress of the period, MPa, of the readings believed (see leftOut); null without such readings */
                 stress: {
                     min: number;
                     max: number;
                     /** @constant */
                     unit: "MPa";
                 } | null;
-                /** @description Lowest and highest stress-producing strain of the period, µε, from the daily roll-ups; null without readings */
+                /** @description Lowest and highest stress-producing strain of the period, µε, of the readings believed (see leftOut); null without such readings */
                 strain: {
                     min: number;
                     max: number;
                     /** @constant */
                     unit: "µε";
                 } | null;
-                /** @description Lowest and highest temperature of the period, °C, from the daily roll-ups; null without readings */
+                /** @description Lowest and highest temperature of the period, °C, of the readings believed (see leftOut); null without such readings */
                 temperature: {
                     min: number;
                     max: number;
@@ -1037,7 +1072,7 @@ export interface components {
                     yield: number;
                 } | null;
                 gaps: {
-                    /** @description Runs of whole hours without readings, oldest first, at most 10 */
+                    /** @description Runs of whole hours without readings (longer than the expected interval), oldest first, at most 10; start and end UTC */
                     list: {
                         start: string;
                         end: string;
@@ -2276,8 +2311,16 @@ export interface operations {
     getStructuresByCodeAlerts: {
         parameters: {
             query?: {
-                /** @description open | acknowledged | cleared | all */
+                /** @description open (default: open and not acknowledged), acknowledged, cleared or all */
                 state?: string;
+                /** @description watch, warning, critical, or any (default) */
+                level?: string;
+                /** @description limit, sensor, or any (default) */
+                kind?: string;
+                /** @description Alerts per page, 1–1000 (default 500); `total` says how many match in all */
+                limit?: string;
+                /** @description `nextCursor` of the previous page; absent for the first page */
+                cursor?: string;
             };
             header?: never;
             path: {
