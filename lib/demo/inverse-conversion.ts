@@ -1,23 +1,10 @@
 import { prepareGauge, type Bridge, type GaugeConfig, type GaugeConverter } from "@/lib/mechanics";
-import { leadWireCorrection, loggerGaugeFactorCorrection } from "@/lib/mechanics/bridge";
+import { bridgeOutputFor, leadWireCorrection, loggerGaugeFactorCorrection } from "@/lib/mechanics/bridge";
 import { MICRO } from "@/lib/mechanics/stress";
 import { digitsFromFrequency } from "@/lib/mechanics/vibrating-wire";
 
 /** The raw reading (gauge input unit) whose conversion at `temperature` °C gives `mechanicalStrain` µε. */
 export type InverseConversion = (mechanicalStrain: number, temperature: number) => number;
-
-/**
- * The bridge relations of Dally & Riley (bridge chapter, as in domain.md) solved exactly for the
- * output change Vr (V/V), given x = GF·ε with ε dimensionless.
- */
-const BRIDGE_OUTPUTS: Readonly<Record<Bridge, (x: number, nu: number) => number>> = {
-  quarter: (x) => -x / (4 + 2 * x),
-  "half-bending": (x) => -x / 2,
-  "half-poisson": (x, nu) => (-x * (1 + nu)) / (4 + 2 * x * (1 - nu)),
-  "full-bending": (x) => -x,
-  "full-poisson": (x, nu) => (-x * (1 + nu)) / 2,
-  "full-axial-poisson": (x, nu) => (-x * (1 + nu)) / (2 + x * (1 - nu)),
-};
 
 /**
  * Inverts `prepareGauge(config).convert`. Demo gauges are written by hand, so an invalid
@@ -27,9 +14,7 @@ export function prepareInverseConversion(config: GaugeConfig): InverseConversion
   const gauge = prepareGauge(config);
   if (!gauge.ok) throw new Error(`Demo gauge configuration refused (${gauge.code}): ${gauge.message}`);
   const fromGaugeStrain = gaugeStrainInverse(config);
-  const polarity = config.polarity ?? 1;
-  return (mechanicalStrain, temperature) =>
-    fromGaugeStrain(polarity * (mechanicalStrain - thermalCorrection(gauge, config.zero.value, temperature)));
+  return (mechanicalStrain, temperature) => fromGaugeStrain(mechanicalStrain - thermalCorrection(gauge, config.zero.value, temperature));
 }
 
 /**
@@ -43,19 +28,26 @@ function thermalCorrection(gauge: GaugeConverter, zeroValue: number, temperature
   return result.strain;
 }
 
-/** Raw value from the gauge's strain change since zero (µε, before polarity and temperature). */
+/**
+ * Raw value from the gauge's strain change since zero (µε, polarity applied, before temperature):
+ * polarity reverses the bridge output of a mV/V gauge and the strain of any other.
+ */
 function gaugeStrainInverse(config: GaugeConfig): (gaugeStrain: number) => number {
   const zero = config.zero.value;
-  if (config.kind === "vibrating-wire") return vibratingWireInverse(config);
+  const polarity = config.polarity ?? 1;
+  if (config.kind === "vibrating-wire") {
+    const wire = vibratingWireInverse(config);
+    return (gaugeStrain) => wire(polarity * gaugeStrain);
+  }
   const lead = quarterBridgeLeadFactor(config);
   if (config.input === "microstrain") {
     const scale = lead * loggerGaugeFactorCorrection(config.loggerGaugeFactor ?? config.gaugeFactor, config.gaugeFactor);
-    return (gaugeStrain) => zero + gaugeStrain / scale;
+    return (gaugeStrain) => zero + (polarity * gaugeStrain) / scale;
   }
-  const bridgeOutput = BRIDGE_OUTPUTS[config.bridge as Bridge];
+  const bridgeOutput = bridgeOutputFor(config.bridge as Bridge);
   const { gaugeFactor } = config;
   const nu = config.material.nu;
-  return (gaugeStrain) => zero + 1000 * bridgeOutput((gaugeFactor * gaugeStrain * MICRO) / lead, nu);
+  return (gaugeStrain) => zero + 1000 * polarity * bridgeOutput((gaugeFactor * gaugeStrain * MICRO) / lead, nu);
 }
 
 function quarterBridgeLeadFactor({ bridge, leadResistance, gaugeResistance }: GaugeConfig): number {

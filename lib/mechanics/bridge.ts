@@ -1,22 +1,31 @@
 import type { Bridge } from "./gauge-config";
 
 /**
- * Strain (dimensionless, tension positive) from the change of bridge output ratio Vr in V/V.
- * NaN when Vr lies past the formula's singularity, where no real bridge can be.
+ * Strain (dimensionless, tension positive) from the change of bridge output ratio Vr in V/V, the
+ * gauge's polarity already applied to Vr. NaN when Vr lies past the relation's singularity, where
+ * no real bridge can be.
  */
 export type BridgeFormula = (vr: number, gaugeFactor: number, poisson: number) => number;
 
 /**
- * Wheatstone-bridge relations of Dally & Riley, Experimental Stress Analysis, bridge chapter (the
- * same relations are tabulated in most instrumentation handbooks). The non-linear terms are kept.
+ * Each arrangement solved for ε from the Wheatstone circuit Vout/Vex = R1/(R1+R2) − R4/(R3+R4)
+ * (Dally & Riley, Experimental Stress Analysis, bridge chapter), every active arm changing by
+ * ΔR/R = GF·ε of its gauge and the primary active gauge in R1, so that tension raises the output.
+ * The non-linear terms are kept: x = GF·ε, ν Poisson's ratio.
+ *   quarter             R1 axial:                      Vr = x / (4 + 2x)
+ *   half-bending        R1 +ε, R2 −ε (opposite face):  Vr = x / 2
+ *   half-poisson        R1 axial, R2 transverse −νε:   Vr = x(1+ν) / (4 + 2x(1−ν))
+ *   full-bending        R1, R3 +ε; R2, R4 −ε:          Vr = x
+ *   full-poisson        R1 +ε, R2 −ε, R3 +νε, R4 −νε:  Vr = x(1+ν) / 2
+ *   full-axial-poisson  R1, R3 axial; R2, R4 −νε:      Vr = x(1+ν) / (2 + x(1−ν))
  */
 const BRIDGE_FORMULAS: Readonly<Record<Bridge, BridgeFormula>> = {
-  quarter: (vr, gf) => positiveDenominator(-4 * vr, gf * (1 + 2 * vr)),
-  "half-bending": (vr, gf) => (-2 * vr) / gf,
-  "half-poisson": (vr, gf, nu) => positiveDenominator(-4 * vr, gf * (1 + nu - 2 * vr * (nu - 1))),
-  "full-bending": (vr, gf) => -vr / gf,
-  "full-poisson": (vr, gf, nu) => (-2 * vr) / (gf * (nu + 1)),
-  "full-axial-poisson": (vr, gf, nu) => positiveDenominator(-2 * vr, gf * (nu + 1 - vr * (nu - 1))),
+  quarter: (vr, gf) => positiveDenominator(4 * vr, gf * (1 - 2 * vr)),
+  "half-bending": (vr, gf) => (2 * vr) / gf,
+  "half-poisson": (vr, gf, nu) => positiveDenominator(4 * vr, gf * (1 + nu - 2 * vr * (1 - nu))),
+  "full-bending": (vr, gf) => vr / gf,
+  "full-poisson": (vr, gf, nu) => (2 * vr) / (gf * (1 + nu)),
+  "full-axial-poisson": (vr, gf, nu) => positiveDenominator(2 * vr, gf * (1 + nu - vr * (1 - nu))),
 };
 
 /**
@@ -29,6 +38,23 @@ function positiveDenominator(numerator: number, denominator: number): number {
 
 export function bridgeFormula(bridge: string): BridgeFormula | undefined {
   return Object.hasOwn(BRIDGE_FORMULAS, bridge) ? BRIDGE_FORMULAS[bridge as Bridge] : undefined;
+}
+
+/**
+ * The same circuit run forwards: the output change Vr (V/V) of each arrangement at x = GF·ε, before
+ * polarity. The demo inverts conversions with it.
+ */
+const BRIDGE_OUTPUTS: Readonly<Record<Bridge, (x: number, nu: number) => number>> = {
+  quarter: (x) => x / (4 + 2 * x),
+  "half-bending": (x) => x / 2,
+  "half-poisson": (x, nu) => (x * (1 + nu)) / (4 + 2 * x * (1 - nu)),
+  "full-bending": (x) => x,
+  "full-poisson": (x, nu) => (x * (1 + nu)) / 2,
+  "full-axial-poisson": (x, nu) => (x * (1 + nu)) / (2 + x * (1 - nu)),
+};
+
+export function bridgeOutputFor(bridge: Bridge): (x: number, nu: number) => number {
+  return BRIDGE_OUTPUTS[bridge];
 }
 
 /** Loggers report µε already; they used their own gauge factor, so rescale to the gauge's. */

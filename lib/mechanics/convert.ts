@@ -65,7 +65,6 @@ export function prepareGauge(config: GaugeConfig, options: PrepareOptions = {}):
   const output: Conversion = { ok: true, indicatedStrain: 0, strain: 0, totalStrain: null, stress: 0, utilisation: null, flags: 0 };
   const { toStrain, impossibleValue } = reader;
   const { needsTemperature, coefficients } = compensation;
-  const polarity = config.polarity ?? 1;
   const initialStress = config.initialStress ?? 0;
   const linearStressLimit = yieldStrength === null ? Infinity : linearLimitRatio * yieldStrength;
   const ratedRange = config.ratedRange ?? Infinity;
@@ -78,7 +77,7 @@ export function prepareGauge(config: GaugeConfig, options: PrepareOptions = {}):
     } else if (!Number.isFinite(knownTemperature)) {
       return READING_FAILURES.nonFiniteTemperature;
     }
-    const indicated = polarity * toStrain(value);
+    const indicated = toStrain(value);
     if (Number.isNaN(indicated)) return impossibleValue;
     const strain = knownTemperature === null ? indicated : indicated + evaluatePolynomial(coefficients, knownTemperature);
     const stress = uniaxialStress(material.E, strain, initialStress);

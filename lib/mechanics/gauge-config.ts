@@ -66,7 +66,10 @@ export interface GaugeConfig {
   loggerGaugeFactor?: number | null;
   /** Vibrating wire: batch calibration factor B; defaults to 1. */
   batchFactor?: number | null;
-  /** Defaults to 1; -1 for a gauge wired the other way round. */
+  /**
+   * Defaults to 1; -1 for a gauge wired the other way round: for `mV/V` it reverses the bridge
+   * output before the bridge relation, for the other inputs the strain.
+   */
   polarity?: 1 | -1;
   /** Ohms in series with the gauge in its arm (both leads for 2-wire, one for 3-wire). */
   leadResistance?: number | null;

@@ -7,8 +7,8 @@ import { MICRO } from "./stress";
 import { apparentStrain, digitsFromFrequency } from "./vibrating-wire";
 
 /**
- * Turns a raw reading into the gauge's strain change since its zero reading, in µε, before
- * polarity and temperature. NaN marks a value the input kind cannot produce.
+ * Turns a raw reading into the gauge's strain change since its zero reading, in µε, polarity
+ * applied, before temperature. NaN marks a value the input kind cannot produce.
  */
 export interface RawReader {
   readonly ok: true;
@@ -47,12 +47,13 @@ function foilReader(config: GaugeConfig): RawReader | ConfigFailure {
   const lead = quarterBridgeLeadCorrection(config);
   if (typeof lead !== "number") return lead;
   const zero = config.zero.value;
+  const polarity = config.polarity ?? 1;
   if (config.input === "microstrain") {
     const loggerGaugeFactor = config.loggerGaugeFactor ?? config.gaugeFactor;
     if (!isPositive(loggerGaugeFactor)) {
       return failure("invalid-logger-gauge-factor", "The logger's gauge factor, when given, must be a positive number.");
     }
-    const scale = lead * loggerGaugeFactorCorrection(loggerGaugeFactor, config.gaugeFactor);
+    const scale = polarity * lead * loggerGaugeFactorCorrection(loggerGaugeFactor, config.gaugeFactor);
     return { ok: true, toStrain: (value) => scale * (value - zero), impossibleValue: READING_FAILURES.nonFiniteValue };
   }
   if (config.input !== "mV/V") return failure("unknown-input", "A foil gauge's input is microstrain or mV/V.");
@@ -60,9 +61,11 @@ function foilReader(config: GaugeConfig): RawReader | ConfigFailure {
   const { gaugeFactor } = config;
   const poisson = config.material.nu;
   const scale = lead / MICRO;
+  // Swapped output leads reverse the bridge output itself; the non-linear relations then see the
+  // output the circuit would give wired the standard way.
   return {
     ok: true,
-    toStrain: (value) => scale * bridge(millivoltsPerVoltToRatio(value - zero), gaugeFactor, poisson),
+    toStrain: (value) => scale * bridge(polarity * millivoltsPerVoltToRatio(value - zero), gaugeFactor, poisson),
     impossibleValue: READING_FAILURES.impossibleBridgeOutput,
   };
 }
@@ -90,9 +93,10 @@ function vibratingWireReader(config: GaugeConfig): RawReader | ConfigFailure {
   const toDigits = fromHz ? digitsFromFrequency : (digits: number) => digits;
   const zeroDigits = toDigits(config.zero.value);
   const { gaugeFactor } = config;
+  const polarity = config.polarity ?? 1;
   return {
     ok: true,
-    toStrain: (value) => (value > 0 ? apparentStrain(gaugeFactor, batchFactor, toDigits(value), zeroDigits) : Number.NaN),
+    toStrain: (value) => (value > 0 ? polarity * apparentStrain(gaugeFactor, batchFactor, toDigits(value), zeroDigits) : Number.NaN),
     impossibleValue: fromHz ? READING_FAILURES.nonPositiveFrequency : READING_FAILURES.nonPositiveDigits,
   };
 }

@@ -43,16 +43,18 @@ describe("a technician on site with a phone", () => {
     await form.fill([
       [/^Raw value at zero/, "0"],
       [/^Temperature at zero/, "12"],
-      [/^Sample/, "-1"],
+      [/^Sample/, "1"],
     ]);
-    // Quarter bridge, Vr = -1 mV/V = -0.001 V/V, GF 2.00: ε = -4Vr / (GF(1 + 2Vr)) = 0.004 / (2 × 0.998)
-    // = 2004.0 µε (Dally & Riley, bridge chapter); σ = 200 000 MPa × 2004.0e-6 = 400.8 MPa.
+    // Quarter bridge of the Dally & Riley circuit (bridge chapter), gauge in R1: Vr = 1 mV/V =
+    // 0.001 V/V, GF 2.00: ε = 4Vr / (GF(1 − 2Vr)) = 0.004 / (2 × 0.998) = 2004.0 µε;
+    // σ = 200 000 MPa × 2004.0e-6 = 400.8 MPa.
     await expect(technician.getByTestId("preview-strain").textContent()).resolves.toBe("2,004.0 µε");
     await expect(technician.getByTestId("preview-stress").textContent()).resolves.toBe("400.80 MPa");
     // Beyond the 345 MPa yield of A992 steel the preview must say the linear conversion no longer holds.
     await form.preview().getByText("outside-linear-range").waitFor();
+    // Leads swapped: the output reverses before the relation, Vr = −0.001: −0.004 / (2 × 1.002) = −1996.0 µε.
     await form.field("Polarity").selectOption("-1");
-    await expect(technician.getByTestId("preview-strain").textContent()).resolves.toBe("-2,004.0 µε");
+    await expect(technician.getByTestId("preview-strain").textContent()).resolves.toBe("-1,996.0 µε");
     await saveScreenshot(technician, "gauge-form-phone");
 
     await technician.getByRole("button", { name: "Register gauge" }).click();

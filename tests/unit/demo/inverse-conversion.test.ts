@@ -96,11 +96,13 @@ describe("inverse conversion", () => {
     fc.assert(fc.property(vibratingWire, fc.double({ min: -600, max: 600, noNaN: true }), temperature, expectRoundTrip), { numRuns: 300 });
   });
 
-  // Dally & Riley quarter-bridge relation, hand-worked in the mechanics tests: −0.5 mV/V with
-  // GF 2 is 1001.001 µε, so that strain must give back −0.5 mV/V above the zero reading.
-  it("gives the published quarter-bridge output", () => {
+  // Quarter bridge of the Dally & Riley circuit, gauge in R1: Vr = x/(4 + 2x) with x = GF·ε, so
+  // 1001.001 µε at GF 2 (x = 0.002002) gives 0.5 mV/V above the zero reading, and the reverse with
+  // the output leads swapped.
+  it("gives the circuit's quarter-bridge output, reversed by polarity", () => {
     const config = foilGauge({ bridge: "quarter", zero: { value: 0.2, temperature: 20 } });
-    expectClose(prepareInverseConversion(config)(1001.001001001001, 20), -0.3, 1e-12);
+    expectClose(prepareInverseConversion(config)(1001.001001001001, 20), 0.7, 1e-12);
+    expectClose(prepareInverseConversion({ ...config, polarity: -1 })(1001.001001001001, 20), -0.3, 1e-12);
   });
 
   // R = f²/1000 and ε = G·(R − R₀) (common practice): 330.4 µε at G = 3.304 is 100 digits above

@@ -29,14 +29,18 @@ describe("every input kind", () => {
     );
   });
 
-  it("negates the indicated and mechanical strain with polarity −1 at the zero temperature", () => {
+  // Physical invariants: a gauge wired the other way round reverses the strain it reports; for a
+  // bridge it reverses the bridge output, so the relation sees the opposite change of output.
+  it("with polarity −1 negates the strain of a logger, wire or bridge output at the zero temperature", () => {
     fc.assert(
       fc.property(fc.constantFrom(...EVERY_INPUT), fc.double({ min: 0.9, max: 1.1, noNaN: true }), (config, factor) => {
         const value = config.zero.value === 0 ? factor - 1 : config.zero.value * factor;
-        const forward = converted(prepared(config).convert(value, 18));
+        const mirrored = config.input === "mV/V" ? 2 * config.zero.value - value : value;
+        const forward = converted(prepared(config).convert(mirrored, 18));
         const reversed = converted(prepared({ ...config, polarity: -1 }).convert(value, 18));
-        expectClose(reversed.indicatedStrain, -forward.indicatedStrain, 0, 0);
-        expectClose(reversed.strain, -forward.strain, 0, 1e-9);
+        const sign = config.input === "mV/V" ? 1 : -1;
+        expectClose(reversed.indicatedStrain, sign * forward.indicatedStrain, 0, 0);
+        expectClose(reversed.strain, sign * forward.strain, 0, 1e-9);
       }),
     );
   });
