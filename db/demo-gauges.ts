@@ -1,6 +1,7 @@
 import type { GaugeStory } from "@/lib/demo";
 import type { GaugeInput } from "@/lib/gauges/schema";
-import { MATERIALS, normalWeightConcrete } from "@/lib/mechanics";
+import { MATERIALS, STEEL_WIRE_CTE, normalWeightConcrete } from "@/lib/mechanics";
+import { wireGaugeFactor } from "@/lib/mechanics/vibrating-wire";
 
 /**
  * The invented demo installation. Each gauge has a story that the synthetic readings tell:
@@ -26,7 +27,7 @@ const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "
   kind: "foil",
   bridge: null,
   loggerGaugeFactor: null,
-  batchFactor: null,
+  calibrationFactor: null,
   polarity: 1,
   leadResistance: null,
   gaugeResistance: null,
@@ -40,16 +41,19 @@ const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "
   ...fields,
 });
 
+/** The demo's embedment gauges: 150 mm of steel wire (ρ = 7850 kg/m³, E = 200 GPa), K ≈ 3.53 µε per f²/1000. */
+const EMBEDMENT_WIRE_FACTOR = wireGaugeFactor(0.15, 7850, 200e9);
+
 const vibratingWire = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "zero">): GaugeInput => ({
   kind: "vibrating-wire",
-  gaugeFactor: 3.304,
+  gaugeFactor: EMBEDMENT_WIRE_FACTOR,
   bridge: null,
   loggerGaugeFactor: null,
-  batchFactor: 0.97,
+  calibrationFactor: 0.97,
   polarity: 1,
   leadResistance: null,
   gaugeResistance: null,
-  thermal: { method: "cte", gaugeCte: 12.2 },
+  thermal: { method: "cte", gaugeCte: STEEL_WIRE_CTE },
   material: concrete,
   initialStress: 0,
   expectedInterval: 600,
@@ -181,7 +185,7 @@ export const DEMO_GAUGES: DemoGauge[] = [
       tag: "L2-B7",
       label: "Beam B7, midspan soffit",
       member: "Post-tensioned beam B7",
-      input: "digits",
+      input: "frequency-squared",
       zero: { value: 671.3, temperature: 9.8 },
     }),
     story: (start) => ({ trafficAmplitude: 22, thermalRestraint: 0.3, spikes: [{ time: start + 47 * DAY_MS + 3 * 3_600_000, strain: -350 }] }),
@@ -192,7 +196,7 @@ export const DEMO_GAUGES: DemoGauge[] = [
       tag: "L3-C2",
       label: "Column C2 at level 3, north face",
       member: "Column C2",
-      input: "digits",
+      input: "frequency-squared",
       zero: { value: 702.9, temperature: 9.8 },
     }),
     // A loose connector: one reading jumps further than any column moves, a sensor fault, not a load.

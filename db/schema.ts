@@ -156,7 +156,8 @@ export const gauges = sqliteTable(
     bridge: text("bridge"),
     gaugeFactor: real("gauge_factor").notNull(),
     loggerGaugeFactor: real("logger_gauge_factor"),
-    batchFactor: real("batch_factor"),
+    /** Vibrating wire: multiplier from the calibration record; null means 1. */
+    calibrationFactor: real("calibration_factor"),
     polarity: integer("polarity").notNull().default(1),
     leadResistance: real("lead_resistance"),
     gaugeResistance: real("gauge_resistance"),

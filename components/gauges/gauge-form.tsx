@@ -8,11 +8,10 @@ import type { ActionState } from "@/lib/actions/action-state";
 import { COEFFICIENT_KEYS, applicableFields, gaugePayloadOf, type GaugeFormValues } from "@/lib/gauges/form-values";
 import { previewConversion } from "@/lib/gauges/preview";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
-import { BRIDGES, FOIL_INPUTS, MATERIALS, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
+import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName, inputUnit } from "@/lib/gauges/labels";
+import { BRIDGES, FOIL_INPUTS, MATERIALS, STEEL_WIRE_CTE, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
 
 export type GaugeFormMode = "register" | "edit" | "replace";
-
-const RAW_UNIT: Record<string, string> = { microstrain: "µε", "mV/V": "mV/V", Hz: "Hz", digits: "digits" };
 
 const BRIDGE_NAMES: Record<string, string> = {
   quarter: "Quarter bridge, one active gauge",
@@ -41,7 +40,7 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
   const [sample, setSample] = useState({ value: "", temperature: initial["zero.temperature"] ?? "" });
   const applies = applicableFields(values);
   const errors = state.fieldErrors ?? {};
-  const rawUnit = RAW_UNIT[values.input ?? ""] ?? "";
+  const rawUnit = inputUnit(values.input ?? "");
   const foil = values.kind === "foil";
 
   const set = (name: string) => (event: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
@@ -53,7 +52,7 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
       kind,
       input: kind === "foil" ? "mV/V" : "Hz",
       "thermal.method": kind === "foil" ? "none" : "cte",
-      "thermal.gaugeCte": kind === "foil" ? "" : "12.2",
+      "thermal.gaugeCte": kind === "foil" ? "" : String(STEEL_WIRE_CTE),
     }));
   }
 
@@ -191,16 +190,16 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {select(
                 "input",
                 "Logger output",
-                (foil ? FOIL_INPUTS : VIBRATING_WIRE_INPUTS).map((value) => [value, foil ? (value === "mV/V" ? "Bridge output, mV/V" : "Microstrain, µε") : value === "Hz" ? "Frequency, Hz" : "Digits (f²/1000)"]),
+                (foil ? FOIL_INPUTS : VIBRATING_WIRE_INPUTS).map((value) => [value, inputName(value)]),
               )}
               {applies.bridge && select("bridge", "Bridge arrangement", BRIDGES.map((b) => [b, BRIDGE_NAMES[b]!]))}
-              {input("gaugeFactor", foil ? "Gauge factor" : "Gauge constant G", {
-                unit: foil ? "GF" : "µε per digit",
+              {input("gaugeFactor", gaugeFactorLabel(values.kind ?? "foil"), {
+                unit: foil ? "GF" : WIRE_GAUGE_FACTOR_UNIT,
                 required: true,
-                hint: foil ? "From the gauge packet, e.g. 2.10." : "Set by the gauge length; from the calibration sheet.",
+                hint: foil ? "From the gauge packet, e.g. 2.10." : "Fixed by the wire's free length: K = 4·L²·ρ·10⁹ / E, about 3.5 for 150 mm of steel wire.",
               })}
               {applies.loggerGaugeFactor && input("loggerGaugeFactor", "Gauge factor set in the logger", { hint: "Leave empty if the logger uses the gauge's own factor." })}
-              {applies.batchFactor && input("batchFactor", "Batch factor B", { hint: "From the calibration sheet; empty means 1." })}
+              {applies.calibrationFactor && input("calibrationFactor", CALIBRATION_FACTOR_LABEL, { hint: "From the gauge's calibration record; empty means 1." })}
               {select("polarity", "Polarity", [["1", "Normal (tension positive)"], ["-1", "Reversed (wired the other way)"]])}
               {applies.leadResistances && (
                 <>
@@ -232,7 +231,7 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
                 {errors["thermal.coefficients"] && <p className="col-span-full text-xs text-critical">{errors["thermal.coefficients"]!.join(" ")}</p>}
               </div>
             )}
-            {applies.gaugeCte && input("thermal.gaugeCte", foil ? "Coefficient the gauge is matched to" : "Wire coefficient", { unit: "µε/°C", hint: foil ? "" : "12.2 for steel wire." })}
+            {applies.gaugeCte && input("thermal.gaugeCte", foil ? "Coefficient the gauge is matched to" : "Wire coefficient", { unit: "µε/°C", hint: foil ? "" : `${STEEL_WIRE_CTE} for carbon-steel wire (handbook value).` })}
           </>,
         )}
         {section(

@@ -1,3 +1,5 @@
+import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName } from "@/lib/gauges/labels";
+import { STEEL_WIRE_CTE } from "@/lib/mechanics";
 import type { GaugeView } from "@/lib/services/gauges";
 
 const num = (value: number | null | undefined, unit = "") => (value === null || value === undefined ? "—" : `${value.toLocaleString("en-US")}${unit ? ` ${unit}` : ""}`);
@@ -8,7 +10,7 @@ function thermalText(gauge: GaugeView): string {
     return `Thermal-output polynomial: ${thermal.coefficients.map((a, i) => `A${i} = ${a}`).join(", ")} (µε, T in °C)`;
   }
   if (thermal.method === "cte") {
-    return `${gauge.kind === "foil" ? "Gauge matched to" : "Wire coefficient"} ${num(thermal.gaugeCte ?? 12.2, "µε/°C")}`;
+    return `${gauge.kind === "foil" ? "Gauge matched to" : "Wire coefficient"} ${num(thermal.gaugeCte ?? STEEL_WIRE_CTE, "µε/°C")}`;
   }
   return "None (self-compensated)";
 }
@@ -18,11 +20,11 @@ export function GaugeSummary({ gauge }: { gauge: GaugeView }) {
   const foil = gauge.kind === "foil";
   const rows: [string, string][] = [
     ["Kind", foil ? "Foil (resistance)" : "Vibrating wire"],
-    ["Logger output", gauge.input],
+    ["Logger output", inputName(gauge.input)],
     ...(gauge.bridge ? [["Bridge", gauge.bridge] as [string, string]] : []),
-    [foil ? "Gauge factor" : "Gauge constant G", foil ? num(gauge.gaugeFactor) : num(gauge.gaugeFactor, "µε/digit")],
+    [gaugeFactorLabel(gauge.kind), foil ? num(gauge.gaugeFactor) : num(gauge.gaugeFactor, WIRE_GAUGE_FACTOR_UNIT)],
     ...(gauge.loggerGaugeFactor ? [["Logger gauge factor", num(gauge.loggerGaugeFactor)] as [string, string]] : []),
-    ...(!foil ? [["Batch factor B", num(gauge.batchFactor ?? 1)] as [string, string]] : []),
+    ...(!foil ? [[CALIBRATION_FACTOR_LABEL, num(gauge.calibrationFactor ?? 1)] as [string, string]] : []),
     ["Polarity", gauge.polarity === -1 ? "Reversed (−1)" : "Normal (+1)"],
     ...(gauge.leadResistance != null ? [["Lead / gauge resistance", `${num(gauge.leadResistance, "Ω")} / ${num(gauge.gaugeResistance, "Ω")}`] as [string, string]] : []),
     ["Temperature compensation", thermalText(gauge)],

@@ -54,7 +54,7 @@ const RAW_RANGE: Record<string, { min: number; max: number }> = {
   "mV/V": { min: -10, max: 10 },
   microstrain: { min: -15_000, max: 15_000 },
   Hz: { min: 300, max: 6_000 },
-  digits: { min: 90, max: 36_000 },
+  "frequency-squared": { min: 90, max: 36_000 },
 };
 
 /**

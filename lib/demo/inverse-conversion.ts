@@ -1,7 +1,7 @@
 import { prepareGauge, type Bridge, type GaugeConfig, type GaugeConverter } from "@/lib/mechanics";
 import { bridgeOutputFor, leadWireCorrection, loggerGaugeFactorCorrection } from "@/lib/mechanics/bridge";
 import { MICRO } from "@/lib/mechanics/stress";
-import { digitsFromFrequency } from "@/lib/mechanics/vibrating-wire";
+import { frequencySquaredFromHz } from "@/lib/mechanics/vibrating-wire";
 
 /** The raw reading (gauge input unit) whose conversion at `temperature` °C gives `mechanicalStrain` µε. */
 export type InverseConversion = (mechanicalStrain: number, temperature: number) => number;
@@ -56,14 +56,14 @@ function quarterBridgeLeadFactor({ bridge, leadResistance, gaugeResistance }: Ga
     : 1;
 }
 
-/** Digits R = R₀ + ε/(G·B), and f = √(1000·R) for a gauge read in Hz. */
+/** R = R₀ + ε/(K·C) in f²/1000, and f = √(1000·R) for a gauge read in Hz. */
 function vibratingWireInverse(config: GaugeConfig): (gaugeStrain: number) => number {
   const inHz = config.input === "Hz";
-  const zeroDigits = inHz ? digitsFromFrequency(config.zero.value) : config.zero.value;
-  const strainPerDigit = config.gaugeFactor * (config.batchFactor ?? 1);
+  const zeroFrequencySquared = inHz ? frequencySquaredFromHz(config.zero.value) : config.zero.value;
+  const strainPerUnit = config.gaugeFactor * (config.calibrationFactor ?? 1);
   return (gaugeStrain) => {
-    const digits = zeroDigits + gaugeStrain / strainPerDigit;
-    if (!(digits > 0)) throw new RangeError(`${gaugeStrain} µε slackens the wire past what it can read.`);
-    return inHz ? Math.sqrt(1000 * digits) : digits;
+    const frequencySquared = zeroFrequencySquared + gaugeStrain / strainPerUnit;
+    if (!(frequencySquared > 0)) throw new RangeError(`${gaugeStrain} µε slackens the wire past what it can read.`);
+    return inHz ? Math.sqrt(1000 * frequencySquared) : frequencySquared;
   };
 }

@@ -78,7 +78,7 @@ export interface SyntheticOptions {
 export interface SyntheticReading {
   gauge: string;
   time: number;
-  /** Raw value in the gauge's input unit (µε, mV/V, Hz or digits). */
+  /** Raw value in the gauge's input unit (µε, mV/V, Hz or f²/1000). */
   value: number;
   /** °C at the gauge. */
   temperature: number;

@@ -1,5 +1,5 @@
 import type { Gauge } from "@/db/schema";
-import type { GaugeConfig } from "@/lib/mechanics";
+import { thermalCompensationFor, type GaugeConfig } from "@/lib/mechanics";
 import type { GaugeFields } from "./schema";
 
 /** Columns of a gauge row from validated fields (zero and status are handled by their own steps). */
@@ -12,11 +12,12 @@ export function gaugeColumns(fields: Omit<GaugeFields, "tag" | "zero">) {
     bridge: fields.bridge,
     gaugeFactor: fields.gaugeFactor,
     loggerGaugeFactor: fields.loggerGaugeFactor,
-    batchFactor: fields.batchFactor,
+    calibrationFactor: fields.calibrationFactor,
     polarity: fields.polarity,
     leadResistance: fields.leadResistance,
     gaugeResistance: fields.gaugeResistance,
-    thermal: fields.thermal ?? { method: "none" as const },
+    // The default is stored with the gauge: a later change of default never changes its conversion.
+    thermal: thermalCompensationFor(fields.kind, fields.thermal) as Gauge["thermal"],
     material: fields.material,
     initialStress: fields.initialStress,
     expectedInterval: fields.expectedInterval,
@@ -36,7 +37,7 @@ export function gaugeFieldsOf(row: Gauge): GaugeFields {
     bridge: row.bridge as GaugeFields["bridge"],
     gaugeFactor: row.gaugeFactor,
     loggerGaugeFactor: row.loggerGaugeFactor,
-    batchFactor: row.batchFactor,
+    calibrationFactor: row.calibrationFactor,
     polarity: row.polarity === -1 ? -1 : 1,
     leadResistance: row.leadResistance,
     gaugeResistance: row.gaugeResistance,

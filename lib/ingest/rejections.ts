@@ -22,7 +22,7 @@ export const REJECTION_CODES = {
   "temperature-out-of-range": "The temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.",
   "temperature-required": "The gauge's temperature compensation needs the temperature at each reading.",
   "non-positive-frequency": "A vibrating-wire frequency must be above 0 Hz.",
-  "non-positive-digits": "A vibrating-wire reading in digits must be above 0.",
+  "non-positive-frequency-squared": "A vibrating-wire reading in f²/1000 must be above 0.",
   "impossible-bridge-output": "No bridge of the gauge's arrangement can produce this output change.",
 } as const satisfies Record<string, string> & Record<ReadingErrorCode, string>;
 

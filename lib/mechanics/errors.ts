@@ -8,7 +8,7 @@ export type GaugeConfigErrorCode =
   | "unknown-bridge"
   | "invalid-gauge-factor"
   | "invalid-logger-gauge-factor"
-  | "invalid-batch-factor"
+  | "invalid-calibration-factor"
   | "invalid-polarity"
   | "invalid-resistance"
   | "invalid-zero"
@@ -24,7 +24,7 @@ export type ReadingErrorCode =
   | "not-finite"
   | "temperature-required"
   | "non-positive-frequency"
-  | "non-positive-digits"
+  | "non-positive-frequency-squared"
   | "impossible-bridge-output";
 
 /** Shared, frozen failures: refusing a reading allocates nothing. */
@@ -46,9 +46,9 @@ export const READING_FAILURES = {
     "non-positive-frequency",
     "A vibrating-wire frequency must be above 0 Hz; check the gauge, its cable and the logger channel.",
   ),
-  nonPositiveDigits: failure(
-    "non-positive-digits",
-    "A vibrating-wire reading in digits must be above 0; check the gauge, its cable and the logger channel.",
+  nonPositiveFrequencySquared: failure(
+    "non-positive-frequency-squared",
+    "A vibrating-wire reading in f²/1000 must be above 0; check the gauge, its cable and the logger channel.",
   ),
   impossibleBridgeOutput: failure(
     "impossible-bridge-output",

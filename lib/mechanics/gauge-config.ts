@@ -9,7 +9,8 @@ export type GaugeKind = (typeof GAUGE_KINDS)[number];
 export const FOIL_INPUTS = ["microstrain", "mV/V"] as const;
 export type FoilInput = (typeof FOIL_INPUTS)[number];
 
-export const VIBRATING_WIRE_INPUTS = ["Hz", "digits"] as const;
+/** The resonant frequency in Hz, or its square over 1000 (f²/1000). */
+export const VIBRATING_WIRE_INPUTS = ["Hz", "frequency-squared"] as const;
 export type VibratingWireInput = (typeof VIBRATING_WIRE_INPUTS)[number];
 
 export type GaugeInput = FoilInput | VibratingWireInput;
@@ -33,7 +34,7 @@ export type ThermalCompensation =
   | { method: "polynomial"; coefficients: readonly number[] }
   /**
    * Expansion coefficient (µε/°C) the foil gauge is matched to (required), or of the vibrating wire
-   * (defaults to the steel wire's 12.2).
+   * (defaults to the steel wire's 12).
    */
   | { method: "cte"; gaugeCte?: number | null };
 
@@ -60,12 +61,12 @@ export interface GaugeConfig {
   input: GaugeInput;
   /** Required for foil `mV/V`; for foil `microstrain` only `quarter` matters (lead correction). */
   bridge?: Bridge | null;
-  /** Foil: gauge factor GF. Vibrating wire: gauge constant G in µε per digit. */
+  /** Foil: gauge factor GF. Vibrating wire: the wire gauge factor K in µε per unit of f²/1000. */
   gaugeFactor: number;
   /** Foil `microstrain`: the GF the logger assumed; defaults to `gaugeFactor`. */
   loggerGaugeFactor?: number | null;
-  /** Vibrating wire: batch calibration factor B; defaults to 1. */
-  batchFactor?: number | null;
+  /** Vibrating wire: multiplier C from the gauge's calibration record; defaults to 1. */
+  calibrationFactor?: number | null;
   /**
    * Defaults to 1; -1 for a gauge wired the other way round: for `mV/V` it reverses the bridge
    * output before the bridge relation, for the other inputs the strain.
@@ -75,7 +76,7 @@ export interface GaugeConfig {
   leadResistance?: number | null;
   /** Ohms. */
   gaugeResistance?: number | null;
-  /** Defaults to `none` for foil and to `cte` with the steel wire's 12.2 µε/°C for vibrating wire. */
+  /** Defaults to `none` for foil and to `cte` with the steel wire's 12 µε/°C for vibrating wire. */
   thermal?: ThermalCompensation | null;
   material: Material;
   /** MPa added to the computed stress: the dead-load stress present when the gauge was zeroed. */

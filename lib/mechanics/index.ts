@@ -25,6 +25,6 @@ export {
   type RosetteErrorCode,
   type RosetteLayout,
 } from "./rosette";
-export { STEEL_WIRE_CTE } from "./thermal";
+export { STEEL_WIRE_CTE, thermalCompensationFor } from "./thermal";
 export { uniaxialStress, utilisation, vonMises } from "./stress";
 export { decimalsForStep, derivedDecimals, writtenDecimals, type DerivedDecimals } from "./resolution";

@@ -4,7 +4,7 @@ import { READING_FAILURES, type GaugeConfigErrorCode, type ReadingErrorCode } fr
 import type { GaugeConfig } from "./gauge-config";
 import { failure, type Failure } from "./result";
 import { MICRO } from "./stress";
-import { apparentStrain, digitsFromFrequency } from "./vibrating-wire";
+import { apparentStrain, frequencySquaredFromHz } from "./vibrating-wire";
 
 /**
  * Turns a raw reading into the gauge's strain change since its zero reading, in µε, polarity
@@ -21,7 +21,7 @@ type ConfigFailure = Failure<GaugeConfigErrorCode>;
 
 export function prepareRawReader(config: GaugeConfig): RawReader | ConfigFailure {
   if (!isPositive(config.gaugeFactor)) {
-    return failure("invalid-gauge-factor", "The gauge factor (or vibrating-wire gauge constant) must be a positive number.");
+    return failure("invalid-gauge-factor", "The gauge factor (or the wire gauge factor of a vibrating wire) must be a positive number.");
   }
   if (!isFiniteNumber(config.zero?.value)) {
     return failure("invalid-zero", "The zero reading needs a finite raw value in the gauge's input unit.");
@@ -81,22 +81,25 @@ function quarterBridgeLeadCorrection(config: GaugeConfig): number | ConfigFailur
 }
 
 function vibratingWireReader(config: GaugeConfig): RawReader | ConfigFailure {
-  const batchFactor = config.batchFactor ?? 1;
-  if (!isPositive(batchFactor)) return failure("invalid-batch-factor", "The batch factor, when given, must be a positive number.");
+  const calibrationFactor = config.calibrationFactor ?? 1;
+  if (!isPositive(calibrationFactor)) {
+    return failure("invalid-calibration-factor", "The calibration multiplier, when given, must be a positive number (1 if none).");
+  }
   const fromHz = config.input === "Hz";
-  if (!fromHz && config.input !== "digits") {
-    return failure("unknown-input", "A vibrating-wire gauge's input is Hz or digits.");
+  if (!fromHz && config.input !== "frequency-squared") {
+    return failure("unknown-input", "A vibrating-wire gauge's input is Hz or frequency-squared (f²/1000).");
   }
   if (!(config.zero.value > 0)) {
-    return failure("invalid-zero", `The zero reading of a vibrating-wire gauge must be above 0 ${config.input}.`);
+    return failure("invalid-zero", `The zero reading of a vibrating-wire gauge must be above 0 ${fromHz ? "Hz" : "f²/1000"}.`);
   }
-  const toDigits = fromHz ? digitsFromFrequency : (digits: number) => digits;
-  const zeroDigits = toDigits(config.zero.value);
+  const toFrequencySquared = fromHz ? frequencySquaredFromHz : (frequencySquared: number) => frequencySquared;
+  const zeroFrequencySquared = toFrequencySquared(config.zero.value);
   const { gaugeFactor } = config;
   const polarity = config.polarity ?? 1;
   return {
     ok: true,
-    toStrain: (value) => (value > 0 ? polarity * apparentStrain(gaugeFactor, batchFactor, toDigits(value), zeroDigits) : Number.NaN),
-    impossibleValue: fromHz ? READING_FAILURES.nonPositiveFrequency : READING_FAILURES.nonPositiveDigits,
+    toStrain: (value) =>
+      value > 0 ? polarity * apparentStrain(gaugeFactor, calibrationFactor, toFrequencySquared(value), zeroFrequencySquared) : Number.NaN,
+    impossibleValue: fromHz ? READING_FAILURES.nonPositiveFrequency : READING_FAILURES.nonPositiveFrequencySquared,
   };
 }

@@ -2,8 +2,11 @@ import type { Failure } from "./result";
 import { failure } from "./result";
 import type { GaugeKind, ThermalCompensation } from "./gauge-config";
 
-/** Steel vibrating wire's expansion coefficient in µε/°C (from memory; the API's default). */
-export const STEEL_WIRE_CTE = 12.2;
+/**
+ * Carbon-steel vibrating wire's expansion coefficient in µε/°C: a handbook value from memory
+ * (steel wire lies about 11–13 µε/°C).
+ */
+export const STEEL_WIRE_CTE = 12;
 
 const MAX_THERMAL_OUTPUT_TERMS = 5;
 

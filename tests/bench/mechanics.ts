@@ -54,16 +54,16 @@ const GAUGES: readonly { config: GaugeConfig; centre: number; spread: number }[]
     spread: 1500,
   },
   {
-    config: { kind: "vibrating-wire", input: "Hz", gaugeFactor: 3.304, material: concrete, zero: { value: 800, temperature: 15 } },
+    config: { kind: "vibrating-wire", input: "Hz", gaugeFactor: 3.53, material: concrete, zero: { value: 800, temperature: 15 } },
     centre: 800,
     spread: 40,
   },
   {
     config: {
       kind: "vibrating-wire",
-      input: "digits",
-      gaugeFactor: 4.062,
-      batchFactor: 0.97,
+      input: "frequency-squared",
+      gaugeFactor: 2.6,
+      calibrationFactor: 0.97,
       material: steel,
       zero: { value: 2600, temperature: 15 },
     },

@@ -30,7 +30,8 @@ const vibratingWire = {
   tag: "VW-1",
   kind: "vibrating-wire",
   input: "Hz",
-  gaugeFactor: 3.304,
+  // 150 mm of steel wire: K = 4·L²·ρ·10⁹ / E = 3.5325 µε per f²/1000 (taut-string physics)
+  gaugeFactor: 3.5325,
   material: { E: 30000, nu: 0.2, alpha: 10 },
   zero: { value: 800, temperature: 12, time: "2026-11-30T09:00:00Z" },
 };
@@ -63,10 +64,14 @@ describe("registering gauges", () => {
     expect(gauge).toMatchObject({ ...expected, status: "active", polarity: 1, initialStress: 0, thermal: { method: "none" } });
   });
 
-  it("defaults a vibrating-wire gauge to the steel wire's expansion coefficient", async () => {
-    const response = await post(tokens.engineer, { ...vibratingWire, thermal: { method: "cte", gaugeCte: 12.2 } });
+  // Carbon-steel wire expands about 12 µε/°C (handbook value, from memory); the default is stored
+  // with the gauge, so a later change of default never rewrites how its readings convert.
+  it("defaults a vibrating-wire gauge to the steel wire's expansion coefficient and stores it", async () => {
+    const response = await post(tokens.engineer, vibratingWire);
     expect(response.status).toBe(201);
-    expect((await response.json()).thermal).toEqual({ method: "cte", gaugeCte: 12.2 });
+    expect((await response.json()).thermal).toEqual({ method: "cte", gaugeCte: 12 });
+    const withoutCoefficient = await post(tokens.engineer, { ...vibratingWire, tag: "VW-2", thermal: { method: "cte" } });
+    expect((await withoutCoefficient.json()).thermal).toEqual({ method: "cte", gaugeCte: 12 });
   });
 
   it("answers 409 naming the duplicate tag", async () => {
@@ -108,7 +113,7 @@ describe("editing, zeroing and retiring", () => {
     const [latest] = await gaugeAuditTrail(engineer, "BR", "G1");
     expect(latest).toMatchObject({ action: "gauge.update", before: { gaugeFactor: 2.1, polarity: 1 }, after: { gaugeFactor: 2.05, polarity: -1 } });
 
-    const refused = await patch(tokens.engineer!, "G1", { input: "digits" });
+    const refused = await patch(tokens.engineer!, "G1", { input: "frequency-squared" });
     expect(refused.status).toBe(400);
   });
 

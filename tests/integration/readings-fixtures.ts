@@ -28,8 +28,9 @@ export const WIRE_GAUGE = {
   tag: "VW",
   kind: "vibrating-wire",
   input: "Hz",
-  gaugeFactor: 3.304,
-  thermal: { method: "cte", gaugeCte: 12.2 },
+  // K = 4·L²·ρ·10⁹ / E of 150 mm of steel wire (taut-string physics); carbon-steel wire 12 µε/°C (from memory)
+  gaugeFactor: 3.5325,
+  thermal: { method: "cte", gaugeCte: 12 },
   material: { E: 30000, nu: 0.2, alpha: 10 },
   zero: { value: 800, temperature: 12, time: "2024-01-01T00:00:00Z" },
 } as const;

@@ -51,11 +51,12 @@ const foilMicrostrain = fc
 
 /**
  * Wires on steel or concrete with realistic constants: with either polarity, ±600 µε plus the
- * thermal correction stays above the slack wire (R = 0) of the lowest zero and gauge constant.
+ * thermal correction stays above the slack wire (R = 0) of the lowest zero and wire gauge factor.
  */
 const vibratingWire = fc
   .tuple(
-    fc.constantFrom("Hz" as const, "digits" as const),
+    fc.constantFrom("Hz" as const, "frequency-squared" as const),
+    // K of steel wires 115 to 185 mm long (4·L²·ρ·10⁹ / E) and calibration multipliers near 1
     fc.double({ min: 2, max: 5, noNaN: true }),
     fc.double({ min: 0.9, max: 1.1, noNaN: true }),
     fc.constantFrom(MATERIALS["structural-steel-eu"], MATERIALS["normal-weight-concrete-30"]),
@@ -63,11 +64,11 @@ const vibratingWire = fc
     polarity,
     fc.double({ min: 750, max: 1100, noNaN: true }),
   )
-  .map(([input, gaugeConstant, batchFactor, material, gaugeCte, sign, zeroFrequency]) =>
+  .map(([input, wireFactor, calibrationFactor, material, gaugeCte, sign, zeroFrequency]) =>
     vibratingWireGauge({
       input,
-      gaugeFactor: gaugeConstant,
-      batchFactor,
+      gaugeFactor: wireFactor,
+      calibrationFactor,
       material,
       thermal: gaugeCte === undefined ? null : { method: "cte", gaugeCte },
       polarity: sign,
@@ -92,7 +93,7 @@ describe("inverse conversion", () => {
     fc.assert(fc.property(foilMicrostrain, fc.double({ min: -3000, max: 3000, noNaN: true }), temperature, expectRoundTrip), { numRuns: 300 });
   });
 
-  it("round-trips vibrating wires read in Hz or digits", () => {
+  it("round-trips vibrating wires read in Hz or f²/1000", () => {
     fc.assert(fc.property(vibratingWire, fc.double({ min: -600, max: 600, noNaN: true }), temperature, expectRoundTrip), { numRuns: 300 });
   });
 
@@ -105,12 +106,12 @@ describe("inverse conversion", () => {
     expectClose(prepareInverseConversion({ ...config, polarity: -1 })(1001.001001001001, 20), -0.3, 1e-12);
   });
 
-  // R = f²/1000 and ε = G·(R − R₀) (common practice): 330.4 µε at G = 3.304 is 100 digits above
-  // the 640 digits of an 800 Hz zero, and √(740 000) = 860.2325 Hz; at the zero temperature the
+  // R = f²/1000 and ε = K·(R − R₀) (common practice): 353.25 µε at K = 3.5325 (150 mm steel wire)
+  // is 100 above the 640 f²/1000 of an 800 Hz zero, and √(740 000) = 860.2325 Hz; at the zero temperature the
   // wire's thermal correction vanishes.
   it("gives the vibrating-wire frequency of a hand-worked strain", () => {
-    expectClose(prepareInverseConversion(vibratingWireGauge())(330.4, 20), Math.sqrt(740_000), 1e-12);
-    expectClose(prepareInverseConversion(vibratingWireGauge({ input: "digits", zero: { value: 640, temperature: 20 } }))(330.4, 20), 740, 1e-12);
+    expectClose(prepareInverseConversion(vibratingWireGauge())(353.25, 20), Math.sqrt(740_000), 1e-12);
+    expectClose(prepareInverseConversion(vibratingWireGauge({ input: "frequency-squared", zero: { value: 640, temperature: 20 } }))(353.25, 20), 740, 1e-12);
   });
 
   it("refuses a strain that would slacken the wire, and a configuration the converter refuses", () => {

@@ -34,7 +34,7 @@ const GAUGES: SyntheticGauge[] = [
   },
   {
     tag: "PARKED",
-    config: vibratingWireGauge({ input: "digits", zero: { value: 700, temperature: 8 } }),
+    config: vibratingWireGauge({ input: "frequency-squared", zero: { value: 700, temperature: 8 } }),
     story: { sustainedLoad: PARKED },
   },
   {

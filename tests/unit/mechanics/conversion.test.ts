@@ -14,7 +14,7 @@ const EVERY_INPUT: readonly GaugeConfig[] = [
   }),
   foilGauge({ bridge: "full-axial-poisson", zero: { value: -0.2, temperature: 18 }, thermal: { method: "cte", gaugeCte: 10.8 } }),
   vibratingWireGauge({ zero: { value: 765.3, temperature: 18 } }),
-  vibratingWireGauge({ input: "digits", zero: { value: 2710, temperature: 18 } }),
+  vibratingWireGauge({ input: "frequency-squared", zero: { value: 2710, temperature: 18 } }),
 ];
 
 describe("every input kind", () => {

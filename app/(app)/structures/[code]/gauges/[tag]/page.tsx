@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { inputUnit } from "@/lib/gauges/labels";
 import Link from "next/link";
 import { format } from "date-fns";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
@@ -37,7 +38,6 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: `${decodeURIComponent(tag)} · ${code}` };
 }
 
-const RAW_UNIT: Record<string, string> = { microstrain: "µε", "mV/V": "mV/V", Hz: "Hz", digits: "digits" };
 const when = (date: Date | string) => format(typeof date === "string" ? new Date(date) : date, "yyyy-MM-dd HH:mm");
 
 function changeText(before: unknown, after: unknown): string {
@@ -191,11 +191,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
             Zero reading
           </h2>
           <p className="text-sm">
-            In force: <span className="font-mono">{gauge.zero.value} {RAW_UNIT[gauge.input]}</span>
+            In force: <span className="font-mono">{gauge.zero.value} {inputUnit(gauge.input)}</span>
             {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!)}. Strain is measured from this state;
             stress already present then is the initial stress above.
           </p>
-          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={RAW_UNIT[gauge.input] ?? ""} recordZero={recordZeroAction} />}
+          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={inputUnit(gauge.input)} recordZero={recordZeroAction} />}
           <div className="overflow-x-auto">
             <table className={tableClass} aria-label="Zero history">
               <thead>
@@ -214,7 +214,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
                       <span className="block text-xs text-slate-500">{zero.setByLabel}</span>
                     </td>
                     <td className={`${tdClass} font-mono`}>
-                      {zero.value.toLocaleString("en-US", { maximumFractionDigits: 6 })} {RAW_UNIT[gauge.input]}
+                      {zero.value.toLocaleString("en-US", { maximumFractionDigits: 6 })} {inputUnit(gauge.input)}
                       <span className="block font-sans text-xs text-slate-500">read {when(zero.time)}</span>
                     </td>
                     <td className={tdClass}>{zero.temperature != null ? `${zero.temperature.toFixed(1)} °C` : "—"}</td>
