@@ -20,7 +20,7 @@ export function retryDelayMs(failedAttempts: number): number {
 }
 
 /**
- * What a failed send means:
+ * What a failed send means, by the reply classes of RFC 5321 §4.2.1 (5yz permanent, 4yz transient):
  * - `refused`: the relay answered 5xx about this message or address, or nodemailer found the
  *   address unusable: sending again cannot help;
  * - `later`: the relay answered 4xx (greylisting, mailbox full): try again, up to MAX_ATTEMPTS;

@@ -1,4 +1,4 @@
-/** The cautions every screen with results on it must carry (see the trade brief); `children` adds a screen's own items first. */
+/** The cautions every screen with results on it carries (linear elasticity, reference state, local codes); `children` adds a screen's own items first. */
 export function MonitoringCaution({ children }: { children?: React.ReactNode }) {
   return (
     <aside

@@ -1,6 +1,5 @@
 /**
- * Fatigue strength curves by detail category, in the shape of EN 1993-1-9 (from memory, as the
- * domain brief states it): the category Δσ_C is the stress range in MPa that gives 2×10⁶ cycles;
+ * Fatigue strength curves by detail category, in the shape of EN 1993-1-9 (from memory): the category Δσ_C is the stress range in MPa that gives 2×10⁶ cycles;
  * slope m = 3 down to the constant-amplitude limit Δσ_D at 5×10⁶ cycles, slope m = 5 down to the
  * cut-off Δσ_L at 10⁸ cycles, no damage below. Characteristic curves: partial factors on load or
  * resistance are the engineer's to apply to the ranges before they get here.

@@ -6,7 +6,7 @@ import { beforeZeroProblem, temperatureProblem } from "./plausibility";
 import { isProblem, type DecodedReading } from "./reading-input";
 import type { Rejection } from "./rejections";
 
-/** Readings may run ahead of the server's clock by this much (logger clocks drift), per the contract. */
+/** Readings may run ahead of the server's clock by this much (logger clocks drift, common practice); later ones are refused. */
 export const FUTURE_TOLERANCE_MS = 5 * MINUTE;
 
 /** A gauge of the structure as ingestion needs it: its converter is prepared once per batch. */

@@ -4,7 +4,7 @@ export const REPORT_NOTES = [
   "The period is made of whole UTC days, the days the stored summaries are kept in; on a site away from UTC it starts and ends a few hours off local midnight.",
 ];
 
-/** The cautions every report carries, in the PDF and the JSON, worded as the trade brief asks. */
+/** The cautions every report carries, in the PDF and the JSON: what the figures assume and who decides. */
 export const REPORT_CAUTIONS = [
   "Monitoring supplements inspection and never replaces it.",
   "Limits and their meaning are the responsibility of a licensed engineer under local codes; the product's defaults are examples only.",

@@ -4,7 +4,7 @@ export const HOUR = 60 * MINUTE;
 export const DAY = 24 * HOUR;
 export const WEEK = 7 * DAY;
 
-/** The series endpoint's `points`: default and ceiling from the API contract. */
+/** The series endpoint's `points`: default and ceiling, as the API documents them. */
 export const DEFAULT_SERIES_POINTS = 1000;
 export const MAX_SERIES_POINTS = 5000;
 

@@ -18,7 +18,7 @@ import { getVisibleStructure } from "./structures";
 import { evaluateInsertedReadings } from "./alert-raising";
 import { evaluateRosetteLimits } from "./rosette-alert-raising";
 
-/** Per request, from the API contract. */
+/** Per request, as the API documents them; bigger logger files go through /uploads. */
 export const MAX_READINGS_PER_REQUEST = 50_000;
 export const MAX_REQUEST_BYTES = 10_000_000;
 /** An upload is streamed, so its ceiling only guards the disk against a runaway client. */

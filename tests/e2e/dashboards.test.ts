@@ -208,7 +208,7 @@ describe("the gauge page", () => {
     const gaugePage = new GaugeChartsPage(engineer);
     await gaugePage.open("MILL-FB", "LC-M1");
     const strain = await gaugePage.preset("90 days", 90, "strain");
-    // The series keeps each bucket's exact maximum (API contract), so the spike is the fetched maximum, in its bucket.
+    // The series keeps each bucket's exact maximum (as the series endpoint documents), so the spike is the fetched maximum, in its bucket.
     const peak = strain.max.indexOf(Math.max(...strain.max));
     expect(strain.max[peak]).toBe(spike!.strain);
     expect(strain.t[peak]).toBeLessThanOrEqual(spike!.t);
@@ -220,7 +220,7 @@ describe("the gauge page", () => {
     // A drawn chart inks far more than a blank canvas: axes, band, mean line. A tenth of a row's width is a floor, not a guess at the figure.
     expect(drawn.inked).toBeGreaterThan(drawn.width / 10);
 
-    // Expected lines from the API: stress limits as set, utilisation limits at bound × yield (|σ| / yield, API contract).
+    // Expected lines from the API: stress limits as set, utilisation limits at bound × yield (|σ| / yield, common practice).
     const limits = (await (await engineer.request.get("/api/v1/structures/MILL-FB/gauges/LC-M1/limits")).json()).limits as { quantity: string; level: string; upper?: number; lower?: number }[];
     const gauge = await (await engineer.request.get("/api/v1/structures/MILL-FB/gauges/LC-M1")).json();
     const expected = limits.flatMap((limit) =>

@@ -39,7 +39,7 @@ function post(microstrain: number[], start: number) {
 
 describe("a limit crossed through the ingestion API", () => {
   it("opens one alert and e-mails each owner and engineer once through SMTP, even through an outage", async () => {
-    // 1 000 µε on steel is 200 MPa (trade brief check value): beyond the 150 MPa warning bound.
+    // σ = E·ε: 1 000 µε on steel of E = 200 GPa is 200 MPa (Hooke's law): beyond the 150 MPa warning bound.
     const crossing = await post([400, 1000, 1000, 1000], 0);
     expect(crossing.status).toBe(200);
     expect((await crossing.json()).alerts).toEqual({ opened: 1, escalated: 0, cleared: 0 });

@@ -12,7 +12,7 @@ import { apiRequest, makeStructure, makeUser, params, userToken } from "./helper
 const tokens: Record<string, string> = {};
 let engineer: UserActor;
 
-// A foil quarter-bridge gauge on S355 steel, as the contract's field table describes one.
+// A foil quarter-bridge gauge on S355 steel (E = 210 GPa, EN 1993-1-1, from memory) with every documented field.
 const quarterBridge = {
   tag: "G1",
   label: "Bottom flange, midspan",
@@ -55,11 +55,11 @@ const post = (token: string | undefined, body: unknown, code = "BR") =>
   collection.POST(apiRequest(`/structures/${code}/gauges`, { token, body }), at(code));
 
 describe("registering gauges", () => {
-  it("lets a technician register a foil gauge and read it back per the contract", async () => {
+  it("lets a technician register a foil gauge and read it back as sent", async () => {
     const response = await post(tokens.technician, quarterBridge);
     expect(response.status).toBe(201);
     const gauge = await response.json();
-    // Output times are UTC with milliseconds, per the contract.
+    // Output times are ISO 8601 in UTC with milliseconds, as the OpenAPI document says.
     const expected = { ...quarterBridge, zero: { ...quarterBridge.zero, time: "2026-11-30T09:00:00.000Z" } };
     expect(gauge).toMatchObject({ ...expected, status: "active", polarity: 1, initialStress: 0, thermal: { method: "none" } });
   });

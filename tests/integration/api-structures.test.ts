@@ -151,7 +151,7 @@ describe("token life cycle", () => {
 });
 
 describe("the rest of /api/v1", () => {
-  it("answers unknown paths with the contract's 404", async () => {
+  it("answers unknown paths with a 404 in the API's error format", async () => {
     await expectError(await unknown.GET(apiRequest("/gadgets")), 404, "not_found");
   });
 

@@ -94,7 +94,7 @@ describe("alerts raised on ingest", () => {
     expect(second).toEqual({ opened: 0, escalated: 1, cleared: 0 });
     const [open] = await alertList("open");
     expect(open).toMatchObject({ level: "critical", peak: 250, clearedAt: null });
-    // One e-mail per owner and engineer of the structure for each event, queued with it (contract).
+    // One e-mail per owner and engineer of the structure for each event, queued with it in the same transaction.
     const queued = await getDb().select().from(mailOutbox);
     expect(queued.map((m) => m.toAddress).sort()).toEqual(["engineer@test.example", "engineer@test.example", "owner@test.example", "owner@test.example"]);
     expect(queued[0]!.subject).toMatch(/^WATCH: BR G1 stress crossed the watch limit/);

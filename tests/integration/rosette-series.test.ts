@@ -35,7 +35,7 @@ const series = (quantity: string) =>
 
 describe("rosette series", () => {
   // Rectangular rosette εa = 500, εb = 300, εc = −100 µε on steel (E = 200 GPa, ν = 0.3), worked by hand
-  // with the relations of the trade brief (rectangular principal strains, plane-stress Hooke's law):
+  // with the rectangular-rosette relations of Dally & Riley (rosette chapter) and plane-stress Hooke's law:
   // ε1,2 = 200 ± ½√(600² + 200²) = 516.23 / −116.23 µε; σ1 = E/(1−ν²)(ε1 + νε2) = 105.79 MPa,
   // σ2 = 8.49 MPa; σvm = √(σ1² − σ1σ2 + σ2²) = 101.81 MPa; τmax = (σ1 − σ2)/2 = 48.65 MPa.
   it.each([

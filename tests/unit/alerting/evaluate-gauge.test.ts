@@ -56,7 +56,7 @@ describe("one gauge's alert evaluation", () => {
     expect(pieces).toEqual(whole);
   });
 
-  it("sees a time repeated within a batch with its last reading's values, and skips it if any of its readings is out of range (contract)", () => {
+  it("sees a time repeated within a batch with its last reading's values, and skips it if any of its readings is out of range", () => {
     const repeated = [reading(0, 50), reading(1, 50), reading(2, 60), reading(1, 150)];
     expect(evaluateGauge(setup, initialGaugeEvaluationState(), repeated).events.map((e) => [e.type, e.time, e.value])).toEqual([
       ["opened", 10 * MINUTE, 150],
@@ -66,7 +66,7 @@ describe("one gauge's alert evaluation", () => {
     expect(evaluateGauge(setup, initialGaugeEvaluationState(), flagged).events).toEqual([]);
   });
 
-  it("computes utilisation as |σ| / yield (contract)", () => {
+  it("computes utilisation as |σ| / yield (common practice)", () => {
     expect(quantityValue(reading(0, -177.5), "utilisation", 355)).toBeCloseTo(0.5, 12);
     expect(Number.isNaN(quantityValue(reading(0, 10), "utilisation", null))).toBe(true);
   });

@@ -136,7 +136,7 @@ describe("synthetic readings", () => {
     expect(Math.min(...parked)).toBeGreaterThan(Math.max(...readings.filter((r) => !inWindow(r)).map(strain)));
   });
 
-  // domain.md, linear thermoelasticity: a fully restrained bar heated by ΔT carries σ = −E·α·ΔT
+  // Linear thermoelasticity (any strength-of-materials text): a fully restrained bar heated by ΔT carries σ = −E·α·ΔT
   // (−48 MPa for steel heated 20 °C).
   it("stresses a fully restrained member by −E·α·ΔT", () => {
     const gauge = prepared(GAUGES[4]!.config);

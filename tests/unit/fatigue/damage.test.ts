@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "@/lib/fatigue";
 
-// Palmgren–Miner rule D = Σ nᵢ/Nᵢ (domain.md); S-N curve of EN 1993-1-9, from memory.
+// Palmgren–Miner rule D = Σ nᵢ/Nᵢ (Miner, 1945); S-N curve of EN 1993-1-9, from memory.
 
 describe("Miner damage", () => {
   it("sums a constructed history on category 71 as computed by hand", () => {

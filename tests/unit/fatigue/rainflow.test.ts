@@ -43,7 +43,7 @@ const integerHistory = fc.array(fc.integer({ min: -1000, max: 1000 }), { maxLeng
 
 describe("rainflow counting, ASTM E1049-85 (2017) 5.4.4", () => {
   it("counts the standard's example exactly", () => {
-    // Ranges and counts from the standard's example table, as given in domain.md.
+    // Ranges and counts from the standard's example table (ASTM E1049-85, 5.4.4).
     expect(countsByRange(rainflow(ASTM_EXAMPLE))).toEqual({ 3: 0.5, 4: 1.5, 6: 0.5, 8: 1, 9: 0.5 });
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { DETAIL_CATEGORIES, cyclesToFailure, snCurveLimits } from "@/lib/fatigue";
 
-// S-N curve shape of EN 1993-1-9, from memory, as stated in domain.md: Δσ_C at 2×10⁶ cycles,
+// S-N curve shape of EN 1993-1-9, from memory: Δσ_C at 2×10⁶ cycles,
 // m = 3 to Δσ_D at 5×10⁶, m = 5 to Δσ_L at 10⁸, no damage below Δσ_L.
 
 function expectRelativelyClose(actual: number, expected: number, tolerance = 1e-9) {
@@ -26,7 +26,7 @@ describe("S-N curve by detail category", () => {
   });
 
   it.each(CATEGORIES)("category %i has knees at 0.737·Δσ_C and 0.549·Δσ_D", (category) => {
-    // The ratios as the brief rounds them to three figures (EN 1993-1-9, from memory).
+    // EN 1993-1-9 (from memory); the ratios follow from the slopes: (2/5)^(1/3) = 0.737, (5/100)^(1/5) = 0.549.
     const { referenceRange, constantAmplitudeLimit, cutOffLimit } = snCurveLimits(category);
     expect(referenceRange).toBe(category);
     expect(constantAmplitudeLimit / category).toBeCloseTo(0.737, 3);

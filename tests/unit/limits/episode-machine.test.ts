@@ -2,9 +2,9 @@ import { describe, expect, it } from "vitest";
 import { backtest, evaluateReadings, initialEpisodeState, replay, type EpisodeState, type Limit, type Reading } from "@/lib/limits";
 import { MINUTE, limitSet, series } from "./fixtures";
 
-// Rules under test: api-v1.md "Limits and alerts" (open after `persistence` readings beyond, escalate
-// within the episode, clear after `persistence` readings back inside by `hysteresis`) and the dead band
-// and persistence count of domain.md "Alerts as the trade uses them" (common practice).
+// Rules under test (common practice of alarm handling): open after `persistence` readings beyond,
+// escalate within the episode, clear after `persistence` readings back inside by `hysteresis` (a
+// dead band, so a signal hovering at the bound does not chatter).
 
 function eventsOf(limits: Limit[], readings: Reading[]) {
   return evaluateReadings(limits, initialEpisodeState(), readings).events;

@@ -16,7 +16,7 @@ describe("limit lines", () => {
     expect(limitLines(limits, "strain", asIs)).toEqual([{ value: 800, level: "warning", text: "warning upper" }]);
   });
 
-  it("puts utilisation bounds on the stress chart at bound × yield (utilisation = |σ| / yield, API contract)", () => {
+  it("puts utilisation bounds on the stress chart at bound × yield (utilisation = |σ| / yield, the ratio the stress check takes, common practice)", () => {
     const limits = [limit("utilisation", "warning", { upper: 0.6 })];
     expect(limitLines(limits, "stress", asIs, 355)).toEqual([{ value: 213, level: "warning", text: "warning upper (60 % of yield)" }]);
     expect(limitLines(limits, "stress", asIs, null)).toEqual([]);

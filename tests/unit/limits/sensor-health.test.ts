@@ -19,7 +19,7 @@ import {
 } from "@/lib/limits";
 import { MINUTE, limitSet } from "./fixtures";
 
-// The four sensor faults are those of domain.md "Alerts as the trade uses them" (common practice):
+// The four sensor faults monitoring practice looks for (common practice):
 // no data for too long, a flat line, a jump no structure can make, a reading outside the sensor's range.
 // Thresholds here are examples chosen for the tests, not recommendations.
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { validateLimits, type LimitInput, type LimitProblem } from "@/lib/limits";
 
-// Every refusal below comes from the API contract (api-v1.md, "Limits and alerts") and the issue's
-// "Bad input" list; the ordering of levels is the escalation described in domain.md (common practice).
+// Each refusal is a limit no alarm could act on (an upper bound below its lower one, a negative dead
+// band, a level named twice); levels escalate watch → warning → critical (common practice).
 
 function problemsOf(inputs: LimitInput[]): LimitProblem[] {
   const result = validateLimits(inputs);

@@ -12,6 +12,7 @@ describe("retry schedule", () => {
 
 describe("what a failed send means", () => {
   // Error shapes as nodemailer 7 reports them (lib/smtp-connection: responseCode parsed from the answer).
+  // RFC 5321 §4.2.1: a 5yz reply is a permanent negative completion, 4yz a transient one.
   it("reads a 5xx answer as refused, a 4xx answer as later, and no answer as a relay problem", () => {
     expect(classifySendFailure({ code: "EENVELOPE", responseCode: 550, response: "550 5.1.1 No mailbox" })).toEqual({ kind: "refused", answer: "550 5.1.1 No mailbox" });
     expect(classifySendFailure({ code: "EENVELOPE", responseCode: 452, response: "452 4.2.2 Mailbox full" }).kind).toBe("later");

@@ -42,7 +42,7 @@ const layout = fc.constantFrom<RosetteLayout>("rectangular", "delta");
 describe("rectangular rosette", () => {
   it("matches the published principal strains and angle", () => {
     // εa 500, εb 300, εc −100: (εa+εc)/2 = 200, ½·√(600² + 200²) = 316.2278,
-    // θp = ½·atan2(200, 600) = 9.2175° (Dally & Riley, rosette chapter; domain.md)
+    // θp = ½·atan2(200, 600) = 9.2175° (Dally & Riley, rosette chapter)
     const result = analysed("rectangular", [500, 300, -100]);
     expectClose(result.epsilon1, 516.2277660168, 1e-10);
     expectClose(result.epsilon2, -116.2277660168, 1e-10);
@@ -56,7 +56,7 @@ describe("rectangular rosette", () => {
     expectClose(result.tauMax, 48.650425541, 1e-9);
   });
 
-  it("keeps εa + εc = ε1 + ε2 (domain.md invariant)", () => {
+  it("keeps εa + εc = ε1 + ε2 (strain invariant: the trace does not depend on the axes)", () => {
     const strain = fc.double({ min: -3000, max: 3000, noNaN: true });
     fc.assert(
       fc.property(strain, strain, strain, (a, b, c) => {
@@ -68,7 +68,7 @@ describe("rectangular rosette", () => {
 });
 
 describe("delta rosette", () => {
-  it("matches the closed form ε₁,₂ = (εa+εb+εc)/3 ± (√2/3)·√((εa−εb)²+(εb−εc)²+(εc−εa)²) (domain.md)", () => {
+  it("matches the closed form ε₁,₂ = (εa+εb+εc)/3 ± (√2/3)·√((εa−εb)²+(εb−εc)²+(εc−εa)²) (Dally & Riley, rosette chapter)", () => {
     const strain = fc.double({ min: -3000, max: 3000, noNaN: true });
     fc.assert(
       fc.property(strain, strain, strain, (a, b, c) => {

@@ -30,7 +30,7 @@ function foilOnHost(material: Material, gaugeCte: number): GaugeConfig {
   });
 }
 
-describe("physical invariants (domain.md, physics check values)", () => {
+describe("physical invariants of linear thermoelasticity", () => {
   it("steel bar heated 20 °C: free gives σ = 0, fully restrained gives −48 MPa", () => {
     // gauge matched to 11 µε/°C on steel of 12 µε/°C, so the correction is not trivially zero
     const gauge = prepared(foilOnHost(CHECK_STEEL, 11));
@@ -102,7 +102,7 @@ describe("vibrating wire in concrete: steel wire and concrete expand differently
   });
 });
 
-describe("thermal-output polynomial (domain.md: ε_mech = ε_ind − (P(T) − P(T₀)))", () => {
+describe("thermal-output polynomial of a gauge lot: ε_mech = ε_ind − (P(T) − P(T₀)) (common practice)", () => {
   it("subtracts the change of thermal output between zero and reading temperatures", () => {
     // P(T) = −30 + 2.5T − 0.05T²: P(20) = −30 + 50 − 20 = 0, P(40) = −30 + 100 − 80 = −10;
     // 100 µε read at 40 °C → 100 − (−10 − 0) = 110 µε

@@ -18,7 +18,7 @@ import {
 const YEAR_2026 = Date.UTC(2026, 0, 1);
 
 describe("bucket accumulator", () => {
-  // The API contract: a bucket's largest and smallest stored values are never lost, so a
+  // The series promise (OpenAPI document): a bucket's largest and smallest stored values are never lost, so a
   // single-reading spike in a year of data must show.
   it("keeps a single spike and a single dip in a year of one-minute readings at 1000 buckets", () => {
     const minutes = 365 * 24 * 60;

@@ -14,7 +14,7 @@ describe("chart data", () => {
     expect(pairByTime(series([1, 2, 3], [10, 20, 30]), series([2, 3, 4], [5, 6, 7]))).toEqual({ x: [20, 30], y: [5, 6] });
   });
 
-  // Free thermal expansion of steel: ε = α·ΔT with α = 12 µε/°C (trade brief, physics check values):
+  // Free thermal expansion of steel: ε = α·ΔT with α = 12 µε/°C (handbook value for steel, from memory):
   // a gauge reading total strain against temperature has slope 12.
   it("recovers a known slope by least squares", () => {
     const temperatures = [0, 5, 10, 15, 20];
