@@ -35,6 +35,12 @@ export type GaugeTableRow = {
 };
 
 const column = createColumnHelper<GaugeTableRow>();
+
+/** The tag stays in view while a phone scrolls the numbers sideways inside the table's frame. */
+const STICKY_CELL = "sticky left-0 z-10 whitespace-nowrap bg-white dark:bg-slate-900";
+/** Words wrap so the numbers keep their room: the table fits 1280 px with every column shown. */
+const WRAPPED_CELL = "min-w-[8rem] max-w-[15rem] whitespace-normal text-xs";
+const cellClassOf = (meta: unknown) => (meta as { cellClass?: string } | undefined)?.cellClass ?? "whitespace-nowrap tabular-nums";
 const fixed = (value: number | null, digits: number) => (value === null || !Number.isFinite(value) ? "—" : value.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits }));
 
 /** The structure's gauges with their current values: sortable, filterable, units as the person chose. */
@@ -48,6 +54,15 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
 
   const columns = useMemo(
     () => [
+      column.accessor("tag", {
+        header: "Gauge",
+        meta: { cellClass: STICKY_CELL },
+        cell: (info) => (
+          <Link href={`/structures/${structureCode}/gauges/${encodeURIComponent(info.getValue())}`} className="font-mono font-medium text-accent underline">
+            {info.getValue()}
+          </Link>
+        ),
+      }),
       // The words are the filter's text, so "sensor fault" or "stale" finds those gauges.
       column.accessor((row) => conditionText(row.condition, row.retired), {
         id: "state",
@@ -55,16 +70,8 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
         sortingFn: (a, b) => Number(a.original.retired) - Number(b.original.retired) || bySeverity(a.original.condition.state, b.original.condition.state),
         cell: (info) => <ConditionBadge condition={info.row.original.condition} retired={info.row.original.retired} />,
       }),
-      column.accessor("tag", {
-        header: "Gauge",
-        cell: (info) => (
-          <Link href={`/structures/${structureCode}/gauges/${encodeURIComponent(info.getValue())}`} className="font-mono font-medium text-accent underline">
-            {info.getValue()}
-          </Link>
-        ),
-      }),
-      column.accessor((row) => [row.label, row.member].filter(Boolean).join(" · "), { id: "where", header: "Where" }),
-      column.accessor("sensor", { header: "Sensor" }),
+      column.accessor((row) => [row.label, row.member].filter(Boolean).join(" · "), { id: "where", header: "Where", meta: { cellClass: WRAPPED_CELL } }),
+      column.accessor("sensor", { header: "Sensor", meta: { cellClass: WRAPPED_CELL } }),
       column.accessor("strain", { header: "Strain (µε)", cell: (info) => fixed(info.getValue(), 0) }),
       column.accessor("stress", {
         header: `Stress (${stressUnit})`,
@@ -98,7 +105,8 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
         Filter gauges
         <input className={inputClass} value={filter} onChange={(event) => setFilter(event.target.value)} placeholder="tag, member, state…" />
       </label>
-      <div className={`${cardClass} overflow-x-auto`}>
+      {/* Focusable, so a keyboard can scroll the table's own frame on a narrow screen. */}
+      <div className={`${cardClass} overflow-x-auto`} tabIndex={0} role="region" aria-label="Gauges table, scrolls sideways">
         <table className={tableClass} aria-label="Gauges">
           <thead>
             {table.getHeaderGroups().map((group) => (
@@ -106,7 +114,7 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
                 {group.headers.map((header) => {
                   const sorted = header.column.getIsSorted();
                   return (
-                    <th key={header.id} className={thClass} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                    <th key={header.id} className={`${thClass} ${header.column.id === "tag" ? STICKY_CELL : ""}`} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
                       <button type="button" className="inline-flex items-center gap-1" onClick={header.column.getToggleSortingHandler()}>
                         {flexRender(header.column.columnDef.header, header.getContext())}
                         <span aria-hidden>{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : ""}</span>
@@ -121,7 +129,7 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} data-testid="gauge-row">
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className={`${tdClass} whitespace-nowrap tabular-nums`}>
+                  <td key={cell.id} className={`${tdClass} ${cellClassOf(cell.column.columnDef.meta)}`}>
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}

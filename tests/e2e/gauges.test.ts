@@ -118,8 +118,8 @@ describe("an engineer", () => {
     await new SignInPage(engineer).signInAs("engineer");
     await engineer.goto("/structures/MILL-FB/gauges/E2E-Q1b");
     const actions = await engineer.getByTestId("audit-row").allTextContents();
-    expect(actions.join("\n")).toMatch(/gauge\.replace/);
-    expect(actions.join("\n")).toMatch(/gauge\.zero/);
+    expect(actions.join("\n")).toMatch(/replaced/);
+    expect(actions.join("\n")).toMatch(/new zero/);
     expect(actions.join("\n")).toMatch(/technician@hookeline\.example/);
     await saveScreenshot(engineer, "gauge-page-engineer");
   });

@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import { inputUnit } from "@/lib/gauges/labels";
 import Link from "next/link";
 import { format } from "date-fns";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
@@ -17,6 +16,8 @@ import { buttonClass, cardClass, tableClass, tdClass, thClass } from "@/componen
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
+import { actionInWords, describeChange } from "@/lib/audit/describe-change";
+import { inputUnit } from "@/lib/gauges/labels";
 import { listGaugePhotos } from "@/lib/services/files";
 import { listAlerts, listGaugeEpisodes } from "@/lib/services/alerts";
 import { AlertFilters } from "@/components/alerts/alert-filters";
@@ -40,14 +41,20 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 const when = (date: Date | string) => format(typeof date === "string" ? new Date(date) : date, "yyyy-MM-dd HH:mm");
 
-function changeText(before: unknown, after: unknown): string {
-  const show = (value: unknown) => (value && typeof value === "object" ? JSON.stringify(value) : String(value ?? "—"));
-  if (!before || typeof before !== "object") return after ? show(after) : "";
-  const b = before as Record<string, unknown>;
-  const a = (after ?? {}) as Record<string, unknown>;
-  return Object.keys({ ...b, ...a })
-    .map((key) => `${key}: ${show(b[key])} → ${show(a[key])}`)
-    .join("; ");
+/** Each changed field on a line of its own: name, old → new, in words and units. */
+function ChangeList({ before, after }: { before: unknown; after: unknown }) {
+  const changes = describeChange(before, after);
+  if (changes.length === 0) return <span className="text-slate-500">no field changed</span>;
+  return (
+    <ul className="space-y-0.5">
+      {changes.map((change) => (
+        <li key={change.field} data-testid="audit-change">
+          <span className="font-medium">{change.field}:</span> {change.from === "—" ? "" : <>{change.from} → </>}
+          {change.to}
+        </li>
+      ))}
+    </ul>
+  );
 }
 
 export default async function GaugePage({ params, searchParams }: Props) {
@@ -253,9 +260,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
                     <td className={`${tdClass} whitespace-nowrap`}>{when(entry.at)}</td>
                     <td className={tdClass}>{entry.actorLabel}</td>
                     <td className={tdClass}>
-                      {entry.action} <span className="font-mono text-xs">{entry.entityKey.split("/")[1]}</span>
+                      <span title={entry.action}>{actionInWords(entry.action)}</span> <span className="font-mono text-xs">{entry.entityKey.split("/")[1]}</span>
                     </td>
-                    <td className={`${tdClass} max-w-md break-words font-mono text-xs`}>{changeText(entry.before, entry.after)}</td>
+                    <td className={`${tdClass} max-w-md break-words text-xs`}>
+                      <ChangeList before={entry.before} after={entry.after} />
+                    </td>
                   </tr>
                 ))}
               </tbody>
