@@ -2,10 +2,13 @@
 
 import { useMemo, useState, useTransition } from "react";
 import { FormMessage } from "@/components/ui/form-message";
-import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import type { ActionState } from "@/lib/actions/action-state";
 import type { AlertEpisode } from "@/lib/alerting/episodes";
 import { LEVELS, type Limit } from "@/lib/limits";
+import { boundText, formatLimitValue, limitScale, type LimitScale } from "@/lib/limits/display-scale";
+import type { UnitSystem } from "@/lib/units";
+import { useUnits } from "@/components/units/units-context";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { RosetteLimitChart } from "@/components/charts/rosette-charts";
 
@@ -13,16 +16,37 @@ import { RosetteLimitChart } from "@/components/charts/rosette-charts";
 export const GAUGE_QUANTITY_UNITS: Readonly<Record<string, string>> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
 const DAY = 86_400_000;
 
-type Row = { quantity: string; level: string; upper: string; lower: string; hysteresis: string; persistence: string };
+type ScaledField = "upper" | "lower" | "hysteresis";
+const SCALED_FIELDS: readonly ScaledField[] = ["upper", "lower", "hysteresis"];
 
-const rowOf = (limit: Limit<string>): Row => ({
-  quantity: limit.quantity,
-  level: limit.level,
-  upper: limit.upper?.toString() ?? "",
-  lower: limit.lower?.toString() ?? "",
-  hysteresis: String(limit.hysteresis),
-  persistence: String(limit.persistence),
-});
+/**
+ * A limit as typed, bounds in the person's units. `stored` keeps each saved SI value with the text it
+ * was shown as, so a bound nobody touched is saved exactly as it was, not re-converted from a
+ * rounded ksi or % figure.
+ */
+type Row = {
+  quantity: string;
+  level: string;
+  upper: string;
+  lower: string;
+  hysteresis: string;
+  persistence: string;
+  stored: Partial<Record<ScaledField, { text: string; value: number; quantity: string }>>;
+};
+
+type Scales = (quantity: string) => LimitScale;
+
+function rowOf(limit: Limit<string>, scaleOf: Scales): Row {
+  const scale = scaleOf(limit.quantity);
+  const row: Row = { quantity: limit.quantity, level: limit.level, upper: "", lower: "", hysteresis: "", persistence: String(limit.persistence), stored: {} };
+  for (const field of SCALED_FIELDS) {
+    const value = limit[field];
+    if (value == null) continue;
+    row[field] = boundText(value, scale);
+    row.stored[field] = { text: row[field], value, quantity: limit.quantity };
+  }
+  return row;
+}
 
 function numberOrText(text: string): number | string | undefined {
   const trimmed = text.trim().replace(",", ".");
@@ -30,26 +54,38 @@ function numberOrText(text: string): number | string | undefined {
   return Number.isFinite(Number(trimmed)) ? Number(trimmed) : trimmed;
 }
 
-const payloadOf = (rows: Row[]) => ({
+/** A bound in the API's unit: the saved value when untouched, else the typed one converted. */
+function storedBound(row: Row, field: ScaledField, scaleOf: Scales): number | string | undefined {
+  const kept = row.stored[field];
+  if (kept && kept.text === row[field] && kept.quantity === row.quantity) return kept.value;
+  const typed = numberOrText(row[field]);
+  return typeof typed === "number" ? scaleOf(row.quantity).fromDisplay(typed) : typed;
+}
+
+const payloadOf = (rows: Row[], scaleOf: Scales) => ({
   limits: rows.map((row) => ({
     quantity: row.quantity,
     level: row.level,
-    upper: numberOrText(row.upper),
-    lower: numberOrText(row.lower),
-    hysteresis: numberOrText(row.hysteresis),
+    upper: storedBound(row, "upper", scaleOf),
+    lower: storedBound(row, "lower", scaleOf),
+    hysteresis: storedBound(row, "hysteresis", scaleOf),
     persistence: numberOrText(row.persistence),
   })),
 });
 
-/** The bounds as typed so far, for drawing: rows that are not numbers yet are left out. */
-function proposedLimits(rows: Row[]): Limit<string>[] {
+/** The bounds as typed so far, in the API's units for drawing: rows that are not numbers yet are left out. */
+function proposedLimits(rows: Row[], scaleOf: Scales): Limit<string>[] {
   return rows.flatMap((row) => {
-    const upper = Number(row.upper);
-    const lower = Number(row.lower);
-    const bounds = { ...(row.upper.trim() && Number.isFinite(upper) ? { upper } : {}), ...(row.lower.trim() && Number.isFinite(lower) ? { lower } : {}) };
+    const upper = storedBound(row, "upper", scaleOf);
+    const lower = storedBound(row, "lower", scaleOf);
+    const bounds = { ...(typeof upper === "number" ? { upper } : {}), ...(typeof lower === "number" ? { lower } : {}) };
     if (Object.keys(bounds).length === 0) return [];
     return [{ quantity: row.quantity, level: row.level as Limit["level"], hysteresis: 0, persistence: 1, ...bounds }];
   });
+}
+
+function scalesFor(quantities: Readonly<Record<string, string>>, system: UnitSystem): Scales {
+  return (quantity) => limitScale(quantities[quantity] ?? "", system);
 }
 
 type Backtest = { readingsChecked: number; episodes: AlertEpisode<string>[] } | { error: string };
@@ -75,7 +111,7 @@ export function LimitsEditor({
   canEdit,
   save,
   quantities = GAUGE_QUANTITY_UNITS,
-  unitsNote = "Bounds in the quantity's unit: stress MPa (including the initial stress), strain µε, utilisation as a fraction of yield (0.6 = 60 %).",
+  unitsNote = "Bounds in the quantity's unit: stress including the initial stress, strain in µε, utilisation in % of yield (60 = 60 % of the yield stress).",
   gauge,
   rosette,
 }: {
@@ -100,13 +136,15 @@ export function LimitsEditor({
   };
 }) {
   const names = Object.keys(quantities);
-  const [rows, setRows] = useState<Row[]>(initial.map(rowOf));
+  const system = useUnits();
+  const scaleOf = useMemo(() => scalesFor(quantities, system), [quantities, system]);
+  const [rows, setRows] = useState<Row[]>(() => initial.map((limit) => rowOf(limit, scaleOf)));
   const [state, setState] = useState<ActionState>({ status: "idle" });
   const [days, setDays] = useState("30");
   const [backtest, setBacktest] = useState<Backtest | null>(null);
   const [pending, startTransition] = useTransition();
   // Kept while the rows are unchanged, so a chart is not built again on every other state change.
-  const drawn = useMemo(() => proposedLimits(rows), [rows]);
+  const drawn = useMemo(() => proposedLimits(rows, scaleOf), [rows, scaleOf]);
   const errors = state.fieldErrors ?? {};
   const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
 
@@ -118,14 +156,14 @@ export function LimitsEditor({
     const response = await fetch(`/api/v1/structures/${structureCode}/${owner}/${encodeURIComponent(tag)}/limits/backtest`, {
       method: "POST",
       headers: { "content-type": "application/json" },
-      body: JSON.stringify({ ...payloadOf(rows), from: new Date(to - Number(days) * DAY).toISOString(), to: new Date(to).toISOString() }),
+      body: JSON.stringify({ ...payloadOf(rows, scaleOf), from: new Date(to - Number(days) * DAY).toISOString(), to: new Date(to).toISOString() }),
     });
     const body = await response.json();
     setBacktest(response.ok ? body : { error: body.error?.message ?? "The check failed." });
   }
 
   function submit() {
-    startTransition(async () => setState(await save(payloadOf(rows))));
+    startTransition(async () => setState(await save(payloadOf(rows, scaleOf))));
   }
 
   const chart = gauge
@@ -145,78 +183,83 @@ export function LimitsEditor({
       )
     : rosette && <RosetteLimitChart structureCode={structureCode} tag={tag} timeZone={timeZone} limits={drawn} range={{ from: rosette.end - 30 * DAY, to: rosette.end }} />;
 
-  const cell = (index: number, field: keyof Row, label: string) => {
-    const problem = errors[`limits.${index}.${field}`];
+  const field = (index: number, name: Exclude<keyof Row, "stored" | "quantity" | "level">, label: string, unit: string) => {
+    const problem = errors[`limits.${index}.${name}`];
+    const id = `limit-${index}-${name}`;
     return (
-      <td className={tdClass}>
+      <div className="min-w-0">
+        <label htmlFor={id} className="block text-xs font-medium text-slate-600 dark:text-slate-400">
+          {label}
+          {unit && <span className="font-normal"> ({unit})</span>}
+        </label>
         <input
+          id={id}
           aria-label={`${label}, limit ${index + 1}`}
-          className={`${inputClass} w-24`}
+          className={inputClass}
           inputMode="decimal"
-          value={rows[index]![field]}
+          value={rows[index]![name]}
           disabled={!canEdit}
           aria-invalid={problem ? true : undefined}
-          onChange={(event) => update(index, field, event.target.value)}
+          onChange={(event) => update(index, name, event.target.value)}
         />
-        {problem && <p className="mt-1 max-w-48 text-xs text-critical">{problem.join(" ")}</p>}
-      </td>
+        {problem && <p className="mt-1 text-xs text-critical">{problem.join(" ")}</p>}
+      </div>
     );
   };
 
+  const choice = (index: number, name: "quantity" | "level", label: string, options: [string, string][]) => (
+    <div className="min-w-0">
+      <label htmlFor={`limit-${index}-${name}`} className="block text-xs font-medium text-slate-600 dark:text-slate-400">
+        {label}
+      </label>
+      <select
+        id={`limit-${index}-${name}`}
+        aria-label={`${label}, limit ${index + 1}`}
+        className={inputClass}
+        value={rows[index]![name]}
+        disabled={!canEdit}
+        onChange={(e) => update(index, name, e.target.value)}
+      >
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+      {errors[`limits.${index}.${name}`] && <p className="mt-1 text-xs text-critical">{errors[`limits.${index}.${name}`]!.join(" ")}</p>}
+    </div>
+  );
+
   return (
     <div className="space-y-6">
-      <div className={`${cardClass} overflow-x-auto`}>
-        <table className={tableClass} aria-label="Limits">
-          <thead>
-            <tr>
-              <th className={thClass}>Quantity</th>
-              <th className={thClass}>Level</th>
-              <th className={thClass}>Upper</th>
-              <th className={thClass}>Lower</th>
-              <th className={thClass}>Dead band</th>
-              <th className={thClass}>Readings in a row</th>
-              <th className={thClass}>
-                <span className="sr-only">Remove</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
-            {rows.map((row, index) => (
-              <tr key={index} data-testid="limit-row">
-                <td className={tdClass}>
-                  <select aria-label={`Quantity, limit ${index + 1}`} className={inputClass} value={row.quantity} disabled={!canEdit} onChange={(e) => update(index, "quantity", e.target.value)}>
-                    {names.map((quantity) => (
-                      <option key={quantity} value={quantity}>
-                        {quantity} ({quantities[quantity]})
-                      </option>
-                    ))}
-                  </select>
-                </td>
-                <td className={tdClass}>
-                  <select aria-label={`Level, limit ${index + 1}`} className={inputClass} value={row.level} disabled={!canEdit} onChange={(e) => update(index, "level", e.target.value)}>
-                    {LEVELS.map((level) => (
-                      <option key={level}>{level}</option>
-                    ))}
-                  </select>
-                  {errors[`limits.${index}.level`] && <p className="mt-1 max-w-48 text-xs text-critical">{errors[`limits.${index}.level`]!.join(" ")}</p>}
-                </td>
-                {cell(index, "upper", "Upper bound")}
-                {cell(index, "lower", "Lower bound")}
-                {cell(index, "hysteresis", "Dead band")}
-                {cell(index, "persistence", "Readings in a row")}
-                <td className={tdClass}>
-                  {canEdit && (
-                    <button type="button" className="text-sm text-critical underline" onClick={() => setRows((all) => all.filter((_, i) => i !== index))}>
-                      Remove
-                    </button>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+      <div className="space-y-3" role="list" aria-label="Limits">
+        {rows.map((row, index) => {
+          const unit = scaleOf(row.quantity).unit;
+          return (
+            <div
+              key={index}
+              role="listitem"
+              data-testid="limit-row"
+              className={`${cardClass} grid grid-cols-2 items-end gap-3 p-3 sm:grid-cols-3 lg:grid-cols-[minmax(11rem,1.4fr)_minmax(8rem,1fr)_repeat(4,minmax(6rem,1fr))_auto]`}
+            >
+              {choice(index, "quantity", "Quantity", names.map((quantity) => [quantity, `${quantity} (${scaleOf(quantity).unit})`]))}
+              {choice(index, "level", "Level", LEVELS.map((level) => [level, level]))}
+              {field(index, "upper", "Upper bound", unit)}
+              {field(index, "lower", "Lower bound", unit)}
+              {field(index, "hysteresis", "Dead band", unit)}
+              {field(index, "persistence", "Readings in a row", "")}
+              <div className="pb-2">
+                {canEdit && (
+                  <button type="button" className="text-sm text-critical underline" onClick={() => setRows((all) => all.filter((_, i) => i !== index))}>
+                    Remove<span className="sr-only"> limit {index + 1}</span>
+                  </button>
+                )}
+              </div>
+            </div>
+          );
+        })}
         {rows.length === 0 && (
-          <p className="p-4 text-sm text-slate-600">
+          <p className={`${cardClass} p-4 text-sm text-slate-600 dark:text-slate-400`}>
             {gauge ? "No limits: this gauge raises no limit alerts (sensor faults are still reported)." : "No limits: this rosette raises no limit alerts."}
           </p>
         )}
@@ -229,7 +272,7 @@ export function LimitsEditor({
           <button
             type="button"
             className={buttonClass("secondary")}
-            onClick={() => setRows((all) => [...all, { quantity: names[0]!, level: LEVELS[Math.min(all.length, 2)]!, upper: "", lower: "", hysteresis: "0", persistence: "1" }])}
+            onClick={() => setRows((all) => [...all, { quantity: names[0]!, level: LEVELS[Math.min(all.length, 2)]!, upper: "", lower: "", hysteresis: "0", persistence: "1", stored: {} }])}
           >
             Add a limit
           </button>
@@ -280,7 +323,7 @@ export function LimitsEditor({
               <ul className="mt-2 space-y-1 text-sm">
                 {backtest.episodes.slice(0, LISTED_EPISODES).map((episode) => (
                   <li key={`${episode.quantity}-${episode.openedAt}`}>
-                    {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {episode.peak.toFixed(episode.quantity === "utilisation" ? 3 : 1)} {quantities[episode.quantity]},{" "}
+                    {episode.level} on {episode.quantity}: opened {local(episode.openedAt)}, peak {formatLimitValue(episode.peak, scaleOf(episode.quantity))},{" "}
                     {episode.clearedAt ? `cleared ${local(episode.clearedAt)}` : "still open at the end"}
                   </li>
                 ))}

@@ -66,7 +66,7 @@ export default async function RosettePage({ params }: Props) {
           canEdit={canEdit}
           save={saveRosetteLimitsAction.bind(null, code, tag)}
           quantities={ROSETTE_QUANTITY_UNITS}
-          unitsNote="Bounds in MPa: von Mises stress, and the principal stresses σ₁ (the larger) and σ₂."
+          unitsNote="Bounds are stresses, in the units you chose: von Mises stress, and the principal stresses σ₁ (the larger) and σ₂."
           rosette={{ end }}
         />
       </section>
