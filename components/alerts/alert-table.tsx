@@ -2,12 +2,13 @@ import Link from "next/link";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { AlertView } from "@/lib/services/alerts";
+import type { UnitSystem } from "@/lib/units";
 import { LevelBadge, StateBadge, alertPlaceLabel, alertSummary } from "./alert-badges";
 
 const when = (iso: string, timeZone: string) =>
   new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
 
-export function AlertTable({ alerts, timeZones }: { alerts: AlertView[]; timeZones: Record<string, string> }) {
+export function AlertTable({ alerts, timeZones, units = "si" }: { alerts: AlertView[]; timeZones: Record<string, string>; units?: UnitSystem }) {
   if (alerts.length === 0) {
     return (
       <EmptyState title="No alerts match">
@@ -39,7 +40,7 @@ export function AlertTable({ alerts, timeZones }: { alerts: AlertView[]; timeZon
                 </Link>
                 <span className="block text-xs text-slate-500">{alert.kind === "sensor" ? "sensor fault" : "limit"}</span>
               </td>
-              <td className={tdClass}>{alertSummary(alert)}</td>
+              <td className={tdClass}>{alertSummary(alert, units)}</td>
               <td className={`${tdClass} whitespace-nowrap`}>{when(alert.openedAt, timeZones[alert.structure] ?? "UTC")}</td>
               <td className={tdClass}>
                 <StateBadge alert={alert} />

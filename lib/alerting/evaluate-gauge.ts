@@ -1,3 +1,4 @@
+import { inputUnit } from "@/lib/gauges/labels";
 import {
   evaluateReadings,
   initialEpisodeState,
@@ -63,7 +64,9 @@ const RAW_RANGE: Record<string, { min: number; max: number }> = {
  * They are defaults only, like the limits themselves.
  */
 export function defaultHealthThresholds(input: string): SensorHealthThresholds {
-  return { flatLine: { readings: 36, epsilon: 0 }, jump: { maxStep: 1_500 }, range: RAW_RANGE[input] };
+  const unit = inputUnit(input);
+  const range = RAW_RANGE[input];
+  return { flatLine: { readings: 36, epsilon: 0, unit }, jump: { maxStep: 1_500 }, range: range && { ...range, unit } };
 }
 
 /** A stored gauge's setup, the same for live ingestion, the backtests and the rosettes on it. */

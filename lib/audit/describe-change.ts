@@ -1,3 +1,4 @@
+import { quantityScale } from "@/lib/limits/display-scale";
 import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, inputName, inputUnit } from "@/lib/gauges/labels";
 
 /** One changed field of an audit entry, in words: "Gauge factor: 2.08 → 2.09". */
@@ -12,12 +13,11 @@ const number = (value: unknown) => (typeof value === "number" ? value.toLocaleSt
 const withUnit = (unit: string) => (value: unknown) => `${number(value)} ${unit}`;
 
 const LIMIT_LEVEL_ORDER = ["watch", "warning", "critical"];
-const LIMIT_UNITS: Record<string, string> = { stress: "MPa", strain: "µε", residual: "µε", sigma1: "MPa", sigma2: "MPa", vonMises: "MPa" };
-
+/** A bound as it was typed (not rounded: the audit keeps what was set), in its unit. */
 function limitValue(quantity: string, value: unknown): string {
   if (typeof value !== "number") return "—";
-  if (quantity === "utilisation") return `${number(Math.round(value * 1e6) / 1e4)} % of yield`;
-  return `${number(value)} ${LIMIT_UNITS[quantity] ?? ""}`.trim();
+  const scale = quantityScale(quantity);
+  return `${number(Math.round(scale.toDisplay(value) * 1e6) / 1e6)} ${scale.unit}`.trim();
 }
 
 /** "stress warning: above 150 MPa, below −20 MPa, dead band 10 MPa, 2 readings in a row". */

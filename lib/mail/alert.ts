@@ -1,5 +1,5 @@
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits/limit";
-import { formatMicrostrain, formatShareOfYield } from "@/lib/units";
+import { formatQuantity, quantityScale } from "@/lib/limits/display-scale";
 import { formatInTimeZone } from "@/lib/time-format";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -29,12 +29,6 @@ export const ALERT_CAUTION =
   "What a limit means is the responsibility of the engineer who set it, under local codes. " +
   "Monitoring supplements inspection and never replaces it; mail can be delayed, so check in the app when data last arrived.";
 
-/** "212.4 MPa", "1,234 µε", "87 % of yield"; a rosette's quantities are stresses. */
-export function formatQuantityValue(quantity: AlertEventFacts["quantity"], value: number): string {
-  if (quantity === "strain") return formatMicrostrain(value);
-  if (quantity === "utilisation") return formatShareOfYield(value);
-  return `${value.toFixed(1)} MPa`;
-}
 
 /** How the e-mails name a quantity: a rosette's by its symbol rather than the API's name. */
 const QUANTITY_NAME: Record<AlertEventFacts["quantity"], string> = {
@@ -67,8 +61,8 @@ const EVENT_WORDING: Record<AlertMailEvent, string> = {
 
 /** The wording of one event ("stress crossed the warning limit", value, bound), shared with the digest. */
 export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string } {
-  const value = formatQuantityValue(facts.quantity, facts.value);
-  const bound = `${facts.bound.side} ${formatQuantityValue(facts.quantity, facts.bound.value)}`;
+  const value = formatQuantity(facts.quantity, facts.value);
+  const bound = `${facts.bound.side} ${formatQuantity(facts.quantity, facts.bound.value)}`;
   const headline = `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
   return { headline, value, bound };
 }
@@ -85,7 +79,7 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
     [input.rosette ? "Gauge a" : "Gauge", gauge.label ? `${gauge.tag}, ${gauge.label}` : gauge.tag],
     ["Location", gauge.location || "not recorded"],
     ["Level", input.level],
-    ["Quantity", `${QUANTITY_NAME[input.quantity]} (${input.quantity})`],
+    ["Quantity", `${QUANTITY_NAME[input.quantity]} (${quantityScale(input.quantity).unit})`],
     ["Value", value],
     ["Bound", bound],
     ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],

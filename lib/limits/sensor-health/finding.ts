@@ -56,6 +56,12 @@ export function stepOnce<Thresholds, State, Work>(detector: Detector<Thresholds,
  * A lasting condition gives a finding only at the reading where it begins or ends, so each batch
  * does not re-raise it; detectors compare before calling, so the message is built only then.
  */
+/** A number in a finding's message: six significant figures at most and its unit ("2,598.28 µε"). */
+export function messageNumber(value: number, unit = ""): string {
+  const shown = value.toLocaleString("en-US", { maximumSignificantDigits: 6 });
+  return unit ? `${shown} ${unit}` : shown;
+}
+
 export function conditionFinding(code: SensorFaultCode, isActive: boolean, time: number, message: string): SensorFinding {
   return { kind: "sensor", code, event: isActive ? "raised" : "resolved", time, message };
 }

@@ -1,4 +1,4 @@
-import { conditionFinding, stepOnce, type ConditionState, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
+import { conditionFinding, messageNumber, stepOnce, type ConditionState, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
 
 /**
  * A live gauge always shows some noise; `readings` consecutive raw values whose range (max − min)
@@ -8,6 +8,8 @@ import { conditionFinding, stepOnce, type ConditionState, type Detector, type De
 export interface FlatLineThresholds {
   readonly readings: number;
   readonly epsilon: number;
+  /** The raw unit, for the message ("mV/V", "Hz"). */
+  readonly unit?: string;
 }
 
 export interface FlatLineState extends ConditionState {
@@ -60,7 +62,7 @@ function keepRaw(size: number, work: FlatLineWork, raw: number): void {
 }
 
 function flatMessage(thresholds: FlatLineThresholds, range: number): string {
-  return `The last ${thresholds.readings} raw readings vary by only ${range} (at most ${thresholds.epsilon} is taken as flat); the gauge, its cable or the logger channel may be dead or saturated.`;
+  return `The last ${thresholds.readings} raw readings vary by only ${messageNumber(range, thresholds.unit)} (at most ${messageNumber(thresholds.epsilon, thresholds.unit)} is taken as flat); the gauge, its cable or the logger channel may be dead or saturated.`;
 }
 
 /**

@@ -1,8 +1,8 @@
-import { stepOnce, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
+import { messageNumber, stepOnce, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
 
 /**
- * The largest change between two consecutive readings the structure can plausibly make, in the
- * limited quantity's units (µε or MPa); set by the engineer from the member and the reading rate.
+ * The largest change of stress-producing strain (µε) between two consecutive readings the structure
+ * can plausibly make; set by the engineer from the member and the reading rate.
  */
 export interface JumpThresholds {
   readonly maxStep: number;
@@ -47,6 +47,6 @@ function jumpFinding(thresholds: JumpThresholds, change: number, time: number): 
     code: "jump",
     event: "raised",
     time,
-    message: `The value changed by ${change} from one reading to the next, more than the ${thresholds.maxStep} the structure can plausibly change; suspect the gauge, its bond or the logger channel before the structure.`,
+    message: `The strain changed by ${messageNumber(Math.round(change), "µε")} from one reading to the next, more than the ${messageNumber(thresholds.maxStep, "µε")} the structure can plausibly change; suspect the gauge, its bond or the logger channel before the structure.`,
   };
 }

@@ -1,9 +1,11 @@
-import { conditionFinding, stepOnce, type ConditionState, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
+import { conditionFinding, messageNumber, stepOnce, type ConditionState, type Detector, type DetectorStep, type Sample, type SensorFinding } from "./finding";
 
 /** The raw range the sensor and logger channel can report, from the gauge's data sheet. */
 export interface SensorRangeThresholds {
   readonly min: number;
   readonly max: number;
+  /** The raw unit, for the message ("mV/V", "Hz"). */
+  readonly unit?: string;
 }
 
 export const INITIAL_SENSOR_RANGE: ConditionState = { active: false };
@@ -34,5 +36,5 @@ function advanceSensorRange(thresholds: SensorRangeThresholds, work: SensorRange
 }
 
 function outsideMessage(thresholds: SensorRangeThresholds, raw: number): string {
-  return `The raw reading ${raw} is outside the sensor's range of ${thresholds.min} to ${thresholds.max}; the gauge or its wiring has probably failed.`;
+  return `The raw reading ${messageNumber(raw, thresholds.unit)} is outside the sensor's range of ${messageNumber(thresholds.min)} to ${messageNumber(thresholds.max, thresholds.unit)}; the gauge or its wiring has probably failed.`;
 }

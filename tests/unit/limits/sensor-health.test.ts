@@ -122,9 +122,14 @@ describe("jump", () => {
     expect(scan(jump, initial, [0, 500, 510, 520]).findings).toEqual(["jump raised @1"]);
   });
 
-  it("states the change and the threshold in its message", () => {
-    const { finding } = stepJump({ maxStep: 100 }, { previous: 20 }, { time: 0, raw: 0, value: -230 });
-    expect(finding!.message).toContain("changed by -250 from one reading to the next, more than the 100");
+  it("states the change and the threshold in its message, rounded and in µε", () => {
+    const { finding } = stepJump({ maxStep: 100 }, { previous: 20 }, { time: 0, raw: 0, value: -230.2770717615213 });
+    expect(finding!.message).toContain("changed by -250 µε from one reading to the next, more than the 100 µε");
+  });
+
+  it("gives a raw value outside the sensor's range its unit", () => {
+    const { finding } = stepSensorRange({ min: -5, max: 5, unit: "mV/V" }, { active: false }, { time: 0, raw: 12.345678912, value: 0 });
+    expect(finding!.message).toContain("The raw reading 12.3457 mV/V is outside the sensor's range of -5 to 5 mV/V");
   });
 });
 

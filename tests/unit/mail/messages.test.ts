@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildAlertMail, formatQuantityValue, type AlertMailInput } from "@/lib/mail/alert";
+import { buildAlertMail, type AlertMailInput } from "@/lib/mail/alert";
 import { buildDigestMail } from "@/lib/mail/digest";
 import { conditionText } from "@/lib/alerting/condition-display";
 import { formatInTimeZone } from "@/lib/time-format";
@@ -70,9 +70,13 @@ describe("alert e-mail", () => {
     );
   });
 
-  it("writes each quantity in its unit", () => {
-    expect(formatQuantityValue("strain", 1234.4)).toBe("1,234 µε");
-    expect(formatQuantityValue("utilisation", 0.874)).toBe("87 % of yield");
+  it("names the quantity with its unit and rounds the value as it is read", () => {
+    const strain = buildAlertMail({ ...alert, quantity: "strain", value: 2598.2770717615213, bound: { side: "upper", value: 220 } }, APP);
+    expect(strain.text).toContain("Quantity: strain (µε)");
+    expect(strain.text).toContain("Value: 2,598 µε");
+    const utilisation = buildAlertMail({ ...alert, quantity: "utilisation", value: 0.874, bound: { side: "upper", value: 0.8 } }, APP);
+    expect(utilisation.text).toContain("Quantity: utilisation (% of yield)");
+    expect(utilisation.text).toContain("Value: 87 % of yield");
   });
 });
 

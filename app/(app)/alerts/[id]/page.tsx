@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { unitsOf } from "@/lib/services/users";
 import Link from "next/link";
 import { LevelBadge, StateBadge, alertPlaceLabel, alertSummary } from "@/components/alerts/alert-badges";
 import { RosetteCharts } from "@/components/charts/rosette-charts";
@@ -60,7 +61,7 @@ export default async function AlertPage({ params }: Props) {
           <h2 id="what" className="flex items-center gap-2 font-semibold">
             <LevelBadge level={alert.level} /> <StateBadge alert={alert} />
           </h2>
-          <p>{alertSummary(alert)}</p>
+          <p>{alertSummary(alert, await unitsOf(user.id))}</p>
           <p className="text-sm">
             {alert.rosette ? (
               <Link className="text-accent underline" href={`/structures/${structure.code}/rosettes/${encodeURIComponent(alert.rosette)}`}>

@@ -27,6 +27,7 @@ import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
 import { alertMailModeOf } from "@/lib/services/memberships";
+import { unitsOf } from "@/lib/services/users";
 import { alertMailAction, createRosetteAction } from "./gauges/actions";
 
 type Props = { params: Promise<{ code: string }> };
@@ -89,7 +90,7 @@ export default async function StructurePage({ params }: Props) {
   ]);
   const rows = gaugeTableRows(gauges, statuses);
   const tokens = canManageTokens ? await listLoggerTokens(user, code) : [];
-  const mailMode = await alertMailModeOf(user.id, structure.id);
+  const [mailMode, units] = await Promise.all([alertMailModeOf(user.id, structure.id), unitsOf(user.id)]);
   return (
     <div className="space-y-8">
       <PageHeader
@@ -149,7 +150,7 @@ export default async function StructurePage({ params }: Props) {
           </Link>
         }
       >
-        <AlertTable alerts={recentAlerts.alerts} timeZones={{ [structure.code]: structure.timezone }} />
+        <AlertTable alerts={recentAlerts.alerts} timeZones={{ [structure.code]: structure.timezone }} units={units} />
         {recentAlerts.total > recentAlerts.alerts.length && (
           <p className="text-sm text-slate-600 dark:text-slate-400" data-testid="recent-alerts-count">
             The {recentAlerts.alerts.length} newest of {recentAlerts.total.toLocaleString("en-US")} alerts on this structure.
