@@ -3,10 +3,10 @@
 import { useMemo } from "react";
 import type uPlot from "uplot";
 import { cardClass } from "@/components/ui/styles";
-import { rangeWithLines, type LimitLine } from "@/lib/limits";
+import { offScaleLines, valueAxisRange, type LimitLine } from "@/lib/limits";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
 import { chartColumns, gapThreshold, type SeriesAnswer } from "@/lib/series/chart-data";
-import type { DisplayUnit } from "@/lib/units";
+import { formatInUnit, type DisplayUnit } from "@/lib/units";
 import { UplotChart, timeChartOptions } from "./uplot-chart";
 
 const LEVEL_COLOUR: Record<string, string> = { watch: "#8a6d00", warning: "#b45309", critical: "#b42318" };
@@ -21,7 +21,7 @@ export type TimeRange = { from: number; to: number };
  * stroked are listed in `data-limit-lines` (canvas pixel row included), so tests and assistive
  * tooling can tell which limits are in view without reading pixels blindly.
  */
-function drawOverlays(chart: uPlot, lines: readonly LimitLine[], episodes: readonly ChartEpisode[], events: readonly ChartEvent[]) {
+function drawOverlays(chart: uPlot, lines: readonly LimitLine[], episodes: readonly ChartEpisode[], events: readonly ChartEvent[], unit: DisplayUnit) {
   const { ctx, bbox } = chart;
   const drawn: { level: string; text: string; value: number; y: number }[] = [];
   ctx.save();
@@ -48,6 +48,7 @@ function drawOverlays(chart: uPlot, lines: readonly LimitLine[], episodes: reado
     drawn.push({ level: line.level, text: line.text, value: line.value, y: Math.round(y) });
   }
   chart.root.dataset.limitLines = JSON.stringify(drawn);
+  drawOffScaleMarkers(chart, lines, unit);
   ctx.setLineDash([2 * devicePixelRatio, 3 * devicePixelRatio]);
   ctx.strokeStyle = "#1f6f78";
   ctx.fillStyle = "#1f6f78";
@@ -77,6 +78,46 @@ function markBreaks(chart: uPlot) {
 }
 
 /**
+ * A bound beyond the fitted axis gets an arrow at the plot's top or bottom edge with its value, so
+ * the person knows it exists and how far away it is; listed in `data-off-scale-lines`.
+ */
+function drawOffScaleMarkers(chart: uPlot, lines: readonly LimitLine[], unit: DisplayUnit) {
+  const { ctx, bbox } = chart;
+  const scale = chart.scales.y;
+  const off = scale?.min == null || scale.max == null ? [] : offScaleLines(lines, [scale.min, scale.max]);
+  const step = 14 * devicePixelRatio;
+  const placed = { above: 0, below: 0 };
+  ctx.setLineDash([]);
+  for (const line of off) {
+    const slot = placed[line.side]++;
+    const y = line.side === "above" ? bbox.top + 10 * devicePixelRatio + slot * step : bbox.top + bbox.height - 4 * devicePixelRatio - slot * step;
+    ctx.fillStyle = LEVEL_COLOUR[line.level] ?? "#444";
+    const text = `${line.side === "above" ? "▲" : "▼"} ${line.text} ${formatInUnit(line.value, unit)} (off scale)`;
+    ctx.fillText(text, bbox.left + bbox.width - ctx.measureText(text).width - 4, y);
+  }
+  chart.root.dataset.offScaleLines = JSON.stringify(off.map(({ level, text, value, side }) => ({ level, text, value, side })));
+}
+
+const EPISODE_LEVELS = ["watch", "warning", "critical"] as const;
+
+/** What the shading means, with the levels actually shaded on this chart. */
+function EpisodeLegend({ episodes }: { episodes: readonly ChartEpisode[] }) {
+  const levels = EPISODE_LEVELS.filter((level) => episodes.some((episode) => episode.level === level));
+  if (levels.length === 0) return null;
+  return (
+    <p className="mt-1 flex flex-wrap items-center gap-3 text-xs text-slate-600 dark:text-slate-400" data-testid="episode-legend">
+      <span>Shaded: alert episode, from opening to clearing —</span>
+      {levels.map((level) => (
+        <span key={level} className="inline-flex items-center gap-1">
+          <span aria-hidden className="inline-block h-3 w-5 rounded-sm border" style={{ backgroundColor: `${LEVEL_COLOUR[level]}33`, borderColor: LEVEL_COLOUR[level] }} />
+          {level}
+        </span>
+      ))}
+    </p>
+  );
+}
+
+/**
  * One quantity of a series answer over time: the min/max envelope of each interval, so a spike
  * always shows, its mean, and any limit lines, alert episodes and events. With `onZoom`, dragging
  * across the chart hands the chosen range back instead of zooming into the data already fetched.
@@ -93,6 +134,8 @@ export function EnvelopeChart({
   episodes = NONE,
   events = NONE,
   onZoom,
+  onZoomOut,
+  showAllLimits = false,
   onCreate,
   expectedIntervalS,
 }: {
@@ -109,6 +152,10 @@ export function EnvelopeChart({
   episodes?: readonly ChartEpisode[];
   events?: readonly ChartEvent[];
   onZoom?: (range: TimeRange) => void;
+  /** A double-click on the chart: back to the range before the last zoom. */
+  onZoomOut?: () => void;
+  /** Every limit line in view; by default the axis fits the data and far bounds are marked at the edge. */
+  showAllLimits?: boolean;
   onCreate?: (chart: uPlot) => void;
   /** The gauge's interval between readings, s: silences longer than it break the line. */
   expectedIntervalS?: number | null;
@@ -122,7 +169,7 @@ export function EnvelopeChart({
       timeChartOptions(timeZone, unit, {
         cursor: { drag: { x: true, y: false } },
         legend: { show: true },
-        scales: { y: { range: (_chart, min, max) => rangeWithLines(min, max, lines) } },
+        scales: { y: { range: (_chart, min, max) => valueAxisRange(min, max, lines, showAllLimits) } },
         valueAxis: { label: `${title} (${unit})`, size: 70 },
         series: [
           { label: "min", stroke: "#7aa7ad", width: 1, points: { show: false } },
@@ -131,7 +178,8 @@ export function EnvelopeChart({
         ],
         bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
         hooks: {
-          draw: [(chart) => drawOverlays(chart, lines, episodes, events), markBreaks],
+          draw: [(chart) => drawOverlays(chart, lines, episodes, events, unit), markBreaks],
+          ready: onZoomOut ? [(chart) => chart.over.addEventListener("dblclick", onZoomOut)] : [],
           setSelect: onZoom
             ? [
                 (chart) => {
@@ -145,7 +193,7 @@ export function EnvelopeChart({
             : [],
         },
       }),
-    [title, lines, episodes, events, unit, timeZone, onZoom],
+    [title, lines, episodes, events, unit, timeZone, onZoom, onZoomOut, showAllLimits],
   );
   return (
     <section className={`${cardClass} p-3`} aria-label={`${title} chart`}>
@@ -153,13 +201,20 @@ export function EnvelopeChart({
         {title} <span className="font-normal text-slate-500">({unit}; band = min to max in each interval, line = mean; breaks where no readings arrived)</span>
       </h3>
       {error ? (
-        <p className="p-6 text-sm text-critical">{error.message}</p>
+        <p className="p-6 text-sm text-critical" role="alert">
+          The {title.toLowerCase()} could not be loaded: {error.message} Try again, or choose a shorter period.
+        </p>
       ) : !data ? (
-        <div className="h-60 animate-pulse rounded bg-slate-100 dark:bg-slate-800" aria-label="Loading" />
+        <div className="flex h-60 animate-pulse items-center justify-center rounded bg-slate-100 text-sm text-slate-500 dark:bg-slate-800" role="status">
+          Loading the {title.toLowerCase()}…
+        </div>
       ) : data[0].length === 0 ? (
-        <p className="p-6 text-sm text-slate-600">{empty}</p>
+        <p className="p-6 text-sm text-slate-600 dark:text-slate-400">{empty}</p>
       ) : (
-        <UplotChart options={options} data={data} label={`${title} over time`} onCreate={onCreate} />
+        <>
+          <UplotChart options={options} data={data} label={`${title} over time`} onCreate={onCreate} />
+          <EpisodeLegend episodes={episodes} />
+        </>
       )}
     </section>
   );

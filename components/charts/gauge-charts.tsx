@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useCallback, useMemo, useState } from "react";
 import useSWR from "swr";
 import type uPlot from "uplot";
 import { useUnits } from "@/components/units/units-context";
@@ -73,6 +73,27 @@ export function GaugeCharts({
   const units = useUnits();
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}`;
   const [range, setRange] = useState<TimeRange>(initialRange ?? { from: end - 7 * DAY, to: end });
+  // The ranges zoomed out of, so a double-click steps back one zoom at a time.
+  const [zoomedFrom, setZoomedFrom] = useState<TimeRange[]>([]);
+  const [showAllLimits, setShowAllLimits] = useState(false);
+  const zoomIn = useCallback(
+    (next: TimeRange) => {
+      setZoomedFrom((history) => [...history, range]);
+      setRange(next);
+    },
+    [range],
+  );
+  const zoomOut = useCallback(() => {
+    setZoomedFrom((history) => {
+      const previous = history.at(-1);
+      if (previous) setRange(previous);
+      return history.slice(0, -1);
+    });
+  }, []);
+  const choose = (next: TimeRange) => {
+    setZoomedFrom([]);
+    setRange(next);
+  };
   const [charts] = useState(() => new Map<Quantity, uPlot>());
   const [problem, setProblem] = useState<string | null>(null);
   // Previous data stay on screen while a zoomed or new range loads, so a chart is redrawn in place
@@ -141,7 +162,7 @@ export function GaugeCharts({
     <div className="space-y-3" data-testid="gauge-charts">
       <div className="flex flex-wrap items-end gap-2">
         {PRESETS.map(([label, span]) => (
-          <button key={label} type="button" className={buttonClass("secondary")} onClick={() => setRange({ from: end - span, to: end })}>
+          <button key={label} type="button" className={buttonClass("secondary")} onClick={() => choose({ from: end - span, to: end })}>
             {label}
           </button>
         ))}
@@ -165,8 +186,12 @@ export function GaugeCharts({
         )}
       </div>
       <p className="text-xs text-slate-600 dark:text-slate-400" data-testid="chart-range">
-        {local(range.from)} to {local(range.to)} ({timeZone}). Drag across a chart to zoom in.
+        {local(range.from)} to {local(range.to)} ({timeZone}). Drag across a chart to zoom in; double-click it to zoom back out.
       </p>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" checked={showAllLimits} onChange={(event) => setShowAllLimits(event.target.checked)} />
+        Show all limits (the scale then reaches every bound; otherwise it fits the data and far bounds are marked at the edge)
+      </label>
       {problem && <p className="text-sm text-critical">{problem}</p>}
       {quantities.map(([quantity, title, answer]) => (
         <EnvelopeChart
@@ -177,11 +202,13 @@ export function GaugeCharts({
           unit={display[quantity].unit}
           toDisplay={display[quantity].toDisplay}
           timeZone={timeZone}
-          empty="No readings in this period."
+          empty="No readings in this period: choose a longer one, or check that the logger is sending."
           lines={lines[quantity]}
           episodes={quantity === "temperature" ? undefined : episodes}
           events={events}
-          onZoom={setRange}
+          onZoom={zoomIn}
+          onZoomOut={zoomOut}
+          showAllLimits={showAllLimits}
           onCreate={(chart) => charts.set(quantity, chart)}
           expectedIntervalS={expectedIntervalS}
         />

@@ -33,3 +33,23 @@ export function rangeWithLines(min: number, max: number, lines: readonly LimitLi
   const pad = (high - low) * 0.05 || 1;
   return [low - pad, high + pad];
 }
+
+/** Bounds this close beyond the data (a quarter of the data's span) stay in view when fitting to the data. */
+const NEAR_FRACTION = 0.25;
+
+/**
+ * The value axis's extent. Fitted to the data by default, so a bound far away does not squash the
+ * signal into a flat line; bounds near the data stay in view. With `showAll`, every line is in view.
+ */
+export function valueAxisRange(min: number, max: number, lines: readonly LimitLine[], showAll: boolean): [number, number] {
+  if (showAll || !Number.isFinite(min) || !Number.isFinite(max)) return rangeWithLines(min, max, lines);
+  const reach = (max - min) * NEAR_FRACTION;
+  return rangeWithLines(min, max, lines.filter((line) => line.value >= min - reach && line.value <= max + reach));
+}
+
+/** The lines outside an axis range, and on which side, to mark at the chart's edge. */
+export type OffScaleLine = LimitLine & { side: "above" | "below" };
+
+export function offScaleLines(lines: readonly LimitLine[], [low, high]: readonly [number, number]): OffScaleLine[] {
+  return lines.flatMap((line): OffScaleLine[] => (line.value > high ? [{ ...line, side: "above" }] : line.value < low ? [{ ...line, side: "below" }] : []));
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { limitLines, rangeWithLines, type Limit } from "@/lib/limits";
+import { limitLines, offScaleLines, rangeWithLines, valueAxisRange, type Limit } from "@/lib/limits";
 import { mpaToKsi } from "@/lib/units";
 
 const limit = (quantity: string, level: Limit["level"], bounds: { upper?: number; lower?: number }): Limit<string> => ({ quantity, level, hysteresis: 0, persistence: 1, ...bounds });
@@ -42,5 +42,26 @@ describe("the value range around data and lines", () => {
   it("pads a flat chart by one unit and ignores a missing data extent", () => {
     expect(rangeWithLines(5, 5, [])).toEqual([4, 6]);
     expect(rangeWithLines(Number.NaN, Number.NaN, [line(100)])).toEqual([99, 101]);
+  });
+});
+
+describe("fitting the value axis to the data", () => {
+  const line = (value: number) => ({ value, level: "warning" as const, text: "" });
+
+  // Arithmetic of the rule itself: data 10–50 (span 40), near means within 10 beyond the data.
+  it("keeps a near bound in view and leaves a far one off scale, marked on its side", () => {
+    const range = valueAxisRange(10, 50, [line(55), line(190), line(-300)], false);
+    expect(range).toEqual([7.75, 57.25]);
+    expect(offScaleLines([line(55), line(190), line(-300)], range).map(({ value, side }) => [value, side])).toEqual([
+      [190, "above"],
+      [-300, "below"],
+    ]);
+  });
+
+  it("shows every line when asked, and then none is off scale", () => {
+    const lines = [line(190), line(-300)];
+    const range = valueAxisRange(10, 50, lines, true);
+    expect(range).toEqual(rangeWithLines(10, 50, lines));
+    expect(offScaleLines(lines, range)).toEqual([]);
   });
 });
