@@ -10,7 +10,8 @@ const PREVIEW_ROWS = 6;
 const SHOWN_REJECTIONS = 100;
 
 type Rejection = { line: number; code: string; message: string };
-type Report = { rows: number; accepted: number; duplicates: number; rejected: number; rejections: Rejection[]; rejectionsTruncated: boolean };
+type Arrival = { gauge: string; readings: number; from: string; to: string };
+type Report = { rows: number; accepted: number; duplicates: number; rejected: number; gauges: Arrival[]; rejections: Rejection[]; rejectionsTruncated: boolean };
 type Progress = { sentBytes: number; storedBytes: number; rows: number };
 
 type Phase =
@@ -188,20 +189,47 @@ export function UploadForm({ code, structureTimezone }: { code: string; structur
               {phase.message}
             </p>
           )}
-          {phase.kind === "done" && <UploadReport report={phase.report} onDownload={() => download(phase.report)} />}
+          {phase.kind === "done" && <UploadReport report={phase.report} timeZone={structureTimezone} onDownload={() => download(phase.report)} />}
         </section>
       )}
     </div>
   );
 }
 
-function UploadReport({ report, onDownload }: { report: Report; onDownload: () => void }) {
+function UploadReport({ report, timeZone, onDownload }: { report: Report; timeZone: string; onDownload: () => void }) {
+  const local = (iso: string) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
   return (
     <div className="space-y-3">
       <p className="text-sm" aria-live="polite">
         Import finished: {report.rows.toLocaleString()} rows, <strong>{report.accepted.toLocaleString()} stored</strong>,{" "}
         {report.duplicates.toLocaleString()} duplicates (already stored), {report.rejected.toLocaleString()} rejected.
       </p>
+      {report.gauges.length === 0 ? (
+        <p className="text-sm text-slate-600 dark:text-slate-400">No new reading was stored for any gauge.</p>
+      ) : (
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Readings stored per gauge">
+          <table className={tableClass} aria-label="Readings stored per gauge">
+            <thead>
+              <tr>
+                <th className={thClass}>Gauge</th>
+                <th className={thClass}>Readings stored</th>
+                <th className={thClass}>From ({timeZone})</th>
+                <th className={thClass}>To ({timeZone})</th>
+              </tr>
+            </thead>
+            <tbody>
+              {report.gauges.map((arrival) => (
+                <tr key={arrival.gauge} data-testid="arrival-row">
+                  <td className={`${tdClass} font-mono`}>{arrival.gauge}</td>
+                  <td className={`${tdClass} tabular-nums`}>{arrival.readings.toLocaleString("en-US")}</td>
+                  <td className={`${tdClass} whitespace-nowrap`}>{local(arrival.from)}</td>
+                  <td className={`${tdClass} whitespace-nowrap`}>{local(arrival.to)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
       {report.rejected > 0 && (
         <>
           <div className="overflow-x-auto">

@@ -354,7 +354,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
         `${CSV_BODY} The body is read as it arrives and stored in batches of 5 000 rows, each its own transaction, so a file of millions of rows is never held whole. ` +
         "The header is checked before anything is stored (400). The answer is newline-delimited JSON: " +
         '`{"type":"start","timezone"}`, then `{"type":"progress","bytes","rows","accepted","duplicates","rejected"}` after each batch, then ' +
-        '`{"type":"done","rows","accepted","duplicates","rejected","rejections":[{"line","code","message"}],"rejectionsTruncated","alerts"}` ' +
+        '`{"type":"done","rows","accepted","duplicates","rejected","gauges":[{"gauge","readings","from","to"}],"rejections":[{"line","code","message"}],"rejectionsTruncated","alerts"}` (gauges: readings stored per gauge and the UTC times they span) ' +
         '(`line` counts the header as line 1; the first 10 000 rejected rows are listed), or `{"type":"error","error":{code,message}}` if the file cannot be read to its end: ' +
         "the batches reported before stay stored, and sending the file again is safe. " +
         REJECTIONS,

@@ -6,6 +6,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError } from "@/lib/errors";
 import { gaugeConfigOf } from "@/lib/gauges/record";
+import { arrivalTally } from "@/lib/ingest/arrivals";
 import { createBatch, rowCount, selectRows, type GaugeEntry, type GaugeRows, type PreparedBatch } from "@/lib/ingest/batch";
 import { csvColumns, csvRows, type CsvRow } from "@/lib/ingest/csv";
 import { decodeCsvReading, decodeJsonReading, type CsvColumns, type DecodedReading } from "@/lib/ingest/reading-input";
@@ -145,14 +146,17 @@ export async function ingestCsv(actor: Actor, code: string, body: AsyncIterable<
 const NO_ALERTS: AlertCounts = Object.freeze({ opened: 0, escalated: 0, cleared: 0 });
 
 /** One write transaction: readings, their roll-ups and the limit evaluation commit together or not at all. */
-async function storeBatch(target: IngestTarget, batch: PreparedBatch): Promise<IngestResult> {
+async function storeBatch(target: IngestTarget, batch: PreparedBatch, onStored?: (inserted: readonly GaugeRows[]) => void): Promise<IngestResult> {
   const valid = rowCount(batch.gauges);
   if (valid === 0) return { accepted: 0, duplicates: batch.repeats, rejected: batch.rejected, alerts: { ...NO_ALERTS } };
-  const { accepted, alerts } = await writeTransaction(async (tx) => {
-    const inserted = await insertReadings(tx, batch.gauges);
-    await mergeRollups(tx, inserted);
-    return { accepted: rowCount(inserted), alerts: await evaluateLimits(tx, target, inserted) };
+  const { inserted, alerts } = await writeTransaction(async (tx) => {
+    const stored = await insertReadings(tx, batch.gauges);
+    await mergeRollups(tx, stored);
+    return { inserted: stored, alerts: await evaluateLimits(tx, target, stored) };
   });
+  // Told only once committed, so a batch that failed is never counted as arrived.
+  onStored?.(inserted);
+  const accepted = rowCount(inserted);
   return { accepted, duplicates: valid - accepted + batch.repeats, rejected: batch.rejected, alerts };
 }
 
@@ -294,6 +298,8 @@ export interface UploadProgress {
 }
 
 export interface UploadReport extends UploadProgress {
+  /** Per gauge: the readings stored (duplicates left out) and the times they span, UTC. */
+  gauges: { gauge: string; readings: number; from: string; to: string }[];
   rejections: UploadRejection[];
   /** True when more rows were rejected than `rejections` lists. */
   rejectionsTruncated: boolean;
@@ -334,11 +340,13 @@ async function runUpload(
   rows: AsyncIterable<CsvRow>,
   onProgress: (progress: Omit<UploadProgress, "bytes">) => void,
 ): Promise<Omit<UploadReport, "bytes">> {
-  const report: Omit<UploadReport, "bytes"> = { rows: 0, accepted: 0, duplicates: 0, rejected: 0, rejections: [], rejectionsTruncated: false, alerts: { ...NO_ALERTS } };
+  const report: Omit<UploadReport, "bytes"> = { rows: 0, accepted: 0, duplicates: 0, rejected: 0, gauges: [], rejections: [], rejectionsTruncated: false, alerts: { ...NO_ALERTS } };
+  const arrivals = arrivalTally();
+  const tally = (inserted: readonly GaugeRows[]) => inserted.forEach((rows) => arrivals.add(rows.tag, rows.time));
   let batch = createBatch(target.gauges, Date.now());
   let inBatch = 0;
   const store = async () => {
-    const result = await storeBatch(target, batch.finish());
+    const result = await storeBatch(target, batch.finish(), tally);
     report.accepted += result.accepted;
     report.duplicates += result.duplicates;
     report.rejected += result.rejected.length;
@@ -357,5 +365,6 @@ async function runUpload(
     if (++inBatch === UPLOAD_BATCH_ROWS) await store();
   }
   if (inBatch > 0) await store();
+  report.gauges = arrivals.arrivals().map(({ gauge, readings, first, last }) => ({ gauge, readings, from: new Date(first).toISOString(), to: new Date(last).toISOString() }));
   return report;
 }

@@ -187,8 +187,11 @@ describe("logger-file upload", () => {
       [101, "non-finite-value"],
       [7002, "unknown-gauge"],
     ]);
+    // Per gauge: S1's 11 998 stored readings, one a minute from 1 June 2025 00:00 to 11 999 minutes later
+    // (8 days 7 h 59 min), the two rejected rows lying inside that span.
+    expect(done.gauges).toEqual([{ gauge: "S1", readings: 11_998, from: "2025-06-01T00:00:00.000Z", to: "2025-06-09T07:59:00.000Z" }]);
     const again = (await (await upload(`gauge,time,value,temperature\n${rows.join("\n")}\n`, "?timezone=UTC")).text()).trim().split("\n");
-    expect(JSON.parse(again[again.length - 1]!)).toMatchObject({ accepted: 0, duplicates: 11_998, rejected: 2 });
+    expect(JSON.parse(again[again.length - 1]!)).toMatchObject({ accepted: 0, duplicates: 11_998, rejected: 2, gauges: [] });
   });
 
   it("refuses a wrong header with a 400 and a non-CSV body with a 415 before streaming", async () => {
