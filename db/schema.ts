@@ -452,6 +452,9 @@ export type MailAttachment = { filename: string; contentType: string; contentBas
  * Messages waiting for, or done with, the outbox sender (jobs/outbox-sender.ts). Rows are written
  * in the transaction of whatever caused the message, so the two commit or roll back together.
  */
+/** One delivery attempt of an outbox message: when, how it ended, and the relay's answer. */
+export type MailAttempt = { at: string | null; outcome: "sent" | "refused" | "later" | "relay" | "failed"; answer?: string };
+
 export const mailOutbox = sqliteTable(
   "mail_outbox",
   {
@@ -470,6 +473,8 @@ export const mailOutbox = sqliteTable(
     nextAttemptAt: writtenAt("next_attempt_at"),
     /** The SMTP server's answer to the last failed attempt, or why the attempt could not be made. */
     lastError: text("last_error"),
+    /** Every attempt, oldest first (lib/mail/attempt-log.ts): what the relay answered each time. */
+    attemptLog: text("attempt_log", { mode: "json" }).$type<MailAttempt[]>(),
     /** Which sender holds the message and until when: another sender may take it only after that. */
     claimedBy: text("claimed_by"),
     claimedUntil: integer("claimed_until", { mode: "timestamp_ms" }),

@@ -3,6 +3,7 @@ import { and, asc, eq, inArray, lt, lte, or } from "drizzle-orm";
 import type { Transporter } from "nodemailer";
 import { getDb } from "@/db/client";
 import { mailOutbox, type OutboxMessage } from "@/db/schema";
+import { withAttempt } from "@/lib/mail/attempt-log";
 import { appUrl } from "@/lib/mail/message";
 import { createMailTransport, mailFrom } from "@/lib/mail/transport";
 
@@ -133,7 +134,9 @@ export async function runOutboxSender(options: SenderOptions): Promise<SenderRes
         if (!(await stillOurs(message.id, holder))) continue;
         try {
           await deliver(transport, message);
-          await finish(message.id, holder, { state: "sent", sentAt: new Date(), attempts: message.attempts + 1 });
+          const sentAt = new Date();
+          const attemptLog = withAttempt(message.attemptLog, { at: sentAt.toISOString(), outcome: "sent" });
+          await finish(message.id, holder, { state: "sent", sentAt, attempts: message.attempts + 1, attemptLog });
           result.sent++;
           continue;
         } catch (error) {
@@ -142,7 +145,8 @@ export async function runOutboxSender(options: SenderOptions): Promise<SenderRes
         }
       }
       const next = afterFailure(failure, message.attempts, now);
-      await finish(message.id, holder, next);
+      const attemptLog = withAttempt(message.attemptLog, { at: new Date().toISOString(), outcome: failure.kind, answer: failure.answer });
+      await finish(message.id, holder, { ...next, attemptLog });
       if (next.state === "failed") result.failed++;
       else result.retried++;
     }

@@ -38,6 +38,7 @@ export async function listOutbox(actor: Actor) {
       attempts: mailOutbox.attempts,
       nextAttemptAt: mailOutbox.nextAttemptAt,
       lastError: mailOutbox.lastError,
+      attemptLog: mailOutbox.attemptLog,
       createdAt: mailOutbox.createdAt,
       sentAt: mailOutbox.sentAt,
     })

@@ -60,7 +60,11 @@ describe("outbox sender against a real SMTP server", () => {
     expect(await send("sender-a", new Date(start.getTime() + 31_000))).toEqual({ sent: 2, retried: 0, failed: 0 });
     expect(await send("sender-a", new Date(start.getTime() + 3_600_000))).toEqual({ sent: 0, retried: 0, failed: 0 });
     expect(await receivedCounts()).toEqual({ "ada@hookeline.example": 1, "ben@hookeline.example": 1 });
-    expect(await outboxRow("ada@hookeline.example")).toMatchObject({ state: "sent", attempts: 2 });
+    const delivered = await outboxRow("ada@hookeline.example");
+    expect(delivered).toMatchObject({ state: "sent", attempts: 2 });
+    // The history keeps the refused connection before the send, so "sent" never reads beside an old error alone.
+    expect(delivered.attemptLog!.map((attempt) => attempt.outcome)).toEqual(["relay", "sent"]);
+    expect(delivered.attemptLog![0]!.answer).toMatch(/ECONNREFUSED/);
   });
 
   it("fails a refused address with the server's answer and delivers the others", async () => {

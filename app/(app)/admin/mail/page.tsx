@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { attemptLines } from "@/lib/mail/attempt-log";
 import Link from "next/link";
 import { format } from "date-fns";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -106,7 +107,7 @@ function OutboxTable({ rows }: { rows: OutboxSummary[] }) {
             <th className={thClass}>Message</th>
             <th className={thClass}>State</th>
             <th className={thClass}>Attempts</th>
-            <th className={thClass}>Last answer</th>
+            <th className={thClass}>Attempts, oldest first</th>
           </tr>
         </thead>
         <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
@@ -126,7 +127,17 @@ function OutboxTable({ rows }: { rows: OutboxSummary[] }) {
                 </span>
               </td>
               <td className={tdClass}>{row.attempts}</td>
-              <td className={`${tdClass} max-w-xs break-words text-xs`}>{row.lastError ?? "—"}</td>
+              <td className={`${tdClass} max-w-sm break-words text-xs`}>
+                {row.attemptLog?.length ? (
+                  <ol className="list-decimal space-y-0.5 pl-4" data-testid="attempt-history">
+                    {attemptLines(row.attemptLog, (iso) => when(new Date(iso))).map((line, index) => (
+                      <li key={index}>{line}</li>
+                    ))}
+                  </ol>
+                ) : (
+                  "Not tried yet."
+                )}
+              </td>
             </tr>
           ))}
         </tbody>

@@ -62,3 +62,20 @@ describe("migration of vibrating-wire names", () => {
     expect(entry!.after).not.toHaveProperty("batchFactor");
   });
 });
+
+describe("migration of outbox messages to an attempt history", () => {
+  it("keeps an old message's last failed answer and its send as its history", async () => {
+    const client = getClient();
+    await client.execute(
+      `INSERT INTO mail_outbox (to_address, kind, dedupe_key, subject, text, html, state, attempts, next_attempt_at, last_error, created_at, sent_at)
+       VALUES ('ada@hookeline.example', 'alert', 'old-1', 'S', 'T', 'H', 'sent', 2, 0, 'connect ECONNREFUSED', 0, 1764756000000)`,
+    );
+    await rerunMigration("mail_attempt_log_from_last_answers");
+    const row = (await client.execute("SELECT attempt_log FROM mail_outbox WHERE dedupe_key = 'old-1'")).rows[0]!;
+    // 1764756000000 ms is 2025-12-03T10:00:00Z (Unix time).
+    expect(JSON.parse(row.attempt_log as string)).toEqual([
+      { at: null, outcome: "failed", answer: "connect ECONNREFUSED" },
+      { at: "2025-12-03T10:00:00.000Z", outcome: "sent" },
+    ]);
+  });
+});
