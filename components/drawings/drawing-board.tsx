@@ -7,6 +7,7 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import type { ShownState } from "@/lib/alerting/condition-display";
 import { GaugeMarker, MarkerLegend } from "./gauge-marker";
+import { labelSlots } from "@/lib/drawings/label-slots";
 
 export type BoardGauge = {
   tag: string;
@@ -41,6 +42,7 @@ export function DrawingBoard({
   const placing = canPlace && selected !== "";
   const chosen = gauges.find((gauge) => gauge.tag === selected);
   const onThisDrawing = gauges.filter((gauge) => gauge.placement?.id === drawing.id);
+  const slots = labelSlots(onThisDrawing.map((gauge) => ({ tag: gauge.tag, x: gauge.placement!.x, y: gauge.placement!.y })));
 
   async function save(tag: string, body: { drawingId: number; x: number; y: number } | { drawingId: null }) {
     setSaving(true);
@@ -157,6 +159,7 @@ export function DrawingBoard({
           {onThisDrawing.map((gauge) => (
             <GaugeMarker
               key={gauge.tag}
+              labelSlot={slots.get(gauge.tag) ?? 0}
               tag={gauge.tag}
               x={gauge.placement!.x}
               y={gauge.placement!.y}

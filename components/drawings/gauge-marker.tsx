@@ -6,7 +6,26 @@ import { SHOWN_STATES, STATE_LOOK, type ShownState } from "@/lib/alerting/condit
  * A gauge on a drawing, placed by fractions of the drawing's width and height, with its shape's
  * centre on the point; `state` picks the shape and the colour, `text` is the condition in words.
  */
-export function GaugeMarker({ tag, x, y, href, state, text, passive }: { tag: string; x: number; y: number; href: string; state: ShownState; text: string; passive?: boolean }) {
+export function GaugeMarker({
+  tag,
+  x,
+  y,
+  href,
+  state,
+  text,
+  passive,
+  labelSlot = 0,
+}: {
+  tag: string;
+  x: number;
+  y: number;
+  href: string;
+  state: ShownState;
+  text: string;
+  passive?: boolean;
+  /** The line its tag goes on (lib/drawings/label-slots): 0 beside the marker, 1, 2, … stacked below. */
+  labelSlot?: number;
+}) {
   const common = {
     "data-testid": "gauge-marker",
     "data-state": state,
@@ -19,7 +38,13 @@ export function GaugeMarker({ tag, x, y, href, state, text, passive }: { tag: st
       <span className="rounded-sm bg-white/90">
         <ConditionShape state={state} />
       </span>
-      <span className="rounded bg-white/90 px-1 font-mono text-xs font-medium leading-4 shadow-sm ring-1 ring-slate-300">{tag}</span>
+      <span
+        className="rounded bg-white/90 px-1 font-mono text-xs font-medium leading-4 shadow-sm ring-1 ring-slate-300"
+        style={labelSlot ? { transform: `translateY(${labelSlot * 1.15}rem)` } : undefined}
+        data-label-slot={labelSlot}
+      >
+        {tag}
+      </span>
     </>
   );
   // A passive marker sits inside another link (a drawing's thumbnail): a second link there would be invalid.

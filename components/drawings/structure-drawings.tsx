@@ -9,6 +9,15 @@ import { cardClass } from "@/components/ui/styles";
 import { DrawingUpload } from "./drawing-upload";
 import { GaugeMarker, MarkerLegend } from "./gauge-marker";
 import type { ShownState } from "@/lib/alerting/condition-display";
+import { labelSlots } from "@/lib/drawings/label-slots";
+
+type Marker = { tag: string; state: ShownState; stateText: string; placement: { id: number; x: number; y: number } | null };
+
+/** Each placed marker with the line its tag goes on, so close gauges' tags do not overlap. */
+function slotted(markers: Marker[]) {
+  const slots = labelSlots(markers.map((marker) => ({ tag: marker.tag, x: marker.placement!.x, y: marker.placement!.y })));
+  return markers.map((marker) => ({ marker, slot: slots.get(marker.tag) ?? 0 }));
+}
 
 /** The structure page's drawings: each opens to place gauges on it; those allowed can add more. */
 export async function StructureDrawings({
@@ -19,7 +28,7 @@ export async function StructureDrawings({
   user: UserActor;
   structure: Structure;
   /** Gauges placed on drawings, with their state now. */
-  markers: { tag: string; state: ShownState; stateText: string; placement: { id: number; x: number; y: number } | null }[];
+  markers: Marker[];
 }) {
   const [drawings, canUpload] = await Promise.all([listDrawings(user, structure.code), may(user, "gauge:register", structure)]);
   return (
@@ -42,11 +51,10 @@ export async function StructureDrawings({
                 {/* A plain img: the bytes come from the API behind the session, which the image optimiser could not fetch. */}
                 <span className="relative block bg-white">
                   <img src={drawing.url} alt="" width={drawing.width ?? undefined} height={drawing.height ?? undefined} loading="lazy" className="block w-full" />
-                  {markers
-                    .filter((marker) => marker.placement?.id === drawing.id)
-                    .map((marker) => (
+                  {slotted(markers.filter((marker) => marker.placement?.id === drawing.id)).map(({ marker, slot }) => (
                       <GaugeMarker
                         key={marker.tag}
+                        labelSlot={slot}
                         tag={marker.tag}
                         x={marker.placement!.x}
                         y={marker.placement!.y}

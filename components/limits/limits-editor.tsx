@@ -99,22 +99,7 @@ function levelCounts(episodes: readonly AlertEpisode<string>[]): string {
   return [...counts].map(([level, count]) => `${level} ${count.toLocaleString("en-US")}`).join(", ");
 }
 
-/**
- * The engineer's limit set, with a check of what the limits would have raised before they are
- * saved, and the last 30 days charted with the bounds as typed drawn across them.
- */
-export function LimitsEditor({
-  structureCode,
-  tag,
-  timeZone,
-  initial,
-  canEdit,
-  save,
-  quantities = GAUGE_QUANTITY_UNITS,
-  unitsNote = "Bounds in the quantity's unit: stress including the initial stress, strain in µε, utilisation in % of yield (60 = 60 % of the yield stress).",
-  gauge,
-  rosette,
-}: {
+type LimitsEditorProps = {
   structureCode: string;
   tag: string;
   timeZone: string;
@@ -134,9 +119,32 @@ export function LimitsEditor({
     /** Where its 30 days end: the last reading of its gauges. */
     end: number;
   };
-}) {
-  const names = Object.keys(quantities);
+};
+
+/**
+ * The engineer's limit set, with a check of what the limits would have raised before they are
+ * saved, and the last 30 days charted with the bounds as typed drawn across them. Bounds are shown
+ * in the person's units: a change of units starts the form again from the saved limits.
+ */
+export function LimitsEditor(props: LimitsEditorProps) {
   const system = useUnits();
+  return <UnitsLimitsEditor key={system} system={system} {...props} />;
+}
+
+function UnitsLimitsEditor({
+  structureCode,
+  tag,
+  timeZone,
+  initial,
+  canEdit,
+  save,
+  quantities = GAUGE_QUANTITY_UNITS,
+  unitsNote = "Bounds in the quantity's unit: stress including the initial stress, strain in µε, utilisation in % of yield (60 = 60 % of the yield stress).",
+  gauge,
+  rosette,
+  system,
+}: LimitsEditorProps & { system: UnitSystem }) {
+  const names = Object.keys(quantities);
   const scaleOf = useMemo(() => scalesFor(quantities, system), [quantities, system]);
   const [rows, setRows] = useState<Row[]>(() => initial.map((limit) => rowOf(limit, scaleOf)));
   const [state, setState] = useState<ActionState>({ status: "idle" });
