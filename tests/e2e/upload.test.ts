@@ -90,6 +90,9 @@ describe("logger-file upload", () => {
     // By hand: 3000 rows, three of them bad.
     await page.getByText("2,997 stored").waitFor();
     await expect(upload.rejectedRows().count()).resolves.toBe(3);
+    // Per gauge, by hand: LC-M1's 2 997 readings, one a minute from 08:00 on 6 January (London time is
+    // UTC in winter) to 2 999 minutes later, 09:59 on 8 January; the bad rows lie inside that span.
+    await expect(page.getByTestId("arrival-row").allTextContents()).resolves.toEqual(["LC-M12,9976 Jan 2025, 08:008 Jan 2025, 09:59"]);
     const rows = await upload.rejectedRows().allTextContents();
     expect(rows[0]).toMatch(/^12non-finite-value.*not a finite number/);
     expect(rows[1]).toMatch(/^502unknown-gauge.*LC-X9/);
