@@ -125,10 +125,10 @@ describe("charts", () => {
     const range = page.getByTestId("chart-range");
     const first = await range.textContent();
     await dragAcrossChart(page, chart);
-    await expect.poll(() => range.textContent()).not.toBe(first);
+    await expect.poll(() => range.textContent(), { timeout: 10_000 }).not.toBe(first);
     await chart.locator(".u-over").waitFor();
     await chart.locator(".u-over").dblclick();
-    await expect.poll(() => range.textContent()).toBe(first);
+    await expect.poll(() => range.textContent(), { timeout: 10_000 }).toBe(first);
   });
 });
 
