@@ -13,7 +13,8 @@ const foil = {
   material: { E: 210_000, nu: 0.3, alpha: 12, yield: 355 },
   zero: { value: 0.012, temperature: 14.5 },
 };
-const wire = { tag: "VW1", kind: "vibrating-wire", input: "Hz", gaugeFactor: 3.304, material: { E: 30_000, nu: 0.2, alpha: 10 }, zero: { value: 800, temperature: 12 } };
+// K = 4·L²·ρ·10⁹ / E of 150 mm of steel wire (taut-string physics): 3.5325 µε per f²/1000.
+const wire = { tag: "VW1", kind: "vibrating-wire", input: "Hz", gaugeFactor: 3.5325, material: { E: 30_000, nu: 0.2, alpha: 10 }, zero: { value: 800, temperature: 12 } };
 
 function fieldsWithErrors(body: unknown): string[] {
   const result = gaugeInput.safeParse(body);
