@@ -56,8 +56,11 @@ afterAll(async () => {
  * times, with three bad rows. The demo gauges were zeroed 91 days ago, so the file comes after
  * their zero; at half a minute past, no row repeats a seeded 10-minute reading.
  */
+/** The wall-clock time of the file's first row, written as if it were UTC. */
+const fileStart = () => Math.floor((Date.now() - 10 * 86_400_000) / 86_400_000) * 86_400_000 + 8 * 3_600_000 + 30_000;
+
 function loggerFile(): string {
-  const start = Math.floor((Date.now() - 10 * 86_400_000) / 86_400_000) * 86_400_000 + 8 * 3_600_000 + 30_000;
+  const start = fileStart();
   const timeOf = (i: number) => new Date(start + i * 60_000).toISOString().slice(0, 19).replace("T", " ");
   const rows = ["gauge,time,value,temperature"];
   for (let i = 0; i < 3000; i++) {
@@ -90,9 +93,10 @@ describe("logger-file upload", () => {
     // By hand: 3000 rows, three of them bad.
     await page.getByText("2,997 stored").waitFor();
     await expect(upload.rejectedRows().count()).resolves.toBe(3);
-    // Per gauge, by hand: LC-M1's 2 997 readings, one a minute from 08:00 on 6 January (London time is
-    // UTC in winter) to 2 999 minutes later, 09:59 on 8 January; the bad rows lie inside that span.
-    await expect(page.getByTestId("arrival-row").allTextContents()).resolves.toEqual(["LC-M12,9976 Jan 2025, 08:008 Jan 2025, 09:59"]);
+    // Per gauge: LC-M1's 2 997 readings span the file's first and last rows (i = 0 and 2 999; the bad
+    // rows lie inside), shown on the structure's clock, the clock the file was written in.
+    const wallClock = (i: number) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", dateStyle: "medium", timeStyle: "short" }).format(fileStart() + i * 60_000);
+    await expect(page.getByTestId("arrival-row").allTextContents()).resolves.toEqual([`LC-M12,997${wallClock(0)}${wallClock(2999)}`]);
     const rows = await upload.rejectedRows().allTextContents();
     expect(rows[0]).toMatch(/^12non-finite-value.*not a finite number/);
     expect(rows[1]).toMatch(/^502unknown-gauge.*LC-X9/);
