@@ -92,8 +92,9 @@ function drawOffScaleMarkers(chart: uPlot, lines: readonly LimitLine[], unit: Di
     const slot = placed[line.side]++;
     const y = line.side === "above" ? bbox.top + 10 * devicePixelRatio + slot * step : bbox.top + bbox.height - 4 * devicePixelRatio - slot * step;
     ctx.fillStyle = LEVEL_COLOUR[line.level] ?? "#444";
-    const text = `${line.side === "above" ? "▲" : "▼"} ${line.text} ${formatInUnit(line.value, unit)} (off scale)`;
-    ctx.fillText(text, bbox.left + bbox.width - ctx.measureText(text).width - 4, y);
+    // Short enough for a phone's plot; it never starts left of the plot when the plot is narrow.
+    const text = `${line.side === "above" ? "▲" : "▼"} ${line.level} ${formatInUnit(line.value, unit)}`;
+    ctx.fillText(text, Math.max(bbox.left + 4, bbox.left + bbox.width - ctx.measureText(text).width - 4), y);
   }
   chart.root.dataset.offScaleLines = JSON.stringify(off.map(({ level, text, value, side }) => ({ level, text, value, side })));
 }
