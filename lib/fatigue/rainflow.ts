@@ -1,4 +1,4 @@
-import { createReversalFilter } from "./reversals";
+import { createReversalFilter, type ReversalFilterState } from "./reversals";
 
 /** One counted cycle (count 1) or half cycle (count 0.5), in the units of the history. */
 export interface Cycle {
@@ -28,13 +28,33 @@ function cycleBetween(from: number, to: number, count: number): Cycle {
 }
 
 /**
+ * What a counter carries from one block of a history to the next: the unmatched reversals (the
+ * residue, oldest first) and the reversal filter's state. Counting block after block from it
+ * gives the cycles of the joined history.
+ */
+export interface RainflowResidue extends ReversalFilterState {
+  reversals: number[];
+}
+
+/** A cycle handed over as its two ends, so a caller binning millions of them allocates nothing. */
+export type CycleSink = (from: number, to: number, count: number) => void;
+
+export interface RainflowStream {
+  push(value: number): void;
+  /** The state to resume from with the next block; the stream may go on being used. */
+  residue(): RainflowResidue;
+  /** Ends the history: the residue goes to the sink as half cycles and the stream is empty again. */
+  finish(): void;
+  readonly unmatchedReversals: number;
+}
+
+/**
  * Rainflow counting per ASTM E1049-85 (reapproved 2017), 5.4.4, for a history not assumed to be
  * periodic. The stack holds the unmatched reversals; its bottom is the starting point S.
- * Memory is the stack plus the cycles not yet taken, never the samples.
+ * Memory is the stack, never the samples.
  */
-export function createRainflowCounter(): RainflowCounter {
-  const stack: number[] = [];
-  let counted: Cycle[] = [];
+export function createRainflowStream(onCycle: CycleSink, resume?: RainflowResidue): RainflowStream {
+  const stack: number[] = resume ? [...resume.reversals] : [];
 
   function countAgainstStack(reversal: number) {
     stack.push(reversal);
@@ -47,15 +67,37 @@ export function createRainflowCounter(): RainflowCounter {
       if (Math.abs(xEnd - yEnd) < Math.abs(yEnd - yStart)) break;
       if (n === 3) {
         // Step 5: Y holds S, so only its first half is closed; S moves to Y's second point.
-        counted.push(cycleBetween(yStart, yEnd, 0.5));
+        onCycle(yStart, yEnd, 0.5);
         stack.shift();
       } else {
         // Step 4: Y is enclosed by X, a full cycle.
-        counted.push(cycleBetween(yStart, yEnd, 1));
+        onCycle(yStart, yEnd, 1);
         stack.splice(n - 3, 2);
       }
     }
   }
+
+  const reversals = createReversalFilter(countAgainstStack, resume);
+
+  return {
+    push: (value) => reversals.push(value),
+    residue: () => ({ reversals: [...stack], ...reversals.state() }),
+    finish() {
+      reversals.flush();
+      // Step 6: every range left between unmatched reversals is a half cycle.
+      for (let i = 1; i < stack.length; i++) onCycle(stack[i - 1]!, stack[i]!, 0.5);
+      stack.length = 0;
+    },
+    get unmatchedReversals() {
+      return stack.length;
+    },
+  };
+}
+
+/** A rainflow stream that collects its cycles as objects, for histories of readings minutes apart. */
+export function createRainflowCounter(): RainflowCounter {
+  let counted: Cycle[] = [];
+  const stream = createRainflowStream((from, to, count) => counted.push(cycleBetween(from, to, count)));
 
   function takeCounted(): Cycle[] {
     const taken = counted;
@@ -63,20 +105,15 @@ export function createRainflowCounter(): RainflowCounter {
     return taken;
   }
 
-  const reversals = createReversalFilter(countAgainstStack);
-
   return {
-    push: (value) => reversals.push(value),
+    push: stream.push,
     takeCounted,
     finish() {
-      reversals.flush();
-      // Step 6: every range left between unmatched reversals is a half cycle.
-      for (let i = 1; i < stack.length; i++) counted.push(cycleBetween(stack[i - 1]!, stack[i]!, 0.5));
-      stack.length = 0;
+      stream.finish();
       return takeCounted();
     },
     get unmatchedReversals() {
-      return stack.length;
+      return stream.unmatchedReversals;
     },
   };
 }
