@@ -37,6 +37,7 @@ const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "
   expectedInterval: 600,
   ratedRange: 3000,
   detailCategory: null,
+  sampling: { mode: "static" },
   ...fields,
 });
 
@@ -55,6 +56,7 @@ const vibratingWire = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "i
   expectedInterval: 600,
   ratedRange: 3000,
   detailCategory: null,
+  sampling: { mode: "static" },
   ...fields,
 });
 

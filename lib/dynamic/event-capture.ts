@@ -60,6 +60,11 @@ export function eventCapacity(config: TriggerConfig): number {
 // of where the last block ended is the same signal going on.
 const isContiguous = (state: CaptureState, start: number, rateHz: number) => Math.abs(start - state.nextTime) <= 200 / rateHz;
 
+/** An open event as far as it got, for when its post window can no longer be completed (a gap, or a late burst). */
+export function closeOpenEvent(open: OpenEvent, rateHz: number): CapturedEvent {
+  return { start: open.start, rateHz, stress: open.stress, trigger: open.trigger, peak: open.peak, peakAt: open.peakAt, truncated: false };
+}
+
 /**
  * Captures the waveforms around trigger crossings in one block of stress samples (MPa), going on
  * from `resume` when the block continues the previous one without a gap. An event keeps
@@ -111,11 +116,7 @@ export function captureEvents(
       openLength = Math.min(resume.open.stress.length, capacity);
     }
   } else if (resume?.open) {
-    // A gap cuts the open event's post window short: it is kept as far as it got.
-    open = { ...resume.open };
-    openBuffer = resume.open.stress;
-    openLength = resume.open.stress.length;
-    close(false);
+    events.push(closeOpenEvent(resume.open, rateHz));
   }
 
   for (let i = 0; i < stress.length; i++) {

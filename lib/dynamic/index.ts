@@ -23,6 +23,7 @@ export {
   EVENT_EXTRA_SECONDS,
   MAX_EVENT_SAMPLES,
   captureEvents,
+  closeOpenEvent,
   eventCapacity,
   type CaptureState,
   type CapturedEvent,

@@ -26,7 +26,7 @@ export function emptySummary(start: number, binWidth: number): IntervalSummary {
 }
 
 /** RMS about the interval's mean, MPa. */
-export function rmsOf(summary: IntervalSummary): number {
+export function rmsOf(summary: Pick<IntervalSummary, "samples" | "m2">): number {
   return summary.samples === 0 ? 0 : Math.sqrt(summary.m2 / summary.samples);
 }
 

@@ -22,6 +22,7 @@ export function gaugeColumns(fields: Omit<GaugeFields, "tag" | "zero">) {
     expectedInterval: fields.expectedInterval,
     ratedRange: fields.ratedRange,
     detailCategory: fields.detailCategory,
+    sampling: fields.sampling,
   };
 }
 
@@ -47,6 +48,7 @@ export function gaugeFieldsOf(row: Gauge): GaugeFields {
     expectedInterval: row.expectedInterval,
     ratedRange: row.ratedRange,
     detailCategory: row.detailCategory as GaugeFields["detailCategory"],
+    sampling: row.sampling as GaugeFields["sampling"],
   };
 }
 

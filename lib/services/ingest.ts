@@ -94,7 +94,7 @@ export async function ingestDecoded(target: IngestTarget, readings: Iterable<Dec
 const MAX_TAGS_LOOKED_UP = 500;
 
 /** The gauge tags a JSON batch names, or undefined when it names too many to look up one by one. */
-function tagsNamed(readings: readonly unknown[]): string[] | undefined {
+export function tagsNamed(readings: readonly unknown[]): string[] | undefined {
   const tags = new Set<string>();
   for (const reading of readings) {
     const gauge = (reading as { gauge?: unknown } | null)?.gauge;
@@ -148,12 +148,19 @@ const NO_ALERTS: AlertCounts = Object.freeze({ opened: 0, escalated: 0, cleared:
 async function storeBatch(target: IngestTarget, batch: PreparedBatch): Promise<IngestResult> {
   const valid = rowCount(batch.gauges);
   if (valid === 0) return { accepted: 0, duplicates: batch.repeats, rejected: batch.rejected, alerts: { ...NO_ALERTS } };
-  const { accepted, alerts } = await writeTransaction(async (tx) => {
-    const inserted = await insertReadings(tx, batch.gauges);
-    await mergeRollups(tx, inserted);
-    return { accepted: rowCount(inserted), alerts: await evaluateLimits(tx, target, inserted) };
-  });
+  const { accepted, alerts } = await writeTransaction((tx) => storeConvertedReadings(tx, target, batch.gauges));
   return { accepted, duplicates: valid - accepted + batch.repeats, rejected: batch.rejected, alerts };
+}
+
+/**
+ * Inside the caller's transaction: stores converted readings (per gauge in time order, one per
+ * time) that are not stored yet, their roll-ups and the limit evaluation. Bursts use it for
+ * their extremes, which limits take as readings at their own instants.
+ */
+export async function storeConvertedReadings(tx: WriteTx, target: IngestTarget, gauges: readonly GaugeRows[]): Promise<{ accepted: number; alerts: AlertCounts }> {
+  const inserted = await insertReadings(tx, gauges);
+  await mergeRollups(tx, inserted);
+  return { accepted: rowCount(inserted), alerts: await evaluateLimits(tx, target, inserted) };
 }
 
 /**
