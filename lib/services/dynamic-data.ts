@@ -47,26 +47,44 @@ export async function gaugeSummaries(actor: Actor, code: string, tag: string, ra
   };
 }
 
-/** Histograms of the gauge's intervals starting in [from, to), summed, with the span they cover; null when there are none. */
-export async function summedHistogram(gaugeId: number, range: Range): Promise<{ histogram: RangeHistogram; first: number; last: number; intervals: number; samples: number } | null> {
+const DAY_MS = 86_400_000;
+
+/** A gauge's stored rainflow histograms over a period, summed per UTC day. */
+export interface DailyHistograms {
+  /** Day start (epoch ms) → ranges counted that day, ascending by day. */
+  days: Map<number, RangeHistogram>;
+  /** Start of the first interval and end of the last. */
+  first: number;
+  last: number;
+  samples: number;
+}
+
+/** Histograms of the gauge's intervals starting in [from, to), summed per UTC day; null when there are none. */
+export async function dailyHistograms(gaugeId: number, range: Range): Promise<DailyHistograms | null> {
   const rows = await getDb()
     .select({ start: burstSummaries.start, length: burstSummaries.length, samples: burstSummaries.samples, histogram: burstSummaries.histogram })
     .from(burstSummaries)
     .where(and(eq(burstSummaries.gaugeId, gaugeId), gte(burstSummaries.start, range.from), lt(burstSummaries.start, range.to)))
     .orderBy(asc(burstSummaries.start));
   if (rows.length === 0) return null;
-  let histogram = decodeHistogram(rows[0]!.histogram);
+  const days = new Map<number, RangeHistogram>();
+  let binWidth: number | null = null;
   let samples = 0;
-  for (const [i, row] of rows.entries()) {
+  for (const row of rows) {
+    const histogram = decodeHistogram(row.histogram);
+    binWidth ??= histogram.binWidth;
+    if (histogram.binWidth !== binWidth) {
+      throw new AppError(
+        "bad_request",
+        `The period holds histograms in bins of ${binWidth} and ${histogram.binWidth} MPa (the gauge's bin width changed); choose a period on one side of the change.`,
+      );
+    }
     samples += row.samples;
-    if (i > 0) histogram = mergeHistograms(histogram, rebinTo(decodeHistogram(row.histogram), histogram.binWidth));
+    const day = Math.floor(row.start / DAY_MS) * DAY_MS;
+    const earlier = days.get(day);
+    days.set(day, earlier ? mergeHistograms(earlier, histogram) : histogram);
   }
-  return { histogram, first: rows[0]!.start, last: rows.at(-1)!.start + rows.at(-1)!.length, intervals: rows.length, samples };
-}
-
-function rebinTo(histogram: RangeHistogram, binWidth: number): RangeHistogram {
-  if (histogram.binWidth === binWidth) return histogram;
-  throw new AppError("bad_request", `The period holds histograms in bins of ${histogram.binWidth} and ${binWidth} MPa (the gauge's bin width changed); choose a period on one side of the change.`);
+  return { days, first: rows[0]!.start, last: rows.at(-1)!.start + rows.at(-1)!.length, samples };
 }
 
 function eventSummary(row: Omit<DynamicEventRow, "waveform">, tag: string) {

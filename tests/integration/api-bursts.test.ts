@@ -6,6 +6,7 @@ import * as eventRoute from "@/app/api/v1/structures/[code]/events/[id]/route";
 import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
 import * as limitsRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/limits/route";
 import * as gaugeRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/route";
+import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatigue/route";
 import { getClient, getDb } from "@/db/client";
 import { auditLog, mailOutbox } from "@/db/schema";
 import { createGauge } from "@/lib/services/gauges";
@@ -28,7 +29,7 @@ beforeAll(async () => {
   const owner = await makeUser("owner");
   await makeStructure("BR", [engineer, owner]);
   await makeStructure("OTHER", [engineer]);
-  for (const tag of ["D1", "D2", "D3", "D4", "D5"]) {
+  for (const tag of ["D1", "D2", "D3", "D4", "D5", "D6"]) {
     await createGauge(engineer, "BR", { ...microstrainGauge(tag), material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 }, sampling: dynamic });
   }
   await createGauge(engineer, "BR", microstrainGauge("S1"));
@@ -283,5 +284,49 @@ describe("events and limits on dynamic gauges", () => {
     const count = await getClient().execute({ sql: "SELECT count(*) FROM readings r JOIN gauges g ON g.id = r.gauge_id WHERE g.tag = 'D5'", args: [] });
     // The two static readings kept, and the burst's extremes and last sample beside them.
     expect(Number(count.rows[0]![0])).toBe(5);
+  });
+});
+
+describe("fatigue from the stored histograms", () => {
+  const DAY = 86_400_000;
+  const START = T0 + 14 * DAY;
+  /** 1 Hz swing of ±250 µε about 5 µε: stress range 100 MPa per period (Hooke's law, σ = E·ε). */
+  const swing = (t: number) => 5 + 250 * Math.cos(2 * Math.PI * t);
+
+  async function fatigue(tag: string, from: number, to: number) {
+    const response = await fatigueRoute.GET(
+      apiRequest(`/structures/BR/gauges/${tag}/fatigue?from=${iso(from)}&to=${iso(to)}&category=71`, { token: tokens.owner }),
+      params({ code: "BR", tag }),
+    );
+    expect(response.status).toBe(200);
+    return response.json();
+  }
+
+  it("sums a dynamic gauge's histograms: Miner damage, equivalent range and damage per day match the sum by hand", async () => {
+    await postBinary({ gauge: "D6", start: iso(START), rateHz: RATE }, floats(signal(60, swing)));
+    await postBinary({ gauge: "D6", start: iso(START + DAY), rateHz: RATE }, floats(signal(60, swing)));
+    const result = await fatigue("D6", START, START + 2 * DAY);
+    expect(result.source).toBe("bursts");
+    // ASTM E1049-85 5.4.4 by hand: the first burst gives 120 reversals (a crest or trough every half
+    // period, the last sample still rising), of which 118 close as half cycles of 100 MPa (the last two
+    // wait in the residue); the second burst goes on rising to its first crest and adds 120 more
+    // reversals, closing 120 half cycles. 238 half cycles: 119 cycles.
+    expect(result.cycles).toEqual([{ range: 100, count: 119 }]);
+    // By hand: EN 1993-1-9 slope 3 above Δσ_D = 0.737·71 = 52 MPa, so N = 2×10⁶·(71/100)³ per cycle;
+    // Δσ_E = (Σ n·Δσ³ / 2×10⁶)^(1/3).
+    const endurance = 2e6 * (71 / 100) ** 3;
+    expect(result.damage).toBeCloseTo(119 / endurance, 12);
+    expect(result.equivalentRange).toBeCloseTo(((119 * 100 ** 3) / 2e6) ** (1 / 3), 9);
+    const day = (ms: number) => iso(ms).slice(0, 10);
+    expect(result.damagePerDay.map((d: { day: string }) => d.day)).toEqual([day(START), day(START + DAY)]);
+    expect(result.damagePerDay[0].damage).toBeCloseTo(59 / endurance, 12);
+    expect(result.damagePerDay[1].damage).toBeCloseTo(60 / endurance, 12);
+  });
+
+  it("keeps the readings path for a static gauge, saying so", async () => {
+    const result = await fatigue("S1", START, START + DAY);
+    expect(result.source).toBe("readings");
+    expect(result.equivalentRange).toBe(0);
+    expect(result.damagePerDay).toEqual([]);
   });
 });
