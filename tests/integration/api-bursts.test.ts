@@ -7,6 +7,7 @@ import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
 import * as limitsRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/limits/route";
 import * as gaugeRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/route";
 import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatigue/route";
+import { GET as openapi } from "@/app/api/v1/openapi.json/route";
 import { getClient, getDb } from "@/db/client";
 import { auditLog, mailOutbox } from "@/db/schema";
 import { createGauge } from "@/lib/services/gauges";
@@ -328,5 +329,18 @@ describe("fatigue from the stored histograms", () => {
     expect(result.source).toBe("readings");
     expect(result.equivalentRange).toBe(0);
     expect(result.damagePerDay).toEqual([]);
+  });
+});
+
+describe("the OpenAPI document", () => {
+  it("describes the bursts endpoint in JSON and binary, with the non-finite decision and every rejection code", async () => {
+    const doc = await openapi().json();
+    const post = doc.paths["/structures/{code}/bursts"].post;
+    expect(Object.keys(post.requestBody.content)).toEqual(["application/json", "application/octet-stream"]);
+    expect(post.description).toMatch(/refused whole \(`not-finite`\), in JSON and binary alike/);
+    for (const code of ["overlap", "not-dynamic", "wrong-rate", "empty-burst"]) expect(post.description).toContain(`\`${code}\``);
+    expect(post.parameters.map((p: { name: string }) => p.name)).toEqual(["code", "gauge", "start", "rateHz", "temperature"]);
+    expect(doc.paths["/structures/{code}/events/{id}"].patch.responses["403"]).toBeDefined();
+    expect(doc.paths["/structures/{code}/gauges/{tag}/summaries"].get.responses["200"]).toBeDefined();
   });
 });

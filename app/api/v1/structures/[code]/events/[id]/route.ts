@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { apiRoute, json, parseWith, readJson } from "@/lib/api/http";
+import { apiRoute, json, readJson } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { eventLabelInput } from "@/lib/api/burst-schemas";
 import { getEvent, labelEvent } from "@/lib/services/dynamic-data";
 
