@@ -54,25 +54,30 @@ export interface RainflowStream {
  * Memory is the stack, never the samples.
  */
 export function createRainflowStream(onCycle: CycleSink, resume?: RainflowResidue): RainflowStream {
+  // A plain array used with its own length: closing a cycle moves two numbers instead of splicing,
+  // which would allocate the removed elements on every cycle of a noisy kHz signal.
   const stack: number[] = resume ? [...resume.reversals] : [];
+  let size = stack.length;
 
   function countAgainstStack(reversal: number) {
-    stack.push(reversal);
-    while (stack.length >= 3) {
-      const n = stack.length;
-      const yStart = stack[n - 3]!;
-      const yEnd = stack[n - 2]!;
-      const xEnd = stack[n - 1]!;
+    stack[size++] = reversal;
+    while (size >= 3) {
+      const yStart = stack[size - 3]!;
+      const yEnd = stack[size - 2]!;
+      const xEnd = stack[size - 1]!;
       // Step 3: while X < Y, a later, larger range may still enclose Y, so Y waits.
       if (Math.abs(xEnd - yEnd) < Math.abs(yEnd - yStart)) break;
-      if (n === 3) {
+      if (size === 3) {
         // Step 5: Y holds S, so only its first half is closed; S moves to Y's second point.
         onCycle(yStart, yEnd, 0.5);
-        stack.shift();
+        stack[0] = yEnd;
+        stack[1] = xEnd;
+        size = 2;
       } else {
         // Step 4: Y is enclosed by X, a full cycle.
         onCycle(yStart, yEnd, 1);
-        stack.splice(n - 3, 2);
+        stack[size - 3] = xEnd;
+        size -= 2;
       }
     }
   }
@@ -80,16 +85,16 @@ export function createRainflowStream(onCycle: CycleSink, resume?: RainflowResidu
   const reversals = createReversalFilter(countAgainstStack, resume);
 
   return {
-    push: (value) => reversals.push(value),
-    residue: () => ({ reversals: [...stack], ...reversals.state() }),
+    push: reversals.push,
+    residue: () => ({ reversals: stack.slice(0, size), ...reversals.state() }),
     finish() {
       reversals.flush();
       // Step 6: every range left between unmatched reversals is a half cycle.
-      for (let i = 1; i < stack.length; i++) onCycle(stack[i - 1]!, stack[i]!, 0.5);
-      stack.length = 0;
+      for (let i = 1; i < size; i++) onCycle(stack[i - 1]!, stack[i]!, 0.5);
+      size = 0;
     },
     get unmatchedReversals() {
-      return stack.length;
+      return size;
     },
   };
 }

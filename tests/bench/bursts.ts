@@ -34,7 +34,7 @@ function burstBody(variant: number): Uint8Array {
   const noise = () => ((seed = (seed * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648 - 0.5) * 6;
   for (let i = 0; i < SAMPLES_PER_BURST; i++) {
     const t = i / RATE_HZ;
-    const passage = variant === 0 && t >= 30 && t < 30.5 ? 180 * Math.sin((Math.PI * (t - 30)) / 0.5) : 0;
+    const passage = variant === 5 && t >= 30 && t < 30.5 ? 180 * Math.sin((Math.PI * (t - 30)) / 0.5) : 0;
     values[i] = 40 * Math.sin(2 * Math.PI * 2 * t + variant) + noise() + passage;
   }
   return new Uint8Array(values.buffer);
