@@ -3,26 +3,12 @@
 import { useMemo } from "react";
 import type uPlot from "uplot";
 import { UplotChart } from "@/components/charts/uplot-chart";
+import { formatInTimeZone } from "@/lib/mail/format-time";
 import { formatInUnit } from "@/lib/units";
 import type { EventDetail } from "@/lib/services/dynamic-data";
 
 /** "2026-07-01 13:00:05.120 BST": an event's instant on the structure's clock, to the millisecond. */
-export function instantText(iso: string, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat("en-GB", {
-    timeZone,
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    second: "2-digit",
-    fractionalSecondDigits: 3,
-    hourCycle: "h23",
-    timeZoneName: "short",
-  }).formatToParts(new Date(iso));
-  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
-  return `${part("year")}-${part("month")}-${part("day")} ${part("hour")}:${part("minute")}:${part("second")}.${part("fractionalSecond")} ${part("timeZoneName")}`;
-}
+export const instantText = (iso: string, timeZone: string) => formatInTimeZone(new Date(iso), timeZone, { milliseconds: true });
 
 /**
  * Trigger level and peak drawn over the waveform. What was drawn is listed in `data-overlays`

@@ -19,6 +19,7 @@ import {
 } from "@/lib/dynamic";
 import { AppError } from "@/lib/errors";
 import { createRainflowStream, type RainflowResidue } from "@/lib/fatigue";
+import type { GaugeConverter } from "@/lib/mechanics";
 import { FUTURE_TOLERANCE_MS, emptyRows, type GaugeEntry, type GaugeRows } from "@/lib/ingest/batch";
 import {
   burstEnd,
@@ -79,12 +80,12 @@ function convertSamples(index: number, gauge: GaugeEntry, values: ArrayLike<unkn
   if (!converter.ok) {
     return reject(index, "gauge-not-convertible", `Gauge "${gauge.tag}" cannot convert samples (${converter.code}): ${converter.message}`);
   }
+  // A binary body is all numbers already: its own loop keeps the element access monomorphic.
+  if (values instanceof Float32Array) return convertFloats(index, converter, values, temperature);
   const stress = new Float64Array(values.length);
   for (let i = 0; i < values.length; i++) {
     const value = values[i];
-    if (typeof value !== "number" || !Number.isFinite(value)) {
-      return reject(index, "not-finite", `Sample ${i} is ${typeof value === "number" ? String(value) : JSON.stringify(value ?? null)}, not a finite number; the burst is refused whole. Leave bad samples out of the logger's output or send the burst in two.`);
-    }
+    if (typeof value !== "number" || !Number.isFinite(value)) return notFinite(index, i, value);
     const result = converter.convert(value, temperature);
     if (!result.ok) {
       const code = result.code === "non-finite-value" ? "not-finite" : result.code;
@@ -92,6 +93,27 @@ function convertSamples(index: number, gauge: GaugeEntry, values: ArrayLike<unkn
     }
     if (!Number.isFinite(result.stress)) return reject(index, "not-finite", `Sample ${i} converts to a stress that is not finite; check the gauge's configuration.`);
     stress[i] = result.stress;
+  }
+  return stress;
+}
+
+const notFinite = (index: number, i: number, value: unknown) =>
+  reject(
+    index,
+    "not-finite",
+    `Sample ${i} is ${typeof value === "number" ? String(value) : JSON.stringify(value ?? null)}, not a finite number; the burst is refused whole. Leave bad samples out of the logger's output or send the burst in two.`,
+  );
+
+function convertFloats(index: number, converter: GaugeConverter, values: Float32Array, temperature: number | null): Float64Array | BurstRejection {
+  const stress = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const value = values[i]!;
+    if (!Number.isFinite(value)) return notFinite(index, i, value);
+    const result = converter.convert(value, temperature);
+    if (!result.ok) return reject(index, result.code === "non-finite-value" ? "not-finite" : result.code, `Sample ${i}: ${result.message}`);
+    const converted = result.stress;
+    if (!Number.isFinite(converted)) return reject(index, "not-finite", `Sample ${i} converts to a stress that is not finite; check the gauge's configuration.`);
+    stress[i] = converted;
   }
   return stress;
 }
