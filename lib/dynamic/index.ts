@@ -7,7 +7,7 @@
  *   stored = mergeSummaries(stored, block.intervals[i]);                   // late bursts too
  */
 export { emptySummary, mergeSummaries, rmsOf, type IntervalSummary } from "./interval-summary";
-export { sampleTime, summarizeBlock, type BlockSummary, type SummaryConfig } from "./summarize-block";
+export { SUMMARY_MINUTES, sampleTime, summarizeBlock, type BlockSummary, type SummaryConfig } from "./summarize-block";
 export {
   addRange,
   decodeHistogram,

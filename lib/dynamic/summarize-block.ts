@@ -2,6 +2,9 @@ import { createRainflowStream, type RainflowResidue } from "@/lib/fatigue";
 import { emptySummary, type IntervalSummary } from "./interval-summary";
 import { addRange } from "./range-histogram";
 
+/** Interval lengths that divide the hour, so every interval starts on a whole hour's grid. */
+export const SUMMARY_MINUTES = [1, 2, 3, 4, 5, 6, 10, 12, 15, 20, 30, 60] as const;
+
 export interface SummaryConfig {
   rateHz: number;
   /** Interval length; a divisor of 60 so that intervals line up with the hour. */

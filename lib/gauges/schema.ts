@@ -8,6 +8,7 @@ import {
   type GaugeConfigErrorCode,
 } from "@/lib/mechanics";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
+import { SUMMARY_MINUTES } from "@/lib/dynamic";
 import { optionalText } from "@/lib/validation";
 
 /** Gauge fields as the API contract names them, shared by the API and the gauge form. */
@@ -75,8 +76,6 @@ export const zeroInput = z.object({
 
 const INPUTS = [...FOIL_INPUTS, ...VIBRATING_WIRE_INPUTS] as const;
 
-/** Interval lengths that divide the hour, so every interval starts on a whole hour's grid. */
-export const SUMMARY_MINUTES = [1, 2, 3, 4, 5, 6, 10, 12, 15, 20, 30, 60] as const;
 export const MAX_RATE_HZ = 5000;
 /** Seconds of waveform an event keeps before and after its crossings, at most. */
 export const MAX_EVENT_WINDOW_SECONDS = 60;
