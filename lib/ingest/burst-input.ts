@@ -15,6 +15,8 @@ export const BURST_REJECTION_CODES = {
   "not-dynamic": "The gauge is static: send its data as readings, or make it dynamic first.",
   "invalid-time": "The start is not ISO-8601 with Z or an offset, or is before 1970.",
   "time-in-future": "The burst ends more than 5 minutes ahead of the server's clock.",
+  "before-zero": "The burst starts earlier than the gauge's first zero reading, from which its strain is measured.",
+  "temperature-out-of-range": "The burst's temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.",
   "wrong-rate": "rateHz is not the gauge's rate.",
   "empty-burst": "The burst has no samples.",
   "not-finite": "A sample (or the strain or stress it converts to) is not a finite number: NaN, Infinity, text or null. The whole burst is refused.",

@@ -20,6 +20,7 @@ import {
 import { AppError } from "@/lib/errors";
 import { createRainflowStream, type RainflowResidue } from "@/lib/fatigue";
 import type { GaugeConverter } from "@/lib/mechanics";
+import { beforeZeroProblem, temperatureProblem } from "@/lib/ingest/plausibility";
 import { FUTURE_TOLERANCE_MS, emptyRows, type GaugeEntry, type GaugeRows } from "@/lib/ingest/batch";
 import {
   burstEnd,
@@ -134,6 +135,8 @@ function prepareBurst(index: number, burst: DecodedBurst, gauges: ReadonlyMap<st
   if (end > now + FUTURE_TOLERANCE_MS) {
     return reject(index, "time-in-future", "The burst ends more than 5 minutes ahead of the server's clock; check the logger's clock and time zone.");
   }
+  const implausible = beforeZeroProblem(burst.start, gauge.firstZeroTime, gauge.tag) ?? temperatureProblem(burst.temperature);
+  if (implausible) return reject(index, implausible.code, implausible.message);
   const stress = convertSamples(index, gauge, burst.values, burst.temperature);
   if (!(stress instanceof Float64Array)) return stress;
   return { index, gauge, sampling, start: burst.start, end, temperature: burst.temperature, raw: burst.values as ArrayLike<number>, stress };
