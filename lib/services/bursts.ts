@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, gt, inArray, lt, sql } from "drizzle-orm";
 import { writeTransaction, type WriteTx } from "@/db/client";
 import { burstSummaries, bursts, dynamicEvents, dynamicStates, type StoredSampling } from "@/db/schema";

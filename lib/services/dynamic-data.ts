@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, desc, eq, gte, lt } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { burstSummaries, dynamicEvents, gauges, type DynamicEventRow } from "@/db/schema";
