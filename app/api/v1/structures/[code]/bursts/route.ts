@@ -24,3 +24,5 @@ export const POST = apiRoute<Params>(async ({ request, actor, params }) => {
       throw new AppError("unsupported_media_type", "Send bursts as application/json, or one burst as application/octet-stream (32-bit little-endian floats).");
   }
 });
+
+export * from "@/lib/api/method-not-allowed";

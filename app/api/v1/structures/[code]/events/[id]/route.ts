@@ -16,3 +16,5 @@ export const PATCH = apiRoute<Params>(async ({ request, actor, params }) => {
   const { label } = await readJson(request, eventLabelInput);
   return json(await labelEvent(actor, params.code, id, label ?? null));
 });
+
+export * from "@/lib/api/method-not-allowed";

@@ -7,3 +7,5 @@ type Params = { code: string; tag: string };
 export const GET = apiRoute<Params>(async ({ request, actor, params }) =>
   json(await gaugeEvents(actor, params.code, params.tag, parseQuery(request, timeRange))),
 );
+
+export * from "@/lib/api/method-not-allowed";
