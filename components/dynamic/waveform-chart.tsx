@@ -3,7 +3,7 @@
 import { useMemo } from "react";
 import type uPlot from "uplot";
 import { UplotChart } from "@/components/charts/uplot-chart";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { formatInUnit } from "@/lib/units";
 import type { EventDetail } from "@/lib/services/dynamic-data";
 

@@ -18,7 +18,7 @@ export const ingestBurstsInput = z.object({
       { error: 'Send "bursts" as an array of bursts.' },
     )
     .meta({ description: "At most 2 000 000 samples (and 16 MB) per request; more is a 413." }),
-});
+}).meta({ id: "BurstsInput" });
 
 /** The binary body's burst fields, from the query string (text until the service checks them like JSON's). */
 export const binaryBurstQuery = z.object({
@@ -94,4 +94,4 @@ export const eventDetailSchema = z
 
 export const eventLabelInput = z.object({
   label: optionalText(100).meta({ description: 'What the event was, e.g. "heavy vehicle" or "false trigger"; null clears it' }),
-});
+}).meta({ id: "EventLabelInput" });
