@@ -603,6 +603,8 @@ const TAGS: Record<string, string> = {
   alerts: "Limit and sensor alerts and their acknowledgement",
   drawings: "Elevations and plans the gauges are placed on",
   readings: "Sending readings in one request (JSON or CSV)",
+  bursts: "Sending bursts of a dynamic (high-rate) gauge, in JSON or as 32-bit little-endian floats",
+  events: "Waveforms captured around trigger crossings of dynamic gauges, and their labels",
   uploads: "Sending a logger file of any size, streamed",
   report: "The periodic structure report",
   files: "Stored photos and drawings",
