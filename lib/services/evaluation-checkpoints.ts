@@ -11,7 +11,7 @@ export type Checkpoint<State> = { time: number; state: State };
 
 const CHECKPOINT_SPACING_MS = 3_600_000;
 /** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
-const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
+export const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
 
 /** After a batch ending at `lastTime`: the state is a checkpoint once an hour, rather than after every batch. */
 export function nextCheckpoint<State>(
