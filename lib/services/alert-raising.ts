@@ -387,11 +387,3 @@ async function validCheckpointBefore(tx: WriteTx, gaugeId: number, time: number)
   const state = checkpoint && parseGaugeEvaluationState(checkpoint.state);
   return state ? { time: checkpoint!.time, state } : undefined;
 }
-
-/** Raises (or resolves) one sensor finding found outside ingestion, such as a gauge gone silent. */
-export async function raiseSensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding): Promise<Notification[]> {
-  const notifications: Notification[] = [];
-  await applySensorFinding(tx, gauge, finding, notifications);
-  await queueAlertMails(tx, gauge, notifications);
-  return notifications;
-}
