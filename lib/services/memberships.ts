@@ -81,12 +81,15 @@ export async function removeMember(actor: Actor, email: string, structureCode: s
   });
 }
 
-/** A member's own choice: each alert e-mail as it happens, or one daily digest. */
-export async function setAlertMailMode(actor: UserActor, structureCode: string, mode: "immediate" | "digest"): Promise<void> {
+/**
+ * A member's own choice: each alert e-mail as it happens, or one daily digest; for `sensor` faults
+ * apart (by default owners get those in the digest, lib/services/alert-mail's sensorMailOf).
+ */
+export async function setAlertMailMode(actor: UserActor, structureCode: string, mode: "immediate" | "digest", which: "alerts" | "sensor" = "alerts"): Promise<void> {
   const structure = await getVisibleStructure(actor, structureCode);
   const updated = await getDb()
     .update(structureMembers)
-    .set({ alertMail: mode })
+    .set(which === "alerts" ? { alertMail: mode } : { sensorMail: mode })
     .where(and(eq(structureMembers.structureId, structure.id), eq(structureMembers.userId, actor.id)))
     .returning({ userId: structureMembers.userId });
   if (updated.length === 0) throw new AppError("bad_request", `You are not a member of ${structure.code}, so you receive no alert e-mails for it.`);
