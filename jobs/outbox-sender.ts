@@ -83,11 +83,13 @@ async function claimDue(holder: string, now: Date, limit: number): Promise<Outbo
     and(eq(mailOutbox.state, "sending"), lt(mailOutbox.claimedUntil, now)),
   );
   const ids = db.select({ id: mailOutbox.id }).from(mailOutbox).where(due).orderBy(asc(mailOutbox.priority), asc(mailOutbox.nextAttemptAt), asc(mailOutbox.id)).limit(limit);
-  return db
+  const claimed = await db
     .update(mailOutbox)
     .set({ state: "sending", claimedBy: holder, claimedUntil: new Date(now.getTime() + MESSAGE_LEASE_MS) })
     .where(and(inArray(mailOutbox.id, ids), due))
     .returning();
+  // RETURNING gives rows in storage order, not the order they were chosen in: most urgent first again.
+  return claimed.sort((a, b) => a.priority - b.priority || a.nextAttemptAt.getTime() - b.nextAttemptAt.getTime() || a.id - b.id);
 }
 
 /** Extends our claim on one message right before sending it; false when it is no longer ours. */
