@@ -10,7 +10,7 @@ import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 import { MAIL_PRIORITY, priorityOfLimitMail } from "@/lib/mail/priority";
 import { buildSensorAlertMail } from "@/lib/mail/sensor-alert";
-import type { Notification } from "./alert-raising";
+import type { LimitEvent, Notification } from "./alert-raising";
 
 /**
  * How a member gets sensor-fault e-mails when they have not chosen: owners in the digest (a sensor
@@ -34,6 +34,19 @@ type Recipient = Awaited<ReturnType<typeof alertRecipients>>[number];
 
 type MailFacts = { structure: AlertStructure; gauge: { tag: string; label: string | null; location: string | null } };
 
+/** An episode event's facts as the limit and flapping e-mails tell them. */
+function eventFacts(event: LimitEvent, rosette: string | null) {
+  return {
+    rosette,
+    level: event.level,
+    quantity: event.quantity,
+    value: event.value,
+    peak: event.peak,
+    bound: { side: event.peak >= event.bound ? ("upper" as const) : ("lower" as const), value: event.bound },
+    at: new Date(event.time),
+  };
+}
+
 function mailFor(notification: Notification, facts: MailFacts) {
   switch (notification.kind) {
     case "sensor":
@@ -41,59 +54,26 @@ function mailFor(notification: Notification, facts: MailFacts) {
         { ...facts, event: notification.type, code: notification.code, message: notification.message, at: new Date(notification.time), gauges: notification.gauges },
         appUrl(),
       );
-    case "limit": {
-      const { event } = notification;
-      return buildAlertMail(
-        {
-          ...facts,
-          rosette: notification.rosette,
-          event: notification.type,
-          level: event.level,
-          quantity: event.quantity,
-          value: event.value,
-          peak: event.peak,
-          bound: { side: event.peak >= event.bound ? "upper" : "lower", value: event.bound },
-          at: new Date(event.time),
-        },
-        appUrl(),
-      );
-    }
-    case "flapping": {
-      const { event } = notification;
+    case "limit":
+      return buildAlertMail({ ...facts, ...eventFacts(notification.event, notification.rosette), event: notification.type }, appUrl());
+    case "flapping":
       return buildFlappingMail(
-        {
-          ...facts,
-          rosette: notification.rosette,
-          phase: "started",
-          openings: notification.openings,
-          since: new Date(notification.since),
-          level: event.level,
-          quantity: event.quantity,
-          value: event.value,
-          peak: event.peak,
-          bound: { side: event.peak >= event.bound ? "upper" : "lower", value: event.bound },
-          at: new Date(event.time),
-        },
+        { ...facts, ...eventFacts(notification.event, notification.rosette), phase: "started", openings: notification.openings, since: new Date(notification.since) },
         appUrl(),
       );
-    }
     case "flapping-settled": {
       const { alert } = notification;
       const bound = alert.bound ?? 0;
       const peak = alert.peak ?? bound;
+      // The alert row carries what the summary tells: its last clearing as the event, its peak as the value.
+      const settled = { type: "cleared" as const, level: alert.level as Level, time: notification.time, value: peak, bound, peak, peakAt: notification.time };
       return buildFlappingMail(
         {
           ...facts,
-          rosette: null,
+          ...eventFacts({ ...settled, quantity: alert.quantity as Quantity | RosetteLimitQuantity }, null),
           phase: "settled",
           openings: alert.openings,
           since: alert.openedAt,
-          level: alert.level as Level,
-          quantity: alert.quantity as Quantity | RosetteLimitQuantity,
-          value: peak,
-          peak,
-          bound: { side: peak >= bound ? "upper" : "lower", value: bound },
-          at: new Date(notification.time),
         },
         appUrl(),
       );
