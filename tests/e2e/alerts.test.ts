@@ -72,6 +72,19 @@ describe("alerts in the app", () => {
     await saveScreenshot(engineer, "jump-accepted");
   });
 
+  it("an owner gets sensor faults in the digest unless they choose otherwise, and can choose", async () => {
+    const owner = await (await newContext(browser)).newPage();
+    await new SignInPage(owner).signInAs("owner");
+    await owner.goto("/structures/MILL-FB");
+    const form = owner.getByRole("form", { name: "My alert e-mails" });
+    await expect(form.getByLabel("Sensor faults (a gauge, not the structure)").inputValue()).resolves.toBe("digest");
+    await form.getByLabel("Sensor faults (a gauge, not the structure)").selectOption("immediate");
+    await form.getByRole("button", { name: "Save" }).click();
+    await form.getByText("and sensor faults as they happen too").waitFor();
+    await owner.reload();
+    await expect(owner.getByRole("form", { name: "My alert e-mails" }).getByLabel("Sensor faults (a gauge, not the structure)").inputValue()).resolves.toBe("immediate");
+  });
+
   it("the limits editor refuses a bound in the wrong order and backtests the stored data", async () => {
     await engineer.goto("/structures/MILL-FB/gauges/LC-Q1/limits");
     const rows = engineer.getByTestId("limit-row");
