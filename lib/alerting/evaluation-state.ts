@@ -78,3 +78,16 @@ export function restartAtNewZero(state: GaugeEvaluationState, quantities: readon
   const restarted = restartQuantities(state, quantities);
   return { ...restarted, health: { ...restarted.health, jump: { previous: null } }, hold: null };
 }
+
+const rosetteStateSchema = z.object({
+  version: z.literal(EVALUATION_STATE_VERSION),
+  lastTime: time.nullable(),
+  episodes: z.object({ sigma1: episodeStateSchema.optional(), sigma2: episodeStateSchema.optional(), vonMises: episodeStateSchema.optional() }),
+  lastCheckpointAt: time.nullable().optional(),
+});
+
+/** A rosette's stored state (with its checkpoint time) if this build wrote it, else null: the caller replays. */
+export function parseRosetteEvaluationState(stored: unknown): z.output<typeof rosetteStateSchema> | null {
+  const parsed = rosetteStateSchema.safeParse(stored);
+  return parsed.success ? parsed.data : null;
+}

@@ -7,7 +7,7 @@ import { initialGaugeEvaluationState, parseGaugeEvaluationState, type GaugeEvalu
 import { FLAP_WINDOW_MS, isFlappingNow, isFurther } from "@/lib/alerting/flapping";
 import { levelRank, type EpisodeEvent, type EpisodeState, type Limit, type Quantity, type RosetteLimitQuantity, type SensorFinding } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
-import { checkpointBefore, CHECKPOINTS_KEPT_MS, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
+import { CHECKPOINTS_KEPT_MS, readableCheckpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
 import { limitOfRow } from "./limits";
 import { refreshStaleAlert } from "./stale-alerts";
 
@@ -147,8 +147,13 @@ async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitE
   const rosetteId = rosette?.id ?? null;
   let alertId: number | undefined;
   let mailed = true;
-  const reopened = event.type === "opened" ? await recentlyClearedAlert(tx, subject, event) : undefined;
-  if (reopened) {
+  const stillOpen = event.type === "opened" ? await openAlertWhere(tx, and(eq(alerts.kind, "limit"), limitAlertsOf(subject, event.quantity))) : undefined;
+  const reopened = event.type === "opened" && !stillOpen ? await recentlyClearedAlert(tx, subject, event) : undefined;
+  if (stillOpen) {
+    // A rebuilt state meets an episode whose alert is still open: the same alert goes on (one open alert per quantity), nobody is told twice.
+    alertId = stillOpen.id;
+    mailed = false;
+  } else if (reopened) {
     // Back beyond soon after clearing: the same episode goes on, rather than a new alert and e-mail per crossing.
     const openings = reopened.openings + 1;
     const flapping = reopened.flappingSince !== null || isFlappingNow(openings);
@@ -347,7 +352,7 @@ async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readon
     return applyEvaluation(tx, gauge, setup, context, stored, replayed, counts, true);
   }
   const late = lastTime !== null && earliest <= lastTime;
-  const checkpoint = late ? await validCheckpointBefore(tx, gauge.id, earliest) : undefined;
+  const checkpoint = late ? await readableCheckpointBefore(tx, evaluationCheckpoints, gauge.id, earliest, parseGaugeEvaluationState) : undefined;
   if (!checkpoint) {
     // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
     const batch = [...inserted].sort((a, b) => a.time - b.time);
@@ -381,9 +386,3 @@ async function applyEvaluation(
   return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes, verdicts: result.verdicts };
 }
 
-/** The checkpoint before `time` if this build can read it; an older one is passed over as if absent. */
-async function validCheckpointBefore(tx: WriteTx, gaugeId: number, time: number): Promise<Checkpoint<GaugeEvaluationState> | undefined> {
-  const checkpoint = await checkpointBefore<unknown>(tx, evaluationCheckpoints, gaugeId, time);
-  const state = checkpoint && parseGaugeEvaluationState(checkpoint.state);
-  return state ? { time: checkpoint!.time, state } : undefined;
-}

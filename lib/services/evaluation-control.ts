@@ -1,8 +1,8 @@
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
 import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, rosetteEvaluationCheckpoints, rosetteEvaluationStates, type Gauge } from "@/db/schema";
-import { restartAtNewZero, restartEpisode, restartQuantities, type GaugeEvaluationState } from "@/lib/alerting/evaluation-state";
-import { QUANTITIES, type Quantity } from "@/lib/limits";
+import { parseRosetteEvaluationState, restartAtNewZero, restartEpisode, restartQuantities, type GaugeEvaluationState } from "@/lib/alerting/evaluation-state";
+import { QUANTITIES, type Quantity, type RosetteLimitQuantity } from "@/lib/limits";
 import { storedStateOf, type StoredState } from "./alert-raising";
 import { dropCheckpointsAfter } from "./evaluation-checkpoints";
 
@@ -101,9 +101,11 @@ export async function restartAfterHandClear(tx: WriteTx, alert: { gaugeId: numbe
     return;
   }
   const [row] = await tx.select().from(rosetteEvaluationStates).where(eq(rosetteEvaluationStates.rosetteId, alert.rosetteId));
-  const state = row?.state as { episodes?: Record<string, unknown> } | undefined;
-  if (!row || !state?.episodes || !(alert.quantity in state.episodes)) return;
-  const episodes = { ...state.episodes, [alert.quantity]: restartEpisode(state.episodes[alert.quantity] as never) };
+  const state = row && parseRosetteEvaluationState(row.state);
+  const quantity = alert.quantity as RosetteLimitQuantity;
+  // An unreadable state is rebuilt by the next ingestion anyway.
+  if (!state?.episodes[quantity]) return;
+  const episodes = { ...state.episodes, [quantity]: restartEpisode(state.episodes[quantity]) };
   await tx.update(rosetteEvaluationStates).set({ state: { ...state, episodes, lastCheckpointAt: null } }).where(eq(rosetteEvaluationStates.rosetteId, alert.rosetteId));
   await dropCheckpointsAfter(tx, rosetteEvaluationCheckpoints, alert.rosetteId, ALL_TIMES);
 }
