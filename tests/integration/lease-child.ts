@@ -9,5 +9,12 @@ await migrateDatabase();
 releaseLeasesOnStop();
 await withLease("long-job", 10 * 60_000, (signal) => {
   console.log("holding");
-  return new Promise<string>((resolve) => signal.addEventListener("abort", () => resolve("stopped")));
+  // Busy, as a real job is: without something pending the process would simply end here.
+  const working = setInterval(() => undefined, 1_000);
+  return new Promise<string>((resolve) =>
+    signal.addEventListener("abort", () => {
+      clearInterval(working);
+      resolve("stopped");
+    }),
+  );
 });

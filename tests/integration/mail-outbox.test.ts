@@ -158,7 +158,7 @@ describe("job lease", () => {
     // The process still ends (its run stopped, or SIGTERM's default action) once the leases are back.
     await stopped;
     const [row] = await getDb().select().from(jobLeases).where(eq(jobLeases.name, "long-job"));
-    expect(row!.lastOutcome).toBe("stopped: SIGTERM");
+    expect(row!.lastOutcome, `the child said: ${output}`).toBe("stopped: SIGTERM");
     expect(row!.leaseUntil.getTime()).toBeLessThanOrEqual(Date.now());
     expect(await withLease("long-job", 10_000, slow(0), "holder-b")).toBe("done");
   }, 60_000);
