@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
 import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, rosetteEvaluationCheckpoints, rosetteEvaluationStates, type Gauge } from "@/db/schema";

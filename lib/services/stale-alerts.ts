@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
 import { bulkSql, type WriteTx } from "@/db/client";
 import { alertEvents, alerts, gauges, type Gauge } from "@/db/schema";

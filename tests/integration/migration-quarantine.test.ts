@@ -25,7 +25,7 @@ describe("the quarantine and mail-priority migrations", () => {
   it("keep stored readings, alerts and queued mail valid: readings healthy, peaks timed at opening, queued mail ranked by kind and level", async () => {
     const client = createClient({ url: `file:${path.join(folder, "old.db")}` });
     const db = drizzle(client);
-    await migrate(db, { migrationsFolder: migrationsUpTo("0006_repair_non_finite_readings") });
+    await migrate(db, { migrationsFolder: migrationsUpTo("0007_sign_in_lock_and_session_version") });
     await client.executeMultiple(`
       INSERT INTO structures (id, code, name) VALUES (1, 'OLD', 'Old structure');
       INSERT INTO gauges (id, structure_id, tag, kind, input, gauge_factor, thermal, material, zero_value, zero_time)
