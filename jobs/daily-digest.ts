@@ -10,6 +10,7 @@ import { gaugeStatuses } from "@/lib/services/status";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 import { sensorMailOf } from "@/lib/services/alert-mail";
+import { receivesAlertMail } from "@/lib/auth/permissions";
 
 const DAY_MS = 86_400_000;
 
@@ -62,7 +63,7 @@ type Member = { role: (typeof users.$inferSelect)["role"]; alertMail: "immediate
  */
 function carries(member: Member, row: EventRow): boolean {
   if (member.alertMail === "digest") return true;
-  if (member.role !== "owner" && member.role !== "engineer") return false;
+  if (!receivesAlertMail(member.role)) return false;
   if (row.event.deferredAt !== null) return true;
   return row.alert.kind === "sensor" && sensorMailOf(member) === "digest";
 }

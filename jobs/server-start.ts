@@ -1,13 +1,18 @@
 import "server-only";
 import { migrateDatabase } from "@/db/migrate";
-import { startMailCatcher } from "@/lib/mail/local-smtp-server";
+import { MailPortTaken, startMailCatcher } from "@/lib/mail/local-smtp-server";
 import { startJobs } from "./registry";
 
 const globalForStart = globalThis as unknown as { hookelineStarted?: Promise<void> };
 
 async function start() {
   await migrateDatabase();
-  await startMailCatcher();
+  await startMailCatcher().catch((error: unknown) => {
+    if (!(error instanceof MailPortTaken)) throw error;
+    // A server that answers while its mail goes astray is worse than one that does not start.
+    console.error(`Hookeline does not start: ${error.message}`);
+    process.exit(1);
+  });
   startJobs();
 }
 

@@ -1,5 +1,24 @@
 import { z } from "zod";
 import { MIN_PASSWORD_LENGTH, ROLES } from "@/lib/auth/roles";
+import { AppError } from "@/lib/errors";
+
+/** Zod's issues as the per-field list the API and forms report. */
+export function issuesOf(error: z.ZodError) {
+  return error.issues.map((issue) => ({ path: issue.path.join("."), message: issue.message }));
+}
+
+export function validationError(error: z.ZodError): AppError {
+  const issues = issuesOf(error);
+  const first = issues[0];
+  const summary = first ? `${first.path ? `${first.path}: ` : ""}${first.message}` : "The request is invalid.";
+  return new AppError("validation_failed", summary, { issues });
+}
+
+export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) throw validationError(result.error);
+  return result.data;
+}
 
 /** Schemas shared by server actions, the API and the command line. */
 
@@ -57,7 +76,7 @@ export const createStructureInput = z.object({
   location: optionalText(200),
   timezone: timeZone.optional().default("UTC").meta({ description: "IANA time zone, default UTC" }),
   description: optionalText(2000),
-});
+}).meta({ id: "StructureInput" });
 export type CreateStructureInput = z.infer<typeof createStructureInput>;
 
 export const email = z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address."));

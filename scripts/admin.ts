@@ -2,12 +2,11 @@ import { parseArgs } from "node:util";
 import { z } from "zod";
 import { closeDb } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
-import { issuesOf } from "@/lib/api/http";
 import { AppError } from "@/lib/errors";
 import { addMember } from "@/lib/services/memberships";
 import { createToken } from "@/lib/services/tokens";
 import { createUser, setPasswordFromCommandLine } from "@/lib/services/users";
-import { createUserInput, email, password, structureCode, tokenName } from "@/lib/validation";
+import { createUserInput, email, password, structureCode, tokenName, issuesOf } from "@/lib/validation";
 
 const USAGE = `Usage:
   npm run admin -- user add --email E --name N --role admin|engineer|technician|owner --password P

@@ -1,15 +1,19 @@
 import { spawn, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
+import os from "node:os";
 import path from "node:path";
+import { sourceFingerprint } from "./source-fingerprint";
 
 /**
  * `npm run demo`: the embedded database with demo data, a production build, and the
  * server on http://localhost:3000 (PORT to change it). Secrets for sign-in are made once
- * and kept under data/, so sessions survive a restart of the demo.
+ * and kept under data/, so sessions survive a restart of the demo. The build is made again
+ * only when the sources it reads have changed since the last one (`.next/hookeline-build.json`).
  */
 const port = process.env.PORT ?? "3000";
 const secretFile = path.join("data", "demo-auth-secret");
+const buildStamp = path.join(".next", "hookeline-build.json");
 
 function demoSecret(): string {
   if (process.env.NEXTAUTH_SECRET) return process.env.NEXTAUTH_SECRET;
@@ -22,19 +26,59 @@ const env = {
   ...process.env,
   NEXTAUTH_SECRET: demoSecret(),
   NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://localhost:${port}`,
+  NEXT_TELEMETRY_DISABLED: "1",
   PORT: port,
   // The demo logger job sends the demo gauges' readings as time passes, so the demo never goes stale.
   DEMO_LOGGER: "on",
 };
 
+const seconds = (since: number) => Math.round((performance.now() - since) / 1000);
+const duration = (s: number) => (s < 90 ? `${s} s` : `${Math.floor(s / 60)} min ${s % 60} s`);
+
 function step(label: string, command: string, args: string[]) {
   console.log(`\n▸ ${label}`);
+  const started = performance.now();
   const result = spawnSync(command, args, { stdio: "inherit", env });
   if (result.status !== 0) process.exit(result.status ?? 1);
+  const took = seconds(started);
+  console.log(`  done in ${duration(took)}`);
+  return took;
 }
 
-step("Database and demo data", "npx", ["tsx", "--conditions=react-server", "scripts/seed.ts"]);
-step("Production build", "npx", ["next", "build"]);
+type Stamp = { fingerprint: string; seconds: number };
+
+function readStamp(): Stamp | null {
+  if (!fs.existsSync(path.join(".next", "BUILD_ID")) || !fs.existsSync(buildStamp)) return null;
+  try {
+    return JSON.parse(fs.readFileSync(buildStamp, "utf8")) as Stamp;
+  } catch {
+    return null;
+  }
+}
+
+/** How long a build may take here, from the last one or from what a 2-core machine takes, and the load now. */
+function buildEstimate(last: Stamp | null): string {
+  const [load] = os.loadavg();
+  const cores = os.availableParallelism();
+  const busy = load! > cores ? `; the machine is busy now (load ${load!.toFixed(1)} on ${cores} cores), so expect longer` : "";
+  const usual = last ? `the last one here took ${duration(last.seconds)}` : "about 1 to 4 minutes on a quiet 2-core machine";
+  return `${usual}${busy}`;
+}
+
+function ensureBuild() {
+  const fingerprint = sourceFingerprint();
+  const stamp = readStamp();
+  if (fingerprint && stamp?.fingerprint === fingerprint) {
+    console.log("\n▸ Production build: reusing the one in .next (no source changed since it was made)");
+    return;
+  }
+  const why = !stamp ? "none yet" : !fingerprint ? "cannot tell what changed outside a git checkout" : "sources changed since the last one";
+  const took = step(`Production build (${why}): ${buildEstimate(stamp)}`, "npx", ["next", "build"]);
+  if (fingerprint) fs.writeFileSync(buildStamp, JSON.stringify({ fingerprint, seconds: took } satisfies Stamp));
+}
+
+step("Database and demo data (the first run stores the demo readings)", "npx", ["tsx", "--conditions=react-server", "scripts/seed.ts"]);
+ensureBuild();
 console.log(`\n▸ Hookeline on ${env.NEXTAUTH_URL} — sign-ins are listed in README.md`);
 const server = spawn("npx", ["next", "start", "-p", port], { stdio: "inherit", env });
 server.on("exit", (code) => process.exit(code ?? 0));

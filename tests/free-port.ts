@@ -1,13 +1,2 @@
-import net from "node:net";
-
-/** A port nobody listens on right now, found by letting the system pick one and closing it again. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
-}
+// The tests look for free ports the same way the server does.
+export { freePort } from "@/lib/net/free-port";

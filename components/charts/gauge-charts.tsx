@@ -10,6 +10,7 @@ import { limitLines, type Limit } from "@/lib/limits";
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
 import { startOfDayIn } from "@/lib/ingest/reading-time";
+import { chartExportFileName, chartExportTitleLines } from "@/lib/series/chart-export";
 import { EnvelopeChart, type ChartEpisode, type ChartEvent, type TimeRange } from "./envelope-chart";
 import { ThermalScatter } from "./thermal-scatter";
 
@@ -49,8 +50,11 @@ export function GaugeCharts({
   initialRange,
   compact = false,
   expectedIntervalS,
+  structureName,
 }: {
   structureCode: string;
+  /** Named in the title of an exported chart. */
+  structureName?: string;
   tag: string;
   timeZone: string;
   limits: readonly Limit<string>[];
@@ -104,16 +108,26 @@ export function GaugeCharts({
 
   async function exportCsv() {
     setProblem(null);
-    const query = `from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}`;
+    const query = `from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}&header=units`;
     await downloadFile(`${base}/readings?${query}`, "text/csv", `${structureCode}-${tag}-readings.csv`).catch((error: Error) => setProblem(error.message));
   }
 
   function exportPng() {
     const chart = charts.get("stress");
     if (!chart) return setProblem("The stress chart is not drawn yet.");
+    const title = chartExportTitleLines({
+      structure: structureName ? `${structureName} (${structureCode})` : structureCode,
+      gauge: tag,
+      quantity: "Stress",
+      unit: display.stress.unit,
+      from: range.from,
+      to: range.to,
+      timeZone,
+      formatTime: local,
+    });
     const link = document.createElement("a");
-    link.href = chart.ctx.canvas.toDataURL("image/png");
-    link.download = `${structureCode}-${tag}-stress.png`;
+    link.href = titledPng(chart.ctx.canvas, title);
+    link.download = chartExportFileName(structureCode, tag, "stress", range.from, range.to);
     link.click();
   }
 
@@ -175,4 +189,28 @@ export function GaugeCharts({
       {!compact && <ThermalScatter strain={strain.data} temperature={temperature.data} temperatureUnit={display.temperature.unit} toDisplayTemperature={display.temperature.toDisplay} />}
     </div>
   );
+}
+
+/** Title band height in CSS pixels: two lines of text above the chart. */
+const TITLE_BAND = 52;
+
+/** The chart's canvas under a white band with the title, as a PNG data URL, at the canvas's own pixel density. */
+function titledPng(canvas: HTMLCanvasElement, [heading, period]: [string, string]): string {
+  const scale = canvas.clientWidth > 0 ? canvas.width / canvas.clientWidth : 1;
+  const band = Math.round(TITLE_BAND * scale);
+  const out = document.createElement("canvas");
+  out.width = canvas.width;
+  out.height = canvas.height + band;
+  const context = out.getContext("2d")!;
+  context.fillStyle = "#ffffff";
+  context.fillRect(0, 0, out.width, out.height);
+  context.textBaseline = "top";
+  context.fillStyle = "#0f172a";
+  context.font = `600 ${Math.round(15 * scale)}px system-ui, sans-serif`;
+  context.fillText(heading, Math.round(12 * scale), Math.round(8 * scale), out.width - 24 * scale);
+  context.fillStyle = "#475569";
+  context.font = `${Math.round(13 * scale)}px system-ui, sans-serif`;
+  context.fillText(period, Math.round(12 * scale), Math.round(29 * scale), out.width - 24 * scale);
+  context.drawImage(canvas, 0, band);
+  return out.toDataURL("image/png");
 }

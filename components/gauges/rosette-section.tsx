@@ -1,9 +1,8 @@
 import Link from "next/link";
-import { ActionForm } from "@/components/ui/action-form";
+import { ActionForm, type FormActionFn } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { inputClass } from "@/components/ui/styles";
-import { createRosetteAction } from "@/app/(app)/structures/[code]/gauges/actions";
 import type { GaugeView } from "@/lib/services/gauges";
 import type { RosetteView } from "@/lib/services/rosettes";
 
@@ -19,11 +18,14 @@ export function RosetteSection({
   rosettes,
   gauges,
   canEdit,
+  createRosette,
 }: {
   structureCode: string;
   rosettes: RosetteView[];
   gauges: GaugeView[];
   canEdit: boolean;
+  /** The page's server action, passed in so that components stay below app/. */
+  createRosette: FormActionFn;
 }) {
   const active = gauges.filter((gauge) => gauge.status === "active");
   return (
@@ -44,7 +46,7 @@ export function RosetteSection({
         </ul>
       )}
       {canEdit && active.length >= 3 && (
-        <ActionForm action={createRosetteAction} className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5" label="Group a rosette">
+        <ActionForm action={createRosette} className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5" label="Group a rosette">
           <input type="hidden" name="code" value={structureCode} />
           <Field name="tag" label="Rosette tag" required />
           <Field name="layout" label="Layout">

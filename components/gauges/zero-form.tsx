@@ -1,17 +1,17 @@
 "use client";
 
 import { useState } from "react";
-import { ActionForm } from "@/components/ui/action-form";
+import { ActionForm, type FormActionFn } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
 import { LocalTimeInput } from "@/components/ui/local-time-input";
 import { SubmitButton } from "@/components/ui/submit-button";
-import { recordZeroAction } from "@/app/(app)/structures/[code]/gauges/actions";
 
 /** Record a new reference reading: typed on site, or the average of the last stored readings. */
-export function ZeroForm({ structureCode, tag, rawUnit }: { structureCode: string; tag: string; rawUnit: string }) {
+/** `recordZero` is the page's server action, passed in so that components stay below app/. */
+export function ZeroForm({ structureCode, tag, rawUnit, recordZero }: { structureCode: string; tag: string; rawUnit: string; recordZero: FormActionFn }) {
   const [source, setSource] = useState<"typed" | "readings">("typed");
   return (
-    <ActionForm action={recordZeroAction} className="space-y-3" label="Record a new zero">
+    <ActionForm action={recordZero} className="space-y-3" label="Record a new zero">
       <input type="hidden" name="code" value={structureCode} />
       <input type="hidden" name="tag" value={tag} />
       <fieldset className="flex flex-wrap gap-4 text-sm">

@@ -6,7 +6,7 @@ import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles"
 import { useUnits } from "@/components/units/units-context";
 import type { ConditionState } from "@/lib/alerting/condition";
 import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
 import type { PeriodLevel } from "@/lib/report/status";
 import type { UnitSystem } from "@/lib/units";

@@ -4,7 +4,7 @@ import { createContext, startTransition, useActionState, useContext, useEffect, 
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import { FormMessage } from "./form-message";
 
-type FormActionFn = (previous: ActionState, formData: FormData) => Promise<ActionState>;
+export type FormActionFn = (previous: ActionState, formData: FormData) => Promise<ActionState>;
 
 const ActionFormContext = createContext<{ state: ActionState; pending: boolean }>({ state: IDLE, pending: false });
 

@@ -2,7 +2,7 @@
 
 import { useRef } from "react";
 import { ActionForm } from "@/components/ui/action-form";
-import { unitsAction } from "@/app/(app)/preferences/actions";
+import { unitsAction } from "@/lib/actions/units-action";
 import type { UnitSystem } from "@/lib/units";
 
 /** SI or US customary for everything this person reads; saved with their account. */

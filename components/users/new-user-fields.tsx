@@ -1,6 +1,6 @@
 import { Field } from "@/components/ui/field";
 import { inputClass } from "@/components/ui/styles";
-import { ROLES, type Role } from "@/db/schema";
+import { ROLES, type Role } from "@/lib/auth/roles";
 
 /** Name, e-mail and role of a new account: the same whether it gets a first password or an invitation. */
 export function NewUserFields({ defaultRole }: { defaultRole: Role }) {

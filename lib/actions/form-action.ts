@@ -1,7 +1,7 @@
 import "server-only";
 import { revalidatePath } from "next/cache";
 import type { z } from "zod";
-import { issuesOf } from "@/lib/api/http";
+import { issuesOf } from "@/lib/validation";
 import type { UserActor } from "@/lib/auth/actor";
 import { currentUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";

@@ -18,16 +18,18 @@ function limitsBodyOf<Q extends readonly [string, ...string[]]>(quantities: Q, u
   return z.object({ limits: z.array(limitInput).max(30, `At most 30 limits per ${owner}.`) });
 }
 
-export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for strain, a fraction of yield for utilisation", "gauge");
+export const limitsBody = limitsBodyOf(QUANTITIES, "MPa for stress, µε for strain, a fraction of yield for utilisation", "gauge").meta({ id: "LimitsInput" });
 
-export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette");
+export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (sigma1, sigma2 and vonMises are all stresses)", "rosette").meta({
+  id: "RosetteLimitsInput",
+});
 
 /** An alert's id in a path. */
 export const alertIdParam = z.coerce.number({ error: "The alert id is a number." }).int().positive();
 
 const comment = plainText().trim().min(1, "Say what was checked or done.").max(2000);
 
-export const acknowledgeBody = z.object({ comment });
+export const acknowledgeBody = z.object({ comment }).meta({ id: "AcknowledgeInput" });
 
 /** How a jump is settled; the two values are lib/services/fault-resolution's FAULT_RESOLUTIONS. */
 export const resolveFaultBody = z.object({
@@ -35,7 +37,7 @@ export const resolveFaultBody = z.object({
     description: "accept-step: the quarantined readings are checked against the limits from the jump on; new-zero: the reading at the jump becomes the gauge's zero and the readings between stay set aside",
   }),
   comment,
-});
+}).meta({ id: "ResolveFaultInput" });
 
 const MAX_BACKTEST_MS = 366 * 86_400_000;
 
@@ -48,6 +50,6 @@ function withPeriod<Body extends z.ZodType<{ from: string; to: string }>>(body: 
 
 const period = { from: isoTime, to: isoTime };
 
-export const backtestBody = withPeriod(limitsBody.extend(period));
+export const backtestBody = withPeriod(limitsBody.extend(period)).meta({ id: "BacktestInput" });
 
-export const rosetteBacktestBody = withPeriod(rosetteLimitsBody.extend(period));
+export const rosetteBacktestBody = withPeriod(rosetteLimitsBody.extend(period)).meta({ id: "RosetteBacktestInput" });

@@ -1,6 +1,7 @@
 import "server-only";
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
+import { parseWith } from "@/lib/validation";
 import type { Actor } from "@/lib/auth/actor";
 import { requireRouteAccess } from "@/lib/auth/authorize";
 import { userForSessionCookie } from "@/lib/auth/request-session";
@@ -35,24 +36,6 @@ export function errorResponse(error: unknown, request?: Request): Response {
 
 function hasBody(request: Request): boolean {
   return Number(request.headers.get("content-length")) > 0 || request.headers.has("transfer-encoding");
-}
-
-/** Zod's issues as the per-field list the API and forms report. */
-export function issuesOf(error: z.ZodError) {
-  return error.issues.map((issue) => ({ path: issue.path.join("."), message: issue.message }));
-}
-
-export function validationError(error: z.ZodError): AppError {
-  const issues = issuesOf(error);
-  const first = issues[0];
-  const summary = first ? `${first.path ? `${first.path}: ` : ""}${first.message}` : "The request is invalid.";
-  return new AppError("validation_failed", summary, { issues });
-}
-
-export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
-  const result = schema.safeParse(value);
-  if (!result.success) throw validationError(result.error);
-  return result.data;
 }
 
 /** The media type of the body, without parameters, lower case. */

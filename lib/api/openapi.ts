@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isDeepStrictEqual } from "node:util";
 import { placementInput } from "@/lib/files/schema";
 import type { FileKind } from "@/db/schema";
 import { IMAGE_TYPES } from "@/lib/storage/image-type";
@@ -11,7 +12,6 @@ import {
   alertListSchema,
   alertSchema,
   backtestSchema,
-  gaugeDetailSchema,
   gaugeFatigueSchema,
   gaugeListSchema,
   gaugeSchema,
@@ -45,7 +45,8 @@ type Operation = {
   notes?: string;
   /** Describes a text/csv request body accepted beside (or instead of) JSON. */
   csvRequest?: string;
-  response: { status: number; schema?: z.ZodType; description: string; contentTypes?: string[]; contentType?: string };
+  /** `schema` (JSON) must carry `.meta({ id })`: it is written once under components.schemas and referenced. */
+  response: { status: number; description: string; schema?: z.ZodType; text?: { contentType: string }; binary?: string[] };
   /** Another representation of the same resource, chosen with Accept or a query parameter. */
   alternative?: { contentType: string; description: string };
   errors: number[];
@@ -137,7 +138,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       roles: "admin, engineer, technician",
       parameters: [codeParameter],
       request: gaugeInput,
-      response: { status: 201, schema: gaugeDetailSchema, description: "The new gauge" },
+      response: { status: 201, schema: gaugeSchema, description: "The new gauge" },
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
@@ -145,7 +146,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
     get: {
       summary: "One gauge",
       parameters: [codeParameter, tagParameter],
-      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge" },
+      response: { status: 200, schema: gaugeSchema, description: "The gauge" },
       errors: [401, 404],
     },
     patch: {
@@ -153,14 +154,14 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       roles: "admin, engineer, technician",
       parameters: [codeParameter, tagParameter],
       request: gaugePatch,
-      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge" },
+      response: { status: 200, schema: gaugeSchema, description: "The gauge" },
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
     delete: {
       summary: "Retire the gauge: it accepts no more readings; its history is kept",
       roles: "admin, engineer, technician",
       parameters: [codeParameter, tagParameter],
-      response: { status: 200, schema: gaugeDetailSchema, description: "The retired gauge" },
+      response: { status: 200, schema: gaugeSchema, description: "The retired gauge" },
       errors: [401, 403, 404],
     },
   },
@@ -170,7 +171,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       roles: "admin, engineer, technician",
       parameters: [codeParameter, tagParameter],
       request: zeroRequest,
-      response: { status: 200, schema: gaugeDetailSchema, description: "The gauge with its new zero" },
+      response: { status: 200, schema: gaugeSchema, description: "The gauge with its new zero" },
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
@@ -373,7 +374,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
         REJECTIONS,
       parameters: [codeParameter, timezoneParameter],
       csvRequest: CSV_BODY,
-      response: { status: 200, schema: z.string(), description: "Progress lines and the final report", contentType: "application/x-ndjson" },
+      response: { status: 200, description: "Progress lines and the final report", text: { contentType: "application/x-ndjson" } },
       errors: [400, 401, 403, 404, 415],
     },
   },
@@ -382,13 +383,16 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       summary: "Stored readings of a gauge with their derived values, oldest first",
       notes:
         "Pages of `limit` readings; pass `nextCursor` back as `cursor` for the next page (absent on the last). " +
-        "With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored.",
+        "With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored. " +
+        "Raw value and temperature are written as received; strain and stress to the resolution of the gauge's readings (one step of the finest raw decimal, through the gauge's conversion). " +
+        "`header=units` names the same columns with their units (`time (UTC)`, `value (<input unit>)`, `temperature (°C)`, `strain (µε)`, `stress (MPa)`, `flags`) after a UTF-8 byte-order mark, for spreadsheets.",
       parameters: [
         codeParameter,
         tagParameter,
         ...rangeParameters,
         { name: "limit", in: "query", description: "Readings per page, 1–10 000 (default 1000)" },
         { name: "cursor", in: "query", description: "`nextCursor` of the previous page" },
+        { name: "header", in: "query", description: "CSV only: `names` (default) or `units`" },
       ],
       response: { status: 200, schema: readingsPageSchema, description: "A page of readings" },
       alternative: { contentType: "text/csv", description: "Every reading of the range as CSV (Accept: text/csv)" },
@@ -431,7 +435,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
       parameters: [{ name: "id", in: "path", description: "File id" }],
-      response: { status: 200, description: "The image", contentTypes: Object.keys(IMAGE_TYPES) },
+      response: { status: 200, description: "The image", binary: Object.keys(IMAGE_TYPES) },
       errors: [400, 401, 404],
     },
     delete: {
@@ -454,38 +458,122 @@ function multipartSchema(request: MultipartRequest) {
   return { type: "object", properties, required: request.required };
 }
 
-function requestBodyOf(operation: Operation) {
+type Direction = "input" | "output";
+
+/**
+ * The named schemas the paths use, each written once: a request body as the client sends it
+ * (defaults optional), a response as the server answers it. Every path refers to them by `$ref`.
+ */
+class Components {
+  readonly used = { input: new Set<string>(), output: new Set<string>() };
+
+  ref(schema: z.ZodType, io: Direction, where: string) {
+    const id = z.globalRegistry.get(schema)?.id;
+    if (typeof id !== "string") throw new Error(`${where}: give its schema .meta({ id: "Name" }) so the document can name it once.`);
+    this.used[io].add(id);
+    return { $ref: componentRef(id) };
+  }
+
+  /** The used schemas and those they refer to; a schema read both ways must read the same. */
+  schemas() {
+    const emitted = { input: registrySchemas("input"), output: registrySchemas("output") };
+    const result: Record<string, JsonSchema> = {};
+    for (const io of ["input", "output"] as const) {
+      for (const id of reachable(this.used[io], emitted[io])) {
+        const schema = emitted[io][id]!;
+        if (id in result && !isDeepStrictEqual(result[id], schema))
+          throw new Error(`Schema ${id} differs between request and response: give each its own id.`);
+        result[id] = schema;
+      }
+    }
+    return Object.fromEntries(Object.entries(result).sort(([a], [b]) => a.localeCompare(b)));
+  }
+}
+
+type JsonSchema = Record<string, unknown>;
+
+const componentRef = (id: string) => `#/components/schemas/${id}`;
+
+function registrySchemas(io: Direction): Record<string, JsonSchema> {
+  const { schemas } = z.toJSONSchema(z.globalRegistry, { target: "draft-2020-12", io, unrepresentable: "any", uri: componentRef });
+  return Object.fromEntries(
+    Object.entries(schemas).map(([id, schema]) => {
+      const { $schema: _dialect, $id: _uri, ...body } = schema as JsonSchema;
+      return [id, body];
+    }),
+  );
+}
+
+function reachable(roots: Iterable<string>, schemas: Record<string, JsonSchema>) {
+  const found = new Set<string>();
+  const visit = (id: string) => {
+    if (found.has(id)) return;
+    found.add(id);
+    for (const match of JSON.stringify(schemas[id]).matchAll(/"\$ref":"#\/components\/schemas\/([^"]+)"/g)) visit(match[1]!);
+  };
+  for (const id of roots) visit(id);
+  return found;
+}
+
+function requestBodyOf(operation: Operation, components: Components, where: string) {
   if (operation.multipart) return { required: true, content: { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } };
   const content = {
-    ...(operation.request ? { "application/json": { schema: jsonSchema(operation.request, "input") } } : {}),
+    ...(operation.request ? { "application/json": { schema: components.ref(operation.request, "input", where) } } : {}),
     ...(operation.csvRequest ? { "text/csv": { schema: { type: "string", description: operation.csvRequest } } } : {}),
   };
   return Object.keys(content).length > 0 ? { required: true, content } : undefined;
 }
 
-function successContent({ response, alternative }: Operation) {
-  if (response.contentTypes) return Object.fromEntries(response.contentTypes.map((type) => [type, { schema: { type: "string", format: "binary" } }]));
+function successContent({ response, alternative }: Operation, components: Components, where: string) {
+  if (response.binary) return Object.fromEntries(response.binary.map((type) => [type, { schema: { type: "string", contentMediaType: type } }]));
+  if (response.text) return { [response.text.contentType]: { schema: { type: "string" } } };
   if (!response.schema) return undefined;
   return {
-    [response.contentType ?? "application/json"]: { schema: jsonSchema(response.schema, "output") },
+    "application/json": { schema: components.ref(response.schema, "output", where) },
     ...(alternative ? { [alternative.contentType]: { schema: { type: "string", description: alternative.description } } } : {}),
   };
 }
 
-const jsonSchema = (schema: z.ZodType, io: "input" | "output") =>
-  z.toJSONSchema(schema, { target: "draft-2020-12", io, unrepresentable: "any" });
+/** `GET /structures/{code}/gauges` → `getStructuresByCodeGauges`: unique, stable, and readable in generated clients. */
+function operationId(method: string, path: string) {
+  const words = path
+    .split("/")
+    .filter(Boolean)
+    .map((segment) => segment.replace(/^\{(.+)\}$/, "by-$1"))
+    .flatMap((segment) => segment.split(/[^A-Za-z0-9]+/));
+  return method + words.map((word) => word.charAt(0).toUpperCase() + word.slice(1)).join("");
+}
 
-function describeOperation(operation: Operation) {
-  const requestBody = requestBodyOf(operation);
-  const content = successContent(operation);
-  const errorResponses = Object.fromEntries(
-    operation.errors.map((status) => [
-      String(status),
-      { description: ERROR_MEANING[status], content: { "application/json": { schema: jsonSchema(errorSchema, "output") } } },
-    ]),
-  );
+/** Groups of operations in the reference, by the collection a path starts with (or the one under a structure). */
+const TAGS: Record<string, string> = {
+  structures: "The monitored structures",
+  gauges: "A structure's strain gauges: configuration, zero, limits, readings, series, fatigue, photos and placement",
+  rosettes: "Three gauges read together as a rosette: principal and von Mises stresses",
+  alerts: "Limit and sensor alerts and their acknowledgement",
+  drawings: "Elevations and plans the gauges are placed on",
+  readings: "Sending readings in one request (JSON or CSV)",
+  uploads: "Sending a logger file of any size, streamed",
+  report: "The periodic structure report",
+  files: "Stored photos and drawings",
+};
+
+function tagOf(path: string) {
+  const [first, second] = path.split("/").filter((segment) => segment && !segment.startsWith("{"));
+  const tag = first === "structures" && second ? second : first!;
+  if (!(tag in TAGS)) throw new Error(`${path}: describe its group "${tag}" in TAGS.`);
+  return tag;
+}
+
+function describeOperation(method: string, path: string, operation: Operation, components: Components) {
+  const where = `${method.toUpperCase()} ${path}`;
+  const requestBody = requestBodyOf(operation, components, where);
+  const content = successContent(operation, components, where);
+  const errorBody = { "application/json": { schema: components.ref(errorSchema, "output", where) } };
+  const errorResponses = Object.fromEntries(operation.errors.map((status) => [String(status), { description: ERROR_MEANING[status], content: errorBody }]));
   const description = [operation.roles ? `Roles: ${operation.roles}.` : "", operation.notes ?? ""].filter(Boolean).join("\n\n");
   return {
+    operationId: operationId(method, path),
+    tags: [tagOf(path)],
     summary: operation.summary,
     ...(description ? { description } : {}),
     ...(operation.parameters
@@ -499,14 +587,16 @@ function describeOperation(operation: Operation) {
   };
 }
 
-/** The OpenAPI 3.1 document of /api/v1, generated from the schemas that validate requests. */
+/** The OpenAPI 3.1 document of /api/v1, generated from the schemas that validate requests and shape answers. */
 export function openApiDocument() {
+  const components = new Components();
   const paths = Object.fromEntries(
     Object.entries(OPERATIONS).map(([path, methods]) => [
       path,
-      Object.fromEntries(Object.entries(methods).map(([method, op]) => [method, describeOperation(op)])),
+      Object.fromEntries(Object.entries(methods).map(([method, operation]) => [method, describeOperation(method, path, operation, components)])),
     ]),
   );
+  const tags = [...new Set(Object.keys(OPERATIONS).map(tagOf))].map((name) => ({ name, description: TAGS[name] }));
   return {
     openapi: "3.1.0",
     info: {
@@ -517,8 +607,9 @@ export function openApiDocument() {
         "Authenticate with `Authorization: Bearer <token>`.",
     },
     servers: [{ url: "/api/v1" }],
-    components: { securitySchemes: { bearer: { type: "http", scheme: "bearer" } } },
     security: [{ bearer: [] }],
+    tags,
     paths,
+    components: { securitySchemes: { bearer: { type: "http", scheme: "bearer" } }, schemas: components.schemas() },
   };
 }

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { parseReadingTime } from "@/lib/ingest/reading-time";
 import { DEFAULT_SERIES_POINTS, MAX_SERIES_POINTS, WEEK } from "@/lib/series";
-import { parseWith } from "./http";
+import { parseWith } from "@/lib/validation";
 
 /**
  * Request and response schemas of the readings endpoints. Readings inside the array are checked
@@ -19,7 +19,7 @@ export const ingestReadingsInput = z.object({
       { error: 'Send "readings" as an array of readings.' },
     )
     .meta({ description: "At most 50 000 readings (and 10 MB) per request; more is a 413." }),
-});
+}).meta({ id: "ReadingsInput" });
 
 export const ingestResultSchema = z
   .object({
@@ -101,6 +101,10 @@ export const readingsQuerySchema = z
   .object({
     limit: integer(1, MAX_READINGS_PAGE, 1000).meta({ description: "Readings per page (default 1000, max 10 000); CSV ignores it" }),
     cursor: z.string().optional().meta({ description: "`nextCursor` of the previous page" }),
+    header: z
+      .enum(["names", "units"], { error: 'header is "names" or "units".' })
+      .default("names")
+      .meta({ description: "CSV only: `names` (default) for the contract's column names, `units` for the same columns named with their units, e.g. `strain (µε)`, for spreadsheets" }),
   })
   .and(timeRange);
 

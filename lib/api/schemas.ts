@@ -27,7 +27,12 @@ export const structureSchema = z
   })
   .meta({ id: "Structure" });
 
-export const structureListSchema = z.object({ structures: z.array(structureSchema) });
+export const gaugeSchema = z.record(z.string(), z.unknown()).meta({
+  id: "Gauge",
+  description: "The gauge: every field of the request, plus status, retiredAt, replaces, replacedBy, drawing (`{ id, x, y } | null`) and createdAt",
+});
+
+export const structureListSchema = z.object({ structures: z.array(structureSchema) }).meta({ id: "StructureList" });
 
 export const conditionSchema = z
   .object({
@@ -65,10 +70,9 @@ export const fileSchema = z
   })
   .meta({ id: "File" });
 
-export const drawingListSchema = z.object({ drawings: z.array(fileSchema) });
-export const photoListSchema = z.object({ photos: z.array(fileSchema) });
+export const drawingListSchema = z.object({ drawings: z.array(fileSchema) }).meta({ id: "DrawingList" });
+export const photoListSchema = z.object({ photos: z.array(fileSchema) }).meta({ id: "PhotoList" });
 
-export const gaugeSchema = z.record(z.string(), z.unknown()).meta({ description: "The gauge, with `drawing: { id, x, y } | null`" });
 export const gaugeFatigueSchema = z
   .object({
     cycles: z
@@ -110,16 +114,12 @@ export const gaugeFatigueSchema = z
   })
   .meta({ id: "GaugeFatigue" });
 
-const gaugeOutput = z.record(z.string(), z.unknown()).meta({
-  description: "The gauge: every field of the request, plus status, retiredAt, replaces, replacedBy, drawing and createdAt",
-});
-export const gaugeListSchema = z.object({ gauges: z.array(gaugeOutput) }).meta({ id: "GaugeList" });
-export const gaugeDetailSchema = gaugeOutput;
+export const gaugeListSchema = z.object({ gauges: z.array(gaugeSchema) }).meta({ id: "GaugeList" });
 
 export const rosetteSchema = z
   .object({ tag: z.string(), layout: z.enum(["rectangular", "delta"]), gauges: z.array(z.string()).length(3), createdAt: z.string() })
   .meta({ id: "Rosette" });
-export const rosetteListSchema = z.object({ rosettes: z.array(rosetteSchema) });
+export const rosetteListSchema = z.object({ rosettes: z.array(rosetteSchema) }).meta({ id: "RosetteList" });
 
 const limitOutput = z.object({
   quantity: z.enum(QUANTITIES),
@@ -178,4 +178,4 @@ export const alertListSchema = z.object({
   alerts: z.array(alertSchema),
   total: z.number().int().meta({ description: "Alerts matching the filters in all, on every page" }),
   nextCursor: z.string().nullable().meta({ description: "Pass as `cursor` for the next page; null on the last page" }),
-});
+}).meta({ id: "AlertList" });

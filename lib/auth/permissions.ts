@@ -62,3 +62,18 @@ export function isStructureScoped(action: Action): boolean {
 export function seesAllStructures(role: Role): boolean {
   return role === "admin";
 }
+
+/** Roles whose members get a structure's alert e-mails (immediately or as a daily digest). */
+export const ALERT_MAIL_ROLES = ["owner", "engineer"] as const satisfies readonly Role[];
+
+export function receivesAlertMail(role: Role): boolean {
+  return (ALERT_MAIL_ROLES as readonly Role[]).includes(role);
+}
+
+/**
+ * Whether a role's sensor-fault e-mails go to the digest when the member has not chosen: an owner's
+ * do (a sensor fault asks the engineer to act, not the owner); everyone else's arrive as they happen.
+ */
+export function sensorMailDigestByDefault(role: Role): boolean {
+  return role === "owner";
+}

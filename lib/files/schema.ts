@@ -30,7 +30,7 @@ export const placementInput = z.union(
     z.object({ drawingId: z.null().meta({ description: "null takes the gauge off its drawing" }) }),
   ],
   { error: "Send { drawingId, x, y } to place the gauge, or { drawingId: null } to take it off its drawing." },
-);
+).meta({ id: "PlacementInput" });
 export type PlacementInput = z.infer<typeof placementInput>;
 
 const FILE_ID_RULE = "A file id is a positive whole number, e.g. /api/v1/files/12.";

@@ -173,20 +173,20 @@ export function toGaugeConfig(gauge: GaugeFields) {
   };
 }
 
-export const gaugeInput = gaugeFields.superRefine(checkConsistency);
+export const gaugeInput = gaugeFields.superRefine(checkConsistency).meta({ id: "GaugeInput" });
 export type GaugeInput = z.output<typeof gaugeInput>;
 
 /** PATCH: any fields but the tag; the result is checked whole again after merging with what is stored. */
-export const gaugePatch = gaugeFields.omit({ tag: true }).partial().extend({ reason: optionalText(500) });
+export const gaugePatch = gaugeFields.omit({ tag: true }).partial().extend({ reason: optionalText(500) }).meta({ id: "GaugePatch" });
 
 export const zeroRequest = z.union([
   z.object({ fromReadings: z.number().int("A whole number of readings.").min(1).max(10_000), reason: optionalText(500) }),
   zeroInput.extend({ reason: optionalText(500) }),
-]);
+]).meta({ id: "ZeroInput" });
 export type ZeroRequest = z.output<typeof zeroRequest>;
 
 export const rosetteInput = z.object({
   tag: gaugeTag,
   layout: z.enum(["rectangular", "delta"], { error: "Choose rectangular (0/45/90°) or delta (0/60/120°)." }),
   gauges: z.tuple([gaugeTag, gaugeTag, gaugeTag], { error: "Give three gauge tags: a, b and c." }),
-});
+}).meta({ id: "RosetteInput" });

@@ -1,36 +1,22 @@
+import { CsvError, parse } from "csv-parse/browser/esm/sync";
+import { LOGGER_CSV_OPTIONS } from "./csv-options";
+
 /**
  * The first rows of a logger file as the browser reads them from its first few kilobytes, to show
- * before uploading. Quotes are honoured within a line; a line cut by the end of the slice is dropped.
+ * before uploading, read by csv-parse with the server's options. A row cut by the end of the
+ * slice is dropped; so is one whose quoted field runs past it.
  */
 export function previewRows(head: string, maxRows: number, wholeFile: boolean): string[][] {
-  const lines = head.replace(/^\uFEFF/, "").split(/\r?\n/);
-  if (!wholeFile) lines.pop();
-  return lines
-    .filter((line) => line.trim() !== "")
-    .slice(0, maxRows)
-    .map(splitLine);
-}
-
-function splitLine(line: string): string[] {
-  const fields: string[] = [];
-  let field = "";
-  let quoted = false;
-  for (let i = 0; i < line.length; i++) {
-    const char = line[i]!;
-    if (quoted) {
-      if (char === '"' && line[i + 1] === '"') {
-        field += '"';
-        i++;
-      } else if (char === '"') quoted = false;
-      else field += char;
-    } else if (char === '"') quoted = true;
-    else if (char === ",") {
-      fields.push(field);
-      field = "";
-    } else field += char;
+  let text = wholeFile ? head : head.slice(0, head.lastIndexOf("\n") + 1);
+  for (;;) {
+    try {
+      return parse(text, { ...LOGGER_CSV_OPTIONS, to: maxRows });
+    } catch (error) {
+      // A quote still open at the end: the slice ends inside a quoted field. Try one line less.
+      if (!(error instanceof CsvError) || error.code !== "CSV_QUOTE_NOT_CLOSED" || text === "") return [];
+      text = text.slice(0, text.lastIndexOf("\n", text.length - 2) + 1);
+    }
   }
-  fields.push(field);
-  return fields;
 }
 
 /** A CSV field, quoted when it must be. */

@@ -1,6 +1,7 @@
 import { Readable } from "node:stream";
 import { CsvError, parse } from "csv-parse";
 import { AppError } from "@/lib/errors";
+import { LOGGER_CSV_OPTIONS } from "./csv-options";
 import type { CsvColumns } from "./reading-input";
 
 /** The contract's CSV header; temperature may be left out for gauges that need none. */
@@ -59,7 +60,7 @@ export interface CsvRow {
  */
 export async function* csvRows(body: ReadableStream<Uint8Array> | AsyncIterable<Uint8Array | string>): AsyncGenerator<CsvRow> {
   const source = body instanceof ReadableStream ? Readable.fromWeb(body as import("node:stream/web").ReadableStream) : Readable.from(body);
-  const parser = source.pipe(parse({ bom: true, relax_column_count: true, relax_quotes: true, skip_empty_lines: true, info: true }));
+  const parser = source.pipe(parse({ ...LOGGER_CSV_OPTIONS, info: true }));
   source.on("error", (error) => parser.destroy(error));
   try {
     for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {

@@ -1,6 +1,6 @@
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits/limit";
 import { formatLimitedValue } from "@/lib/units";
-import { formatInTimeZone } from "./format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
 /** What happened to the alert: a bound crossed, a higher level reached, or the value back within bounds. */

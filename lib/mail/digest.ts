@@ -1,5 +1,5 @@
 import { ALERT_CAUTION, alertPlace, describeAlertEvent, gaugeChartLink, type AlertEventFacts, type AlertStructure } from "./alert";
-import { formatInTimeZone } from "./format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { escapeHtml, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
 export type DigestMailInput = {

@@ -1,9 +1,11 @@
 import "server-only";
-import type { AddressInfo } from "node:net";
+import net, { type AddressInfo } from "node:net";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerDataStream, type SMTPServerSession } from "smtp-server";
-import { getDb } from "@/db/client";
+import { databaseUrl, getDb } from "@/db/client";
 import { caughtMail } from "@/db/schema";
+import { catcherBanner, databaseFingerprint, portHolder, portRefusal } from "./catcher-identity";
+import { freePort } from "@/lib/net/free-port";
 import { localSmtpPort } from "./transport";
 
 export type LocalSmtpServer = { port: number; close(): Promise<void> };
@@ -49,6 +51,7 @@ export function startLocalSmtpServer(options: LocalSmtpOptions): Promise<LocalSm
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ["STARTTLS"],
+    banner: catcherBanner(databaseFingerprint(databaseUrl())),
     logger: false,
     onRcptTo(address, _session, callback) {
       const refusal = options.refuseRecipient?.(address.address);
@@ -73,23 +76,49 @@ export function startLocalSmtpServer(options: LocalSmtpOptions): Promise<LocalSm
 
 const globalForCatcher = globalThis as unknown as { hookelineMailCatcher?: Promise<LocalSmtpServer | null> };
 
+/** The catcher's port belongs to someone this instance must not send its mail to. */
+export class MailPortTaken extends Error {}
+
+/** The first line whoever listens on the port sends, or "" when it says nothing within 3 s. */
+function greetingOn(port: number): Promise<string> {
+  return new Promise((resolve) => {
+    const socket = net.connect({ host: "127.0.0.1", port });
+    let received = "";
+    const done = () => {
+      socket.destroy();
+      resolve(received.split("\r\n")[0] ?? "");
+    };
+    socket.setTimeout(3000, done);
+    socket.on("data", (chunk) => {
+      received += chunk.toString("utf8");
+      if (received.includes("\r\n")) done();
+    });
+    socket.on("error", done);
+    socket.on("end", done);
+  });
+}
+
 /**
- * Started with the server when SMTP_URL is unset. If the port is taken (another instance on this
- * machine already catches), say so and go on: that instance's catcher writes to the same database.
+ * The catcher on `port`, or null when the catcher of another instance on the same database holds
+ * it (that one catches for both). Anyone else on the port is refused with how to pick another,
+ * since this instance's mail would end up where its "Mail" page never looks.
  */
+export async function openMailCatcher(port: number): Promise<LocalSmtpServer | null> {
+  try {
+    const server = await startLocalSmtpServer({ port });
+    console.log(`Mail is caught on 127.0.0.1:${server.port} and shown on the admin page "Mail".`);
+    return server;
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== "EADDRINUSE") throw error;
+    const holder = portHolder(await greetingOn(port), databaseFingerprint(databaseUrl()));
+    if (holder.kind !== "same-database") throw new MailPortTaken(portRefusal(port, holder, await freePort()));
+    console.warn(`Port ${port} is taken by the mail catcher of another Hookeline instance on this database; it catches this one's mail too.`);
+    return null;
+  }
+}
+
+/** Started once per process with the server (or `npm run jobs`) when SMTP_URL is unset. */
 export function startMailCatcher(): Promise<LocalSmtpServer | null> {
-  globalForCatcher.hookelineMailCatcher ??= (async () => {
-    if (process.env.SMTP_URL) return null;
-    const port = localSmtpPort();
-    try {
-      const server = await startLocalSmtpServer({ port });
-      console.log(`Mail is caught on 127.0.0.1:${server.port} and shown on the admin page "Mail".`);
-      return server;
-    } catch (error) {
-      if ((error as NodeJS.ErrnoException).code !== "EADDRINUSE") throw error;
-      console.warn(`Port ${port} is taken: another Hookeline instance is probably catching mail there; this one does not.`);
-      return null;
-    }
-  })();
+  globalForCatcher.hookelineMailCatcher ??= process.env.SMTP_URL ? Promise.resolve(null) : openMailCatcher(localSmtpPort());
   return globalForCatcher.hookelineMailCatcher;
 }

@@ -1,5 +1,5 @@
 import { ALERT_CAUTION, gaugeChartLink, type AlertStructure } from "./alert";
-import { formatInTimeZone } from "./format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
 export type SensorAlertMailInput = {

@@ -27,3 +27,4 @@ export {
 } from "./rosette";
 export { STEEL_WIRE_CTE } from "./thermal";
 export { uniaxialStress, utilisation, vonMises } from "./stress";
+export { decimalsForStep, derivedDecimals, writtenDecimals, type DerivedDecimals } from "./resolution";

@@ -1,6 +1,6 @@
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatScientific } from "@/lib/fatigue";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { formatForDisplay, formatMicrostrain, formatShareOfYield, type UnitSystem } from "@/lib/units";
 import { conditionText } from "@/lib/alerting/condition-display";
 import { formatHours } from "./gaps";

@@ -1,6 +1,6 @@
 import PDFDocument from "pdfkit";
 import type { StructureReport } from "@/lib/api/report-schema";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "./format";
 import { pdfText } from "./pdf-text";
 import { conditionText } from "@/lib/alerting/condition-display";

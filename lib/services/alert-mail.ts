@@ -6,6 +6,7 @@ import { IMMEDIATE_MAIL_MAX_AGE_MS } from "@/lib/alerting/flapping";
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits";
 import { buildAlertMail, type AlertStructure } from "@/lib/mail/alert";
 import { buildFlappingMail } from "@/lib/mail/flapping";
+import { ALERT_MAIL_ROLES, sensorMailDigestByDefault } from "@/lib/auth/permissions";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 import { MAIL_PRIORITY, priorityOfLimitMail } from "@/lib/mail/priority";
@@ -18,7 +19,7 @@ import type { LimitEvent, Notification } from "./alert-raising";
  */
 export function sensorMailOf(member: { role: Role; alertMail: AlertMailMode; sensorMail: AlertMailMode | null }): AlertMailMode {
   if (member.alertMail === "digest") return "digest";
-  return member.sensorMail ?? (member.role === "owner" ? "digest" : "immediate");
+  return member.sensorMail ?? (sensorMailDigestByDefault(member.role) ? "digest" : "immediate");
 }
 
 /** Owners and engineers of the structure, with how each wants alert and sensor e-mails. */
@@ -27,7 +28,7 @@ async function alertRecipients(tx: WriteTx, structureId: number) {
     .select({ id: users.id, email: users.email, role: users.role, alertMail: structureMembers.alertMail, sensorMail: structureMembers.sensorMail })
     .from(structureMembers)
     .innerJoin(users, eq(users.id, structureMembers.userId))
-    .where(and(eq(structureMembers.structureId, structureId), eq(users.active, true), inArray(users.role, ["owner", "engineer"])));
+    .where(and(eq(structureMembers.structureId, structureId), eq(users.active, true), inArray(users.role, [...ALERT_MAIL_ROLES])));
 }
 
 type Recipient = Awaited<ReturnType<typeof alertRecipients>>[number];

@@ -4,7 +4,7 @@ import { getDb, writeTransaction, type WriteTx } from "@/db/client";
 import { files, gauges, structures, type FileKind, type Gauge, type StoredFile, type Structure } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { may, requirePermission } from "@/lib/auth/authorize";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { AppError } from "@/lib/errors";
 import { drawingFields, photoFields, type PlacementInput } from "@/lib/files/schema";
 import { deleteFile, readFile, saveFile } from "@/lib/storage/file-store";

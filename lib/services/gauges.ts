@@ -8,7 +8,7 @@ import type { Action } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { gaugeColumns, gaugeFieldsOf } from "@/lib/gauges/record";
 import { gaugeInput, type GaugeFields, type GaugeInput, type ZeroRequest } from "@/lib/gauges/schema";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { recordAudit } from "./audit";
 import { restartGaugeEvaluation } from "./evaluation-control";
 import { getVisibleStructure } from "./structures";

@@ -2,7 +2,9 @@ import "server-only";
 import { getClient } from "@/db/client";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";
-import { flagWords } from "@/lib/mechanics";
+import { derivedDecimals, flagWords, writtenDecimals } from "@/lib/mechanics";
+import { gaugeConfigOf } from "@/lib/gauges/record";
+import { readingsCsvHeader, readingsCsvLine, type ReadingsCsvHeader, type StoredReadingRow } from "@/lib/series/readings-csv";
 import { bucketGrid, chooseSource, createBucketAccumulator, ROLLUP_RESOLUTIONS, type SeriesSource } from "@/lib/series";
 import type { SeriesQuantity } from "@/lib/api/readings-schemas";
 import { resolveGauge } from "./gauges";
@@ -69,7 +71,7 @@ export async function getSeries(actor: Actor, code: string, tag: string, query: 
   };
 }
 
-export type ReadingsQuery = { from: number; to: number; limit: number; cursor?: string };
+export type ReadingsQuery = { from: number; to: number; limit: number; cursor?: string; header?: ReadingsCsvHeader };
 
 export interface ReadingView {
   time: string;
@@ -91,7 +93,7 @@ function decodeCursor(cursor: string): number {
   return Number(match[1]);
 }
 
-type StoredReading = { t: number; value: number; temperature: number | null; strain: number; stress: number; flags: number };
+type StoredReading = StoredReadingRow;
 
 /** Readings of a gauge after `after` (exclusive) and before `to`, oldest first. */
 async function readingsAfter(gaugeId: number, after: number, to: number, limit: number): Promise<StoredReading[]> {
@@ -127,30 +129,35 @@ export async function listReadings(actor: Actor, code: string, tag: string, quer
   return { readings: page.map(toView), ...(more ? { nextCursor: encodeCursor(page[page.length - 1]!.t) } : {}) };
 }
 
-export const READINGS_CSV_HEADER = "time,value,temperature,strain,stress,flags\n";
 const EXPORT_PAGE = 5_000;
 
 /**
  * Every reading of the range as CSV, read page by page as the client takes it, so an export of
- * years of data holds one page at a time. Flags are space-separated words.
+ * years of data holds one page at a time. Flags are space-separated words. Strain and stress are
+ * written to the resolution of the gauge's readings: the finest raw decimal of the first page
+ * (or of the zero reading) taken through the gauge's conversion.
  */
 export async function exportReadingsCsv(actor: Actor, code: string, tag: string, query: ReadingsQuery): Promise<ReadableStream<Uint8Array>> {
   const start = await listingStart(actor, code, tag, query);
   let after = start.after;
   const encoder = new TextEncoder();
   let headerSent = false;
+  let decimals: ReturnType<typeof derivedDecimals> | undefined;
   return new ReadableStream<Uint8Array>({
     async pull(controller) {
       if (!headerSent) {
         headerSent = true;
-        controller.enqueue(encoder.encode(READINGS_CSV_HEADER));
+        controller.enqueue(encoder.encode(readingsCsvHeader(query.header ?? "names", start.gauge.input)));
         return;
       }
       const rows = await readingsAfter(start.gauge.id, after, query.to, EXPORT_PAGE);
       if (rows.length === 0) return controller.close();
       after = rows[rows.length - 1]!.t;
-      const lines = rows.map((r) => `${iso(r.t)},${r.value},${r.temperature ?? ""},${r.strain},${r.stress},${flagWords(r.flags).join(" ")}\n`);
-      controller.enqueue(encoder.encode(lines.join("")));
+      decimals ??= derivedDecimals(gaugeConfigOf(start.gauge), rawStep([start.gauge.zeroValue, ...rows.map((r) => r.value)]));
+      controller.enqueue(encoder.encode(rows.map((row) => readingsCsvLine(row, decimals!)).join("")));
     },
   });
 }
+
+/** The smallest step the logger writes: its finest decimal among these raw values (at most 9 places). */
+const rawStep = (values: number[]) => 10 ** -Math.min(9, Math.max(...values.map(writtenDecimals)));

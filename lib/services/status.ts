@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, gte, inArray, isNotNull, isNull, max, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, isNotNull, isNull, max, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { alerts, gaugeLimits, gauges, readings, rollups, type Gauge, type Structure } from "@/db/schema";
 import { gaugeCondition, worstCondition, type ConditionState, type GaugeCondition } from "@/lib/alerting/condition";
@@ -63,14 +63,14 @@ async function readingEnds(which: SQL) {
 }
 
 /**
- * The open alerts of a structure. A sensor fault is, for now, an open sensor alert on the gauge:
+ * The open alerts of the structures. A sensor fault is, for now, an open sensor alert on the gauge:
  * `sensorFaults` is the one place that says so.
  */
-async function openAlertsOf(structureId: number) {
+async function openAlertsOf(structureIds: number[]) {
   const rows = await getDb()
-    .select({ gaugeId: alerts.gaugeId, kind: alerts.kind, level: alerts.level, code: alerts.code, openedAt: alerts.openedAt })
+    .select({ structureId: alerts.structureId, gaugeId: alerts.gaugeId, kind: alerts.kind, level: alerts.level, code: alerts.code, openedAt: alerts.openedAt })
     .from(alerts)
-    .where(and(eq(alerts.structureId, structureId), isNull(alerts.clearedAt)));
+    .where(and(inArray(alerts.structureId, structureIds), isNull(alerts.clearedAt)));
   const of = (gaugeId: number) => rows.filter((row) => row.gaugeId === gaugeId);
   return {
     rows,
@@ -81,21 +81,21 @@ async function openAlertsOf(structureId: number) {
 }
 
 /** When each gauge's last limit alert cleared. */
-async function lastLimitClears(structureId: number): Promise<Map<number, number>> {
+async function lastLimitClears(structureIds: number[]): Promise<Map<number, number>> {
   const rows = await getDb()
     .select({ gaugeId: alerts.gaugeId, at: max(alerts.clearedAt) })
     .from(alerts)
-    .where(and(eq(alerts.structureId, structureId), eq(alerts.kind, "limit"), isNotNull(alerts.clearedAt)))
+    .where(and(inArray(alerts.structureId, structureIds), eq(alerts.kind, "limit"), isNotNull(alerts.clearedAt)))
     .groupBy(alerts.gaugeId);
   return new Map(rows.filter((row) => row.at !== null).map((row) => [row.gaugeId, new Date(row.at!).getTime()]));
 }
 
-async function gaugesWithLimits(structureId: number): Promise<Set<number>> {
+async function gaugesWithLimits(structureIds: number[]): Promise<Set<number>> {
   const rows = await getDb()
     .selectDistinct({ gaugeId: gaugeLimits.gaugeId })
     .from(gaugeLimits)
     .innerJoin(gauges, eq(gauges.id, gaugeLimits.gaugeId))
-    .where(eq(gauges.structureId, structureId));
+    .where(inArray(gauges.structureId, structureIds));
   return new Set(rows.map((row) => row.gaugeId));
 }
 
@@ -104,15 +104,16 @@ async function gaugesWithLimits(structureId: number): Promise<Set<number>> {
  * of queries whatever the number of gauges.
  */
 export async function gaugeStatuses(structure: Structure, now = Date.now()): Promise<GaugeStatus[]> {
-  return (await statusesOf(structure, await gaugeRowsOf(structure.id), now)).statuses;
+  return (await statusesOf([structure.id], await gaugeRowsOf(structure.id), now)).statuses;
 }
 
-async function statusesOf(structure: Structure, gaugeRows: Gauge[], now: number) {
+/** The statuses of `gaugeRows`, which belong to the structures `structureIds`, in the same order. */
+async function statusesOf(structureIds: number[], gaugeRows: Gauge[], now: number) {
   const [ends, open, clears, limited] = await Promise.all([
-    readingEnds(eq(gauges.structureId, structure.id)),
-    openAlertsOf(structure.id),
-    lastLimitClears(structure.id),
-    gaugesWithLimits(structure.id),
+    readingEnds(inArray(gauges.structureId, structureIds)),
+    openAlertsOf(structureIds),
+    lastLimitClears(structureIds),
+    gaugesWithLimits(structureIds),
   ]);
   const statuses = gaugeRows.map((gauge): GaugeStatus => {
     const end = ends.get(gauge.id);
@@ -137,18 +138,16 @@ async function statusesOf(structure: Structure, gaugeRows: Gauge[], now: number)
  * Highest |σ| / yield over the last day per gauge, from the hourly roll-ups (so a spike counts),
  * in one query.
  */
-async function peakUtilisation(gaugeRows: Gauge[], since: number): Promise<number | null> {
+async function peakUtilisations(gaugeRows: Gauge[], since: number): Promise<Map<number, number>> {
   const withYield = gaugeRows.filter((gauge) => gauge.material.yield);
-  if (withYield.length === 0) return null;
+  if (withYield.length === 0) return new Map();
   const rows = await getDb()
     .select({ gaugeId: rollups.gaugeId, max: sql<number>`max(${rollups.stressMax})`, min: sql<number>`min(${rollups.stressMin})` })
     .from(rollups)
     .where(and(inArray(rollups.gaugeId, withYield.map((gauge) => gauge.id)), eq(rollups.resolution, ROLLUP_RESOLUTIONS.hourly), gte(rollups.bucket, since)))
     .groupBy(rollups.gaugeId);
   const yieldOf = new Map(withYield.map((gauge) => [gauge.id, gauge.material.yield!]));
-  let peak: number | null = null;
-  for (const row of rows) peak = Math.max(peak ?? 0, Math.abs(row.max) / yieldOf.get(row.gaugeId)!, Math.abs(row.min) / yieldOf.get(row.gaugeId)!);
-  return peak;
+  return new Map(rows.map((row) => [row.gaugeId, Math.max(Math.abs(row.max), Math.abs(row.min)) / yieldOf.get(row.gaugeId)!]));
 }
 
 export type StructureSummary = {
@@ -168,28 +167,55 @@ export type StructureSummary = {
 };
 
 export async function structureSummary(structure: Structure, now = Date.now()): Promise<StructureSummary> {
-  const gaugeRows = await gaugeRowsOf(structure.id);
-  const { statuses, open } = await statusesOf(structure, gaugeRows, now);
-  const active = gaugeRows.filter((gauge) => gauge.status === "active");
+  return (await structureSummaries([structure], now))[0]!;
+}
+
+/** Each structure's summary, in the order given, from a fixed number of queries however many structures and gauges. */
+export async function structureSummaries(structureList: Structure[], now = Date.now()): Promise<StructureSummary[]> {
+  if (structureList.length === 0) return [];
+  const ids = structureList.map((structure) => structure.id);
+  const gaugeRows = await getDb().select().from(gauges).where(inArray(gauges.structureId, ids)).orderBy(asc(gauges.tag));
+  const [{ statuses, open }, peaks] = await Promise.all([
+    statusesOf(ids, gaugeRows, now),
+    peakUtilisations(
+      gaugeRows.filter((gauge) => gauge.status === "active"),
+      now - 86_400_000,
+    ),
+  ]);
+  return structureList.map((structure) => {
+    const mine = gaugeRows.flatMap((gauge, i) => (gauge.structureId === structure.id ? [{ gauge, status: statuses[i]! }] : []));
+    const openRows = open.rows.filter((row) => row.structureId === structure.id);
+    return summarise(mine, openRows, peaks, now);
+  });
+}
+
+function summarise(
+  mine: { gauge: Gauge; status: GaugeStatus }[],
+  openRows: { kind: string; level: string }[],
+  peaks: Map<number, number>,
+  now: number,
+): StructureSummary {
+  const statuses = mine.map(({ status }) => status);
+  const active = mine.filter(({ gauge }) => gauge.status === "active");
   const activeStatuses = statuses.filter((status) => !status.retired);
   const faulty = new Set(activeStatuses.filter((status) => status.condition.faults.length > 0).map((status) => status.tag));
   const lastReadingAt = statuses.reduce<number | null>((last, status) => Math.max(last ?? 0, status.latest?.time ?? 0) || last, null);
   const gaugesIn: Partial<Record<ConditionState, number>> = {};
   for (const status of activeStatuses) gaugesIn[status.condition.state] = (gaugesIn[status.condition.state] ?? 0) + 1;
-  const limitOpen = (level: string) => open.rows.filter((row) => row.kind === "limit" && row.level === level).length;
+  const limitOpen = (level: string) => openRows.filter((row) => row.kind === "limit" && row.level === level).length;
+  const believedPeaks = active.filter(({ gauge }) => !faulty.has(gauge.tag)).flatMap(({ gauge }) => peaks.get(gauge.id) ?? []);
   return {
     state: worstCondition(activeStatuses.map((status) => status.condition.state)),
     gaugesIn,
     openAlerts: { watch: limitOpen("watch"), warning: limitOpen("warning"), critical: limitOpen("critical") },
-    sensorAlerts: open.rows.filter((row) => row.kind === "sensor").length,
-    peakUtilisation24h: await peakUtilisation(
-      active.filter((gauge) => !faulty.has(gauge.tag)),
-      now - 86_400_000,
-    ),
+    sensorAlerts: openRows.filter((row) => row.kind === "sensor").length,
+    peakUtilisation24h: believedPeaks.length > 0 ? Math.max(...believedPeaks) : null,
     peakLeavesOut: faulty.size,
     lastReadingAt,
     // The structure is stale when even its newest reading is: nothing at all is arriving.
-    stale: active.length > 0 && isStale(lastReadingAt, Math.max(...active.map((g) => g.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S)), now),
+    stale:
+      active.length > 0 &&
+      isStale(lastReadingAt, Math.max(...active.map(({ gauge }) => gauge.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S)), now),
     gaugeCount: active.length,
   };
 }

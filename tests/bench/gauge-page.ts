@@ -79,12 +79,13 @@ async function zoomRedraw(page: Page): Promise<number> {
   return (await handle.jsonValue())!;
 }
 
-async function signedIn(browser: Browser, baseUrl: string) {
+/** Signs in through the sign-in page; answers the session (cookies) to reuse in new contexts or requests. */
+export async function signedIn(browser: Browser, baseUrl: string, user: { email: string; password: string } = BENCH_USER) {
   const context = await browser.newContext({ baseURL: baseUrl });
   const page = await context.newPage();
   const signIn = new SignInPage(page);
   await signIn.open();
-  await signIn.signIn(BENCH_USER.email, BENCH_USER.password);
+  await signIn.signIn(user.email, user.password);
   await page.waitForURL((url) => url.pathname === "/");
   const state = await context.storageState();
   await context.close();

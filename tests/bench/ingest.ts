@@ -9,7 +9,7 @@ import { drizzle } from "drizzle-orm/libsql";
 import { migrate } from "drizzle-orm/libsql/migrator";
 import { closeDb } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { prepareGauge, type GaugeConfig, type GaugeConverter } from "@/lib/mechanics";
 import { createBucketAccumulator, bucketGrid, DAY, MINUTE } from "@/lib/series";
@@ -17,6 +17,7 @@ import { createGauge } from "@/lib/services/gauges";
 import { createStructure } from "@/lib/services/structures";
 import { createToken } from "@/lib/services/tokens";
 import { createUser } from "@/lib/services/users";
+import type { UserActor } from "@/lib/auth/actor";
 import { waitForServer } from "../e2e/global-setup";
 import { freePort } from "../free-port";
 import type { BenchResult } from "./mechanics";
@@ -40,7 +41,7 @@ const START = Date.UTC(2025, 0, 1);
 const READING_COLUMNS = 7;
 
 /** A foil gauge read in microstrain, as most loggers report, on steel. */
-const GAUGE = {
+export const GAUGE = {
   kind: "foil",
   input: "microstrain",
   gaugeFactor: 2.1,
@@ -79,11 +80,11 @@ function batchesOf(tags: string[], readings: number, start = 0): Reading[][] {
   return batches;
 }
 
-const jsonBody = (batch: Reading[]) =>
+export const jsonBody = (batch: Reading[]) =>
   JSON.stringify({ readings: batch.map((r) => ({ ...r, time: new Date(r.time).toISOString() })) });
 
 /** The bench database with its gauges; a logger token to send readings and a user token to read them. */
-async function prepareDatabase(url: string): Promise<{ logger: string; reader: string }> {
+async function prepareDatabase(url: string, extra?: (admin: UserActor) => Promise<void>): Promise<{ logger: string; reader: string }> {
   process.env.DATABASE_URL = url;
   await migrateDatabase();
   await createStructure(null, { code: "BENCH", name: "Bench structure", timezone: "UTC" });
@@ -94,6 +95,7 @@ async function prepareDatabase(url: string): Promise<{ logger: string; reader: s
   }
   const logger = (await createToken(null, { kind: "logger", structureCode: "BENCH" }, "bench logger")).token;
   const reader = (await createToken(null, { kind: "user", email: admin.email }, "bench reader")).token;
+  await extra?.(actor);
   closeDb();
   return { logger, reader };
 }
@@ -126,13 +128,13 @@ function memoryOf(pid: number): { rss: number; hwm: number } {
 }
 
 /** Posts the bodies in order, `clients` requests in flight; answers the readings accepted. */
-async function postAll(baseUrl: string, token: string, bodies: (() => string)[], clients: number) {
+export async function postAll(baseUrl: string, token: string, bodies: (() => string)[], clients: number, structureCode = "BENCH") {
   let next = 0;
   let accepted = 0;
   const client = async () => {
     while (next < bodies.length) {
       const body = bodies[next++]!();
-      const response = await fetch(`${baseUrl}/api/v1/structures/BENCH/readings`, {
+      const response = await fetch(`${baseUrl}/api/v1/structures/${structureCode}/readings`, {
         method: "POST",
         headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
         body,
@@ -299,11 +301,11 @@ export const BENCH_USER = { email: "bench@hookeline.example", password: "bench-p
 
 export type BenchServer = { baseUrl: string; url: string; folder: string; token: string; reader: string; server: ChildProcess; stop(): void };
 
-/** `next start` on a fresh temporary database holding the bench structure, its gauges and tokens. */
-export async function startBenchServer(): Promise<BenchServer> {
+/** `next start` on a fresh temporary database holding the bench structure, its gauges and tokens, and whatever `extra` adds. */
+export async function startBenchServer(extra?: (admin: UserActor) => Promise<void>): Promise<BenchServer> {
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-bench-"));
   const url = `file:${path.join(folder, "bench.db")}`;
-  const { logger: token, reader } = await prepareDatabase(url);
+  const { logger: token, reader } = await prepareDatabase(url, extra);
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const server = startServer(url, port);

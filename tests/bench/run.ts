@@ -1,10 +1,11 @@
 import { benchGaugePage } from "./gauge-page";
+import { benchHomePage } from "./home-page";
 import { benchIngestion, buildUnlessAsked } from "./ingest";
 import { benchMechanics, type BenchResult } from "./mechanics";
 
 // `npm run bench -- --only=benchGaugePage` runs the benchmarks whose function name contains the word.
 const only = process.argv.find((arg) => arg.startsWith("--only="))?.slice("--only=".length);
-const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion, benchGaugePage].filter((bench) => !only || bench.name.includes(only));
+const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion, benchGaugePage, benchHomePage].filter((bench) => !only || bench.name.includes(only));
 
 function printTable(rows: BenchResult[]): void {
   const labelWidth = Math.max(...rows.map((row) => row.label.length));

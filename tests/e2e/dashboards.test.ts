@@ -1,5 +1,6 @@
 import fs from "node:fs";
 import { createClient } from "@libsql/client";
+import { parse } from "csv-parse/sync";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Locator, Page, Response } from "playwright-core";
 import { MPA_PER_KSI } from "@/lib/units";
@@ -311,7 +312,7 @@ describe("the gauge page", () => {
     }
   });
 
-  it("exports a CSV equal to the readings the API lists for the same range", async () => {
+  it("exports a CSV with units in its header, equal to the readings the API lists for the same range to the written decimals", async () => {
     const gaugePage = new GaugeChartsPage(engineer);
     await gaugePage.open("MILL-FB", "LC-Q1");
     const request = engineer.waitForRequest((r) => r.url().includes("/readings?"));
@@ -319,18 +320,67 @@ describe("the gauge page", () => {
     await engineer.getByRole("button", { name: "Export CSV" }).click();
     const url = new URL((await request).url());
     const file = await (await download).path();
-    const [header, ...lines] = fs.readFileSync(file, "utf8").trim().split("\n");
-    expect(header).toBe("time,value,temperature,strain,stress,flags");
+    const rows = parse(fs.readFileSync(file), { columns: true, bom: true }) as Record<string, string>[];
+    expect(Object.keys(rows[0]!)).toEqual(["time (UTC)", expect.stringMatching(/^value \(.+\)$/), "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"]);
 
     const api = await readingsOf(engineer, "/api/v1/structures/MILL-FB/gauges/LC-Q1", url.searchParams.get("from")!, url.searchParams.get("to")!);
     // The default week of 10-minute readings: a thousand or so rows, not an empty file that would match an empty listing.
     expect(api.length).toBeGreaterThan(500);
-    expect(lines).toHaveLength(api.length);
-    lines.forEach((line, i) => {
-      const [time, value, temperature, strain, stress, flags] = line.split(",");
+    expect(rows).toHaveLength(api.length);
+    const decimals = (text: string) => text.split(".")[1]?.length ?? 0;
+    rows.forEach((row, i) => {
       const reading = api[i]!;
-      expect({ time, value: Number(value), temperature: temperature === "" ? null : Number(temperature), strain: Number(strain), stress: Number(stress), flags: flags ? flags.split(" ") : [] }).toEqual(reading);
+      const [value, temperature, strain, stress, flags] = Object.values(row).slice(1);
+      expect({ time: row["time (UTC)"], value: Number(value), temperature: temperature === "" ? null : Number(temperature), flags: flags ? flags.split(" ") : [] }).toEqual({
+        time: reading.time,
+        value: reading.value,
+        temperature: reading.temperature,
+        flags: reading.flags,
+      });
+      // Rounded, so within half a unit of the last decimal written; and never 16 digits.
+      expect(Math.abs(Number(strain) - reading.strain)).toBeLessThanOrEqual(0.5 * 10 ** -decimals(strain!) + 1e-9);
+      expect(Math.abs(Number(stress) - reading.stress)).toBeLessThanOrEqual(0.5 * 10 ** -decimals(stress!) + 1e-9);
+      expect(decimals(stress!)).toBeLessThan(8);
     });
+  });
+
+  it("exports the stress chart as a PNG with a title band above the chart", async () => {
+    const gaugePage = new GaugeChartsPage(engineer);
+    await gaugePage.open("MILL-FB", "LC-Q1");
+    const canvas = gaugePage.canvas("Stress");
+    await canvas.waitFor();
+    const drawn = await canvas.evaluate((node: HTMLCanvasElement) => ({ width: node.width, height: node.height, scale: node.width / node.clientWidth }));
+    const download = engineer.waitForEvent("download");
+    await engineer.getByRole("button", { name: "Stress chart as PNG" }).click();
+    const saved = await download;
+    expect(saved.suggestedFilename()).toMatch(/^MILL-FB-LC-Q1-stress-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.png$/);
+    const png = fs.readFileSync(await saved.path());
+    fs.mkdirSync("test-results/screenshots", { recursive: true });
+    fs.writeFileSync("test-results/screenshots/gauge-stress-export.png", png);
+    // PNG signature, then the IHDR chunk's width and height (ISO/IEC 15948, section 11.2.2).
+    expect([...png.subarray(1, 4)].map((byte) => String.fromCharCode(byte)).join("")).toBe("PNG");
+    const size = { width: png.readUInt32BE(16), height: png.readUInt32BE(20) };
+    const band = Math.round(52 * drawn.scale);
+    expect(size).toEqual({ width: drawn.width, height: drawn.height + band });
+    const inkInBand = await engineer.evaluate(
+      async ({ source, band }) => {
+        const image = new Image();
+        image.src = source;
+        await image.decode();
+        const board = document.createElement("canvas");
+        board.width = image.width;
+        board.height = band;
+        const context = board.getContext("2d")!;
+        context.drawImage(image, 0, 0);
+        const { data } = context.getImageData(0, 0, image.width, band);
+        let dark = 0;
+        for (let i = 0; i < data.length; i += 4) if (data[i]! < 120 && data[i + 1]! < 120 && data[i + 2]! < 140) dark++;
+        return dark;
+      },
+      { source: `data:image/png;base64,${png.toString("base64")}`, band },
+    );
+    // Two lines of title text ink a few hundred pixels or more; an empty band inks none.
+    expect(inkInBand).toBeGreaterThan(200);
   });
 });
 

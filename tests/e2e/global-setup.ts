@@ -40,6 +40,7 @@ export default async function setup(project: TestProject) {
     FILE_STORAGE_DIR: path.join(folder, "files"),
     NEXTAUTH_SECRET: "browser-test-secret",
     NEXTAUTH_URL: baseUrl,
+    NEXT_TELEMETRY_DISABLED: "1",
     SMTP_URL: "",
     // The server's own mail catcher, on a port of its own so a demo running on 2525 is not disturbed.
     LOCAL_SMTP_PORT: String(await freePort()),

@@ -5,7 +5,7 @@ import { getDb } from "@/db/client";
 import { readings } from "@/db/schema";
 import type { UserActor } from "@/lib/auth/actor";
 import { Flag } from "@/lib/mechanics";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { gaugeFatigue, type GaugeFatigue } from "@/lib/services/fatigue";
 import { createGauge } from "@/lib/services/gauges";

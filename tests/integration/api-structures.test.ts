@@ -159,7 +159,8 @@ describe("the rest of /api/v1", () => {
     const doc = await openapi().json();
     expect(doc.openapi).toBe("3.1.0");
     const post = doc.paths["/structures"].post;
-    const schema = post.requestBody.content["application/json"].schema;
+    const { $ref } = post.requestBody.content["application/json"].schema;
+    const schema = doc.components.schemas[$ref.replace("#/components/schemas/", "")];
     expect(schema.required).toEqual(expect.arrayContaining(["code", "name"]));
     expect(schema.properties.code.pattern).toBe("^[A-Za-z0-9_-]{2,32}$");
     expect(Object.keys(post.responses)).toEqual(expect.arrayContaining(["201", "400", "401", "403", "409"]));

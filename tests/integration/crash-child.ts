@@ -3,7 +3,7 @@
  * through the ingestion service until the parent kills it. Reads DATABASE_URL like the app.
  */
 import { migrateDatabase } from "@/db/migrate";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { createGauge } from "@/lib/services/gauges";
 import { ingestDecoded, openIngestion } from "@/lib/services/ingest";

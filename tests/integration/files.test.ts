@@ -10,7 +10,7 @@ import * as fileRoute from "@/app/api/v1/files/[id]/route";
 import { getClient, getDb } from "@/db/client";
 import { auditLog, files } from "@/db/schema";
 import type { UserActor } from "@/lib/auth/actor";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { createGauge, gaugeAuditTrail, getGauge } from "@/lib/services/gauges";
 import { uploadDrawing } from "@/lib/services/files";

@@ -141,7 +141,7 @@ describe("job lease", () => {
   });
 
   it("gives its leases back when the process is told to stop (SIGTERM), so another instance need not wait out ten minutes", async () => {
-    const child = spawn(process.execPath, ["--import", "tsx", "tests/integration/lease-child.ts"], { env: { ...process.env } });
+    const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/integration/lease-child.ts"], { env: { ...process.env } });
     let output = "";
     child.stderr.on("data", (chunk) => (output += chunk));
     await new Promise<void>((resolve, reject) => {

@@ -2,7 +2,7 @@ import * as ingest from "@/app/api/v1/structures/[code]/readings/route";
 import type { Client } from "@libsql/client";
 import { getClient } from "@/db/client";
 import type { UserActor } from "@/lib/auth/actor";
-import { parseWith } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { createGauge, retireGauge } from "@/lib/services/gauges";
 import { createStructure } from "@/lib/services/structures";

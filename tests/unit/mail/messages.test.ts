@@ -3,7 +3,7 @@ import { buildAlertMail, type AlertMailInput } from "@/lib/mail/alert";
 import { formatLimitedValue } from "@/lib/units";
 import { buildDigestMail } from "@/lib/mail/digest";
 import { conditionText } from "@/lib/alerting/condition-display";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { buildInvitationMail } from "@/lib/mail/invitation";
 import { buildPasswordResetMail } from "@/lib/mail/password-reset";
 

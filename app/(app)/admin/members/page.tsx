@@ -6,6 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { requirePermission } from "@/lib/auth/authorize";
+import { seesAllStructures } from "@/lib/auth/permissions";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listMemberships } from "@/lib/services/memberships";
@@ -70,7 +71,7 @@ export default async function MembersPage() {
           <h2 className="font-semibold">Add a member</h2>
           <Field name="email" label="Person">
             <select id="email" name="email" className={inputClass}>
-              {users.filter((u) => u.role !== "admin" && u.active).map((u) => (
+              {users.filter((u) => !seesAllStructures(u.role) && u.active).map((u) => (
                 <option key={u.id} value={u.email}>
                   {u.name} ({u.role})
                 </option>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { ActionForm, SecretOnce } from "@/components/ui/action-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field } from "@/components/ui/field";
@@ -25,7 +26,15 @@ export default async function TokensPage() {
     <>
       <PageHeader
         title="API tokens"
-        subtitle="User tokens act with their user's role; logger tokens may only send readings to one structure."
+        subtitle={
+          <>
+            User tokens act with their user&apos;s role; logger tokens may only send readings to one structure. What a token can call:{" "}
+            <Link className="text-accent underline" href="/api-reference">
+              API reference
+            </Link>
+            .
+          </>
+        }
       />
       <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
         {tokens.length === 0 ? (

@@ -1,3 +1,4 @@
+import { Suspense } from "react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { AlertTable } from "@/components/alerts/alert-table";
@@ -10,10 +11,12 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
+import { ChartSkeleton } from "@/components/ui/skeleton";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { createTokenAction } from "@/lib/actions/token-actions";
 import { may } from "@/lib/auth/authorize";
+import { receivesAlertMail } from "@/lib/auth/permissions";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listAlerts } from "@/lib/services/alerts";
@@ -24,7 +27,7 @@ import { listRosettes } from "@/lib/services/rosettes";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { listLoggerTokens } from "@/lib/services/tokens";
 import { alertMailModeOf } from "@/lib/services/memberships";
-import { alertMailAction } from "./gauges/actions";
+import { alertMailAction, createRosetteAction } from "./gauges/actions";
 
 type Props = { params: Promise<{ code: string }> };
 
@@ -152,7 +155,7 @@ export default async function StructurePage({ params }: Props) {
             The {recentAlerts.alerts.length} newest of {recentAlerts.total.toLocaleString("en-US")} alerts on this structure.
           </p>
         )}
-        {mailMode && (user.role === "owner" || user.role === "engineer") && (
+        {mailMode && receivesAlertMail(user.role) && (
           <ActionForm action={alertMailAction} className="flex flex-wrap items-end gap-3" label="My alert e-mails">
             <input type="hidden" name="code" value={structure.code} />
             <Field name="mode" label="My alert e-mails for this structure" id="alert-mail-mode">
@@ -171,19 +174,21 @@ export default async function StructurePage({ params }: Props) {
           </ActionForm>
         )}
       </Section>
-      <StructureDrawings
-        user={user}
-        structure={structure}
-        markers={rows.map((row, i) => ({
-          tag: row.tag,
-          placement: gauges[i]!.drawing,
-          state: shownState(row.condition, row.retired),
-          stateText: conditionText(row.condition, row.retired),
-        }))}
-      />
+      <Suspense fallback={<ChartSkeleton />}>
+        <StructureDrawings
+          user={user}
+          structure={structure}
+          markers={rows.map((row, i) => ({
+            tag: row.tag,
+            placement: gauges[i]!.drawing,
+            state: shownState(row.condition, row.retired),
+            stateText: conditionText(row.condition, row.retired),
+          }))}
+        />
+      </Suspense>
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>
-          <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} />
+          <RosetteSection structureCode={code} rosettes={rosettes} gauges={gauges} canEdit={canRegister} createRosette={createRosetteAction} />
         </div>
       </Section>
       {canManageTokens && (

@@ -10,8 +10,7 @@ import { replaceLimits } from "@/lib/services/limits";
 import { replaceRosetteLimits } from "@/lib/services/rosette-limits";
 import { setAlertMailMode } from "@/lib/services/memberships";
 import { createGauge, recordZero, replaceGauge, retireGauge, updateGauge } from "@/lib/services/gauges";
-import { optionalText, plainText } from "@/lib/validation";
-import { parseWith } from "@/lib/api/http";
+import { optionalText, plainText, parseWith } from "@/lib/validation";
 
 const structurePath = (code: string) => `/structures/${code}`;
 

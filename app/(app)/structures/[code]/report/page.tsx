@@ -9,7 +9,7 @@ import { buttonClass } from "@/components/ui/styles";
 import { reportQuery } from "@/lib/api/report-query";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { REPORT_NOTES } from "@/lib/report/cautions";
 import { monthIn, monthKey, monthsBefore, periodQuery, wholeMonthOf } from "@/lib/report/period";
 import { structureReport } from "@/lib/services/report";

@@ -1,4 +1,5 @@
-import { apiRoute, parseWith } from "@/lib/api/http";
+import { apiRoute } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { fileId } from "@/lib/files/schema";
 import { openFile, removeFile } from "@/lib/services/files";
 

@@ -6,6 +6,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ZeroForm } from "@/components/gauges/zero-form";
+import { recordZeroAction } from "../actions";
 import { ActionForm } from "@/components/ui/action-form";
 import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
@@ -22,7 +23,7 @@ import { AlertTable } from "@/components/alerts/alert-table";
 import { ConditionBadge } from "@/components/alerts/state-badge";
 import { Pager } from "@/components/ui/pager";
 import { ALERTS_PER_PAGE, alertListParamsOf, pageOffset } from "@/lib/alerting/filters";
-import { formatInTimeZone } from "@/lib/mail/format-time";
+import { formatInTimeZone } from "@/lib/time-format";
 import { getLimits } from "@/lib/services/limits";
 import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
@@ -151,6 +152,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         {latest ? (
           <GaugeCharts
             structureCode={code}
+            structureName={structure.name}
             tag={tag}
             timeZone={structure.timezone}
             limits={limits}
@@ -193,7 +195,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!)}. Strain is measured from this state;
             stress already present then is the initial stress above.
           </p>
-          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={RAW_UNIT[gauge.input] ?? ""} />}
+          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={RAW_UNIT[gauge.input] ?? ""} recordZero={recordZeroAction} />}
           <div className="overflow-x-auto">
             <table className={tableClass} aria-label="Zero history">
               <thead>

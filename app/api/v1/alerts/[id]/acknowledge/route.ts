@@ -1,4 +1,5 @@
-import { apiRoute, json, parseWith, readJson } from "@/lib/api/http";
+import { apiRoute, json, readJson } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { acknowledgeBody, alertIdParam } from "@/lib/alerting/schema";
 import { handleAlert } from "@/lib/services/alerts";
 

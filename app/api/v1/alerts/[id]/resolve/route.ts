@@ -1,4 +1,5 @@
-import { apiRoute, json, parseWith, readJson } from "@/lib/api/http";
+import { apiRoute, json, readJson } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { alertIdParam, resolveFaultBody } from "@/lib/alerting/schema";
 import { resolveSensorFault } from "@/lib/services/fault-resolution";
 
@@ -7,3 +8,5 @@ export const POST = apiRoute<{ id: string }>(async ({ request, actor, params }) 
   const { resolution, comment } = await readJson(request, resolveFaultBody);
   return json(await resolveSensorFault(actor, id, resolution, comment));
 });
+
+export * from "@/lib/api/method-not-allowed";

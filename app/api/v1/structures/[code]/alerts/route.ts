@@ -1,5 +1,6 @@
 import { alertListQuery } from "@/lib/api/alert-query";
-import { apiRoute, json, parseWith } from "@/lib/api/http";
+import { apiRoute, json } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { listAlerts } from "@/lib/services/alerts";
 
 export const GET = apiRoute<{ code: string }>(async ({ request, actor, params }) => {

@@ -1,4 +1,5 @@
-import { apiRoute, json, parseWith } from "@/lib/api/http";
+import { apiRoute, json } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { reportQuery } from "@/lib/api/report-query";
 import { renderReportPdf } from "@/lib/report/pdf";
 import { structureReport } from "@/lib/services/report";

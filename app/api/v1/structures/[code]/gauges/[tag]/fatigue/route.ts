@@ -1,4 +1,5 @@
-import { apiRoute, json, parseWith } from "@/lib/api/http";
+import { apiRoute, json } from "@/lib/api/http";
+import { parseWith } from "@/lib/validation";
 import { fatigueQuery } from "@/lib/api/fatigue-query";
 import { rainflowMatrixCsv } from "@/lib/fatigue";
 import { gaugeFatigue } from "@/lib/services/fatigue";

@@ -1,0 +1,13 @@
+// The self-contained ES bundle of swagger-ui-dist ships no types; only what the reference uses.
+declare module "swagger-ui-dist/swagger-ui-es-bundle.js" {
+  type Options = {
+    domNode: HTMLElement;
+    spec: object;
+    validatorUrl: string | null;
+    deepLinking?: boolean;
+    defaultModelsExpandDepth?: number;
+    tryItOutEnabled?: boolean;
+    onComplete?: () => void;
+  };
+  export default function SwaggerUI(options: Options): unknown;
+}

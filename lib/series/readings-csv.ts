@@ -1,0 +1,27 @@
+import { flagWords, type DerivedDecimals } from "@/lib/mechanics";
+
+/** The columns of GET …/readings as CSV, in the contract's names (what scripts look up). */
+export const READINGS_CSV_COLUMNS = ["time", "value", "temperature", "strain", "stress", "flags"] as const;
+
+/**
+ * `names`: the contract's header. `units`: the same columns with their units in the names, e.g.
+ * `strain (µε)`, after a byte-order mark so that spreadsheets read µ and ° as UTF-8.
+ */
+export type ReadingsCsvHeader = "names" | "units";
+
+const INPUT_UNITS: Record<string, string> = { microstrain: "µε" };
+
+export function readingsCsvHeader(header: ReadingsCsvHeader, input: string): string {
+  if (header === "names") return `${READINGS_CSV_COLUMNS.join(",")}\n`;
+  const named = ["time (UTC)", `value (${INPUT_UNITS[input] ?? input})`, "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"];
+  return `\uFEFF${named.join(",")}\n`;
+}
+
+export type StoredReadingRow = { t: number; value: number; temperature: number | null; strain: number; stress: number; flags: number };
+
+/** One reading: raw value and temperature as the logger wrote them, strain and stress to the gauge's resolution. */
+export function readingsCsvLine(row: StoredReadingRow, decimals: DerivedDecimals | null): string {
+  const strain = decimals ? row.strain.toFixed(decimals.strain) : String(row.strain);
+  const stress = decimals ? row.stress.toFixed(decimals.stress) : String(row.stress);
+  return `${new Date(row.t).toISOString()},${row.value},${row.temperature ?? ""},${strain},${stress},${flagWords(row.flags).join(" ")}\n`;
+}

@@ -1,0 +1,38 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { DESKTOP, PHONE, SignInPage, baseUrl, launchBrowser, newContext, saveScreenshot } from "./browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the API reference", () => {
+  for (const [name, viewport] of [
+    ["desktop", DESKTOP],
+    ["phone", PHONE],
+  ] as const) {
+    it(`draws the served document's paths from the app alone (${name})`, async () => {
+      const context = await newContext(browser, viewport);
+      const page = await context.newPage();
+      const elsewhere: string[] = [];
+      page.on("request", (request) => {
+        if (!request.url().startsWith(baseUrl()) && !request.url().startsWith("data:")) elsewhere.push(request.url());
+      });
+      await new SignInPage(page).signInAs("engineer");
+      await page.goto("/api-reference");
+      const reference = page.getByTestId("api-reference");
+      await expect.poll(() => reference.locator(".opblock-tag").count(), { timeout: 20_000 }).toBeGreaterThan(5);
+      const served = await (await page.request.get("/api/v1/openapi.json")).json();
+      const shown = await reference.locator(".opblock-summary-path").evaluateAll((nodes) => nodes.map((node) => node.getAttribute("data-path")));
+      expect(new Set(shown)).toEqual(new Set(Object.keys(served.paths)));
+      expect(await reference.locator(".opblock-tag", { hasText: "gauges" }).first().isVisible()).toBe(true);
+      await saveScreenshot(page, `api-reference-${name}`);
+      expect(elsewhere).toEqual([]);
+      await context.close();
+    });
+  }
+});

@@ -1,0 +1,3443 @@
+export interface paths {
+    "/structures": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Structures the caller can see */
+        get: operations["getStructures"];
+        put?: never;
+        /**
+         * Create a structure
+         * @description Roles: admin, engineer.
+         */
+        post: operations["postStructures"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One structure with its gauges, each with its condition now (`condition: { state, since, faults, stale }`), and its count of open alerts */
+        get: operations["getStructuresByCode"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Gauges of a structure, retired ones included */
+        get: operations["getStructuresByCodeGauges"];
+        put?: never;
+        /**
+         * Register a gauge (tags are unique per structure)
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeGauges"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One gauge */
+        get: operations["getStructuresByCodeGaugesByTag"];
+        put?: never;
+        post?: never;
+        /**
+         * Retire the gauge: it accepts no more readings; its history is kept
+         * @description Roles: admin, engineer, technician.
+         */
+        delete: operations["deleteStructuresByCodeGaugesByTag"];
+        options?: never;
+        head?: never;
+        /**
+         * Change fields of a gauge (the whole gauge is checked again); stored readings keep their derived values
+         * @description Roles: admin, engineer, technician.
+         */
+        patch: operations["patchStructuresByCodeGaugesByTag"];
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/zero": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Set a new zero (reference) reading, typed or the average of the last N raw readings; the previous one stays in the history
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeGaugesByTagZero"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/limits": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The gauge's limits */
+        get: operations["getStructuresByCodeGaugesByTagLimits"];
+        /**
+         * Replace the gauge's limits. Refused: lower ≥ upper, negative dead band or persistence, levels out of order
+         * @description Roles: admin, engineer.
+         */
+        put: operations["putStructuresByCodeGaugesByTagLimits"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/limits/backtest": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** What proposed limits would have raised over [from, to) of stored readings, by the same evaluation as ingestion; nothing is stored */
+        post: operations["postStructuresByCodeGaugesByTagLimitsBacktest"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/rosettes": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Rosettes of a structure */
+        get: operations["getStructuresByCodeRosettes"];
+        put?: never;
+        /**
+         * Group three gauges of the structure as a rosette (gauges a, b, c at 0°, 45°/60°, 90°/120°; material from gauge a)
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeRosettes"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/rosettes/{tag}/limits": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The rosette's limits on sigma1, sigma2 and vonMises (MPa) */
+        get: operations["getStructuresByCodeRosettesByTagLimits"];
+        /**
+         * Replace the rosette's limits. Refused as for a gauge's; evaluated on ingest from readings of the three gauges with the same timestamp
+         * @description Roles: admin, engineer.
+         *
+         *     A reading completing an instant older than the rosette's last evaluated one is evaluated by replaying from an hourly checkpoint, as for a gauge's limits (kept three days); an instant using a reading sensor health or the rated range marks as a fault is skipped.
+         */
+        put: operations["putStructuresByCodeRosettesByTagLimits"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/rosettes/{tag}/limits/backtest": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * What proposed rosette limits would have raised over [from, to) of stored readings, by the same evaluation as ingestion (faulty gauge readings skipped); nothing is stored
+         * @description `readingsChecked` counts the instants at which all three gauges have a reading.
+         */
+        post: operations["postStructuresByCodeRosettesByTagLimitsBacktest"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/rosettes/{tag}/series": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * A rosette's sigma1, sigma2, vonMises, tauMax (MPa) or theta (degrees) in at most `points` buckets
+         * @description Computed from readings of the three gauges with the same timestamp (plane stress, material of gauge a); buckets as for a gauge's series.
+         */
+        get: operations["getStructuresByCodeRosettesByTagSeries"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/alerts": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Alerts of a structure, newest first, filtered and paged: `total` counts every match, `nextCursor` fetches the next page */
+        get: operations["getStructuresByCodeAlerts"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/alerts/{id}/acknowledge": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Acknowledge an alert with a comment
+         * @description Roles: admin, engineer.
+         */
+        post: operations["postAlertsByIdAcknowledge"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/alerts/{id}/resolve": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Resolve a jump (a sensor alert with code jump): accept the step as real, or record a new zero
+         * @description Roles: admin, engineer.
+         *
+         *     After a jump the gauge's readings are kept out of limit evaluation (readings.fault marks them after-jump) until this is done. accept-step evaluates them against the limits from the jump on, raising any alerts they would have raised; new-zero records the reading at the jump as the gauge's zero (as POST /gauges/{tag}/zero does) and leaves the readings between set aside. Either clears the alert. A jump cannot be cleared by hand.
+         */
+        post: operations["postAlertsByIdResolve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/drawings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Drawings (elevations, plans) of a structure */
+        get: operations["getStructuresByCodeDrawings"];
+        put?: never;
+        /**
+         * Upload a drawing
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeDrawings"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/photos": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Installation photos of a gauge */
+        get: operations["getStructuresByCodeGaugesByTagPhotos"];
+        put?: never;
+        /**
+         * Upload an installation photo of a gauge
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeGaugesByTagPhotos"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/placement": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /**
+         * Place a gauge on a drawing of its structure (x, y: fractions of width and height from the top left), or take it off
+         * @description Roles: admin, engineer, technician.
+         */
+        put: operations["putStructuresByCodeGaugesByTagPlacement"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/fatigue": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Fatigue of a gauge over [from, to): rainflow counting (ASTM E1049) of the stored stress, S-N curve of the detail category (EN 1993-1-9 shape), Palmgren–Miner damage, rate per year and implied life. Readings beyond the gauge's rated range are left out. */
+        get: operations["getStructuresByCodeGaugesByTagFatigue"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/readings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Send readings (JSON or CSV)
+         * @description Roles: admin, engineer, technician, or the structure's logger token.
+         *
+         *     At most 50 000 readings and 10 MB per request (413 past that). All valid readings of a request are stored in one transaction, or none. Each reading is checked on its own; `rejected[].code` is one of: `invalid-reading` (The reading is not a JSON object with gauge, time and value.); `wrong-column-count` (A CSV row has more or fewer fields than the header (a decimal comma splits a number in two).); `missing-gauge` (The reading names no gauge tag.); `unknown-gauge` (No gauge of the structure has this tag.); `retired-gauge` (The gauge is retired and takes no more readings.); `gauge-not-convertible` (The gauge's stored configuration cannot convert readings; fix the gauge first.); `missing-time` (The reading has no time.); `invalid-time` (The time is not ISO-8601 with a date, lacks an offset where one is required, or is before 1970.); `time-in-future` (The time is more than 5 minutes ahead of the server's clock.); `missing-value` (The reading has no value.); `non-finite-value` (The value is not a finite number (text, NaN, Infinity).); `non-finite-temperature` (The temperature is given but is not a finite number.); `not-finite` (The strain or stress the value converts to is not a finite number (the value is far outside anything a gauge reads).); `before-zero` (The time is earlier than the gauge's first zero reading, from which its strain is measured.); `temperature-out-of-range` (The temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.); `temperature-required` (The gauge's temperature compensation needs the temperature at each reading.); `non-positive-frequency` (A vibrating-wire frequency must be above 0 Hz.); `non-positive-digits` (A vibrating-wire reading in digits must be above 0.); `impossible-bridge-output` (No bridge of the gauge's arrangement can produce this output change.). Times are stored to the millisecond. A reading whose (gauge, time) is already stored, or that repeats an earlier reading of the same request, counts as a duplicate and is not stored again (the first one is kept).
+         */
+        post: operations["postStructuresByCodeReadings"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/uploads": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Upload a logger file of any size (CSV, streamed)
+         * @description Roles: admin, engineer, technician, or the structure's logger token.
+         *
+         *     Header `gauge,time,value,temperature` (any order, case-insensitive; `temperature` may be left out; a UTF-8 byte-order mark is skipped; blank lines are ignored). Separated by commas with decimals written with a point: a semicolon- or tab-separated file is refused with a 400 before any row is read, a missing or unknown column with a 400 naming it, and a row with too many or too few fields (e.g. an unquoted decimal comma) is rejected on its own (`wrong-column-count`). Times are ISO-8601 (`T` or a space between date and time); without an offset they are read in `?timezone=` or else the structure's time zone (a time that happens twice when clocks go back is the earlier one; one skipped when they go forward is read with the offset before the change). The body is read as it arrives and stored in batches of 5 000 rows, each its own transaction, so a file of millions of rows is never held whole. The header is checked before anything is stored (400). The answer is newline-delimited JSON: `{"type":"start","timezone"}`, then `{"type":"progress","bytes","rows","accepted","duplicates","rejected"}` after each batch, then `{"type":"done","rows","accepted","duplicates","rejected","rejections":[{"line","code","message"}],"rejectionsTruncated","alerts"}` (`line` counts the header as line 1; the first 10 000 rejected rows are listed), or `{"type":"error","error":{code,message}}` if the file cannot be read to its end: the batches reported before stay stored, and sending the file again is safe. Each reading is checked on its own; `rejected[].code` is one of: `invalid-reading` (The reading is not a JSON object with gauge, time and value.); `wrong-column-count` (A CSV row has more or fewer fields than the header (a decimal comma splits a number in two).); `missing-gauge` (The reading names no gauge tag.); `unknown-gauge` (No gauge of the structure has this tag.); `retired-gauge` (The gauge is retired and takes no more readings.); `gauge-not-convertible` (The gauge's stored configuration cannot convert readings; fix the gauge first.); `missing-time` (The reading has no time.); `invalid-time` (The time is not ISO-8601 with a date, lacks an offset where one is required, or is before 1970.); `time-in-future` (The time is more than 5 minutes ahead of the server's clock.); `missing-value` (The reading has no value.); `non-finite-value` (The value is not a finite number (text, NaN, Infinity).); `non-finite-temperature` (The temperature is given but is not a finite number.); `not-finite` (The strain or stress the value converts to is not a finite number (the value is far outside anything a gauge reads).); `before-zero` (The time is earlier than the gauge's first zero reading, from which its strain is measured.); `temperature-out-of-range` (The temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.); `temperature-required` (The gauge's temperature compensation needs the temperature at each reading.); `non-positive-frequency` (A vibrating-wire frequency must be above 0 Hz.); `non-positive-digits` (A vibrating-wire reading in digits must be above 0.); `impossible-bridge-output` (No bridge of the gauge's arrangement can produce this output change.). Times are stored to the millisecond. A reading whose (gauge, time) is already stored, or that repeats an earlier reading of the same request, counts as a duplicate and is not stored again (the first one is kept).
+         */
+        post: operations["postStructuresByCodeUploads"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/readings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Stored readings of a gauge with their derived values, oldest first
+         * @description Pages of `limit` readings; pass `nextCursor` back as `cursor` for the next page (absent on the last). With `Accept: text/csv` the whole range is streamed as CSV (`time,value,temperature,strain,stress,flags`, flags space-separated) and `limit` is ignored. Raw value and temperature are written as received; strain and stress to the resolution of the gauge's readings (one step of the finest raw decimal, through the gauge's conversion). `header=units` names the same columns with their units (`time (UTC)`, `value (<input unit>)`, `temperature (°C)`, `strain (µε)`, `stress (MPa)`, `flags`) after a UTF-8 byte-order mark, for spreadsheets.
+         */
+        get: operations["getStructuresByCodeGaugesByTagReadings"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/series": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * A gauge's strain, stress or temperature in at most `points` buckets
+         * @description Buckets have a round width (1 s … 1 week, then whole weeks) aligned to the Unix epoch, so the first and last may reach outside the range. Each bucket's min and max are exact (a one-reading spike always shows); fine buckets come from the readings, buckets of whole hours or days from roll-ups. Buckets without readings are left out, so gaps stay gaps.
+         */
+        get: operations["getStructuresByCodeGaugesByTagSeries"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/report": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions */
+        get: operations["getStructuresByCodeReport"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/files/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff) */
+        get: operations["getFilesById"];
+        put?: never;
+        post?: never;
+        /**
+         * Delete a photo or drawing; gauges placed on a deleted drawing come off it
+         * @description Roles: admin, engineer, technician.
+         */
+        delete: operations["deleteFilesById"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+}
+export type webhooks = Record<string, never>;
+export interface components {
+    schemas: {
+        AcknowledgeInput: {
+            comment: string;
+        };
+        Alert: {
+            id: number;
+            structure: string;
+            gauge: string;
+            /** @description For an alert on a rosette's sigma1, sigma2 or vonMises: its tag (gauge is then its gauge a) */
+            rosette: string | null;
+            /** @enum {string} */
+            kind: "limit" | "sensor";
+            /** @enum {string} */
+            level: "watch" | "warning" | "critical";
+            quantity: string | null;
+            /** @description Sensor alerts: stale, flat-line, jump or out-of-range */
+            code: string | null;
+            message: string | null;
+            openedAt: string;
+            bound: number | null;
+            /** @description The furthest value beyond the bound so far in the episode; keeps rising while the alert is open */
+            peak: number | null;
+            /** @description When the episode reached its peak */
+            peakAt: string | null;
+            /** @description How many times the episode opened: an alert back beyond within an hour of clearing continues the same episode */
+            openings: number;
+            /** @description Set once the alert has opened 3 times within an hour: its crossings are then e-mailed as one, with a summary when it settles */
+            flappingSince: string | null;
+            acknowledgedAt: string | null;
+            acknowledgedBy: string | null;
+            clearedAt: string | null;
+            comment: string | null;
+        };
+        AlertList: {
+            alerts: components["schemas"]["Alert"][];
+            /** @description Alerts matching the filters in all, on every page */
+            total: number;
+            /** @description Pass as `cursor` for the next page; null on the last page */
+            nextCursor: string | null;
+        };
+        Backtest: {
+            /** @description epoch ms */
+            from: number;
+            /** @description epoch ms */
+            to: number;
+            readingsChecked: number;
+            episodes: {
+                quantity: string;
+                level: string;
+                openedAt: number;
+                peak: number;
+                /** @description null: still open at the end of the period */
+                clearedAt: number | null;
+            }[];
+        };
+        BacktestInput: {
+            limits: {
+                /** @enum {string} */
+                quantity: "stress" | "strain" | "utilisation";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                /** @description MPa for stress, µε for strain, a fraction of yield for utilisation */
+                upper?: number;
+                lower?: number;
+                /** @description Dead band a value must come back inside the bound by to clear; same unit */
+                hysteresis?: number;
+                /** @description Consecutive readings needed to open or clear; default 1 */
+                persistence?: number;
+            }[];
+            /** Format: date-time */
+            from: string;
+            /** Format: date-time */
+            to: string;
+        };
+        DrawingList: {
+            drawings: components["schemas"]["File"][];
+        };
+        Error: {
+            error: {
+                /** @example validation_failed */
+                code: string;
+                message: string;
+                details?: unknown;
+            };
+        };
+        File: {
+            id: number;
+            /** @enum {string} */
+            kind: "photo" | "drawing";
+            title: string;
+            /**
+             * @description Detected from the content, not the name
+             * @enum {string}
+             */
+            contentType: "image/png" | "image/jpeg" | "image/webp";
+            bytes: number;
+            /** @description Pixels */
+            width: number | null;
+            /** @description Pixels */
+            height: number | null;
+            /** @description Tag of the gauge a photo shows; null for drawings */
+            gauge: string | null;
+            /** @description Where the bytes are served: /api/v1/files/{id} */
+            url: string;
+            /** @description UTC, ISO-8601 with milliseconds */
+            createdAt: string;
+        };
+        /** @description The gauge: every field of the request, plus status, retiredAt, replaces, replacedBy, drawing (`{ id, x, y } | null`) and createdAt */
+        Gauge: {
+            [key: string]: unknown;
+        };
+        GaugeCondition: {
+            /**
+             * @description The first that holds, in this order: critical, warning, watch (an open limit alert of that level), sensor-fault (an open sensor fault: its readings are not believed), no-data (no reading yet, or none for three expected intervals), within-limits, no-limits (readings arrive but the gauge has no limits to judge them by)
+             * @enum {string}
+             */
+            state: "critical" | "warning" | "watch" | "sensor-fault" | "no-data" | "within-limits" | "no-limits";
+            /** @description Since when the state holds, UTC; null when it cannot be told */
+            since: string | null;
+            /** @description Codes of the open sensor faults (jump, flat-line, out-of-range), oldest first */
+            faults: string[];
+            /** @description No reading for three expected intervals: the data are old whatever the state */
+            stale: boolean;
+        };
+        GaugeFatigue: {
+            /** @description Rainflow histogram: occupied range bins ascending, half cycles counted as 0.5 */
+            cycles: {
+                /** @description Upper edge of the range bin, MPa */
+                range: number;
+                count: number;
+            }[];
+            /** @description Palmgren–Miner sum D over the period, from the exact (unbinned) ranges */
+            damage: number;
+            /** @description Detail category Δσ_C used, MPa at 2×10⁶ cycles */
+            category: number;
+            /** @description Cycles counted, half cycles as 0.5 */
+            cyclesCounted: number;
+            /** @description Start of the period, included (UTC) */
+            from: string;
+            /** @description End of the period, excluded (UTC) */
+            to: string;
+            /** @description Seconds from `from` to `to` */
+            periodSeconds: number;
+            /** @description First reading counted (UTC); null when none */
+            firstReading: string | null;
+            /** @description Last reading counted (UTC); null when none */
+            lastReading: string | null;
+            /** @description Seconds from the first to the last reading counted */
+            observedSeconds: number;
+            /** @description Seconds covered by data: the sum of the intervals between readings counted, leaving out gaps longer than `longestCoveredIntervalSeconds`. The rate divides by it, so that an outage does not dilute the rate and overstate the life */
+            coveredSeconds: number;
+            /** @description Intervals without readings longer than `longestCoveredIntervalSeconds`, left out of `coveredSeconds` */
+            gapsLeftOut: number;
+            /** @description Their total length, seconds */
+            gapSeconds: number;
+            /** @description 3 × the gauge's expected interval (600 s when it has none) */
+            longestCoveredIntervalSeconds: number;
+            /** @description Histories counted one by one: rainflow restarts at each new zero reading, so the step a re-zero makes is never counted as a stress range */
+            zeroEpochs: number;
+            readingsUsed: number;
+            /** @description Readings counted although flagged outside-linear-range: real stress, but the S-N approach assumes elastic stress ranges, so many of them make the estimate doubtful */
+            readingsOutsideLinearRange: number;
+            /** @description Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range) */
+            readingsSkipped: number;
+            /** @description Width of the range bins, MPa */
+            rangeBinWidth: number;
+            /** @description Damage per Julian year over the time covered by data; null when no time is covered */
+            damageRatePerYear: number | null;
+            /** @description Years for that rate to reach D = 1; null when the rate is 0 (no damaging cycles) or unknown */
+            yearsToDamageOne: number | null;
+        };
+        GaugeInput: {
+            tag: string;
+            label?: string;
+            member?: string;
+            /** @enum {string} */
+            kind: "foil" | "vibrating-wire";
+            /** @enum {string} */
+            input: "microstrain" | "mV/V" | "Hz" | "digits";
+            bridge?: ("quarter" | "half-bending" | "half-poisson" | "full-bending" | "full-poisson" | "full-axial-poisson") | null;
+            /** @description Foil: gauge factor GF. Vibrating wire: gauge constant G, µε per digit */
+            gaugeFactor: number;
+            loggerGaugeFactor?: number | null;
+            batchFactor?: number | null;
+            /** @default 1 */
+            polarity?: 1 | -1;
+            /** @description Ω */
+            leadResistance?: number | null;
+            /** @description Ω */
+            gaugeResistance?: number | null;
+            thermal?: ({
+                /** @constant */
+                method: "none";
+            } | {
+                /** @constant */
+                method: "polynomial";
+                coefficients: number[];
+            } | {
+                /** @constant */
+                method: "cte";
+                /** @description µε/°C */
+                gaugeCte?: number | null;
+            }) | null;
+            material: {
+                name?: string;
+                /** @description Young's modulus, MPa */
+                E: number;
+                nu: number;
+                alpha: number;
+                /** @description Yield or proportional limit, MPa */
+                yield?: number | null;
+            };
+            /**
+             * @description MPa
+             * @default 0
+             */
+            initialStress?: number;
+            zero: {
+                /** @description Raw reading in the gauge's input unit */
+                value: number;
+                /** @description °C */
+                temperature?: number | null;
+                /** Format: date-time */
+                time?: string;
+            };
+            /** @description Seconds between readings, for stale-data detection */
+            expectedInterval?: number | null;
+            /** @description µε either side of zero the gauge is rated for */
+            ratedRange?: number | null;
+            /** @description Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed */
+            detailCategory?: (160 | 140 | 125 | 112 | 100 | 90 | 80 | 71 | 63 | 56 | 50 | 45 | 40 | 36) | null;
+        };
+        GaugeList: {
+            gauges: components["schemas"]["Gauge"][];
+        };
+        GaugePatch: {
+            label?: string;
+            member?: string;
+            /** @enum {string} */
+            kind?: "foil" | "vibrating-wire";
+            /** @enum {string} */
+            input?: "microstrain" | "mV/V" | "Hz" | "digits";
+            bridge?: ("quarter" | "half-bending" | "half-poisson" | "full-bending" | "full-poisson" | "full-axial-poisson") | null;
+            /** @description Foil: gauge factor GF. Vibrating wire: gauge constant G, µε per digit */
+            gaugeFactor?: number;
+            loggerGaugeFactor?: number | null;
+            batchFactor?: number | null;
+            /** @default 1 */
+            polarity?: 1 | -1;
+            /** @description Ω */
+            leadResistance?: number | null;
+            /** @description Ω */
+            gaugeResistance?: number | null;
+            thermal?: ({
+                /** @constant */
+                method: "none";
+            } | {
+                /** @constant */
+                method: "polynomial";
+                coefficients: number[];
+            } | {
+                /** @constant */
+                method: "cte";
+                /** @description µε/°C */
+                gaugeCte?: number | null;
+            }) | null;
+            material?: {
+                name?: string;
+                /** @description Young's modulus, MPa */
+                E: number;
+                nu: number;
+                alpha: number;
+                /** @description Yield or proportional limit, MPa */
+                yield?: number | null;
+            };
+            /**
+             * @description MPa
+             * @default 0
+             */
+            initialStress?: number;
+            zero?: {
+                /** @description Raw reading in the gauge's input unit */
+                value: number;
+                /** @description °C */
+                temperature?: number | null;
+                /** Format: date-time */
+                time?: string;
+            };
+            /** @description Seconds between readings, for stale-data detection */
+            expectedInterval?: number | null;
+            /** @description µε either side of zero the gauge is rated for */
+            ratedRange?: number | null;
+            /** @description Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed */
+            detailCategory?: (160 | 140 | 125 | 112 | 100 | 90 | 80 | 71 | 63 | 56 | 50 | 45 | 40 | 36) | null;
+            reason?: string;
+        };
+        IngestResult: {
+            /** @description Readings stored by this request */
+            accepted: number;
+            /** @description Readings whose (gauge, time) was already stored, or repeated in the request */
+            duplicates: number;
+            rejected: {
+                /** @description Position in `readings`, or the CSV data row counted from 0 */
+                index: number;
+                code: string;
+                message: string;
+            }[];
+            alerts: {
+                opened: number;
+                escalated: number;
+                cleared: number;
+            };
+        };
+        Limits: {
+            limits: {
+                /** @enum {string} */
+                quantity: "stress" | "strain" | "utilisation";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                upper?: number;
+                lower?: number;
+                hysteresis: number;
+                persistence: number;
+            }[];
+        };
+        LimitsInput: {
+            limits: {
+                /** @enum {string} */
+                quantity: "stress" | "strain" | "utilisation";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                /** @description MPa for stress, µε for strain, a fraction of yield for utilisation */
+                upper?: number;
+                lower?: number;
+                /** @description Dead band a value must come back inside the bound by to clear; same unit */
+                hysteresis?: number;
+                /** @description Consecutive readings needed to open or clear; default 1 */
+                persistence?: number;
+            }[];
+        };
+        PhotoList: {
+            photos: components["schemas"]["File"][];
+        };
+        PlacementInput: {
+            /** @description A drawing of the gauge's structure */
+            drawingId: number;
+            /** @description From the left edge, 0–1 */
+            x: number;
+            /** @description From the top edge, 0–1 */
+            y: number;
+        } | {
+            /** @description null takes the gauge off its drawing */
+            drawingId: null;
+        };
+        ReadingsInput: {
+            /** @description At most 50 000 readings (and 10 MB) per request; more is a 413. */
+            readings: unknown[];
+        };
+        ReadingsPage: {
+            readings: {
+                time: string;
+                value: number;
+                temperature: number | null;
+                strain: number;
+                stress: number;
+                flags: string[];
+            }[];
+            nextCursor?: string;
+        };
+        ResolveFaultInput: {
+            /**
+             * @description accept-step: the quarantined readings are checked against the limits from the jump on; new-zero: the reading at the jump becomes the gauge's zero and the readings between stay set aside
+             * @enum {string}
+             */
+            resolution: "accept-step" | "new-zero";
+            comment: string;
+        };
+        Rosette: {
+            tag: string;
+            /** @enum {string} */
+            layout: "rectangular" | "delta";
+            gauges: string[];
+            createdAt: string;
+        };
+        RosetteBacktestInput: {
+            limits: {
+                /** @enum {string} */
+                quantity: "sigma1" | "sigma2" | "vonMises";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                /** @description MPa (sigma1, sigma2 and vonMises are all stresses) */
+                upper?: number;
+                lower?: number;
+                /** @description Dead band a value must come back inside the bound by to clear; same unit */
+                hysteresis?: number;
+                /** @description Consecutive readings needed to open or clear; default 1 */
+                persistence?: number;
+            }[];
+            /** Format: date-time */
+            from: string;
+            /** Format: date-time */
+            to: string;
+        };
+        RosetteInput: {
+            tag: string;
+            /** @enum {string} */
+            layout: "rectangular" | "delta";
+            gauges: [
+                string,
+                string,
+                string
+            ];
+        };
+        RosetteLimits: {
+            limits: {
+                /** @enum {string} */
+                quantity: "sigma1" | "sigma2" | "vonMises";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                upper?: number;
+                lower?: number;
+                hysteresis: number;
+                persistence: number;
+            }[];
+        };
+        RosetteLimitsInput: {
+            limits: {
+                /** @enum {string} */
+                quantity: "sigma1" | "sigma2" | "vonMises";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                /** @description MPa (sigma1, sigma2 and vonMises are all stresses) */
+                upper?: number;
+                lower?: number;
+                /** @description Dead band a value must come back inside the bound by to clear; same unit */
+                hysteresis?: number;
+                /** @description Consecutive readings needed to open or clear; default 1 */
+                persistence?: number;
+            }[];
+        };
+        RosetteList: {
+            rosettes: components["schemas"]["Rosette"][];
+        };
+        Series: {
+            /** @enum {string} */
+            quantity: "strain" | "stress" | "temperature";
+            unit: string;
+            from: string;
+            to: string;
+            /** @description Bucket width, ms */
+            bucketWidth: number;
+            /**
+             * @description What the buckets were built from
+             * @enum {string}
+             */
+            source: "raw" | "hourly" | "daily";
+            /** @description Bucket starts, epoch ms; empty buckets are left out */
+            t: number[];
+            min: number[];
+            max: number[];
+            mean: number[];
+            count: number[];
+        };
+        Structure: {
+            code: string;
+            name: string;
+            location: string | null;
+            /** @description IANA time zone */
+            timezone: string;
+            description: string | null;
+            /** @description UTC, ISO-8601 with milliseconds */
+            createdAt: string;
+        };
+        StructureDetail: {
+            code: string;
+            name: string;
+            location: string | null;
+            /** @description IANA time zone */
+            timezone: string;
+            description: string | null;
+            /** @description UTC, ISO-8601 with milliseconds */
+            createdAt: string;
+            /** @description The structure's gauges, each with every gauge field and its condition now */
+            gauges: ({
+                condition: components["schemas"]["GaugeCondition"];
+            } & {
+                [key: string]: unknown;
+            })[];
+            openAlerts: number;
+        };
+        StructureInput: {
+            /**
+             * @description Short unique code, 2–32 of A-Z a-z 0-9 - _
+             * @example FB-01
+             */
+            code: string;
+            name: string;
+            location?: string;
+            /**
+             * @description IANA time zone, default UTC
+             * @default UTC
+             */
+            timezone?: string;
+            description?: string;
+        };
+        StructureList: {
+            structures: components["schemas"]["Structure"][];
+        };
+        StructureReport: {
+            structure: {
+                code: string;
+                name: string;
+                location: string | null;
+                timezone: string;
+            };
+            period: {
+                /** @description Start, included: a UTC midnight */
+                from: string;
+                /** @description End, excluded: a UTC midnight */
+                to: string;
+                /** @description Last day included, YYYY-MM-DD */
+                lastDay: string;
+                /** @description e.g. "November 2026" */
+                name: string;
+                /** @description "2026-11" for a month, else "<first day>_<last day>" */
+                key: string;
+            };
+            generatedAt: string;
+            summary: {
+                /**
+                 * @description Worst limit-alert level open in the period; all-clear; or no-data when no reading arrived
+                 * @enum {string}
+                 */
+                level: "critical" | "warning" | "watch" | "all-clear" | "no-data";
+                headline: string;
+                /** @description Alerts open at any time in the period, limit alerts by level, sensor alerts apart */
+                alerts: {
+                    watch: number;
+                    warning: number;
+                    critical: number;
+                    sensor: number;
+                };
+                readings: {
+                    received: number;
+                    /** @description Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now) */
+                    expected: number;
+                    /** @description received ÷ expected as a ratio (1 = 100 %), never above 1; null when nothing was expected */
+                    completeness: number | null;
+                    /** @description Readings received beyond those expected: more than a few mean the registered expected interval is longer than the logger's */
+                    surplus: number;
+                };
+                /** @description How the structure stands now, when the report is made */
+                current: {
+                    /**
+                     * @description The worst condition of the structure's active gauges now
+                     * @enum {string}
+                     */
+                    state: "critical" | "warning" | "watch" | "sensor-fault" | "no-data" | "within-limits" | "no-limits";
+                    stale: boolean;
+                    lastReadingAt: string | null;
+                };
+            };
+            /** @description Gauges installed at some time in the period, by tag */
+            gauges: {
+                tag: string;
+                label: string | null;
+                member: string | null;
+                /** @enum {string} */
+                status: "active" | "retired";
+                /** @description Seconds between readings the logger should send */
+                expectedIntervalS: number;
+                /** @description Part of the period in which the gauge was installed, not retired, and not in the future */
+                activeSpan: {
+                    from: string;
+                    to: string;
+                } | null;
+                readings: {
+                    received: number;
+                    /** @description Whole expected intervals in the part of the period the gauge was installed and not retired (and not after now) */
+                    expected: number;
+                    /** @description received ÷ expected as a ratio (1 = 100 %), never above 1; null when nothing was expected */
+                    completeness: number | null;
+                    /** @description Readings received beyond those expected: more than a few mean the registered expected interval is longer than the logger's */
+                    surplus: number;
+                };
+                /** @description The gauge's condition when the report is made */
+                condition: components["schemas"]["GaugeCondition"];
+                /** @description Readings left out of the extremes and the utilisation peak because the sensor was in fault when they were taken (an open jump, flat-line or out-of-range alert) or they lie beyond the gauge's rated range; null when none */
+                leftOut: {
+                    readings: number;
+                    reason: string;
+                } | null;
+                /** @description Lowest and highest stress of the period, MPa, of the readings believed (see leftOut); null without such readings */
+                stress: {
+                    min: number;
+                    max: number;
+                    /** @constant */
+                    unit: "MPa";
+                } | null;
+                /** @description Lowest and highest stress-producing strain of the period, µε, of the readings believed (see leftOut); null without such readings */
+                strain: {
+                    min: number;
+                    max: number;
+                    /** @constant */
+                    unit: "µε";
+                } | null;
+                /** @description Lowest and highest temperature of the period, °C, of the readings believed (see leftOut); null without such readings */
+                temperature: {
+                    min: number;
+                    max: number;
+                    /** @constant */
+                    unit: "°C";
+                } | null;
+                /** @description null when the gauge's material has no yield stress or there were no readings */
+                utilisationPeak: {
+                    /** @description max |σ| ÷ yield over the period (1 = at yield) */
+                    ratio: number;
+                    /** @description Yield stress, MPa */
+                    yield: number;
+                } | null;
+                gaps: {
+                    /** @description Runs of whole hours without readings (longer than the expected interval), oldest first, at most 10; start and end UTC */
+                    list: {
+                        start: string;
+                        end: string;
+                        hours: number;
+                    }[];
+                    /** @description Runs not listed */
+                    more: number;
+                    /** @description Hours in all runs, listed or not */
+                    totalHours: number;
+                };
+                /** @description Fatigue damage of the period, as GET …/gauges/{tag}/fatigue computes it with the gauge's category */
+                fatigue: {
+                    /** @constant */
+                    status: "assessed";
+                    /** @description Detail category Δσ_C, MPa at 2×10⁶ cycles */
+                    category: number;
+                    /** @description Palmgren–Miner sum of the period */
+                    damage: number;
+                    cyclesCounted: number;
+                    readingsUsed: number;
+                } | {
+                    /**
+                     * @description The gauge has no detail category
+                     * @constant
+                     */
+                    status: "not-assessed";
+                };
+            }[];
+            /** @description Alerts open at any time in the period, newest first */
+            alerts: {
+                id: number;
+                gauge: string;
+                /** @enum {string} */
+                kind: "limit" | "sensor";
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                quantity: string | null;
+                code: string | null;
+                message: string | null;
+                /** @description Unit of bound and peak: MPa, µε, or ratio (utilisation, 1 = at yield); null for sensor alerts */
+                unit: string | null;
+                bound: number | null;
+                peak: number | null;
+                openedAt: string;
+                /** @description Opened earlier and still open when the period began */
+                openedBeforePeriod: boolean;
+                clearedAt: string | null;
+                acknowledged: {
+                    at: string;
+                    by: string | null;
+                    comment: string | null;
+                } | null;
+                /** @description The alert's whole history up to when the report was made, oldest first */
+                events: {
+                    /** @description opened, escalated, cleared, acknowledged or note */
+                    type: string;
+                    at: string;
+                    level: string | null;
+                    by: string | null;
+                    text: string | null;
+                }[];
+            }[];
+            cautions: string[];
+        };
+        ZeroInput: {
+            fromReadings: number;
+            reason?: string;
+        } | {
+            /** @description Raw reading in the gauge's input unit */
+            value: number;
+            /** @description °C */
+            temperature?: number | null;
+            /** Format: date-time */
+            time?: string;
+            reason?: string;
+        };
+    };
+    responses: never;
+    parameters: never;
+    requestBodies: never;
+    headers: never;
+    pathItems: never;
+}
+export type $defs = Record<string, never>;
+export interface operations {
+    getStructures: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The structures */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StructureList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructures: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["StructureInput"];
+            };
+        };
+        responses: {
+            /** @description The new structure */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Structure"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCode: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The structure */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StructureDetail"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGauges: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The gauges */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GaugeList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGauges: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["GaugeInput"];
+            };
+        };
+        responses: {
+            /** @description The new gauge */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTag: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The gauge */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    deleteStructuresByCodeGaugesByTag: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The retired gauge */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    patchStructuresByCodeGaugesByTag: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["GaugePatch"];
+            };
+        };
+        responses: {
+            /** @description The gauge */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGaugesByTagZero: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ZeroInput"];
+            };
+        };
+        responses: {
+            /** @description The gauge with its new zero */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagLimits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The limits, with defaults applied */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Limits"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    putStructuresByCodeGaugesByTagLimits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["LimitsInput"];
+            };
+        };
+        responses: {
+            /** @description The limits now in force */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Limits"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGaugesByTagLimitsBacktest: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["BacktestInput"];
+            };
+        };
+        responses: {
+            /** @description The alert episodes the limits would have raised */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Backtest"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeRosettes: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The rosettes */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RosetteList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeRosettes: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RosetteInput"];
+            };
+        };
+        responses: {
+            /** @description The rosette */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Rosette"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeRosettesByTagLimits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Rosette tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The limits, with defaults applied */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RosetteLimits"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    putStructuresByCodeRosettesByTagLimits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Rosette tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RosetteLimitsInput"];
+            };
+        };
+        responses: {
+            /** @description The limits now in force */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RosetteLimits"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeRosettesByTagLimitsBacktest: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Rosette tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RosetteBacktestInput"];
+            };
+        };
+        responses: {
+            /** @description The alert episodes the limits would have raised */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Backtest"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeRosettesByTagSeries: {
+        parameters: {
+            query?: {
+                /** @description ISO-8601 with Z or an offset; default 7 days before `to` */
+                from?: string;
+                /** @description ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`) */
+                to?: string;
+                /** @description Most buckets, 1–5000 (default 1000) */
+                points?: string;
+                /** @description sigma1 | sigma2 | vonMises | tauMax | theta; default vonMises */
+                quantity?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Rosette tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The buckets */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Series"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeAlerts: {
+        parameters: {
+            query?: {
+                /** @description open (default: open and not acknowledged), acknowledged, cleared or all */
+                state?: string;
+                /** @description watch, warning, critical, or any (default) */
+                level?: string;
+                /** @description limit, sensor, or any (default) */
+                kind?: string;
+                /** @description Alerts per page, 1–1000 (default 500); `total` says how many match in all */
+                limit?: string;
+                /** @description `nextCursor` of the previous page; absent for the first page */
+                cursor?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The alerts */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AlertList"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postAlertsByIdAcknowledge: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Alert id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcknowledgeInput"];
+            };
+        };
+        responses: {
+            /** @description The alert */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Alert"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postAlertsByIdResolve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Alert id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ResolveFaultInput"];
+            };
+        };
+        responses: {
+            /** @description The alert, cleared */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Alert"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeDrawings: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The drawings, oldest first */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["DrawingList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeDrawings: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description PNG, JPEG or WebP image, at most 20 MB. The type is read from the content, not the name.
+                     */
+                    file: string;
+                    /** @description What the drawing shows, e.g. North elevation */
+                    title: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The stored drawing */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["File"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagPhotos: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The photos, oldest first */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGaugesByTagPhotos: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description PNG, JPEG or WebP image, at most 10 MB. The type is read from the content, not the name.
+                     */
+                    file: string;
+                    /** @description Caption; defaults to "Installation photo of {tag}" */
+                    title?: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The stored photo */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["File"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    putStructuresByCodeGaugesByTagPlacement: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PlacementInput"];
+            };
+        };
+        responses: {
+            /** @description The gauge */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagFatigue: {
+        parameters: {
+            query?: {
+                /** @description Start of the period, included; default `to` − 30 days */
+                from?: string;
+                /** @description End of the period, excluded; default now */
+                to?: string;
+                /** @description Detail category Δσ_C, MPa at 2×10⁶ cycles; default the gauge's own */
+                category?: string;
+                /** @description json (default), or csv for the rainflow matrix; Accept: text/csv does the same */
+                format?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The fatigue figures of the period */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GaugeFatigue"];
+                    "text/csv": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeReadings: {
+        parameters: {
+            query?: {
+                /** @description CSV only: IANA time zone for times without an offset (default: the structure's time zone) */
+                timezone?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReadingsInput"];
+                "text/csv": string;
+            };
+        };
+        responses: {
+            /** @description What was stored, counted as duplicate and rejected */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["IngestResult"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeUploads: {
+        parameters: {
+            query?: {
+                /** @description CSV only: IANA time zone for times without an offset (default: the structure's time zone) */
+                timezone?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "text/csv": string;
+            };
+        };
+        responses: {
+            /** @description Progress lines and the final report */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/x-ndjson": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagReadings: {
+        parameters: {
+            query?: {
+                /** @description ISO-8601 with Z or an offset; default 7 days before `to` */
+                from?: string;
+                /** @description ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`) */
+                to?: string;
+                /** @description Readings per page, 1–10 000 (default 1000) */
+                limit?: string;
+                /** @description `nextCursor` of the previous page */
+                cursor?: string;
+                /** @description CSV only: `names` (default) or `units` */
+                header?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of readings */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReadingsPage"];
+                    "text/csv": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagSeries: {
+        parameters: {
+            query?: {
+                /** @description ISO-8601 with Z or an offset; default 7 days before `to` */
+                from?: string;
+                /** @description ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`) */
+                to?: string;
+                /** @description Most buckets, 1–5000 (default 1000) */
+                points?: string;
+                /** @description strain (µε), stress (MPa) or temperature (°C); default strain */
+                quantity?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The buckets */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Series"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeReport: {
+        parameters: {
+            query?: {
+                /** @description A calendar month, YYYY-MM; its UTC days. Default (no month, from or to): the previous month in the structure's time zone */
+                month?: string;
+                /** @description First day included, YYYY-MM-DD (UTC day); with `to`, instead of `month` */
+                from?: string;
+                /** @description Last day included, YYYY-MM-DD (UTC day) */
+                to?: string;
+                /** @description json (default), or pdf for the printable report as an attachment; Accept: application/pdf does the same */
+                format?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The report */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StructureReport"];
+                    "application/pdf": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getFilesById: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description File id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The image */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "image/png": string;
+                    "image/jpeg": string;
+                    "image/webp": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    deleteFilesById: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description File id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+}
