@@ -58,6 +58,11 @@ export const structureMembers = sqliteTable(
      * one summary a day. Kept on the membership because the choice is per structure.
      */
     alertMail: text("alert_mail", { enum: ALERT_MAIL_MODES }).notNull().default("immediate"),
+    /**
+     * How this member wants sensor-fault e-mails: null follows the role (owners in the digest, since a
+     * sensor fault asks the engineer, not the owner, to act; everyone else as they happen).
+     */
+    sensorMail: text("sensor_mail", { enum: ALERT_MAIL_MODES }),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.structureId, t.userId] }), index("structure_members_user").on(t.userId)],
@@ -286,6 +291,11 @@ export const readings = sqliteTable(
     stress: real("stress").notNull(),
     /** Bitmask of lib/mechanics Flag. */
     flags: integer("flags").notNull().default(0),
+    /**
+     * Sensor-health verdict, a bitmask of lib/alerting/fault-bits (0: none). A faulty reading is
+     * kept but left out of limit evaluation and roll-ups; `fault <> 0` finds them in SQL.
+     */
+    fault: integer("fault").notNull().default(0),
   },
   (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
 );
@@ -518,7 +528,15 @@ export const alerts = sqliteTable(
     message: text("message"),
     openedAt: integer("opened_at", { mode: "timestamp_ms" }).notNull(),
     bound: real("bound"),
+    /** The episode's furthest value so far, updated while the alert is open, and when it was read. */
     peak: real("peak"),
+    peakAt: integer("peak_at", { mode: "timestamp_ms" }),
+    /** How many times the episode opened: a limit alert that re-opens soon after clearing is the same episode. */
+    openings: integer("openings").notNull().default(1),
+    /** Set when the alert re-opened within the flapping window; its e-mails are then held to one and a summary. */
+    flappingSince: integer("flapping_since", { mode: "timestamp_ms" }),
+    /** When a flapping alert was found settled and its summary queued. */
+    settledAt: integer("settled_at", { mode: "timestamp_ms" }),
     clearedAt: integer("cleared_at", { mode: "timestamp_ms" }),
     acknowledgedAt: integer("acknowledged_at", { mode: "timestamp_ms" }),
     acknowledgedById: integer("acknowledged_by_id").references(() => users.id, { onDelete: "set null" }),
@@ -542,8 +560,10 @@ export const alertEvents = sqliteTable(
     byId: integer("by_id").references(() => users.id, { onDelete: "set null" }),
     byLabel: text("by_label"),
     text: text("text"),
+    /** Set when the event was recorded too long after its reading to be mailed at once: the next digest carries it. */
+    deferredAt: integer("deferred_at", { mode: "timestamp_ms" }),
   },
-  (t) => [index("alert_events_alert").on(t.alertId, t.at)],
+  (t) => [index("alert_events_alert").on(t.alertId, t.at), index("alert_events_deferred").on(t.deferredAt)],
 );
 
 export type GaugeLimit = typeof gaugeLimits.$inferSelect;
@@ -578,6 +598,8 @@ export const mailOutbox = sqliteTable(
     html: text("html").notNull(),
     attachments: text("attachments", { mode: "json" }).$type<MailAttachment[]>(),
     state: text("state", { enum: MAIL_STATES }).notNull().default("queued"),
+    /** Lower is sent first: lib/mail/priority.ts. */
+    priority: integer("priority").notNull().default(2),
     attempts: integer("attempts").notNull().default(0),
     nextAttemptAt: writtenAt("next_attempt_at"),
     /** The SMTP server's answer to the last failed attempt, or why the attempt could not be made. */
@@ -588,7 +610,7 @@ export const mailOutbox = sqliteTable(
     createdAt: createdAt(),
     sentAt: integer("sent_at", { mode: "timestamp_ms" }),
   },
-  (t) => [index("mail_outbox_due").on(t.state, t.nextAttemptAt), index("mail_outbox_created").on(t.createdAt)],
+  (t) => [index("mail_outbox_due").on(t.state, t.priority, t.nextAttemptAt), index("mail_outbox_created").on(t.createdAt)],
 );
 
 /** What a caught message carried as files: their description only, not their bytes. */

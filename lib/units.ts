@@ -65,6 +65,18 @@ export function formatMicrostrain(microstrain: number, fractionDigits = DISPLAY_
   return withUnit(microstrain, fractionDigits, "µε");
 }
 
+/**
+ * A limited quantity's value as every surface of an alert shows it (page, e-mail, digest), so one
+ * alert reads the same number everywhere: "212.4 MPa", "1,234 µε", "87 % of yield"; a rosette's
+ * quantities (sigma1, sigma2, vonMises) are stresses.
+ */
+export function formatLimitedValue(quantity: string, value: number): string {
+  if (quantity === "utilisation") return formatShareOfYield(value);
+  if (!Number.isFinite(value)) return "—";
+  if (quantity === "strain") return formatMicrostrain(value);
+  return withUnit(value, DISPLAY_DECIMALS.MPa, "MPa");
+}
+
 /** "123.5 MPa", "17.91 ksi", "2,004 µε", "14.2 °C": a value already in `unit`, rounded as that unit is read; a dash when there is none. */
 export function formatInUnit(value: number | null | undefined, unit: DisplayUnit): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";

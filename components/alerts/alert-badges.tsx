@@ -1,6 +1,7 @@
 import { STATE_LOOK } from "@/lib/alerting/condition-display";
 import type { AlertView } from "@/lib/services/alerts";
 import { ConditionShape } from "./condition-shape";
+import { formatLimitedValue } from "@/lib/units";
 
 /** Level as a word and the shape the gauge's condition takes at that level, so it reads without colour. */
 export function LevelBadge({ level }: { level: string }) {
@@ -29,17 +30,15 @@ export function StateBadge({ alert }: { alert: Pick<AlertView, "clearedAt" | "ac
   return <span className={`rounded px-1.5 py-0.5 text-xs font-medium ${className}`}>{state}</span>;
 }
 
-const QUANTITY_UNIT: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "× yield", sigma1: "MPa", sigma2: "MPa", vonMises: "MPa" };
-
 /** Where the alert is: its gauge, or for a rosette quantity the rosette (its gauge a alone would mislead). */
 export function alertPlaceLabel(alert: Pick<AlertView, "gauge" | "rosette">): string {
   return alert.rosette ? `${alert.rosette} (rosette)` : alert.gauge;
 }
 
-/** What crossed what: "stress 231.4 MPa beyond 200 MPa", or the sensor finding. */
+/** What crossed what: "stress reached 231.4 MPa (bound 200.0 MPa)", rounded as the e-mails round it, or the sensor finding. */
 export function alertSummary(alert: Pick<AlertView, "kind" | "quantity" | "peak" | "bound" | "code" | "message">): string {
   if (alert.kind === "sensor") return `Sensor: ${alert.code}${alert.message ? ` — ${alert.message}` : ""}`;
-  const unit = QUANTITY_UNIT[alert.quantity ?? ""] ?? "";
-  const digits = alert.quantity === "utilisation" ? 3 : 1;
-  return `${alert.quantity} reached ${alert.peak?.toFixed(digits)} ${unit} (bound ${alert.bound?.toFixed(digits)} ${unit})`;
+  const quantity = alert.quantity ?? "";
+  const shown = (value: number | null) => (value === null ? "—" : formatLimitedValue(quantity, value));
+  return `${quantity} reached ${shown(alert.peak)} (bound ${shown(alert.bound)})`;
 }

@@ -33,7 +33,7 @@ import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
-import { acknowledgeBody, backtestBody, limitsBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
+import { acknowledgeBody, backtestBody, limitsBody, resolveFaultBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -280,6 +280,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       request: acknowledgeBody,
       response: { status: 200, schema: alertSchema, description: "The alert" },
       errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/alerts/{id}/resolve": {
+    post: {
+      summary: "Resolve a jump (a sensor alert with code jump): accept the step as real, or record a new zero",
+      roles: "admin, engineer",
+      notes:
+        "After a jump the gauge's readings are kept out of limit evaluation (readings.fault marks them after-jump) until this is done. " +
+        "accept-step evaluates them against the limits from the jump on, raising any alerts they would have raised; new-zero records the reading at the jump as the gauge's zero " +
+        "(as POST /gauges/{tag}/zero does) and leaves the readings between set aside. Either clears the alert. A jump cannot be cleared by hand.",
+      parameters: [{ name: "id", in: "path", description: "Alert id" }],
+      request: resolveFaultBody,
+      response: { status: 200, schema: alertSchema, description: "The alert, cleared" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
   "/structures/{code}/drawings": {

@@ -35,6 +35,7 @@ export const ROUTE_RULES = {
   "/structures/{code}/rosettes/{tag}/series": { GET: "structure:view" },
   "/structures/{code}/uploads": { POST: "readings:ingest" },
   "/alerts/{id}/acknowledge": { POST: "alert:acknowledge" },
+  "/alerts/{id}/resolve": { POST: "alert:acknowledge" },
   "/files/{id}": { GET: "structure:view", DELETE: "gauge:register" },
 } as const satisfies Record<string, Partial<Record<HttpMethod, RouteRule>>>;
 

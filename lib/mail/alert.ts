@@ -1,5 +1,5 @@
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits/limit";
-import { formatMicrostrain, formatShareOfYield } from "@/lib/units";
+import { formatLimitedValue } from "@/lib/units";
 import { formatInTimeZone } from "@/lib/time-format";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -19,6 +19,8 @@ export type AlertEventFacts = {
   /** In the quantity's stored unit: MPa, µε, or utilisation as a ratio (1 = at yield); MPa for a rosette's. */
   value: number;
   bound: { side: "upper" | "lower"; value: number };
+  /** The alert's furthest value so far, the same number its page and the API show. */
+  peak: number;
   at: Date;
 };
 
@@ -29,12 +31,6 @@ export const ALERT_CAUTION =
   "What a limit means is the responsibility of the engineer who set it, under local codes. " +
   "Monitoring supplements inspection and never replaces it; mail can be delayed, so check in the app when data last arrived.";
 
-/** "212.4 MPa", "1,234 µε", "87 % of yield"; a rosette's quantities are stresses. */
-export function formatQuantityValue(quantity: AlertEventFacts["quantity"], value: number): string {
-  if (quantity === "strain") return formatMicrostrain(value);
-  if (quantity === "utilisation") return formatShareOfYield(value);
-  return `${value.toFixed(1)} MPa`;
-}
 
 /** How the e-mails name a quantity: a rosette's by its symbol rather than the API's name. */
 const QUANTITY_NAME: Record<AlertEventFacts["quantity"], string> = {
@@ -66,19 +62,19 @@ const EVENT_WORDING: Record<AlertMailEvent, string> = {
 };
 
 /** The wording of one event ("stress crossed the warning limit", value, bound), shared with the digest. */
-export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string } {
-  const value = formatQuantityValue(facts.quantity, facts.value);
-  const bound = `${facts.bound.side} ${formatQuantityValue(facts.quantity, facts.bound.value)}`;
+export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string; peak: string } {
+  const value = formatLimitedValue(facts.quantity, facts.value);
+  const bound = `${facts.bound.side} ${formatLimitedValue(facts.quantity, facts.bound.value)}`;
   const headline = `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
-  return { headline, value, bound };
+  return { headline, value, bound, peak: formatLimitedValue(facts.quantity, facts.peak) };
 }
 
 export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail {
   const { structure, gauge } = input;
-  const { headline, value, bound } = describeAlertEvent(input);
+  const { headline, value, bound, peak } = describeAlertEvent(input);
   const place = alertPlace(input, appUrl, structure.code);
   const levelWord = input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
-  const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (${value})`;
+  const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (peak ${peak})`;
   const facts: [string, string][] = [
     ["Structure", `${structure.name} (${structure.code})`],
     ...(input.rosette ? [["Rosette", input.rosette] as [string, string]] : []),
@@ -86,7 +82,8 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
     ["Location", gauge.location || "not recorded"],
     ["Level", input.level],
     ["Quantity", `${QUANTITY_NAME[input.quantity]} (${input.quantity})`],
-    ["Value", value],
+    ["Peak so far", peak],
+    ["Value at this event", value],
     ["Bound", bound],
     ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],
   ];

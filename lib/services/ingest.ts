@@ -15,7 +15,7 @@ import { prepareGauge } from "@/lib/mechanics";
 import { isTimeZone } from "@/lib/validation";
 import { gaugeRowsOf } from "./gauges";
 import { getVisibleStructure } from "./structures";
-import { evaluateInsertedReadings } from "./alert-raising";
+import { evaluateInsertedReadings, type FaultTimesByGauge } from "./alert-raising";
 import { evaluateRosetteLimits } from "./rosette-alert-raising";
 
 /** Per request, from the API contract. */
@@ -159,8 +159,9 @@ async function storeBatch(target: IngestTarget, batch: PreparedBatch): Promise<I
  */
 export async function storeConvertedReadings(tx: WriteTx, target: IngestTarget, gauges: readonly GaugeRows[]): Promise<{ accepted: number; alerts: AlertCounts }> {
   const inserted = await insertReadings(tx, gauges);
-  await mergeRollups(tx, inserted);
-  return { accepted: rowCount(inserted), alerts: await evaluateLimits(tx, target, inserted) };
+  const evaluation = await evaluateLimits(tx, target, inserted);
+  await mergeRollups(tx, withoutQuarantined(inserted, evaluation.quarantined));
+  return { accepted: rowCount(inserted), alerts: evaluation.counts };
 }
 
 /**
@@ -168,7 +169,7 @@ export async function storeConvertedReadings(tx: WriteTx, target: IngestTarget, 
  * duplicates), per gauge in time order, then for the rosettes those gauges belong to, so alerts
  * open, escalate and clear, and their e-mails are queued, atomically with the readings that caused them.
  */
-async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<AlertCounts> {
+async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<{ counts: AlertCounts; quarantined: FaultTimesByGauge }> {
   const total = { ...NO_ALERTS };
   const add = (counts: AlertCounts) => {
     total.opened += counts.opened;
@@ -186,7 +187,21 @@ async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: reado
   const gaugesById = new Map([...target.gauges.values()].map((entry) => [entry.id, entry.row]));
   const times = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, times: rows.time }));
   add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, times, gauges.faultTimes));
-  return total;
+  return { counts: total, quarantined: gauges.quarantined };
+}
+
+/**
+ * Roll-ups summarise what the structure did, so readings sensor health found faulty stay out of
+ * their extremes, sums and counts (they stay stored, marked by `readings.fault`). A replay may change
+ * the verdict of readings rolled up by an earlier request; those roll-ups are left as they were.
+ */
+function withoutQuarantined(inserted: readonly GaugeRows[], quarantined: FaultTimesByGauge): GaugeRows[] {
+  return inserted.map((rows) => {
+    const faulty = quarantined.get(rows.gaugeId);
+    if (!faulty) return rows;
+    const kept = rows.time.flatMap((time, i) => (faulty.has(time) ? [] : [i]));
+    return selectRows(rows, kept);
+  });
 }
 
 const READING_COLUMNS = 7;

@@ -23,11 +23,11 @@ function migrationsBefore(tag: string): string {
   return target;
 }
 
-describe("migration 0008_dynamic_channels", () => {
+describe("migration 0010_dynamic_channels", () => {
   it("makes every stored gauge static and keeps its readings", async () => {
     const client = createClient({ url: `file:${path.join(folder, "old.db")}` });
     const db = drizzle(client);
-    await migrate(db, { migrationsFolder: migrationsBefore("0008_dynamic_channels") });
+    await migrate(db, { migrationsFolder: migrationsBefore("0010_dynamic_channels") });
     await client.execute("INSERT INTO structures (code, name) VALUES ('OLD', 'Old structure')");
     await client.execute(
       `INSERT INTO gauges (structure_id, tag, kind, input, gauge_factor, thermal, material, zero_value, zero_time)

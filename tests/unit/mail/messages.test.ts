@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { buildAlertMail, formatQuantityValue, type AlertMailInput } from "@/lib/mail/alert";
+import { buildAlertMail, type AlertMailInput } from "@/lib/mail/alert";
+import { formatLimitedValue } from "@/lib/units";
 import { buildDigestMail } from "@/lib/mail/digest";
 import { conditionText } from "@/lib/alerting/condition-display";
 import { formatInTimeZone } from "@/lib/time-format";
@@ -16,6 +17,7 @@ const alert: AlertMailInput = {
   quantity: "stress",
   value: 212.44,
   bound: { side: "upper", value: 200 },
+  peak: 212.44,
   at: new Date("2026-07-01T12:00:00Z"),
 };
 
@@ -45,7 +47,7 @@ describe("alert e-mail", () => {
       expect(part).toContain("upper 200.0 MPa");
       expect(part).toContain("2026-07-01 13:00 BST (Europe/London)");
     }
-    expect(mail.subject).toBe("WARNING: MILL-FB LC-03 stress crossed the warning limit (212.4 MPa)");
+    expect(mail.subject).toBe("WARNING: MILL-FB LC-03 stress crossed the warning limit (peak 212.4 MPa)");
   });
 
   it("links to the gauge's chart and carries the caution", () => {
@@ -64,15 +66,15 @@ describe("alert e-mail", () => {
     expect(html).not.toContain("G<1>");
   });
 
-  it("says when a value is back within bounds", () => {
-    expect(buildAlertMail({ ...alert, event: "cleared", value: 180 }, APP).subject).toBe(
-      "Cleared: MILL-FB LC-03 stress back within the warning limit (180.0 MPa)",
-    );
+  it("says when a value is back within bounds, naming the episode's peak as the alert's page does", () => {
+    const cleared = buildAlertMail({ ...alert, event: "cleared", value: 180, peak: 231.26 }, APP);
+    expect(cleared.subject).toBe("Cleared: MILL-FB LC-03 stress back within the warning limit (peak 231.3 MPa)");
+    expect(cleared.text).toContain("Value at this event: 180.0 MPa");
   });
 
   it("writes each quantity in its unit", () => {
-    expect(formatQuantityValue("strain", 1234.4)).toBe("1,234 µε");
-    expect(formatQuantityValue("utilisation", 0.874)).toBe("87 % of yield");
+    expect(formatLimitedValue("strain", 1234.4)).toBe("1,234 µε");
+    expect(formatLimitedValue("utilisation", 0.874)).toBe("87 % of yield");
   });
 });
 
