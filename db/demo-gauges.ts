@@ -1,4 +1,4 @@
-import type { GaugeStory } from "@/lib/demo";
+import type { BurstStory, GaugeStory } from "@/lib/demo";
 import type { GaugeInput } from "@/lib/gauges/schema";
 import { MATERIALS, STEEL_WIRE_CTE, normalWeightConcrete } from "@/lib/mechanics";
 import { wireGaugeFactor } from "@/lib/mechanics/vibrating-wire";
@@ -38,6 +38,7 @@ const foil = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "input" | "
   expectedInterval: 600,
   ratedRange: 3000,
   detailCategory: null,
+  sampling: { mode: "static" },
   ...fields,
 });
 
@@ -59,6 +60,7 @@ const vibratingWire = (fields: Partial<GaugeInput> & Pick<GaugeInput, "tag" | "i
   expectedInterval: 600,
   ratedRange: 3000,
   detailCategory: null,
+  sampling: { mode: "static" },
   ...fields,
 });
 
@@ -240,11 +242,56 @@ export const DEMO_LIMITS: { structure: string; tag: string; limits: DemoLimit[] 
     ],
   },
   {
+    structure: "MILL-FB",
+    tag: "DK-V1",
+    limits: [{ quantity: "stress", level: "watch", upper: 15, lower: -15, hysteresis: 2 }],
+  },
+  {
     structure: "ORCH-PD",
     tag: "L2-S1",
     limits: [
       { quantity: "strain", level: "watch", upper: 250, lower: -400, hysteresis: 20, persistence: 3 },
       { quantity: "strain", level: "warning", upper: 400, lower: -600, hysteresis: 20, persistence: 3 },
     ],
+  },
+];
+
+/** Days of bursts the demo's dynamic gauges carry, ending where the static readings end. */
+export const DEMO_BURST_DAYS = 3;
+export const DEMO_BURST_RATE_HZ = 100;
+
+/**
+ * Dynamic demo gauges: footfall on the footbridge deck (people at about 2 Hz) and vehicles on the
+ * parking deck's level-2 slab, at 100 Hz, a minute's burst every five minutes.
+ */
+export const DEMO_DYNAMIC_GAUGES: { structure: string; input: GaugeInput; story: BurstStory }[] = [
+  {
+    structure: "MILL-FB",
+    input: foil({
+      tag: "DK-V1",
+      label: "Deck stringer, midspan, bottom flange",
+      member: "Deck stringer S3",
+      input: "microstrain",
+      gaugeFactor: 2.1,
+      zero: { value: 0, temperature: 11.5 },
+      detailCategory: 71,
+      sampling: { mode: "dynamic", rateHz: DEMO_BURST_RATE_HZ, summaryMinutes: 10, rangeBin: 1, trigger: { above: 14, below: -14, preSeconds: 2, postSeconds: 5 } },
+    }),
+    story: { kind: "footfall", amplitude: 12, groupAmplitude: 80 },
+  },
+  {
+    structure: "ORCH-PD",
+    input: foil({
+      tag: "L2-V1",
+      label: "Level 2 slab, bay C4, bottom, dynamic",
+      member: "Level 2 slab, bay C4",
+      input: "microstrain",
+      gaugeFactor: 2.1,
+      material: concrete,
+      zero: { value: 0, temperature: 9.8 },
+      detailCategory: 80,
+      sampling: { mode: "dynamic", rateHz: DEMO_BURST_RATE_HZ, summaryMinutes: 10, rangeBin: 0.25, trigger: { above: 2.5, below: null, preSeconds: 2, postSeconds: 5 } },
+    }),
+    story: { kind: "vehicles", carStrain: 25, heavyStrain: 110 },
   },
 ];

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
+import { blob, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
 import { ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
 
 import { ROLES } from "../lib/auth/roles";
@@ -58,6 +58,11 @@ export const structureMembers = sqliteTable(
      * one summary a day. Kept on the membership because the choice is per structure.
      */
     alertMail: text("alert_mail", { enum: ALERT_MAIL_MODES }).notNull().default("immediate"),
+    /**
+     * How this member wants sensor-fault e-mails: null follows the role (owners in the digest, since a
+     * sensor fault asks the engineer, not the owner, to act; everyone else as they happen).
+     */
+    sensorMail: text("sensor_mail", { enum: ALERT_MAIL_MODES }),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.structureId, t.userId] }), index("structure_members_user").on(t.userId)],
@@ -141,6 +146,18 @@ export type StoredThermal =
   | { method: "polynomial"; coefficients: number[] }
   | { method: "cte"; gaugeCte: number | null };
 
+/** How a gauge reports (the API's `sampling`): readings one at a time, or bursts at a fixed rate. */
+export type StoredSampling =
+  | { mode: "static" }
+  | {
+      mode: "dynamic";
+      rateHz: number;
+      summaryMinutes: number;
+      /** Range bin width of the rainflow histograms, MPa. */
+      rangeBin: number;
+      trigger: { above: number | null; below: number | null; preSeconds: number; postSeconds: number } | null;
+    };
+
 export const gauges = sqliteTable(
   "gauges",
   {
@@ -173,6 +190,11 @@ export const gauges = sqliteTable(
     ratedRange: real("rated_range"),
     /** Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null until an engineer has assessed the detail. */
     detailCategory: real("detail_category"),
+    /** Static (readings) or dynamic (bursts); every gauge made before dynamic channels existed is static. */
+    sampling: text("sampling", { mode: "json" })
+      .$type<StoredSampling>()
+      .notNull()
+      .default(sql`'{"mode":"static"}'`),
     status: text("status", { enum: GAUGE_STATUSES }).notNull().default("active"),
     retiredAt: integer("retired_at", { mode: "timestamp_ms" }),
     /** The failed gauge this one replaced at the same location, so the location's record reads as one. */
@@ -270,6 +292,11 @@ export const readings = sqliteTable(
     stress: real("stress").notNull(),
     /** Bitmask of lib/mechanics Flag. */
     flags: integer("flags").notNull().default(0),
+    /**
+     * Sensor-health verdict, a bitmask of lib/alerting/fault-bits (0: none). A faulty reading is
+     * kept but left out of limit evaluation and roll-ups; `fault <> 0` finds them in SQL.
+     */
+    fault: integer("fault").notNull().default(0),
   },
   (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
 );
@@ -297,7 +324,103 @@ export const rollups = sqliteTable(
   (t) => [primaryKey({ columns: [t.gaugeId, t.resolution, t.bucket] })],
 );
 
+/**
+ * One row per burst a dynamic gauge sent, identified by (gauge, start) as the contract says: the
+ * key that makes a resend a duplicate and lets an overlapping burst be found. The samples
+ * themselves live only in the summaries and the events (WITHOUT ROWID).
+ */
+export const bursts = sqliteTable(
+  "bursts",
+  {
+    gaugeId: integer("gauge_id").notNull(),
+    /** Epoch ms of the first sample. */
+    start: integer("start").notNull(),
+    /** Epoch ms just after the last sample: start + samples / rate. */
+    end: real("end").notNull(),
+    samples: integer("samples").notNull(),
+    temperature: real("temperature"),
+    receivedAt: writtenAt("received_at"),
+  },
+  (t) => [primaryKey({ columns: [t.gaugeId, t.start] })],
+);
+
+/**
+ * A dynamic gauge's stress (MPa) over one summary interval, merged as bursts arrive (WITHOUT
+ * ROWID). `m2` is the sum of squared deviations from the mean, which merges exactly;
+ * `histogram` the rainflow ranges in the gauge's bins (lib/dynamic's compact encoding).
+ */
+export const burstSummaries = sqliteTable(
+  "burst_summaries",
+  {
+    gaugeId: integer("gauge_id").notNull(),
+    start: integer("start").notNull(),
+    /** Interval length, ms: kept per row so a change of the gauge's interval leaves older rows readable. */
+    length: integer("length").notNull(),
+    samples: integer("samples").notNull(),
+    min: real("min").notNull(),
+    max: real("max").notNull(),
+    mean: real("mean").notNull(),
+    m2: real("m2").notNull(),
+    maxRange: real("max_range").notNull(),
+    cycles: real("cycles").notNull(),
+    histogram: blob("histogram", { mode: "buffer" }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.gaugeId, t.start] })],
+);
+
+/**
+ * What a dynamic gauge's newest burst leaves for the next: the rainflow residue and the event
+ * capture's recent samples and open event, so counting and capture run on as over one signal.
+ */
+export const dynamicStates = sqliteTable("dynamic_states", {
+  gaugeId: integer("gauge_id")
+    .primaryKey()
+    .references(() => gauges.id, { onDelete: "cascade" }),
+  /** Epoch ms just after the newest burst's last sample. */
+  end: real("end").notNull(),
+  /** lib/fatigue's RainflowResidue. */
+  residue: text("residue", { mode: "json" }).$type<{ reversals: number[]; candidate: number | null; direction: number }>().notNull(),
+  captureNextTime: real("capture_next_time"),
+  /** Float32 stress of the last preSeconds. */
+  captureRecent: blob("capture_recent", { mode: "buffer" }),
+  /** An event waiting for its postSeconds: its fields, and its samples so far as Float32. */
+  openEvent: text("open_event", { mode: "json" }).$type<{ start: number; trigger: "above" | "below"; peak: number; peakAt: number; quietSamples: number }>(),
+  openEventStress: blob("open_event_stress", { mode: "buffer" }),
+});
+
+/** A waveform captured around a trigger crossing, Float32 little-endian stress (MPa) at `rateHz`. */
+export const dynamicEvents = sqliteTable(
+  "dynamic_events",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    /** Epoch ms of the first and just after the last sample kept (fractions of a ms at odd rates). */
+    start: real("start").notNull(),
+    end: real("end").notNull(),
+    rateHz: real("rate_hz").notNull(),
+    trigger: text("trigger", { enum: ["above", "below"] }).notNull(),
+    /** The level crossed, MPa, as it was when the event was captured. */
+    triggerLevel: real("trigger_level").notNull(),
+    peak: real("peak").notNull(),
+    peakAt: real("peak_at").notNull(),
+    truncated: integer("truncated", { mode: "boolean" }).notNull().default(false),
+    waveform: blob("waveform", { mode: "buffer" }).notNull(),
+    /** The engineer's word for what it was, e.g. "heavy vehicle" or "false trigger". */
+    label: text("label"),
+    labelledById: integer("labelled_by_id").references(() => users.id, { onDelete: "set null" }),
+    labelledAt: integer("labelled_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("dynamic_events_gauge").on(t.gaugeId, t.start), index("dynamic_events_structure").on(t.structureId, t.start)],
+);
+
 export type Gauge = typeof gauges.$inferSelect;
+export type BurstSummaryRow = typeof burstSummaries.$inferSelect;
+export type DynamicEventRow = typeof dynamicEvents.$inferSelect;
 export type ZeroReadingRow = typeof zeroReadings.$inferSelect;
 export type Rosette = typeof rosettes.$inferSelect;
 export type StoredFile = typeof files.$inferSelect;
@@ -406,7 +529,15 @@ export const alerts = sqliteTable(
     message: text("message"),
     openedAt: integer("opened_at", { mode: "timestamp_ms" }).notNull(),
     bound: real("bound"),
+    /** The episode's furthest value so far, updated while the alert is open, and when it was read. */
     peak: real("peak"),
+    peakAt: integer("peak_at", { mode: "timestamp_ms" }),
+    /** How many times the episode opened: a limit alert that re-opens soon after clearing is the same episode. */
+    openings: integer("openings").notNull().default(1),
+    /** Set when the alert re-opened within the flapping window; its e-mails are then held to one and a summary. */
+    flappingSince: integer("flapping_since", { mode: "timestamp_ms" }),
+    /** When a flapping alert was found settled and its summary queued. */
+    settledAt: integer("settled_at", { mode: "timestamp_ms" }),
     clearedAt: integer("cleared_at", { mode: "timestamp_ms" }),
     acknowledgedAt: integer("acknowledged_at", { mode: "timestamp_ms" }),
     acknowledgedById: integer("acknowledged_by_id").references(() => users.id, { onDelete: "set null" }),
@@ -430,8 +561,10 @@ export const alertEvents = sqliteTable(
     byId: integer("by_id").references(() => users.id, { onDelete: "set null" }),
     byLabel: text("by_label"),
     text: text("text"),
+    /** Set when the event was recorded too long after its reading to be mailed at once: the next digest carries it. */
+    deferredAt: integer("deferred_at", { mode: "timestamp_ms" }),
   },
-  (t) => [index("alert_events_alert").on(t.alertId, t.at)],
+  (t) => [index("alert_events_alert").on(t.alertId, t.at), index("alert_events_deferred").on(t.deferredAt)],
 );
 
 export type GaugeLimit = typeof gaugeLimits.$inferSelect;
@@ -469,6 +602,8 @@ export const mailOutbox = sqliteTable(
     html: text("html").notNull(),
     attachments: text("attachments", { mode: "json" }).$type<MailAttachment[]>(),
     state: text("state", { enum: MAIL_STATES }).notNull().default("queued"),
+    /** Lower is sent first: lib/mail/priority.ts. */
+    priority: integer("priority").notNull().default(2),
     attempts: integer("attempts").notNull().default(0),
     nextAttemptAt: writtenAt("next_attempt_at"),
     /** The SMTP server's answer to the last failed attempt, or why the attempt could not be made. */
@@ -481,7 +616,7 @@ export const mailOutbox = sqliteTable(
     createdAt: createdAt(),
     sentAt: integer("sent_at", { mode: "timestamp_ms" }),
   },
-  (t) => [index("mail_outbox_due").on(t.state, t.nextAttemptAt), index("mail_outbox_created").on(t.createdAt)],
+  (t) => [index("mail_outbox_due").on(t.state, t.priority, t.nextAttemptAt), index("mail_outbox_created").on(t.createdAt)],
 );
 
 /** What a caught message carried as files: their description only, not their bytes. */

@@ -10,12 +10,14 @@ import { createGauge, listGauges } from "@/lib/services/gauges";
 import { createRosette } from "@/lib/services/rosettes";
 import { ingestDecoded, openIngestion } from "@/lib/services/ingest";
 import { gaugeConfigOf } from "@/lib/gauges/record";
-import { syntheticReadings, type SyntheticReading } from "@/lib/demo";
+import { syntheticBursts, syntheticReadings, type SyntheticReading } from "@/lib/demo";
+import { ingestBursts, MAX_BURST_SAMPLES_PER_REQUEST } from "@/lib/services/bursts";
+import type { IncomingBurst } from "@/lib/ingest/burst-input";
 import { and, eq, inArray, min } from "drizzle-orm";
 import { getDb } from "./client";
 import { zeroReadings } from "./schema";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
-import { DEMO_DAYS, DEMO_GAUGES, DEMO_LIMITS, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
+import { DEMO_BURST_DAYS, DEMO_BURST_RATE_HZ, DEMO_DAYS, DEMO_DYNAMIC_GAUGES, DEMO_GAUGES, DEMO_LIMITS, DEMO_ROSETTES, demoPeriod } from "./demo-gauges";
 import { listDrawings, placeGauge, uploadDrawing } from "@/lib/services/files";
 import { getLimits, replaceLimits } from "@/lib/services/limits";
 import { DEMO_DRAWINGS } from "./demo-drawings";
@@ -82,7 +84,7 @@ const INSTALLED_BEFORE_READINGS_MS = 86_400_000;
 async function seedGauges(now: number) {
   const installedAt = new Date(demoPeriod(now).start - INSTALLED_BEFORE_READINGS_MS).toISOString();
   const installerOf = await installers();
-  for (const { structure, input } of DEMO_GAUGES) {
+  for (const { structure, input } of [...DEMO_GAUGES, ...DEMO_DYNAMIC_GAUGES]) {
     const installer = installerOf[structure]!;
     const existing = await listGauges(installer, structure);
     if (existing.some((gauge) => gauge.tag === input.tag)) continue;
@@ -132,7 +134,10 @@ export async function seedDemo(now = Date.now(), { readings = true }: { readings
   await seedGauges(now);
   await seedDrawings();
   await seedLimits();
-  if (readings) await seedReadings();
+  if (readings) {
+    await seedReadings();
+    await seedBursts();
+  }
 }
 
 /** Fixed, so every seeded database holds the same invented readings. */
@@ -182,5 +187,35 @@ async function seedReadings() {
       }
     }
     if (batch.length > 0) await ingestDecoded(target, batch);
+  }
+}
+
+/**
+ * The last few days of the demo period as bursts of the dynamic gauges, through the burst service
+ * like any logger's: a minute at 100 Hz every five minutes, requests of up to the contract's
+ * sample limit, in time order so rainflow carries its residue from burst to burst.
+ */
+async function seedBursts() {
+  const installerOf = await installers();
+  for (const [structureCode, installer] of Object.entries(installerOf)) {
+    const demo = DEMO_DYNAMIC_GAUGES.filter((gauge) => gauge.structure === structureCode);
+    if (demo.length === 0) continue;
+    const target = await openIngestion(installer, structureCode, demo.map((gauge) => gauge.input.tag));
+    const readingsFrom = await readingsStart(structureCode, [...target.gauges.values()].map((gauge) => gauge.id));
+    const start = readingsFrom + (DEMO_DAYS - DEMO_BURST_DAYS) * 86_400_000;
+    const gaugesToFeed = demo.map(({ input, story }) => ({ tag: input.tag, config: gaugeConfigOf(target.gauges.get(input.tag)!.row), story }));
+    let batch: IncomingBurst[] = [];
+    let samples = 0;
+    const bursts = syntheticBursts({ start, days: DEMO_BURST_DAYS, seed: DEMO_SEED, rateHz: DEMO_BURST_RATE_HZ, burstSeconds: 60, everyMinutes: 5, gauges: gaugesToFeed });
+    for (const burst of bursts) {
+      if (samples + burst.values.length > MAX_BURST_SAMPLES_PER_REQUEST / 4) {
+        await ingestBursts(target, batch);
+        batch = [];
+        samples = 0;
+      }
+      batch.push(burst);
+      samples += burst.values.length;
+    }
+    if (batch.length > 0) await ingestBursts(target, batch);
   }
 }

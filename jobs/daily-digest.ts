@@ -1,30 +1,38 @@
 import "server-only";
-import { and, eq, gte, inArray, lt } from "drizzle-orm";
+import { and, eq, gte, inArray, isNull, lt, or } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, gauges, rosettes, structureMembers, structures, users, type Structure } from "@/db/schema";
 import type { AlertEventFacts } from "@/lib/mail/alert";
 import type { Level } from "@/lib/limits";
-import { buildDigestMail, type GaugeConditionLine } from "@/lib/mail/digest";
+import { buildDigestMail, type DigestEvent, type GaugeConditionLine } from "@/lib/mail/digest";
 import { conditionText } from "@/lib/alerting/condition-display";
 import { gaugeStatuses } from "@/lib/services/status";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
+import { sensorMailOf } from "@/lib/services/alert-mail";
+import { receivesAlertMail } from "@/lib/auth/permissions";
 
 const DAY_MS = 86_400_000;
 
-async function limitEventsBetween(from: Date, to: Date) {
+/** The day's events: those that happened in it, and those recorded in it about older readings (deferred from immediate mail). */
+async function eventsOfDay(from: Date, to: Date) {
+  const happened = and(gte(alertEvents.at, from), lt(alertEvents.at, to), isNull(alertEvents.deferredAt));
+  const deferred = and(gte(alertEvents.deferredAt, from), lt(alertEvents.deferredAt, to));
   return getDb()
     .select({ event: alertEvents, alert: alerts, gauge: gauges, rosette: rosettes.tag })
     .from(alertEvents)
     .innerJoin(alerts, eq(alerts.id, alertEvents.alertId))
     .innerJoin(gauges, eq(gauges.id, alerts.gaugeId))
     .leftJoin(rosettes, eq(rosettes.id, alerts.rosetteId))
-    .where(and(eq(alerts.kind, "limit"), inArray(alertEvents.type, ["opened", "escalated", "cleared"]), gte(alertEvents.at, from), lt(alertEvents.at, to)));
+    .where(and(inArray(alertEvents.type, ["opened", "escalated", "cleared"]), or(happened, deferred)));
 }
 
-type EventRow = Awaited<ReturnType<typeof limitEventsBetween>>[number];
+type EventRow = Awaited<ReturnType<typeof eventsOfDay>>[number];
 
-function factsOf({ event, alert, gauge, rosette }: EventRow): AlertEventFacts {
+function factsOf({ event, alert, gauge, rosette }: EventRow): DigestEvent {
+  if (alert.kind === "sensor") {
+    return { gauge: { tag: gauge.tag }, code: alert.code ?? "sensor", event: event.type === "cleared" ? "cleared" : "opened", message: event.text ?? alert.message, at: event.at };
+  }
   const bound = alert.bound ?? 0;
   return {
     gauge: { tag: gauge.tag, label: gauge.label, location: gauge.member },
@@ -33,6 +41,7 @@ function factsOf({ event, alert, gauge, rosette }: EventRow): AlertEventFacts {
     level: (event.level ?? alert.level) as Level,
     quantity: alert.quantity as AlertEventFacts["quantity"],
     value: event.value ?? alert.peak ?? 0,
+    peak: alert.peak ?? event.value ?? 0,
     bound: { side: (alert.peak ?? 0) >= bound ? "upper" : "lower", value: bound },
     at: event.at,
   };
@@ -45,27 +54,44 @@ async function notWithinLimits(structure: Structure, now: number): Promise<Gauge
     .map((status) => ({ tag: status.tag, condition: conditionText(status.condition) }));
 }
 
+type Member = { role: (typeof users.$inferSelect)["role"]; alertMail: "immediate" | "digest"; sensorMail: "immediate" | "digest" | null };
+
 /**
- * Once a day, everyone who chose the digest gets the alert events of the last 24 hours on the
- * structures they follow, in one e-mail (none when nothing happened).
+ * Whether the digest carries an event for this member: everything for those who chose the digest;
+ * for the others, what they were not mailed at once (events about old readings, and sensor faults
+ * when they get those in the digest, as owners do unless they chose otherwise).
+ */
+function carries(member: Member, row: EventRow): boolean {
+  if (member.alertMail === "digest") return true;
+  if (!receivesAlertMail(member.role)) return false;
+  if (row.event.deferredAt !== null) return true;
+  return row.alert.kind === "sensor" && sensorMailOf(member) === "digest";
+}
+
+/**
+ * Once a day, a member gets the alert events of the last 24 hours on the structures they follow
+ * that they were not mailed one by one, in one e-mail (none when there are none).
  */
 export async function runDailyDigest(now = Date.now()): Promise<string> {
   const to = new Date(Math.floor(now / DAY_MS) * DAY_MS);
   const from = new Date(to.getTime() - DAY_MS);
   const period = from.toISOString().slice(0, 10);
-  const [events, subscriptions] = await Promise.all([
-    limitEventsBetween(from, to),
+  const [events, memberships] = await Promise.all([
+    eventsOfDay(from, to),
     getDb()
-      .select({ user: users, structure: structures })
+      .select({ user: users, structure: structures, alertMail: structureMembers.alertMail, sensorMail: structureMembers.sensorMail })
       .from(structureMembers)
       .innerJoin(users, eq(users.id, structureMembers.userId))
       .innerJoin(structures, eq(structures.id, structureMembers.structureId))
-      .where(and(eq(structureMembers.alertMail, "digest"), eq(users.active, true))),
+      .where(eq(users.active, true)),
   ]);
-  const byUser = new Map<number, { user: (typeof subscriptions)[number]["user"]; structures: (typeof subscriptions)[number]["structure"][] }>();
-  for (const { user, structure } of subscriptions) {
-    const entry = byUser.get(user.id) ?? { user, structures: [] };
-    entry.structures.push(structure);
+  const byUser = new Map<number, { user: (typeof memberships)[number]["user"]; sections: { structure: (typeof memberships)[number]["structure"]; events: DigestEvent[] }[] }>();
+  for (const { user, structure, alertMail, sensorMail } of memberships) {
+    const member = { role: user.role, alertMail, sensorMail };
+    const carried = events.filter((row) => row.alert.structureId === structure.id && carries(member, row)).map(factsOf);
+    if (carried.length === 0) continue;
+    const entry = byUser.get(user.id) ?? { user, sections: [] };
+    entry.sections.push({ structure, events: carried });
     byUser.set(user.id, entry);
   }
   const conditions = new Map<number, Promise<GaugeConditionLine[]>>();
@@ -75,12 +101,8 @@ export async function runDailyDigest(now = Date.now()): Promise<string> {
     return conditions.get(structure.id)!;
   };
   let queued = 0;
-  for (const { user, structures: followed } of byUser.values()) {
-    const withEvents = followed
-      .map((structure) => ({ structure, events: events.filter((row) => row.alert.structureId === structure.id).map(factsOf) }))
-      .filter((section) => section.events.length > 0);
-    const sections = await Promise.all(withEvents.map(async (section) => ({ ...section, conditions: await conditionsOf(section.structure) })));
-    if (sections.length === 0) continue;
+  for (const { user, sections: carried } of byUser.values()) {
+    const sections = await Promise.all(carried.map(async (section) => ({ ...section, conditions: await conditionsOf(section.structure) })));
     const mail = buildDigestMail({ recipientName: user.name, period, structures: sections }, appUrl());
     const added = await writeTransaction((tx) => queueMail(tx, { ...mail, to: user.email, toUserId: user.id, kind: "digest", dedupeKey: `digest:${period}:${user.id}` }));
     if (added) queued += 1;

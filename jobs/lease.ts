@@ -16,6 +16,9 @@ export function renewEveryMs(ttlMs: number): number {
 /** Runs under way in this process, by job and holder: the lease row cannot tell two runs of one holder apart. */
 const running = new Set<string>();
 
+/** The leases this process holds now, with the signal that stops their runs. */
+const held = new Map<string, { name: string; holder: string; stop: AbortController }>();
+
 /**
  * Takes the lease `name` in one statement: a new row, or the existing one when its lease has
  * run out or is already ours. SQLite runs the statement under its write lock, so of two
@@ -70,6 +73,7 @@ export async function withLease(
   try {
     if (!(await acquire(name, holder, ttlMs))) return null;
     const lost = new AbortController();
+    held.set(run, { name, holder, stop: lost });
     const timer = setInterval(() => {
       renew(name, holder, ttlMs).then(
         (held) => held || lost.abort(new Error(`Lease "${name}" was lost.`)),
@@ -77,17 +81,55 @@ export async function withLease(
       );
     }, renewEveryMs(ttlMs));
     timer.unref();
+    // A stop may have released the lease already (releaseHeldLeases); its outcome stands.
     try {
       const summary = await fn(lost.signal);
-      await release(name, holder, `ok: ${summary}`);
+      if (held.delete(run)) await release(name, holder, `ok: ${summary}`);
       return summary;
     } catch (error) {
-      await release(name, holder, `error: ${error instanceof Error ? error.message : String(error)}`);
+      if (held.delete(run)) await release(name, holder, `error: ${error instanceof Error ? error.message : String(error)}`);
       throw error;
     } finally {
       clearInterval(timer);
+      held.delete(run);
     }
   } finally {
     running.delete(run);
+  }
+}
+
+/**
+ * A stopping process gives its leases back at once, rather than leaving another instance to wait
+ * out their time: each run is told to stop at its next safe point and its lease row is freed.
+ * Answers how many were released.
+ */
+export async function releaseHeldLeases(reason: string): Promise<number> {
+  const leases = [...held.entries()];
+  for (const [run, { name, holder, stop }] of leases) {
+    held.delete(run);
+    await release(name, holder, `stopped: ${reason}`);
+    stop.abort(new Error(`Stopping: ${reason}.`));
+  }
+  return leases.length;
+}
+
+const globalForStop = globalThis as unknown as { hookelineStopHandlers?: boolean };
+
+/**
+ * On SIGTERM or SIGINT, releases this process's leases, then lets the signal do what it would have
+ * done: other handlers (the web server's) run as before, and with none the process ends.
+ */
+export function releaseLeasesOnStop(): void {
+  if (globalForStop.hookelineStopHandlers) return;
+  globalForStop.hookelineStopHandlers = true;
+  for (const signal of ["SIGTERM", "SIGINT"] as const) {
+    const onStop = () => {
+      void releaseHeldLeases(signal)
+        .catch((error: unknown) => console.error("Releasing job leases:", error))
+        .finally(() => {
+          if (process.listenerCount(signal) === 0) process.kill(process.pid, signal);
+        });
+    };
+    process.once(signal, onStop);
   }
 }

@@ -39,9 +39,18 @@ export function classifySendFailure(error: unknown): SendFailure {
   return { kind: "relay", answer };
 }
 
-/** The row's next state after a failure: back in the queue at a later time, or failed for good. */
+/** How soon a message that met an unreachable relay is tried again; the messages behind it are tried at the next run. */
+export const RELAY_RETRY_MS = 10_000;
+
+/**
+ * The row's next state after a failed attempt: back in the queue at a later time, or failed for
+ * good. An unreachable relay says nothing about the message, so there is no growing back-off: the
+ * message steps aside for a few seconds, each run probes the relay with the next message due, and
+ * the queue moves on the moment the relay answers (a message that fails alone cannot block it).
+ */
 export function afterFailure(failure: SendFailure, attemptsBefore: number, now: Date) {
   const attempts = attemptsBefore + 1;
+  if (failure.kind === "relay") return { state: "queued" as const, attempts, lastError: failure.answer, nextAttemptAt: new Date(now.getTime() + RELAY_RETRY_MS) };
   const givesUp = failure.kind === "refused" || (failure.kind === "later" && attempts >= MAX_ATTEMPTS);
   return givesUp
     ? { state: "failed" as const, attempts, lastError: failure.answer }
@@ -62,9 +71,11 @@ export type SenderResult = { sent: number; retried: number; failed: number };
 const released = { claimedBy: null, claimedUntil: null };
 
 /**
- * Claims due messages in one statement: queued ones whose time has come, and ones a sender took
- * but never finished (it crashed) once their lease has run out. SQLite runs the statement under
- * its write lock, so two senders racing here get disjoint sets.
+ * Claims due messages in one statement, most urgent first (`priority`, then oldest): queued ones
+ * whose time has come, and ones a sender took but never finished (it crashed) once their lease has
+ * run out. SQLite runs the statement under its write lock, so two senders racing here get disjoint
+ * sets. The (state, priority, next_attempt_at) index serves the order, so a critical e-mail is found
+ * at once behind thousands of others.
  */
 async function claimDue(holder: string, now: Date, limit: number): Promise<OutboxMessage[]> {
   const db = getDb();
@@ -72,12 +83,14 @@ async function claimDue(holder: string, now: Date, limit: number): Promise<Outbo
     and(eq(mailOutbox.state, "queued"), lte(mailOutbox.nextAttemptAt, now)),
     and(eq(mailOutbox.state, "sending"), lt(mailOutbox.claimedUntil, now)),
   );
-  const ids = db.select({ id: mailOutbox.id }).from(mailOutbox).where(due).orderBy(asc(mailOutbox.nextAttemptAt)).limit(limit);
-  return db
+  const ids = db.select({ id: mailOutbox.id }).from(mailOutbox).where(due).orderBy(asc(mailOutbox.priority), asc(mailOutbox.nextAttemptAt), asc(mailOutbox.id)).limit(limit);
+  const claimed = await db
     .update(mailOutbox)
     .set({ state: "sending", claimedBy: holder, claimedUntil: new Date(now.getTime() + MESSAGE_LEASE_MS) })
     .where(and(inArray(mailOutbox.id, ids), due))
     .returning();
+  // RETURNING gives rows in storage order, not the order they were chosen in: most urgent first again.
+  return claimed.sort((a, b) => a.priority - b.priority || a.nextAttemptAt.getTime() - b.nextAttemptAt.getTime() || a.id - b.id);
 }
 
 /** Extends our claim on one message right before sending it; false when it is no longer ours. */
@@ -129,20 +142,24 @@ export async function runOutboxSender(options: SenderOptions): Promise<SenderRes
   try {
     for (const message of claimed) {
       if (signal?.aborted) break;
-      let failure: SendFailure | null = relayDown;
-      if (!failure) {
-        if (!(await stillOurs(message.id, holder))) continue;
-        try {
-          await deliver(transport, message);
-          const sentAt = new Date();
-          const attemptLog = withAttempt(message.attemptLog, { at: sentAt.toISOString(), outcome: "sent" });
-          await finish(message.id, holder, { state: "sent", sentAt, attempts: message.attempts + 1, attemptLog });
-          result.sent++;
-          continue;
-        } catch (error) {
-          failure = classifySendFailure(error);
-          if (failure.kind === "relay") relayDown = failure;
-        }
+      if (relayDown) {
+        // Not tried: it keeps its place and its count for the next run.
+        await finish(message.id, holder, { state: "queued", lastError: relayDown.answer });
+        result.retried++;
+        continue;
+      }
+      if (!(await stillOurs(message.id, holder))) continue;
+      let failure: SendFailure;
+      try {
+        await deliver(transport, message);
+        const sentAt = new Date();
+        const attemptLog = withAttempt(message.attemptLog, { at: sentAt.toISOString(), outcome: "sent" });
+        await finish(message.id, holder, { state: "sent", sentAt, attempts: message.attempts + 1, attemptLog });
+        result.sent++;
+        continue;
+      } catch (error) {
+        failure = classifySendFailure(error);
+        if (failure.kind === "relay") relayDown = failure;
       }
       const next = afterFailure(failure, message.attempts, now);
       const attemptLog = withAttempt(message.attemptLog, { at: new Date().toISOString(), outcome: failure.kind, answer: failure.answer });

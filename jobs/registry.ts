@@ -1,6 +1,6 @@
 import "server-only";
 import { createTask } from "node-cron";
-import { PROCESS_HOLDER, withLease } from "./lease";
+import { PROCESS_HOLDER, releaseLeasesOnStop, withLease } from "./lease";
 import { describeSenderResult, runOutboxSender } from "./outbox-sender";
 import { runDailyDigest } from "./daily-digest";
 import { runRollupMaintenance } from "./rollup-maintenance";
@@ -68,6 +68,7 @@ const globalForJobs = globalThis as unknown as { hookelineJobsStarted?: boolean 
 export function startJobs(): boolean {
   if (!jobsEnabled() || globalForJobs.hookelineJobsStarted) return false;
   globalForJobs.hookelineJobsStarted = true;
+  releaseLeasesOnStop();
   for (const job of JOBS) {
     // createTask, then start: node-cron 4's schedule() starts at once and ignores v3's `scheduled: false`.
     const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true, timezone: job.timezone });

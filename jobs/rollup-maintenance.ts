@@ -10,11 +10,12 @@ function rebuildSql(resolution: number) {
       temperature_count, temperature_min, temperature_max, temperature_sum)
     SELECT gauge_id, ${resolution}, (t / ${resolution}) * ${resolution}, count(*), min(strain), max(strain), sum(strain), min(stress), max(stress), sum(stress),
       count(temperature), min(temperature), max(temperature), sum(temperature)
-    FROM readings WHERE t >= :from AND t < :to GROUP BY gauge_id, t / ${resolution}`;
+    FROM readings WHERE t >= :from AND t < :to AND fault = 0 GROUP BY gauge_id, t / ${resolution}`;
 }
 
 /**
- * Rebuilds the hourly and daily roll-ups of one UTC day from the readings themselves. Ingestion
+ * Rebuilds the hourly and daily roll-ups of one UTC day from the readings themselves, leaving out
+ * faulty ones as ingestion does (and taking in those whose verdict was lifted). Ingestion
  * keeps them up to date as readings arrive; this nightly pass makes the stored summaries agree
  * with the readings again after anything that bypassed ingestion (a restored backup, a manual fix).
  */

@@ -40,7 +40,7 @@ const DAY_S = 86_400;
 
 /** What the rate divides by: the time readings cover, with the outages left out said so. */
 function rateBasis(fatigue: GaugeFatigue): string {
-  const covered = `over ${count(fatigue.coveredSeconds / DAY_S)} days covered by readings`;
+  const covered = `over ${count(fatigue.coveredSeconds / DAY_S)} days covered by ${fatigue.source === "bursts" ? "burst samples" : "readings"}`;
   if (fatigue.gapsLeftOut === 0) return covered;
   const gaps = fatigue.gapsLeftOut === 1 ? "1 gap" : `${count(fatigue.gapsLeftOut)} gaps`;
   return `${covered}; ${gaps} longer than ${count(fatigue.longestCoveredIntervalSeconds / 60)} min (${count(fatigue.gapSeconds / DAY_S)} days in all) left out`;
@@ -154,11 +154,46 @@ function DayInput({ id, label, value, onChange }: { id: string; label: string; v
   );
 }
 
+/** Damage per UTC day as bars, with the figures in a table for reading them exactly. */
+function DamagePerDay({ days }: { days: GaugeFatigue["damagePerDay"] }) {
+  const highest = Math.max(...days.map((d) => d.damage), Number.MIN_VALUE);
+  const width = 600;
+  const bar = width / days.length;
+  return (
+    <figure className={`${cardClass} space-y-2 p-4`} data-testid="damage-per-day">
+      <figcaption className="font-semibold">
+        Damage per day <span className="text-xs font-normal text-slate-500">(Miner sum of each UTC day&apos;s histograms; tallest bar {formatScientific(highest)})</span>
+      </figcaption>
+      <svg viewBox={`0 0 ${width} 120`} className="h-32 w-full" role="img" aria-label="Damage per day">
+        {days.map((d, i) => {
+          const height = (d.damage / highest) * 110;
+          return (
+            <rect key={d.day} x={i * bar + 1} y={115 - height} width={Math.max(1, bar - 2)} height={height} fill="#1f6f78">
+              <title>{`${d.day}: ${formatScientific(d.damage)}`}</title>
+            </rect>
+          );
+        })}
+      </svg>
+      <details className="text-sm">
+        <summary className="cursor-pointer text-accent">Figures by day</summary>
+        <ul className="mt-1 grid grid-cols-2 gap-x-4 font-mono text-xs sm:grid-cols-4">
+          {days.map((d) => (
+            <li key={d.day}>
+              {d.day}: {formatScientific(d.damage)}
+            </li>
+          ))}
+        </ul>
+      </details>
+    </figure>
+  );
+}
+
 function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: string }) {
-  if (fatigue.readingsUsed === 0) {
+  const fromBursts = fatigue.source === "bursts";
+  if (fromBursts ? !fatigue.samplesCounted : fatigue.readingsUsed === 0) {
     return (
       <EmptyState title="No readings in this period">
-        Nothing was stored for this gauge between {when(fatigue.from)} and {when(fatigue.to)}
+        Nothing was stored for this gauge between {when(fatigue.from)} and {when(fatigue.to)}{fromBursts && " (no bursts)"}
         {fatigue.readingsSkipped > 0 && ` except ${count(fatigue.readingsSkipped)} readings beyond the gauge's rated range, which are left out`}. Choose
         another period.
       </EmptyState>
@@ -169,11 +204,20 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
     ["Damage in the period", formatScientific(fatigue.damage), "Miner sum D; D = 1 is the nominal end of fatigue life"],
     ["Damage rate", fatigue.damageRatePerYear === null ? "—" : `${formatScientific(fatigue.damageRatePerYear)} per year`, rateBasis(fatigue)],
     ["Life at that rate", lifeText(fatigue), "years for the rate to reach D = 1; damage before monitoring began is unknown"],
-    ["Cycles counted", count(fatigue.cyclesCounted), `rainflow, half cycles as ½; from ${count(fatigue.readingsUsed)} readings`],
+    [
+      "Cycles counted",
+      count(fatigue.cyclesCounted),
+      fromBursts ? `rainflow histograms of ${count(fatigue.samplesCounted ?? 0)} burst samples, half cycles as ½` : `rainflow, half cycles as ½; from ${count(fatigue.readingsUsed)} readings`,
+    ],
+    [
+      "Equivalent range Δσ_E",
+      `${fatigue.equivalentRange.toLocaleString("en-US", { maximumFractionDigits: 1 })} MPa`,
+      `constant range doing the same damage in 2×10⁶ cycles (m = 3), beside the detail category Δσ_C = ${fatigue.category} MPa`,
+    ],
   ];
   return (
     <div className="space-y-6">
-      <dl className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" data-testid="fatigue-figures">
+      <dl className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5" data-testid="fatigue-figures">
         {figures.map(([label, value, note]) => (
           <div key={label} className={`${cardClass} p-4`}>
             <dt className="text-sm text-slate-500 dark:text-slate-400">{label}</dt>
@@ -184,7 +228,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
           </div>
         ))}
       </dl>
-      <CountingNote />
+      <CountingNote fromBursts={fromBursts} />
       {(fatigue.readingsOutsideLinearRange > 0 || fatigue.readingsSkipped > 0 || fatigue.zeroEpochs > 1) && (
         <ul className="space-y-1 rounded-md bg-amber-50 px-4 py-3 text-sm text-amber-950 dark:bg-amber-950/40 dark:text-amber-100">
           {fatigue.readingsOutsideLinearRange > 0 && (
@@ -207,6 +251,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
           )}
         </ul>
       )}
+      {fromBursts && fatigue.damagePerDay.length > 0 && <DamagePerDay days={fatigue.damagePerDay} />}
       <figure className={`${cardClass} space-y-3 p-4`}>
         <figcaption className="flex flex-wrap items-baseline justify-between gap-2">
           <span className="font-semibold">Rainflow histogram</span>
@@ -228,8 +273,16 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
   );
 }
 
-/** What the stress history counted here can and cannot see; readings are its only source today. */
-function CountingNote() {
+/** What the stress history counted here can and cannot see: a dynamic channel's bursts, or readings minutes apart. */
+function CountingNote({ fromBursts }: { fromBursts: boolean }) {
+  if (fromBursts) {
+    return (
+      <p data-testid="fatigue-source" className="rounded-md bg-slate-100 px-4 py-3 text-sm text-slate-700 dark:bg-slate-800 dark:text-slate-200">
+        Counted from the dynamic channel: the rainflow histograms stored from every burst, so traffic, footfall and wind cycles within the bursts
+        are in. Ranges are taken at their bin&apos;s upper edge, on the safe side; time between bursts is not seen.
+      </p>
+    );
+  }
   return (
     <p data-testid="fatigue-source" className="rounded-md bg-slate-100 px-4 py-3 text-sm text-slate-700 dark:bg-slate-800 dark:text-slate-200">
       Counted from readings minutes apart, which see only daily and seasonal cycles (temperature, slowly changing loads). The cycles of

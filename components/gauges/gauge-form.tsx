@@ -7,6 +7,7 @@ import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import type { ActionState } from "@/lib/actions/action-state";
 import { COEFFICIENT_KEYS, applicableFields, gaugePayloadOf, type GaugeFormValues } from "@/lib/gauges/form-values";
 import { previewConversion } from "@/lib/gauges/preview";
+import { SUMMARY_MINUTES } from "@/lib/dynamic";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName, inputUnit } from "@/lib/gauges/labels";
 import { BRIDGES, FOIL_INPUTS, MATERIALS, STEEL_WIRE_CTE, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
@@ -210,6 +211,31 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {input("ratedRange", "Rated range", { unit: "µε", hint: "Either side of zero; readings beyond are flagged." })}
               {input("expectedInterval", "Expected interval between readings", { unit: "s", hint: "Used to tell when data stop arriving." })}
             </div>
+            {select(
+              "sampling.mode",
+              "Sampling",
+              [
+                ["static", "Static: readings one at a time, minutes apart"],
+                ["dynamic", "Dynamic: bursts at a fixed rate (traffic, footfall, machinery)"],
+              ],
+              "Changing it keeps the gauge's history. A dynamic gauge sends bursts to /bursts; they are kept as summaries and event waveforms.",
+            )}
+            {values["sampling.mode"] === "dynamic" && (
+              <div className="grid gap-4 sm:grid-cols-2">
+                {input("sampling.rateHz", "Sampling rate", { unit: "Hz", required: true, hint: "1 to 5000; every burst must be sent at this rate." })}
+                {select(
+                  "sampling.summaryMinutes",
+                  "Summary interval",
+                  SUMMARY_MINUTES.map((minutes): [string, string] => [String(minutes), `${minutes} min`]),
+                  "Intervals start on the hour; extremes, mean, RMS and cycles are kept per interval.",
+                )}
+                {input("sampling.rangeBin", "Rainflow range bin", { unit: "MPa", hint: "Width of the stress-range bins of the histograms; 1 MPa suits steel details." })}
+                {input("sampling.trigger.above", "Event trigger above", { unit: "MPa", hint: "A sample above starts an event; empty for none." })}
+                {input("sampling.trigger.below", "Event trigger below", { unit: "MPa", hint: "A sample below starts an event; empty for none." })}
+                {input("sampling.trigger.preSeconds", "Keep before the trigger", { unit: "s", hint: "Waveform kept before the first sample beyond (0 to 60)." })}
+                {input("sampling.trigger.postSeconds", "Keep after the trigger", { unit: "s", hint: "Waveform kept after the last sample beyond (0 to 60)." })}
+              </div>
+            )}
           </>,
         )}
         {section(

@@ -1,19 +1,21 @@
 import { inputUnit } from "@/lib/gauges/labels";
 import {
   evaluateReadings,
+  FAULT_BITS,
   initialEpisodeState,
-  initialSensorHealthState,
   inspectReadings,
+  type CheckedReading,
   type EpisodeEvent,
   type EpisodeState,
   type Limit,
   type Quantity,
-  type Reading,
   type SensorFinding,
-  type SensorHealthState,
   type SensorHealthThresholds,
 } from "@/lib/limits";
 import { isOutOfRange } from "@/lib/mechanics";
+import type { FaultHold, GaugeEvaluationState } from "./evaluation-state";
+
+export { initialGaugeEvaluationState, type GaugeEvaluationState } from "./evaluation-state";
 
 /**
  * One gauge's alert evaluation over converted readings: sensor health first (a faulty reading
@@ -24,8 +26,6 @@ import { isOutOfRange } from "@/lib/mechanics";
 /** A stored reading: raw value in the gauge's input unit, strain µε, stress MPa, mechanics flags. */
 export type EvaluatedReading = { time: number; raw: number; strain: number; stress: number; flags: number };
 
-export type GaugeEvaluationState = { episodes: Partial<Record<Quantity, EpisodeState>>; health: SensorHealthState };
-
 export type QuantityEvent = EpisodeEvent & { quantity: Quantity };
 
 export type GaugeAlertSetup = {
@@ -34,10 +34,6 @@ export type GaugeAlertSetup = {
   yieldStress: number | null;
   health: SensorHealthThresholds;
 };
-
-export function initialGaugeEvaluationState(): GaugeEvaluationState {
-  return { episodes: {}, health: initialSensorHealthState() };
-}
 
 export function quantityValue(reading: EvaluatedReading, quantity: Quantity, yieldStress: number | null): number {
   switch (quantity) {
@@ -84,6 +80,8 @@ export type GaugeEvaluation = {
   findings: SensorFinding[];
   /** Times of the readings limit evaluation skipped as faults, in order: a rosette on this gauge skips its instants too. */
   faultTimes: number[];
+  /** By reading time, the sensor-health verdict (FAULT_BITS) of each faulty reading taken in; healthy ones are absent. */
+  verdicts: Map<number, number>;
 };
 
 export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationState, readings: readonly EvaluatedReading[]): GaugeEvaluation {
@@ -92,16 +90,31 @@ export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationStat
     state.health,
     readings.map((reading) => ({ time: reading.time, raw: reading.raw, value: reading.strain })),
   );
-  const taken = takenIn(readings, inspection.readings);
-  const episodes: Partial<Record<Quantity, EpisodeState>> = { ...state.episodes };
+  const held = holdAfterJump(state.hold, inspection.readings);
+  const taken = takenIn(readings, held.readings);
+  const { episodes, events } = evaluateQuantities(setup, state.episodes, held.readings, taken);
+  const faultTimes: number[] = [];
+  for (let index = 0; index < taken.faults.length; index++) if (taken.faults[index]) faultTimes.push(held.readings[index]!.time);
+  const verdicts = new Map<number, number>();
+  for (const reading of held.readings) if (reading.faultBits !== 0) verdicts.set(reading.time, reading.faultBits);
+  return { state: { ...state, episodes, health: inspection.state, hold: held.hold }, events, findings: inspection.findings, faultTimes, verdicts };
+}
+
+function evaluateQuantities(
+  setup: GaugeAlertSetup,
+  from: GaugeEvaluationState["episodes"],
+  checked: readonly CheckedReading[],
+  taken: { sources: EvaluatedReading[]; faults: boolean[] },
+): { episodes: Partial<Record<Quantity, EpisodeState>>; events: QuantityEvent[] } {
+  const episodes: Partial<Record<Quantity, EpisodeState>> = { ...from };
   const events: QuantityEvent[] = [];
   for (const quantity of quantitiesOf(setup.limits)) {
     const limits = setup.limits.filter((limit) => limit.quantity === quantity);
     const evaluation = evaluateReadings(
       limits,
       episodes[quantity] ?? initialEpisodeState(),
-      inspection.readings.map((checked, index) => ({
-        time: checked.time,
+      checked.map((reading, index) => ({
+        time: reading.time,
         value: quantityValue(taken.sources[index]!, quantity, setup.yieldStress),
         fault: taken.faults[index]!,
       })),
@@ -110,9 +123,58 @@ export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationStat
     events.push(...evaluation.events.map((event) => ({ ...event, quantity })));
   }
   events.sort((a, b) => a.time - b.time);
-  const faultTimes: number[] = [];
-  for (let index = 0; index < taken.faults.length; index++) if (taken.faults[index]) faultTimes.push(inspection.readings[index]!.time);
-  return { state: { episodes, health: inspection.state }, events, findings: inspection.findings, faultTimes };
+  return { episodes, events };
+}
+
+/**
+ * A jump may be a real step (a crack, a bearing slipping) or the gauge's reference moving (a
+ * debonding foil): the readings cannot tell, so every reading after it is quarantined until an
+ * engineer says which.
+ */
+function holdAfterJump(hold: FaultHold | null, readings: readonly CheckedReading[]): { hold: FaultHold | null; readings: CheckedReading[] } {
+  let current = hold;
+  const marked = readings.map((reading) => {
+    if (current !== null && reading.time > current.since) {
+      const faultBits = reading.faultBits | FAULT_BITS["after-jump"];
+      return { ...reading, fault: true, faultBits };
+    }
+    if (current === null && (reading.faultBits & FAULT_BITS.jump) !== 0) current = { since: reading.time };
+    return reading;
+  });
+  return { hold: current, readings: marked };
+}
+
+/** A stored reading with its stored verdict, as an engineer's resolution of a jump reads it back. */
+export type StoredVerdictReading = EvaluatedReading & { faultBits: number };
+
+/** The verdict bits an accepted step takes back: the jump and the quarantine after it. */
+const STEP_BITS = FAULT_BITS.jump | FAULT_BITS["after-jump"];
+
+/**
+ * The engineer accepts the jump as a real change: the quarantined readings (from the jump on,
+ * in time order) are evaluated against the limits as if never set aside. Faulty readings skip the
+ * machines without changing them, so the machines stand where they stood before the jump except for
+ * which readings they have seen; that is rewound to just before it (times are whole milliseconds).
+ */
+export function acceptStep(setup: GaugeAlertSetup, state: GaugeEvaluationState, readings: readonly StoredVerdictReading[]) {
+  const since = state.hold?.since ?? readings[0]?.time ?? null;
+  if (since === null) return { state: { ...state, hold: null }, events: [] as QuantityEvent[], verdicts: new Map<number, number>() };
+  const rewound: Partial<Record<Quantity, EpisodeState>> = {};
+  for (const [quantity, episode] of Object.entries(state.episodes) as [Quantity, EpisodeState][]) rewound[quantity] = { ...episode, lastTime: since - 1 };
+  const verdicts = new Map<number, number>();
+  const checked: CheckedReading[] = readings.map((reading) => {
+    const faultBits = reading.faultBits & ~STEP_BITS;
+    verdicts.set(reading.time, faultBits);
+    return { time: reading.time, value: reading.strain, fault: faultBits !== 0, faultBits };
+  });
+  const taken = takenIn(readings, checked);
+  const { episodes, events } = evaluateQuantities(setup, rewound, checked, taken);
+  // Readings older than the rewind that the machines had not yet seen stay unseen; the later lastTime of the two holds.
+  for (const [quantity, episode] of Object.entries(episodes) as [Quantity, EpisodeState][]) {
+    const before = state.episodes[quantity]?.lastTime ?? null;
+    if (before !== null && (episode.lastTime === null || episode.lastTime < before)) episodes[quantity] = { ...episode, lastTime: before };
+  }
+  return { state: { ...state, episodes, hold: null }, events, verdicts };
 }
 
 /**
@@ -121,7 +183,7 @@ export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationStat
  * range. A time repeated within the batch is seen with its last reading's values and is skipped if
  * any of its readings is out of range.
  */
-function takenIn(readings: readonly EvaluatedReading[], checked: readonly Reading[]): { sources: EvaluatedReading[]; faults: boolean[] } {
+function takenIn(readings: readonly EvaluatedReading[], checked: readonly CheckedReading[]): { sources: EvaluatedReading[]; faults: boolean[] } {
   const sources: EvaluatedReading[] = [];
   const faults: boolean[] = [];
   for (const reading of readings) {
@@ -142,7 +204,7 @@ function takenIn(readings: readonly EvaluatedReading[], checked: readonly Readin
 }
 
 /** Where `time` is among the first `count` readings, whose times strictly increase; -1 if absent. */
-function indexOfTime(readings: readonly Reading[], count: number, time: number): number {
+function indexOfTime(readings: readonly CheckedReading[], count: number, time: number): number {
   let low = 0;
   let high = count - 1;
   while (low <= high) {

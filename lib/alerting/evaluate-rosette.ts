@@ -1,5 +1,6 @@
 import { evaluateReadings, initialEpisodeState, type EpisodeEvent, type EpisodeState, type Limit, type Reading, type RosetteLimitQuantity } from "@/lib/limits";
 import { analyseRosette, isOutOfRange, type Material } from "@/lib/mechanics";
+import { EVALUATION_STATE_VERSION } from "./evaluation-state";
 
 /**
  * One rosette's limit evaluation over the instants at which its three gauges all have a reading.
@@ -8,7 +9,7 @@ import { analyseRosette, isOutOfRange, type Material } from "@/lib/mechanics";
  */
 
 /** Per quantity, as the machine left it; `lastTime` is the last matched instant taken in. */
-export type RosetteEvaluationState = { lastTime: number | null; episodes: Partial<Record<RosetteLimitQuantity, EpisodeState>> };
+export type RosetteEvaluationState = { version: typeof EVALUATION_STATE_VERSION; lastTime: number | null; episodes: Partial<Record<RosetteLimitQuantity, EpisodeState>> };
 
 export type RosetteQuantityEvent = EpisodeEvent & { quantity: RosetteLimitQuantity };
 
@@ -26,7 +27,7 @@ export type MatchedInstant = { time: number; strains: [number, number, number]; 
 export type FaultTimesOfGauges = readonly [ReadonlySet<number>, ReadonlySet<number>, ReadonlySet<number>];
 
 export function initialRosetteEvaluationState(): RosetteEvaluationState {
-  return { lastTime: null, episodes: {} };
+  return { version: EVALUATION_STATE_VERSION, lastTime: null, episodes: {} };
 }
 
 /** A principal stress from a faulty strain is no measurement: the instant is skipped as the gauge skips the reading. */
@@ -67,5 +68,5 @@ export function evaluateRosette(
   events.sort((a, b) => a.time - b.time);
   const last = instants.at(-1)?.time ?? null;
   const lastTime = last !== null && (state.lastTime === null || last > state.lastTime) ? last : state.lastTime;
-  return { state: { lastTime, episodes }, events };
+  return { state: { version: EVALUATION_STATE_VERSION, lastTime, episodes }, events };
 }

@@ -24,7 +24,20 @@ export const rosetteLimitsBody = limitsBodyOf(ROSETTE_LIMIT_QUANTITIES, "MPa (si
   id: "RosetteLimitsInput",
 });
 
-export const acknowledgeBody = z.object({ comment: plainText().trim().min(1, "Say what was checked or done.").max(2000) }).meta({ id: "AcknowledgeInput" });
+/** An alert's id in a path. */
+export const alertIdParam = z.coerce.number({ error: "The alert id is a number." }).int().positive();
+
+const comment = plainText().trim().min(1, "Say what was checked or done.").max(2000);
+
+export const acknowledgeBody = z.object({ comment }).meta({ id: "AcknowledgeInput" });
+
+/** How a jump is settled; the two values are lib/services/fault-resolution's FAULT_RESOLUTIONS. */
+export const resolveFaultBody = z.object({
+  resolution: z.enum(["accept-step", "new-zero"], { error: "Choose accept-step (the structure really moved) or new-zero (the gauge's reference moved)." }).meta({
+    description: "accept-step: the quarantined readings are checked against the limits from the jump on; new-zero: the reading at the jump becomes the gauge's zero and the readings between stay set aside",
+  }),
+  comment,
+}).meta({ id: "ResolveFaultInput" });
 
 const MAX_BACKTEST_MS = 366 * 86_400_000;
 

@@ -70,7 +70,7 @@ export async function* bodyChunks(request: Request, limitBytes: number): AsyncGe
 }
 
 /** Reads the whole body, refusing it as soon as it grows past the limit. */
-async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
+export async function readBodyBytes(request: Request, limitBytes: number): Promise<Buffer<ArrayBuffer>> {
   const chunks: Uint8Array[] = [];
   for await (const chunk of bodyChunks(request, limitBytes)) chunks.push(chunk);
   return Buffer.concat(chunks);

@@ -27,11 +27,13 @@ import {
 import { fatigueQuery } from "./fatigue-query";
 import { REJECTION_CODES } from "@/lib/ingest/rejections";
 import { ingestReadingsInput, ingestResultSchema, readingsPageSchema, seriesSchema } from "./readings-schemas";
+import { binaryBurstQuery, burstResultSchema, eventDetailSchema, eventLabelInput, eventListSchema, ingestBurstsInput, summariesSchema } from "./burst-schemas";
+import { BURST_REJECTION_CODES } from "@/lib/ingest/burst-input";
 import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
-import { acknowledgeBody, backtestBody, limitsBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
+import { acknowledgeBody, backtestBody, limitsBody, resolveFaultBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
 type MultipartRequest = { fields: Record<string, { description: string; binary?: boolean }>; required: string[] };
@@ -47,6 +49,8 @@ type Operation = {
   csvRequest?: string;
   /** `schema` (JSON) must carry `.meta({ id })`: it is written once under components.schemas and referenced. */
   response: { status: number; description: string; schema?: z.ZodType; text?: { contentType: string }; binary?: string[] };
+  /** Describes an application/octet-stream request body accepted beside JSON. */
+  binaryRequest?: string;
   /** Another representation of the same resource, chosen with Accept or a query parameter. */
   alternative?: { contentType: string; description: string };
   errors: number[];
@@ -278,6 +282,20 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 403, 404, 413, 415],
     },
   },
+  "/alerts/{id}/resolve": {
+    post: {
+      summary: "Resolve a jump (a sensor alert with code jump): accept the step as real, or record a new zero",
+      roles: "admin, engineer",
+      notes:
+        "After a jump the gauge's readings are kept out of limit evaluation (readings.fault marks them after-jump) until this is done. " +
+        "accept-step evaluates them against the limits from the jump on, raising any alerts they would have raised; new-zero records the reading at the jump as the gauge's zero " +
+        "(as POST /gauges/{tag}/zero does) and leaves the readings between set aside. Either clears the alert. A jump cannot be cleared by hand.",
+      parameters: [{ name: "id", in: "path", description: "Alert id" }],
+      request: resolveFaultBody,
+      response: { status: 200, schema: alertSchema, description: "The alert, cleared" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+  },
   "/structures/{code}/drawings": {
     get: {
       summary: "Drawings (elevations, plans) of a structure",
@@ -343,6 +361,66 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       request: ingestReadingsInput,
       csvRequest: CSV_BODY,
       response: { status: 200, schema: ingestResultSchema, description: "What was stored, counted as duplicate and rejected" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/bursts": {
+    post: {
+      summary: "Send bursts of a dynamic gauge (JSON, or one burst as 32-bit little-endian floats)",
+      roles: "admin, engineer, technician, or the structure's logger token",
+      notes:
+        "At most 2 000 000 samples and 16 MB per request (413 past that). All valid bursts of a request are stored in one transaction, or none. " +
+        "Samples are converted like readings (one temperature per burst) and kept only as summaries per interval of the gauge's `summaryMinutes` (aligned to the hour), " +
+        "rainflow histograms and captured event waveforms. Rainflow carries its residue from one burst to the next of the gauge; a burst older than the newest one stored " +
+        "is counted on its own, its open half cycles closed at its end. A burst whose (gauge, start) is stored, or repeated in the request, is a duplicate; one that overlaps " +
+        "another without the same start is rejected (`overlap`). A burst with any non-finite sample (NaN, Infinity, null, text) is refused whole (`not-finite`), in JSON and binary alike. " +
+        "Limits apply to each burst's lowest and highest sample and its last one, as readings at their own instants; those three are stored as readings. " +
+        "Each burst is checked on its own; `rejected[].code` is one of: " +
+        Object.entries(BURST_REJECTION_CODES)
+          .map(([code, meaning]) => `\`${code}\` (${meaning})`)
+          .join("; ") +
+        ". A binary body that is not a whole number of 4-byte floats, or a missing query parameter, is a 400.",
+      parameters: [
+        codeParameter,
+        ...queryParameters(binaryBurstQuery).map((p) => ({ ...p, description: `Binary body only: ${p.description}` })),
+      ],
+      request: ingestBurstsInput,
+      binaryRequest: "The burst's raw samples as 32-bit little-endian IEEE 754 floats, in the gauge's input unit; gauge, start, rateHz and temperature in the query.",
+      response: { status: 200, schema: burstResultSchema, description: "What was stored, counted as duplicate and rejected" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/summaries": {
+    get: {
+      summary: "A dynamic gauge's interval summaries starting in [from, to), oldest first (stress in MPa)",
+      notes: "At most 5 000 intervals per request; ask for a shorter range for more.",
+      parameters: [codeParameter, tagParameter, ...rangeParameters],
+      response: { status: 200, schema: summariesSchema, description: "The intervals" },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/events": {
+    get: {
+      summary: "A dynamic gauge's captured events starting in [from, to), newest first, without their waveforms",
+      notes: "At most 1 000 events per request.",
+      parameters: [codeParameter, tagParameter, ...rangeParameters],
+      response: { status: 200, schema: eventListSchema, description: "The events" },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/events/{id}": {
+    get: {
+      summary: "One captured event with its waveform: stress in MPa at `rateHz` from `start`",
+      parameters: [codeParameter, { name: "id", in: "path", description: "Event id" }],
+      response: { status: 200, schema: eventDetailSchema, description: "The event" },
+      errors: [400, 401, 404],
+    },
+    patch: {
+      summary: "Label an event (what it was); null clears the label. Audited",
+      roles: "admin, engineer",
+      parameters: [codeParameter, { name: "id", in: "path", description: "Event id" }],
+      request: eventLabelInput,
+      response: { status: 200, schema: eventDetailSchema, description: "The event" },
       errors: [400, 401, 403, 404, 413, 415],
     },
   },
@@ -506,6 +584,7 @@ function requestBodyOf(operation: Operation, components: Components, where: stri
   const content = {
     ...(operation.request ? { "application/json": { schema: components.ref(operation.request, "input", where) } } : {}),
     ...(operation.csvRequest ? { "text/csv": { schema: { type: "string", description: operation.csvRequest } } } : {}),
+    ...(operation.binaryRequest ? { "application/octet-stream": { schema: { type: "string", format: "binary", description: operation.binaryRequest } } } : {}),
   };
   return Object.keys(content).length > 0 ? { required: true, content } : undefined;
 }
@@ -538,6 +617,8 @@ const TAGS: Record<string, string> = {
   alerts: "Limit and sensor alerts and their acknowledgement",
   drawings: "Elevations and plans the gauges are placed on",
   readings: "Sending readings in one request (JSON or CSV)",
+  bursts: "Sending bursts of a dynamic (high-rate) gauge, in JSON or as 32-bit little-endian floats",
+  events: "Waveforms captured around trigger crossings of dynamic gauges, and their labels",
   uploads: "Sending a logger file of any size, streamed",
   report: "The periodic structure report",
   files: "Stored photos and drawings",

@@ -21,18 +21,18 @@ export const ingestReadingsInput = z.object({
     .meta({ description: "At most 50 000 readings (and 10 MB) per request; more is a 413." }),
 }).meta({ id: "ReadingsInput" });
 
+/** What an ingestion request refused, each with where it sat in the request. */
+export const rejectionList = (indexDescription: string) =>
+  z.array(z.object({ index: z.number().int().meta({ description: indexDescription }), code: z.string(), message: z.string() }));
+
+export const alertCountsSchema = z.object({ opened: z.number().int(), escalated: z.number().int(), cleared: z.number().int() });
+
 export const ingestResultSchema = z
   .object({
     accepted: z.number().int().meta({ description: "Readings stored by this request" }),
     duplicates: z.number().int().meta({ description: "Readings whose (gauge, time) was already stored, or repeated in the request" }),
-    rejected: z.array(
-      z.object({
-        index: z.number().int().meta({ description: "Position in `readings`, or the CSV data row counted from 0" }),
-        code: z.string(),
-        message: z.string(),
-      }),
-    ),
-    alerts: z.object({ opened: z.number().int(), escalated: z.number().int(), cleared: z.number().int() }),
+    rejected: rejectionList("Position in `readings`, or the CSV data row counted from 0"),
+    alerts: alertCountsSchema,
   })
   .meta({ id: "IngestResult" });
 

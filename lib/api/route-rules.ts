@@ -12,9 +12,12 @@ export const ROUTE_RULES = {
   "/structures": { GET: "signed-in", POST: "structure:create" },
   "/structures/{code}": { GET: "structure:view" },
   "/structures/{code}/alerts": { GET: "structure:view" },
+  "/structures/{code}/bursts": { POST: "readings:ingest" },
+  "/structures/{code}/events/{id}": { GET: "structure:view", PATCH: "alert:acknowledge" },
   "/structures/{code}/drawings": { GET: "structure:view", POST: "gauge:register" },
   "/structures/{code}/gauges": { GET: "structure:view", POST: "gauge:register" },
   "/structures/{code}/gauges/{tag}": { GET: "structure:view", PATCH: "gauge:register", DELETE: "gauge:register" },
+  "/structures/{code}/gauges/{tag}/events": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/fatigue": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/limits": { GET: "structure:view", PUT: "limits:edit" },
   "/structures/{code}/gauges/{tag}/limits/backtest": { POST: "structure:view" },
@@ -22,6 +25,7 @@ export const ROUTE_RULES = {
   "/structures/{code}/gauges/{tag}/placement": { PUT: "gauge:register" },
   "/structures/{code}/gauges/{tag}/readings": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/series": { GET: "structure:view" },
+  "/structures/{code}/gauges/{tag}/summaries": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/zero": { POST: "zero:record" },
   "/structures/{code}/readings": { POST: "readings:ingest" },
   "/structures/{code}/report": { GET: "structure:view" },
@@ -31,6 +35,7 @@ export const ROUTE_RULES = {
   "/structures/{code}/rosettes/{tag}/series": { GET: "structure:view" },
   "/structures/{code}/uploads": { POST: "readings:ingest" },
   "/alerts/{id}/acknowledge": { POST: "alert:acknowledge" },
+  "/alerts/{id}/resolve": { POST: "alert:acknowledge" },
   "/files/{id}": { GET: "structure:view", DELETE: "gauge:register" },
 } as const satisfies Record<string, Partial<Record<HttpMethod, RouteRule>>>;
 

@@ -81,6 +81,17 @@ export const gaugeFatigueSchema = z
     damage: z.number().meta({ description: "Palmgren–Miner sum D over the period, from the exact (unbinned) ranges" }),
     category: z.number().meta({ description: "Detail category Δσ_C used, MPa at 2×10⁶ cycles" }),
     cyclesCounted: z.number().meta({ description: "Cycles counted, half cycles as 0.5" }),
+    source: z.enum(["readings", "bursts"]).meta({
+      description:
+        "readings: rainflow over the stored static readings (sees daily and seasonal cycles only); bursts: the rainflow histograms stored from a dynamic gauge's bursts",
+    }),
+    equivalentRange: z.number().meta({
+      description: "Damage-equivalent constant range Δσ_E = (Σ nᵢ·Δσᵢ³ / 2×10⁶)^(1/3), MPa: compare it with the detail category Δσ_C",
+    }),
+    damagePerDay: z
+      .array(z.object({ day: z.string().meta({ description: "UTC date, YYYY-MM-DD" }), damage: z.number() }))
+      .meta({ description: "Miner damage per UTC day with data (bursts source; empty for readings)" }),
+    samplesCounted: z.number().int().optional().meta({ description: "Bursts source: samples summarised over the period" }),
     from: z.string().meta({ description: "Start of the period, included (UTC)" }),
     to: z.string().meta({ description: "End of the period, excluded (UTC)" }),
     periodSeconds: z.number().meta({ description: "Seconds from `from` to `to`" }),
@@ -164,7 +175,10 @@ export const alertSchema = z
     message: z.string().nullable(),
     openedAt: z.string(),
     bound: z.number().nullable(),
-    peak: z.number().nullable(),
+    peak: z.number().nullable().meta({ description: "The furthest value beyond the bound so far in the episode; keeps rising while the alert is open" }),
+    peakAt: z.string().nullable().meta({ description: "When the episode reached its peak" }),
+    openings: z.number().int().meta({ description: "How many times the episode opened: an alert back beyond within an hour of clearing continues the same episode" }),
+    flappingSince: z.string().nullable().meta({ description: "Set once the alert has opened 3 times within an hour: its crossings are then e-mailed as one, with a summary when it settles" }),
     acknowledgedAt: z.string().nullable(),
     acknowledgedBy: z.string().nullable(),
     clearedAt: z.string().nullable(),

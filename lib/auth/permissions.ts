@@ -69,3 +69,11 @@ export const ALERT_MAIL_ROLES = ["owner", "engineer"] as const satisfies readonl
 export function receivesAlertMail(role: Role): boolean {
   return (ALERT_MAIL_ROLES as readonly Role[]).includes(role);
 }
+
+/**
+ * Whether a role's sensor-fault e-mails go to the digest when the member has not chosen: an owner's
+ * do (a sensor fault asks the engineer to act, not the owner); everyone else's arrive as they happen.
+ */
+export function sensorMailDigestByDefault(role: Role): boolean {
+  return role === "owner";
+}

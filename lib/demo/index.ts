@@ -14,3 +14,4 @@ export {
   type TimeWindow,
 } from "./synthetic-readings";
 export { prepareInverseConversion, type InverseConversion } from "./inverse-conversion";
+export { syntheticBursts, type BurstStory, type SyntheticBurst, type SyntheticBurstGauge, type SyntheticBurstOptions } from "./synthetic-bursts";

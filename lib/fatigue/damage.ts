@@ -13,6 +13,18 @@ export function minerDamage(cycles: Iterable<{ range: number; count: number }>, 
   return damage;
 }
 
+/**
+ * Damage-equivalent constant range at `referenceCycles`: Δσ_E = (Σ nᵢ·Δσᵢ^m / N_ref)^(1/m), the
+ * single range that, repeated N_ref times on a slope-m curve, does the damage of the whole
+ * spectrum (the equivalent-range idea of EN 1993-1-9; m = 3 and N_ref = 2×10⁶ as there, from
+ * memory). Comparable at a glance with a detail category Δσ_C, also defined at 2×10⁶ cycles.
+ */
+export function equivalentRange(cycles: Iterable<{ range: number; count: number }>, slope = 3, referenceCycles = 2e6): number {
+  let sum = 0;
+  for (const { range, count } of cycles) sum += count * range ** slope;
+  return (sum / referenceCycles) ** (1 / slope);
+}
+
 /** Damage per year at the rate observed over a period, assuming the period is representative. */
 export function damageRatePerYear(damage: number, periodSeconds: number): number {
   if (!(Number.isFinite(periodSeconds) && periodSeconds > 0)) {

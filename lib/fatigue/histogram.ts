@@ -28,7 +28,7 @@ function checkWidth(width: number) {
  * errs on the safe side (a larger range does more damage). A range of exactly k·width belongs to
  * bin k.
  */
-function rangeBinIndex(range: number, width: number): number {
+export function rangeBinIndex(range: number, width: number): number {
   return Math.max(1, Math.ceil(range / width - EDGE_TOLERANCE));
 }
 

@@ -9,9 +9,18 @@
  *
  * createFatigueTally does the page-by-page folding and also keeps the histogram and matrix.
  */
-export { createRainflowCounter, rainflow, type Cycle, type RainflowCounter } from "./rainflow";
+export {
+  createRainflowCounter,
+  createRainflowStream,
+  rainflow,
+  type Cycle,
+  type CycleSink,
+  type RainflowCounter,
+  type RainflowResidue,
+  type RainflowStream,
+} from "./rainflow";
 export { createFatigueHistory, type FatigueHistory, type HistoryCoverage } from "./history";
-export { binRanges, mergeIntoCells, rainflowMatrix, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
+export { binRanges, mergeIntoCells, rainflowMatrix, rangeBinIndex, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
 export {
   DETAIL_CATEGORIES,
   DETAIL_CATEGORY_VALUES,
@@ -20,7 +29,7 @@ export {
   type DetailCategory,
   type SnCurveLimits,
 } from "./sn-curve";
-export { SECONDS_PER_YEAR, damageRatePerYear, minerDamage, yearsToReachDamage } from "./damage";
+export { SECONDS_PER_YEAR, damageRatePerYear, equivalentRange, minerDamage, yearsToReachDamage } from "./damage";
 export { fatigueSummary, type FatigueSummary } from "./summary";
 export { createFatigueTally, type FatigueTally } from "./tally";
 export { rainflowMatrixCsv } from "./matrix-csv";

@@ -8,12 +8,20 @@ export interface ReversalFilter {
   push(value: number): void;
   /** Emits the last sample, which only the end of the history confirms as a reversal. */
   flush(): void;
+  /** Where the filter stands, so a history cut into blocks can go on where the last block stopped. */
+  state(): ReversalFilterState;
 }
 
-export function createReversalFilter(onReversal: (value: number) => void): ReversalFilter {
+/** The newest extreme of the current run (null before the first sample) and the run's direction (−1, 0, 1). */
+export interface ReversalFilterState {
+  candidate: number | null;
+  direction: number;
+}
+
+export function createReversalFilter(onReversal: (value: number) => void, resume?: ReversalFilterState): ReversalFilter {
   // The newest extreme of the current run: it becomes a reversal once the signal turns back.
-  let candidate: number | undefined;
-  let direction = 0;
+  let candidate: number | undefined = resume?.candidate ?? undefined;
+  let direction = resume?.direction ?? 0;
 
   return {
     push(value) {
@@ -36,5 +44,6 @@ export function createReversalFilter(onReversal: (value: number) => void): Rever
       candidate = undefined;
       direction = 0;
     },
+    state: () => ({ candidate: candidate ?? null, direction }),
   };
 }

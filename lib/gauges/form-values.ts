@@ -38,6 +38,43 @@ export function formValuesOf(gauge: Partial<GaugeFields>): GaugeFormValues {
     expectedInterval: text(gauge.expectedInterval),
     ratedRange: text(gauge.ratedRange),
     detailCategory: text(gauge.detailCategory),
+    ...samplingValuesOf(gauge.sampling),
+  };
+}
+
+function samplingValuesOf(sampling: GaugeFields["sampling"] | undefined): GaugeFormValues {
+  const dynamic = sampling?.mode === "dynamic" ? sampling : null;
+  return {
+    "sampling.mode": dynamic ? "dynamic" : "static",
+    "sampling.rateHz": text(dynamic?.rateHz),
+    "sampling.summaryMinutes": text(dynamic?.summaryMinutes ?? 10),
+    "sampling.rangeBin": text(dynamic?.rangeBin ?? 1),
+    "sampling.trigger.above": text(dynamic?.trigger?.above),
+    "sampling.trigger.below": text(dynamic?.trigger?.below),
+    "sampling.trigger.preSeconds": text(dynamic?.trigger?.preSeconds ?? 2),
+    "sampling.trigger.postSeconds": text(dynamic?.trigger?.postSeconds ?? 5),
+  };
+}
+
+/** Static, or dynamic with its rate, interval, bin and a trigger when a level is given. */
+function samplingOf(values: GaugeFormValues) {
+  if (values["sampling.mode"] !== "dynamic") return { mode: "static" };
+  const above = numberOrText(values["sampling.trigger.above"]);
+  const below = numberOrText(values["sampling.trigger.below"]);
+  return {
+    mode: "dynamic",
+    rateHz: numberOrText(values["sampling.rateHz"]),
+    summaryMinutes: numberOrText(values["sampling.summaryMinutes"]) ?? 10,
+    rangeBin: numberOrText(values["sampling.rangeBin"]) ?? 1,
+    trigger:
+      above === undefined && below === undefined
+        ? null
+        : {
+            above: above ?? null,
+            below: below ?? null,
+            preSeconds: numberOrText(values["sampling.trigger.preSeconds"]) ?? 2,
+            postSeconds: numberOrText(values["sampling.trigger.postSeconds"]) ?? 5,
+          },
   };
 }
 
@@ -111,5 +148,6 @@ export function gaugePayloadOf(values: GaugeFormValues) {
     expectedInterval: numberOrText(values.expectedInterval) ?? null,
     ratedRange: numberOrText(values.ratedRange) ?? null,
     detailCategory: numberOrText(values.detailCategory) ?? null,
+    sampling: samplingOf(values),
   };
 }

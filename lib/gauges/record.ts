@@ -23,6 +23,7 @@ export function gaugeColumns(fields: Omit<GaugeFields, "tag" | "zero">) {
     expectedInterval: fields.expectedInterval,
     ratedRange: fields.ratedRange,
     detailCategory: fields.detailCategory,
+    sampling: fields.sampling,
   };
 }
 
@@ -48,6 +49,7 @@ export function gaugeFieldsOf(row: Gauge): GaugeFields {
     expectedInterval: row.expectedInterval,
     ratedRange: row.ratedRange,
     detailCategory: row.detailCategory as GaugeFields["detailCategory"],
+    sampling: row.sampling as GaugeFields["sampling"],
   };
 }
 

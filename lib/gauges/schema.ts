@@ -8,6 +8,7 @@ import {
   type GaugeConfigErrorCode,
 } from "@/lib/mechanics";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
+import { SUMMARY_MINUTES } from "@/lib/dynamic";
 import { optionalText } from "@/lib/validation";
 
 /** Gauge fields as the API contract names them, shared by the API and the gauge form. */
@@ -75,6 +76,51 @@ export const zeroInput = z.object({
 
 const INPUTS = [...FOIL_INPUTS, ...VIBRATING_WIRE_INPUTS] as const;
 
+export const MAX_RATE_HZ = 5000;
+/** Seconds of waveform an event keeps before and after its crossings, at most. */
+export const MAX_EVENT_WINDOW_SECONDS = 60;
+
+const windowSeconds = (fallback: number) =>
+  number
+    .refine((v) => v >= 0 && v <= MAX_EVENT_WINDOW_SECONDS, `Between 0 and ${MAX_EVENT_WINDOW_SECONDS} seconds.`)
+    .default(fallback)
+    .meta({ description: "s" });
+
+export const triggerInput = z
+  .object({
+    above: optional(number).meta({ description: "MPa: a sample above starts an event" }),
+    below: optional(number).meta({ description: "MPa: a sample below starts an event" }),
+    preSeconds: windowSeconds(2),
+    postSeconds: windowSeconds(5),
+  })
+  .refine((t) => t.above !== null || t.below !== null, { message: "Give the trigger a level above, below, or both.", path: ["above"] })
+  .refine((t) => t.above === null || t.below === null || t.below < t.above, { message: "The level below must be under the level above.", path: ["below"] });
+
+export const samplingInput = z
+  .discriminatedUnion(
+    "mode",
+    [
+      z.object({ mode: z.literal("static") }),
+      z.object({
+        mode: z.literal("dynamic"),
+        rateHz: number
+          .refine((v) => v >= 1 && v <= MAX_RATE_HZ, `A rate from 1 to ${MAX_RATE_HZ} Hz.`)
+          .meta({ description: "Samples per second of every burst" }),
+        summaryMinutes: z
+          .literal(SUMMARY_MINUTES, { error: `Choose a summary interval that divides the hour: ${SUMMARY_MINUTES.join(", ")} minutes.` })
+          .default(10)
+          .meta({ description: "Minutes per summary interval, aligned to the hour" }),
+        rangeBin: positive.default(1).meta({ description: "Width of the rainflow range bins, MPa" }),
+        trigger: optional(triggerInput),
+      }),
+    ],
+    { error: "Choose the sampling mode: static or dynamic." },
+  )
+  .default({ mode: "static" })
+  .meta({ description: "Static: readings one at a time. Dynamic: bursts at a fixed rate, summarised on arrival" });
+
+export type SamplingInput = z.output<typeof samplingInput>;
+
 export const gaugeFields = z.object({
   tag: gaugeTag,
   label: optionalText(200),
@@ -99,6 +145,7 @@ export const gaugeFields = z.object({
   detailCategory: optional(
     z.literal(DETAIL_CATEGORY_VALUES, { error: `Choose a detail category (${DETAIL_CATEGORY_VALUES.join(", ")} MPa), or null when not assessed.` }),
   ).meta({ description: "Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed" }),
+  sampling: samplingInput,
 });
 
 export type GaugeFields = z.output<typeof gaugeFields>;

@@ -28,6 +28,7 @@ export interface EpisodeEvent {
   readonly value: number;
   readonly bound: number;
   readonly peak: number;
+  readonly peakAt: number;
 }
 
 export interface OpenEpisode {
@@ -49,6 +50,8 @@ export interface EpisodeState {
   readonly insideRun: number;
   /** Most extreme value since the current excursion began; null when there is none. */
   readonly peak: number | null;
+  /** Time of the reading that gave `peak`. */
+  readonly peakAt: number | null;
   readonly episode: OpenEpisode | null;
 }
 
@@ -58,7 +61,7 @@ export interface Evaluation {
 }
 
 export function initialEpisodeState(): EpisodeState {
-  return { lastTime: null, beyondRuns: { watch: 0, warning: 0, critical: 0 }, insideRun: 0, peak: null, episode: null };
+  return { lastTime: null, beyondRuns: { watch: 0, warning: 0, critical: 0 }, insideRun: 0, peak: null, peakAt: null, episode: null };
 }
 
 interface Ladder {
@@ -99,12 +102,12 @@ function toLadder(limits: readonly Limit<string>[]): Ladder {
 }
 
 function advance(ladder: Ladder, state: MutableState, reading: Reading): EpisodeEvent | null {
-  countRuns(ladder, state, reading.value);
+  countRuns(ladder, state, reading);
   if (state.episode === null) return open(ladder, state, reading);
   return escalate(ladder, state, reading) ?? clear(ladder, state, reading);
 }
 
-function countRuns(ladder: Ladder, state: MutableState, value: number): void {
+function countRuns(ladder: Ladder, state: MutableState, { value, time }: Reading): void {
   let beyondAny = false;
   for (const limit of ladder.limits) {
     const beyond = crossedBound(limit, value) !== null;
@@ -112,12 +115,13 @@ function countRuns(ladder: Ladder, state: MutableState, value: number): void {
     beyondAny ||= beyond;
   }
   state.insideRun = isInside(ladder.band, value) ? state.insideRun + 1 : 0;
-  if (beyondAny || state.episode !== null) state.peak = moreExtreme(ladder.band, state.peak, value);
-  else state.peak = null;
-}
-
-function moreExtreme(band: ClearBand, peak: number | null, value: number): number {
-  return peak === null || distanceOutside(band, value) > distanceOutside(band, peak) ? value : peak;
+  if (!beyondAny && state.episode === null) {
+    state.peak = null;
+    state.peakAt = null;
+  } else if (state.peak === null || distanceOutside(ladder.band, value) > distanceOutside(ladder.band, state.peak)) {
+    state.peak = value;
+    state.peakAt = time;
+  }
 }
 
 /** The most severe limit whose persistence run is complete, above `aboveRank`. */
@@ -145,14 +149,15 @@ function enterLevel(type: "opened" | "escalated", limit: Limit<string>, state: M
   // a complete run includes this reading, so it is beyond this limit
   const bound = crossedBound(limit, reading.value)!;
   state.episode = { level: limit.level, openedAt, bound };
-  return { type, level: limit.level, time: reading.time, value: reading.value, bound, peak: state.peak! };
+  return { type, level: limit.level, time: reading.time, value: reading.value, bound, peak: state.peak!, peakAt: state.peakAt! };
 }
 
 function clear(ladder: Ladder, state: MutableState, reading: Reading): EpisodeEvent | null {
   if (state.insideRun < ladder.clearPersistence) return null;
   const { level, bound } = state.episode!;
-  const event: EpisodeEvent = { type: "cleared", level, time: reading.time, value: reading.value, bound, peak: state.peak! };
+  const event: EpisodeEvent = { type: "cleared", level, time: reading.time, value: reading.value, bound, peak: state.peak!, peakAt: state.peakAt! };
   state.episode = null;
   state.peak = null;
+  state.peakAt = null;
   return event;
 }

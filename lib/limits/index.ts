@@ -25,7 +25,8 @@ export {
   type Reading,
 } from "./episode-machine";
 export { backtest, replay, type Backtest, type Episode } from "./backtest";
-export type { DetectorStep, Sample, SensorFaultCode, SensorFinding } from "./sensor-health/finding";
+export type { DetectorStep, FaultName, Sample, SensorFaultCode, SensorFinding } from "./sensor-health/finding";
+export { FAULT_BITS, faultNames } from "./sensor-health/finding";
 export { checkStale, type StaleThresholds } from "./sensor-health/stale";
 export { stepFlatLine, type FlatLineState, type FlatLineThresholds } from "./sensor-health/flat-line";
 export { stepJump, type JumpState, type JumpThresholds } from "./sensor-health/jump";
@@ -33,6 +34,7 @@ export { stepSensorRange, type SensorRangeThresholds } from "./sensor-health/sen
 export {
   initialSensorHealthState,
   inspectReadings,
+  type CheckedReading,
   type Inspection,
   type SensorHealthState,
   type SensorHealthThresholds,

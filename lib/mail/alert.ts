@@ -19,6 +19,8 @@ export type AlertEventFacts = {
   /** In the quantity's stored unit: MPa, µε, or utilisation as a ratio (1 = at yield); MPa for a rosette's. */
   value: number;
   bound: { side: "upper" | "lower"; value: number };
+  /** The alert's furthest value so far, the same number its page and the API show. */
+  peak: number;
   at: Date;
 };
 
@@ -60,19 +62,19 @@ const EVENT_WORDING: Record<AlertMailEvent, string> = {
 };
 
 /** The wording of one event ("stress crossed the warning limit", value, bound), shared with the digest. */
-export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string } {
+export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string; peak: string } {
   const value = formatQuantity(facts.quantity, facts.value);
   const bound = `${facts.bound.side} ${formatQuantity(facts.quantity, facts.bound.value)}`;
   const headline = `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
-  return { headline, value, bound };
+  return { headline, value, bound, peak: formatQuantity(facts.quantity, facts.peak) };
 }
 
 export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail {
   const { structure, gauge } = input;
-  const { headline, value, bound } = describeAlertEvent(input);
+  const { headline, value, bound, peak } = describeAlertEvent(input);
   const place = alertPlace(input, appUrl, structure.code);
   const levelWord = input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
-  const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (${value})`;
+  const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (peak ${peak})`;
   const facts: [string, string][] = [
     ["Structure", `${structure.name} (${structure.code})`],
     ...(input.rosette ? [["Rosette", input.rosette] as [string, string]] : []),
@@ -80,7 +82,8 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
     ["Location", gauge.location || "not recorded"],
     ["Level", input.level],
     ["Quantity", `${QUANTITY_NAME[input.quantity]} (${quantityScale(input.quantity).unit})`],
-    ["Value", value],
+    ["Peak so far", peak],
+    ["Value at this event", value],
     ["Bound", bound],
     ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],
   ];

@@ -1,4 +1,4 @@
-import { ALERT_CAUTION, alertPlace, describeAlertEvent, type AlertEventFacts, type AlertStructure } from "./alert";
+import { ALERT_CAUTION, alertPlace, describeAlertEvent, gaugeChartLink, type AlertEventFacts, type AlertStructure } from "./alert";
 import { formatInTimeZone } from "@/lib/time-format";
 import { escapeHtml, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -6,8 +6,13 @@ export type DigestMailInput = {
   recipientName: string;
   /** The period the digest covers, as the reader should see it ("2026-07-01"). */
   period: string;
-  structures: { structure: AlertStructure; events: AlertEventFacts[]; conditions?: GaugeConditionLine[] }[];
+  structures: { structure: AlertStructure; events: DigestEvent[]; conditions?: GaugeConditionLine[] }[];
 };
+
+/** A sensor fault found or resolved, as a digest line tells it. */
+export type SensorEventFacts = { gauge: { tag: string }; code: string; event: "opened" | "cleared"; message: string | null; at: Date };
+
+export type DigestEvent = AlertEventFacts | SensorEventFacts;
 
 /** A gauge that is not within its limits now, and its condition in words ("Sensor fault (jump)"). */
 export type GaugeConditionLine = { tag: string; condition: string };
@@ -19,22 +24,23 @@ function conditionsLine(conditions: GaugeConditionLine[] | undefined): string | 
   return `Now, not within limits: ${conditions.map((line) => `${line.tag} ${line.condition.toLowerCase()}`).join("; ")}.`;
 }
 
+function describeLine(facts: DigestEvent, appUrl: string, structureCode: string): { gauge: string; what: string; link: string } {
+  if ("code" in facts) {
+    const what = `sensor fault ${facts.code} ${facts.event === "opened" ? "found" : "resolved"}${facts.message ? `: ${facts.message}` : ""}`;
+    return { gauge: facts.gauge.tag, what, link: gaugeChartLink(appUrl, structureCode, facts.gauge.tag) };
+  }
+  const { headline, value, bound } = describeAlertEvent(facts);
+  const place = alertPlace(facts, appUrl, structureCode);
+  return { gauge: place.name, what: `${headline}: ${value} (bound ${bound})`, link: place.link };
+}
+
 /** One e-mail a day for people who chose the digest: every alert event of their structures, oldest first. */
 export function buildDigestMail(input: DigestMailInput, appUrl: string): BuiltMail {
   const total = input.structures.reduce((sum, s) => sum + s.events.length, 0);
   const subject = `Hookeline daily summary ${input.period}: ${total === 1 ? "1 alert event" : `${total} alert events`}`;
   const sections = input.structures.map(({ structure, events, conditions }) => {
     const ordered = [...events].sort((a, b) => a.at.getTime() - b.at.getTime());
-    const lines = ordered.map((facts) => {
-      const { headline, value, bound } = describeAlertEvent(facts);
-      const place = alertPlace(facts, appUrl, structure.code);
-      return {
-        time: formatInTimeZone(facts.at, structure.timezone),
-        gauge: place.name,
-        what: `${headline}: ${value} (bound ${bound})`,
-        link: place.link,
-      };
-    });
+    const lines = ordered.map((facts) => ({ time: formatInTimeZone(facts.at, structure.timezone), ...describeLine(facts, appUrl, structure.code) }));
     return { title: `${structure.name} (${structure.code}), times in ${structure.timezone}`, lines, now: conditionsLine(conditions) };
   });
   const opening = `Hello ${input.recipientName}, here are the alert events of ${input.period} on the structures you follow.`;

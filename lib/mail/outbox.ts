@@ -2,6 +2,7 @@ import "server-only";
 import type { WriteTx } from "@/db/client";
 import { mailOutbox, type MailAttachment, type MailKind } from "@/db/schema";
 import type { BuiltMail } from "./message";
+import { priorityOfKind } from "./priority";
 
 /** Anything that can insert: the caller's transaction, so the message commits with what caused it. */
 type Writer = Pick<WriteTx, "insert">;
@@ -16,6 +17,8 @@ export type QueuedMail = BuiltMail & {
    */
   dedupeKey: string;
   attachments?: MailAttachment[];
+  /** Lower is sent first; by default from the kind (lib/mail/priority.ts). */
+  priority?: number;
 };
 
 /**
@@ -35,6 +38,7 @@ export async function queueMail(tx: Writer, message: QueuedMail): Promise<boolea
       text: message.text,
       html: message.html,
       attachments: message.attachments ?? null,
+      priority: message.priority ?? priorityOfKind(message.kind),
     })
     .onConflictDoNothing({ target: mailOutbox.dedupeKey })
     .returning({ id: mailOutbox.id });

@@ -10,6 +10,8 @@ export type SensorAlertMailInput = {
   code: string;
   message: string;
   at: Date;
+  /** For "no data": every silent gauge of the structure; the one alert names them all. */
+  gauges?: string[];
 };
 
 const FAULT_NAMES: Record<string, string> = {
@@ -19,15 +21,25 @@ const FAULT_NAMES: Record<string, string> = {
   "out-of-range": "reading outside the sensor's range",
 };
 
+/** What the fault means for the limits: said in every sensor-fault e-mail, since nobody else will say it. */
+const NOT_CHECKED: Record<string, string> = {
+  jump:
+    "This is not a structural alert, but limits are NOT being checked on this gauge: its readings are set aside from the jump on, until an engineer on the alert accepts the step as real or records a new zero.",
+  stale: "This is not a structural alert, but with no readings these gauges' limits are NOT being checked.",
+  default: "This is not a structural alert, but limits are NOT being checked on this gauge while its readings are faulty.",
+};
+
 /** A sensor fault told as such: it says nothing about the structure, only that a gauge cannot be trusted now. */
 export function buildSensorAlertMail(input: SensorAlertMailInput, appUrl: string): BuiltMail {
   const { structure, gauge } = input;
   const fault = FAULT_NAMES[input.code] ?? input.code;
-  const subject = `${input.event === "cleared" ? "Resolved" : "Sensor fault"}: ${structure.code} ${gauge.tag} ${fault}`;
+  const silent = input.gauges && input.gauges.length > 0 ? input.gauges : null;
+  const which = silent ? `${silent.length === 1 ? "gauge" : "gauges"} ${silent.join(", ")}` : `gauge ${gauge.tag}`;
+  const subject = `${input.event === "cleared" ? "Resolved" : "Sensor fault"}: ${structure.code} ${silent ? which : gauge.tag} ${fault}`;
   const opening =
     input.event === "cleared"
-      ? `On ${structure.name}, gauge ${gauge.tag} is reporting normally again (${fault} resolved).`
-      : `On ${structure.name}, gauge ${gauge.tag} shows a sensor fault: ${fault}. This is not a structural alert; until it is fixed, this gauge's limits cannot warn anyone.`;
+      ? `On ${structure.name}, ${input.code === "stale" ? "readings are arriving again" : `gauge ${gauge.tag} is reporting normally again`} (${fault} resolved).`
+      : `On ${structure.name}, ${which}: ${fault}. ${NOT_CHECKED[input.code] ?? NOT_CHECKED.default}`;
   const link = gaugeChartLink(appUrl, structure.code, gauge.tag);
   const facts = [
     `Gauge: ${gauge.label ? `${gauge.tag}, ${gauge.label}` : gauge.tag}`,

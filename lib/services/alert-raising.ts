@@ -1,42 +1,44 @@
 import "server-only";
-import { and, eq, inArray, isNull, sql } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, isNotNull, isNull, lte, sql } from "drizzle-orm";
 import { bulkSql, type WriteTx } from "@/db/client";
 import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, gaugeLimits, type Alert, type Gauge } from "@/db/schema";
-import {
-  evaluateGauge,
-  gaugeAlertSetup,
-  initialGaugeEvaluationState,
-  type EvaluatedReading,
-  type GaugeAlertSetup,
-  type GaugeEvaluationState,
-} from "@/lib/alerting/evaluate-gauge";
-import type { EpisodeEvent, Limit, Quantity, RosetteLimitQuantity, SensorFinding } from "@/lib/limits";
+import { evaluateGauge, gaugeAlertSetup, type EvaluatedReading, type GaugeAlertSetup } from "@/lib/alerting/evaluate-gauge";
+import { initialGaugeEvaluationState, parseGaugeEvaluationState, type GaugeEvaluationState } from "@/lib/alerting/evaluation-state";
+import { FLAP_WINDOW_MS, isFlappingNow, isFurther } from "@/lib/alerting/flapping";
+import { levelRank, type EpisodeEvent, type EpisodeState, type Limit, type Quantity, type RosetteLimitQuantity, type SensorFinding } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
-import { checkpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
+import { CHECKPOINTS_KEPT_MS, readableCheckpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
 import { limitOfRow } from "./limits";
+import { refreshStaleAlert } from "./stale-alerts";
 
 export type AlertCounts = { opened: number; escalated: number; cleared: number };
 
-type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
+export type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
+
+/**
+ * A stored state read back, checked: `rebuild` when it is missing its version or shape (written by
+ * an older build, or damaged), with `lastTime` the last reading it had seen, so the caller replays
+ * the stored readings instead of trusting it.
+ */
+export function storedStateOf(row: { state: unknown; lastTime: number | null } | undefined): { stored: StoredState; rebuildAfter: number | null } {
+  const fresh = { current: initialGaugeEvaluationState(), lastCheckpointAt: null };
+  if (!row) return { stored: fresh, rebuildAfter: null };
+  const value = row.state as { current?: unknown; lastCheckpointAt?: unknown } | null;
+  const current = parseGaugeEvaluationState(value?.current);
+  if (current) return { stored: { current, lastCheckpointAt: typeof value?.lastCheckpointAt === "number" ? value.lastCheckpointAt : null }, rebuildAfter: null };
+  return { stored: fresh, rebuildAfter: row.lastTime ?? 0 };
+}
 
 /** What a gauge's evaluation starts from; loaded for every gauge of a request at once. */
-type GaugeContext = { limits: Limit[]; stored: StoredState; openStaleAlert: Alert | undefined };
+type GaugeContext = { limits: Limit[]; stored: StoredState; rebuildAfter: number | null };
 
 async function loadContexts(tx: WriteTx, gaugeIds: number[]): Promise<Map<number, GaugeContext>> {
   const limitRows = await tx.select().from(gaugeLimits).where(inArray(gaugeLimits.gaugeId, gaugeIds));
   const stateRows = await tx.select().from(evaluationStates).where(inArray(evaluationStates.gaugeId, gaugeIds));
-  const staleAlerts = await tx
-    .select()
-    .from(alerts)
-    .where(and(inArray(alerts.gaugeId, gaugeIds), eq(alerts.kind, "sensor"), eq(alerts.code, "stale"), isNull(alerts.clearedAt)));
   const contexts = new Map<number, GaugeContext>();
   for (const gaugeId of gaugeIds) {
-    const state = stateRows.find((row) => row.gaugeId === gaugeId);
-    contexts.set(gaugeId, {
-      limits: limitRows.filter((row) => row.gaugeId === gaugeId).map(limitOfRow),
-      stored: state ? (state.state as StoredState) : { current: initialGaugeEvaluationState(), lastCheckpointAt: null },
-      openStaleAlert: staleAlerts.find((alert) => alert.gaugeId === gaugeId),
-    });
+    const { stored, rebuildAfter } = storedStateOf(stateRows.find((row) => row.gaugeId === gaugeId));
+    contexts.set(gaugeId, { limits: limitRows.filter((row) => row.gaugeId === gaugeId).map(limitOfRow), stored, rebuildAfter });
   }
   return contexts;
 }
@@ -44,14 +46,14 @@ async function loadContexts(tx: WriteTx, gaugeIds: number[]): Promise<Map<number
 /** A gauge's state after a batch, and its checkpoint when an hour has passed since the last one. */
 type StateUpdate = { gaugeId: number; lastTime: number | null; stored: StoredState; checkpoint: Checkpoint<GaugeEvaluationState> | null };
 
-function stateUpdate(gaugeId: number, stored: StoredState, state: GaugeEvaluationState): StateUpdate {
+export function stateUpdate(gaugeId: number, stored: StoredState, state: GaugeEvaluationState): StateUpdate {
   const lastTime = state.health.lastTime;
   const { lastCheckpointAt, checkpoint } = nextCheckpoint(lastTime, stored.lastCheckpointAt, state);
   return { gaugeId, lastTime, stored: { current: state, lastCheckpointAt }, checkpoint };
 }
 
 /** Saves every gauge's current state; checkpoints once an hour, kept three days, rather than a history each batch. */
-async function saveStates(tx: WriteTx, updates: readonly StateUpdate[]) {
+export async function saveStates(tx: WriteTx, updates: readonly StateUpdate[]) {
   if (updates.length === 0) return;
   await tx
     .insert(evaluationStates)
@@ -94,10 +96,12 @@ async function alreadyRecorded(tx: WriteTx, subject: AlertSubject, event: LimitE
   return rows.length > 0;
 }
 
-/** An alert event whose e-mails must go out. */
+/** An alert event whose e-mails must go out; `eventId` is its alert_events row, marked when the e-mail waits for the digest. */
 export type Notification =
-  | { kind: "limit"; alertId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
-  | { kind: "sensor"; alertId: number; type: "opened" | "cleared"; code: string; message: string; time: number };
+  | { kind: "limit"; alertId: number; eventId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
+  | { kind: "sensor"; alertId: number; eventId: number; type: "opened" | "cleared"; code: string; message: string; time: number; gauges?: string[] }
+  | { kind: "flapping"; alertId: number; type: "started"; openings: number; event: LimitEvent; rosette: string | null; since: number }
+  | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number };
 
 /**
  * Records a subject's limit events in time order. A replay from a checkpoint meets again the events
@@ -117,12 +121,61 @@ export async function applyLimitEvents(
   }
 }
 
+/** The alert an "opened" event continues: the subject's last one, cleared by the machine within the flapping window. */
+async function recentlyClearedAlert(tx: WriteTx, subject: AlertSubject, event: LimitEvent) {
+  const [row] = await tx
+    .select()
+    .from(alerts)
+    .where(
+      and(
+        eq(alerts.kind, "limit"),
+        limitAlertsOf(subject, event.quantity),
+        isNotNull(alerts.clearedAt),
+        isNull(alerts.settledAt),
+        gte(alerts.clearedAt, new Date(event.time - FLAP_WINDOW_MS)),
+        lte(alerts.clearedAt, new Date(event.time)),
+      ),
+    )
+    .orderBy(desc(alerts.clearedAt))
+    .limit(1);
+  return row;
+}
+
 async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitEvent, notifications: Notification[], counts: AlertCounts) {
   const { gauge, rosette } = subject;
   const at = new Date(event.time);
   const rosetteId = rosette?.id ?? null;
   let alertId: number | undefined;
-  if (event.type === "opened") {
+  let mailed = true;
+  const stillOpen = event.type === "opened" ? await openAlertWhere(tx, and(eq(alerts.kind, "limit"), limitAlertsOf(subject, event.quantity))) : undefined;
+  const reopened = event.type === "opened" && !stillOpen ? await recentlyClearedAlert(tx, subject, event) : undefined;
+  if (stillOpen) {
+    // A rebuilt state meets an episode whose alert is still open: the same alert goes on (one open alert per quantity), nobody is told twice.
+    alertId = stillOpen.id;
+    mailed = false;
+  } else if (reopened) {
+    // Back beyond soon after clearing: the same episode goes on, rather than a new alert and e-mail per crossing.
+    const openings = reopened.openings + 1;
+    const flapping = reopened.flappingSince !== null || isFlappingNow(openings);
+    const higher = levelRank(event.level) > levelRank(reopened.level);
+    const peak = higher || reopened.peak === null || isFurther(event.peak, reopened.peak, event.bound) ? { peak: event.peak, peakAt: new Date(event.peakAt) } : {};
+    await tx
+      .update(alerts)
+      .set({
+        clearedAt: null,
+        openings,
+        ...(flapping && reopened.flappingSince === null ? { flappingSince: at } : {}),
+        ...(higher ? { level: event.level, bound: event.bound } : {}),
+        ...peak,
+      })
+      .where(eq(alerts.id, reopened.id));
+    alertId = reopened.id;
+    mailed = higher || reopened.flappingSince === null;
+    if (flapping && reopened.flappingSince === null) {
+      notifications.push({ kind: "flapping", alertId, type: "started", openings, event, rosette: rosette?.tag ?? null, since: reopened.openedAt.getTime() });
+      mailed = higher;
+    }
+  } else if (event.type === "opened") {
     const [created] = await tx
       .insert(alerts)
       .values({
@@ -135,6 +188,7 @@ async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitE
         openedAt: at,
         bound: event.bound,
         peak: event.peak,
+        peakAt: new Date(event.peakAt),
       })
       .returning({ id: alerts.id });
     alertId = created!.id;
@@ -142,14 +196,58 @@ async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitE
     const open = await openAlertWhere(tx, and(eq(alerts.kind, "limit"), limitAlertsOf(subject, event.quantity)));
     if (!open) return;
     alertId = open.id;
+    const peak = { peak: event.peak, peakAt: new Date(event.peakAt) };
     await tx
       .update(alerts)
-      .set(event.type === "escalated" ? { level: event.level, bound: event.bound, peak: event.peak } : { clearedAt: at, peak: event.peak })
+      .set(event.type === "escalated" ? { level: event.level, bound: event.bound, ...peak } : { clearedAt: at, ...peak })
       .where(eq(alerts.id, open.id));
+    // A flapping alert's crossings are told by its summary; a higher level is always told at once.
+    mailed = open.flappingSince === null || event.type === "escalated";
   }
-  await tx.insert(alertEvents).values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" });
+  const [recorded] = await tx
+    .insert(alertEvents)
+    .values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" })
+    .returning({ id: alertEvents.id });
   counts[event.type] += 1;
-  notifications.push({ kind: "limit", alertId, type: event.type, event, rosette: rosette?.tag ?? null });
+  if (mailed) notifications.push({ kind: "limit", alertId, eventId: recorded!.id, type: event.type, event, rosette: rosette?.tag ?? null });
+}
+
+/**
+ * While an episode is open its alert follows the furthest value reached, not only the value at its
+ * last event: the API's `peak` and `peakAt`, the page and the e-mails read it from there.
+ */
+export async function followOpenPeaks(tx: WriteTx, subject: AlertSubject, before: Partial<Record<string, EpisodeState>>, after: Partial<Record<string, EpisodeState>>) {
+  for (const [quantity, episode] of Object.entries(after)) {
+    if (!episode?.episode || episode.peak === null || episode.peakAt === null) continue;
+    if (before[quantity]?.peakAt === episode.peakAt) continue;
+    await tx
+      .update(alerts)
+      .set({ peak: episode.peak, peakAt: new Date(episode.peakAt) })
+      .where(and(isNull(alerts.clearedAt), eq(alerts.kind, "limit"), limitAlertsOf(subject, quantity)));
+  }
+}
+
+/**
+ * A flapping alert has settled when it stayed cleared for the whole window: its summary e-mail
+ * goes out then, judged by the readings' own clock (the newest reading evaluated).
+ */
+async function settleFlapping(tx: WriteTx, subject: AlertSubject, upTo: number, notifications: Notification[]) {
+  const settled = await tx
+    .select()
+    .from(alerts)
+    .where(
+      and(
+        eq(alerts.gaugeId, subject.gauge.id),
+        eq(alerts.kind, "limit"),
+        isNotNull(alerts.flappingSince),
+        isNull(alerts.settledAt),
+        lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)),
+      ),
+    );
+  for (const alert of settled) {
+    await tx.update(alerts).set({ settledAt: new Date(upTo) }).where(eq(alerts.id, alert.id));
+    notifications.push({ kind: "flapping-settled", alertId: alert.id, alert, time: alert.clearedAt!.getTime() });
+  }
 }
 
 async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding, notifications: Notification[]) {
@@ -158,8 +256,11 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
   if (finding.event === "resolved") {
     if (!open) return;
     await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
-    await tx.insert(alertEvents).values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message });
-    notifications.push({ kind: "sensor", alertId: open.id, type: "cleared", code: finding.code, message: finding.message, time: finding.time });
+    const [event] = await tx
+      .insert(alertEvents)
+      .values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message })
+      .returning({ id: alertEvents.id });
+    notifications.push({ kind: "sensor", alertId: open.id, eventId: event!.id, type: "cleared", code: finding.code, message: finding.message, time: finding.time });
     return;
   }
   // A sensor already under an open alert for the same fault is not alerted again.
@@ -168,23 +269,38 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
     .insert(alerts)
     .values({ structureId: gauge.structureId, gaugeId: gauge.id, kind: "sensor", level: "warning", code: finding.code, message: finding.message, openedAt: at })
     .returning({ id: alerts.id });
-  await tx.insert(alertEvents).values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message });
-  notifications.push({ kind: "sensor", alertId: created!.id, type: "opened", code: finding.code, message: finding.message, time: finding.time });
+  const [event] = await tx
+    .insert(alertEvents)
+    .values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message })
+    .returning({ id: alertEvents.id });
+  notifications.push({ kind: "sensor", alertId: created!.id, eventId: event!.id, type: "opened", code: finding.code, message: finding.message, time: finding.time });
 }
 
-/** Data arriving again ends a "no data" alert. */
-async function clearStaleAlert(tx: WriteTx, open: Alert | undefined, time: number, notifications: Notification[]) {
-  if (!open || open.openedAt.getTime() > time) return;
-  const message = "Readings are arriving again.";
-  await tx.update(alerts).set({ clearedAt: new Date(time) }).where(eq(alerts.id, open.id));
-  await tx.insert(alertEvents).values({ alertId: open.id, type: "cleared", at: new Date(time), byLabel: "evaluation on ingest", text: message });
-  notifications.push({ kind: "sensor", alertId: open.id, type: "cleared", code: "stale", message, time });
+/** A replay reads back up to three days of a gauge's readings, with their stored verdicts: as plain rows, not mapped objects. */
+export async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: number): Promise<(EvaluatedReading & { faultBits: number })[]> {
+  const rows = await bulkSql(tx).rows("SELECT t, value, strain, stress, flags, fault FROM readings WHERE gauge_id = ? AND t > ? ORDER BY t", [gaugeId, after]);
+  return rows.map((row) => ({
+    time: row[0] as number,
+    raw: row[1] as number,
+    strain: row[2] as number,
+    stress: row[3] as number,
+    flags: row[4] as number,
+    faultBits: row[5] as number,
+  }));
 }
 
-/** A replay reads back up to three days of a gauge's readings: as plain rows, not mapped objects. */
-async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: number): Promise<EvaluatedReading[]> {
-  const rows = await bulkSql(tx).rows("SELECT t, value, strain, stress, flags FROM readings WHERE gauge_id = ? AND t > ? ORDER BY t", [gaugeId, after]);
-  return rows.map((row) => ({ time: row[0] as number, raw: row[1] as number, strain: row[2] as number, stress: row[3] as number, flags: row[4] as number }));
+/**
+ * Stores each reading's verdict with it. A replay judges its readings again, so their verdicts are
+ * all written (healthy ones back to 0); a batch in time only has its faulty ones to mark.
+ */
+export async function storeVerdicts(tx: WriteTx, gaugeId: number, verdicts: ReadonlyMap<number, number>, rejudged: readonly { time: number }[] = []) {
+  const raw = bulkSql(tx);
+  const byBits = new Map<number, number[]>();
+  for (const { time } of rejudged) if (!verdicts.has(time)) byBits.set(0, [...(byBits.get(0) ?? []), time]);
+  for (const [time, bits] of verdicts) byBits.set(bits, [...(byBits.get(bits) ?? []), time]);
+  for (const [bits, times] of byBits) {
+    await raw.rows("UPDATE readings SET fault = ? WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?)) RETURNING 1", [bits, gaugeId, JSON.stringify(times)]);
+  }
 }
 
 /** A gauge and the readings this request stored for it. */
@@ -193,6 +309,9 @@ export type InsertedReadings = { gauge: Gauge; readings: readonly EvaluatedReadi
 /** By gauge id, the times of readings the gauge's evaluation took as faults; gauges without any are absent. */
 export type FaultTimesByGauge = ReadonlyMap<number, ReadonlySet<number>>;
 
+/** The evaluation of a request: what it raised, which readings limits skipped, and which sensor health found faulty (to keep out of roll-ups). */
+export type RequestEvaluation = { counts: AlertCounts; faultTimes: FaultTimesByGauge; quarantined: FaultTimesByGauge };
+
 /**
  * Evaluates each gauge's newly stored readings against its limits and sensor health, inside the
  * ingestion transaction, and records what opened, escalated or cleared. Readings older than a
@@ -200,20 +319,24 @@ export type FaultTimesByGauge = ReadonlyMap<number, ReadonlySet<number>>;
  * recorded before are not raised twice. Also answers which readings it took as faults (replayed
  * ones included), for the rosettes on these gauges.
  */
-export async function evaluateInsertedReadings(tx: WriteTx, inserted: readonly InsertedReadings[]): Promise<{ counts: AlertCounts; faultTimes: FaultTimesByGauge }> {
+export async function evaluateInsertedReadings(tx: WriteTx, inserted: readonly InsertedReadings[]): Promise<RequestEvaluation> {
   const counts: AlertCounts = { opened: 0, escalated: 0, cleared: 0 };
   const faultTimes = new Map<number, ReadonlySet<number>>();
+  const quarantined = new Map<number, ReadonlySet<number>>();
   const batches = inserted.filter(({ readings }) => readings.length > 0);
-  if (batches.length === 0) return { counts, faultTimes };
+  if (batches.length === 0) return { counts, faultTimes, quarantined };
   const contexts = await loadContexts(tx, batches.map(({ gauge }) => gauge.id));
   const updates: StateUpdate[] = [];
   for (const { gauge, readings } of batches) {
-    const { update, faults } = await evaluateGaugeReadings(tx, gauge, readings, contexts.get(gauge.id)!, counts);
+    const { update, faults, verdicts } = await evaluateGaugeReadings(tx, gauge, readings, contexts.get(gauge.id)!, counts);
     updates.push(update);
     if (faults.length > 0) faultTimes.set(gauge.id, new Set(faults));
+    if (verdicts.size > 0) quarantined.set(gauge.id, new Set(verdicts.keys()));
   }
   await saveStates(tx, updates);
-  return { counts, faultTimes };
+  const newest = Math.max(...batches.map(({ readings }) => readings.reduce((latest, reading) => Math.max(latest, reading.time), -Infinity)));
+  await refreshStaleAlert(tx, batches[0]!.gauge.structureId, newest);
+  return { counts, faultTimes, quarantined };
 }
 
 async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readonly EvaluatedReading[], context: GaugeContext, counts: AlertCounts) {
@@ -221,8 +344,15 @@ async function evaluateGaugeReadings(tx: WriteTx, gauge: Gauge, inserted: readon
   const { stored } = context;
   const lastTime = stored.current.health.lastTime;
   const earliest = inserted.reduce((least, reading) => Math.min(least, reading.time), Infinity);
+  if (context.rebuildAfter !== null) {
+    // A state this build cannot read: rebuilt from nothing over the readings checkpoints would cover, events already recorded kept.
+    const from = Math.min(earliest - 1, context.rebuildAfter) - CHECKPOINTS_KEPT_MS;
+    await dropCheckpointsAfter(tx, evaluationCheckpoints, gauge.id, from);
+    const replayed = await storedReadingsAfter(tx, gauge.id, from);
+    return applyEvaluation(tx, gauge, setup, context, stored, replayed, counts, true);
+  }
   const late = lastTime !== null && earliest <= lastTime;
-  const checkpoint = late ? await checkpointBefore<GaugeEvaluationState>(tx, evaluationCheckpoints, gauge.id, earliest) : undefined;
+  const checkpoint = late ? await readableCheckpointBefore(tx, evaluationCheckpoints, gauge.id, earliest, parseGaugeEvaluationState) : undefined;
   if (!checkpoint) {
     // In time, or too late for any checkpoint: the machines skip what is older than they have seen.
     const batch = [...inserted].sort((a, b) => a.time - b.time);
@@ -243,20 +373,16 @@ async function applyEvaluation(
   batch: EvaluatedReading[],
   counts: AlertCounts,
   replayed = false,
-): Promise<{ update: StateUpdate; faults: number[] }> {
+): Promise<{ update: StateUpdate; faults: number[]; verdicts: Map<number, number> }> {
   const notifications: Notification[] = [];
+  const subject = { gauge, rosette: null };
   const result = evaluateGauge(setup, from.current, batch);
-  await applyLimitEvents(tx, { gauge, rosette: null }, result.events, replayed, notifications, counts);
+  await applyLimitEvents(tx, subject, result.events, replayed, notifications, counts);
+  await followOpenPeaks(tx, subject, from.current.episodes, result.state.episodes);
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
-  if (batch.length > 0) await clearStaleAlert(tx, context.openStaleAlert, batch.at(-1)!.time, notifications);
+  await storeVerdicts(tx, gauge.id, result.verdicts, replayed ? batch : []);
+  if (batch.length > 0) await settleFlapping(tx, subject, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
-  return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes };
+  return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes, verdicts: result.verdicts };
 }
 
-/** Raises (or resolves) one sensor finding found outside ingestion, such as a gauge gone silent. */
-export async function raiseSensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFinding): Promise<Notification[]> {
-  const notifications: Notification[] = [];
-  await applySensorFinding(tx, gauge, finding, notifications);
-  await queueAlertMails(tx, gauge, notifications);
-  return notifications;
-}

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, desc, eq, inArray, isNotNull, isNull, lt, or, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, inArray, isNotNull, isNull, lt, ne, or, type SQL } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, gauges, rosettes, structures, users, type Alert } from "@/db/schema";
 import { actorLabel, type Actor } from "@/lib/auth/actor";
@@ -7,6 +7,7 @@ import { requirePermission } from "@/lib/auth/authorize";
 import { AppError } from "@/lib/errors";
 import type { AlertFilter, AlertState } from "@/lib/alerting/filters";
 import { recordAudit } from "./audit";
+import { restartAfterHandClear } from "./evaluation-control";
 import { resolveGauge } from "./gauges";
 import { getVisibleStructure, listStructuresFor } from "./structures";
 
@@ -27,6 +28,12 @@ export type AlertView = {
   openedAt: string;
   bound: number | null;
   peak: number | null;
+  /** When the episode reached `peak`. */
+  peakAt: string | null;
+  /** How many times the episode opened; more than once when it came back soon after clearing. */
+  openings: number;
+  /** Since when the alert is flapping (re-opening again and again), or null. */
+  flappingSince: string | null;
   acknowledgedAt: string | null;
   acknowledgedBy: string | null;
   clearedAt: string | null;
@@ -120,6 +127,9 @@ function toAlertView({ alert, structure, gauge, rosette, acknowledgedBy }: Alert
     openedAt: alert.openedAt.toISOString(),
     bound: alert.bound,
     peak: alert.peak,
+    peakAt: iso(alert.peakAt),
+    openings: alert.openings,
+    flappingSince: iso(alert.flappingSince),
     acknowledgedAt: iso(alert.acknowledgedAt),
     acknowledgedBy,
     clearedAt: iso(alert.clearedAt),
@@ -196,15 +206,20 @@ export async function handleAlert(actor: Actor, id: number, handling: Handling, 
   const { row, structure } = await resolveAlert(actor, id);
   await requirePermission(actor, handling === "note" ? "structure:view" : "alert:acknowledge", structure);
   if (handling === "note" && actor.kind !== "user") throw new AppError("forbidden", "Notes are written by people.");
+  if (handling === "cleared" && row.alert.kind === "sensor" && row.alert.code === "jump" && !row.alert.clearedAt) {
+    throw new AppError("conflict", "A jump is resolved, not cleared: accept the step as real, or record a new zero.", { field: "handling" });
+  }
   const now = new Date();
   const change: Partial<Alert> =
     handling === "acknowledged"
       ? { acknowledgedAt: row.alert.acknowledgedAt ?? now, acknowledgedById: actor.kind === "user" ? actor.id : null, comment: text }
       : handling === "cleared"
-        ? { clearedAt: row.alert.clearedAt ?? now }
+        ? // settled: cleared by a person, it is not re-opened as flapping; the next crossing is a new alert
+          { clearedAt: row.alert.clearedAt ?? now, settledAt: row.alert.settledAt ?? now }
         : {};
   await writeTransaction(async (tx) => {
     if (Object.keys(change).length > 0) await tx.update(alerts).set(change).where(eq(alerts.id, id));
+    if (handling === "cleared" && !row.alert.clearedAt && row.alert.kind === "limit") await restartAfterHandClear(tx, row.alert);
     await tx.insert(alertEvents).values({
       alertId: id,
       type: handling,
@@ -223,4 +238,29 @@ export async function handleAlert(actor: Actor, id: number, handling: Handling, 
     });
   });
   return (await getAlert(actor, id)).alert;
+}
+
+/** A gauge's unresolved sensor faults: since when (the earliest still open) and which. */
+export type SensorFaultStatus = { since: Date; faults: string[] };
+
+/**
+ * Which of these gauges are in an unresolved sensor fault (flat line, jump, out of range; "no data"
+ * is staleness, answered apart), since when and which faults: an open sensor alert is the record
+ * of it. A held jump stays here until an engineer resolves it, so the gauge's condition can say
+ * `sensor-fault` and its limits are not being checked. Gauges without any are absent.
+ */
+export async function openSensorFaults(gaugeIds: readonly number[]): Promise<Map<number, SensorFaultStatus>> {
+  const faults = new Map<number, SensorFaultStatus>();
+  if (gaugeIds.length === 0) return faults;
+  const rows = await getDb()
+    .select({ gaugeId: alerts.gaugeId, code: alerts.code, openedAt: alerts.openedAt })
+    .from(alerts)
+    .where(and(inArray(alerts.gaugeId, [...gaugeIds]), eq(alerts.kind, "sensor"), isNull(alerts.clearedAt), ne(alerts.code, "stale")))
+    .orderBy(alerts.openedAt);
+  for (const { gaugeId, code, openedAt } of rows) {
+    const status = faults.get(gaugeId) ?? { since: openedAt, faults: [] };
+    if (code && !status.faults.includes(code)) status.faults.push(code);
+    faults.set(gaugeId, status);
+  }
+  return faults;
 }

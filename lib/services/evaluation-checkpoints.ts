@@ -11,7 +11,7 @@ export type Checkpoint<State> = { time: number; state: State };
 
 const CHECKPOINT_SPACING_MS = 3_600_000;
 /** Three days of hourly checkpoints: readings later than that are stored but not evaluated for alerts. */
-const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
+export const CHECKPOINTS_KEPT_MS = 3 * 86_400_000;
 
 /** After a batch ending at `lastTime`: the state is a checkpoint once an hour, rather than after every batch. */
 export function nextCheckpoint<State>(
@@ -33,7 +33,7 @@ export async function saveCheckpoints(tx: WriteTx, table: CheckpointTable, check
   await tx.delete(table).where(and(inArray(table.ownerId, ownerIds), lt(table.time, cutoff)));
 }
 
-export async function checkpointBefore<State>(tx: WriteTx, table: CheckpointTable, ownerId: number, time: number): Promise<Checkpoint<State> | undefined> {
+async function checkpointBefore<State>(tx: WriteTx, table: CheckpointTable, ownerId: number, time: number): Promise<Checkpoint<State> | undefined> {
   const [row] = await tx
     .select()
     .from(table)
@@ -41,6 +41,19 @@ export async function checkpointBefore<State>(tx: WriteTx, table: CheckpointTabl
     .orderBy(desc(table.time))
     .limit(1);
   return row && { time: row.time, state: row.state as State };
+}
+
+/** The checkpoint before `time` if `parse` (the state's schema check) can read it; an older build's is passed over as if absent. */
+export async function readableCheckpointBefore<State>(
+  tx: WriteTx,
+  table: CheckpointTable,
+  ownerId: number,
+  time: number,
+  parse: (stored: unknown) => State | null,
+): Promise<Checkpoint<State> | undefined> {
+  const checkpoint = await checkpointBefore<unknown>(tx, table, ownerId, time);
+  const state = checkpoint && parse(checkpoint.state);
+  return state ? { time: checkpoint!.time, state } : undefined;
 }
 
 /** A replay rewrites what happened after its checkpoint, so later checkpoints no longer hold. */

@@ -12,9 +12,15 @@ import {
   createFatigueHistory,
   createFatigueTally,
   damageRatePerYear,
+  equivalentRange,
+  minerDamage,
+  rainflowMatrix,
+  totalCycleCount,
   yearsToReachDamage,
   type RainflowMatrix,
 } from "@/lib/fatigue";
+import { mergeHistograms, occupiedBins } from "@/lib/dynamic";
+import { dailyHistograms } from "./dynamic-data";
 import { initialSensorHealthState, inspectReadings } from "@/lib/limits";
 import { Flag, isOutOfRange } from "@/lib/mechanics";
 import { resolveGauge } from "./gauges";
@@ -78,6 +84,7 @@ const longestCoveredIntervalMs = (gauge: Gauge) => STALE_AFTER_INTERVALS * (gaug
  * Fatigue of one gauge over [from, to): rainflow counting (ASTM E1049) over the stored stress,
  * S-N curve of the detail category, Miner sum. The history streams through in pages and is never
  * held whole; the residue at the end of the period counts as half cycles, as the standard says.
+ * A dynamic gauge sums the histograms stored from its bursts instead (source "bursts").
  * Category: the one asked for, else the gauge's own, else the caller must choose one.
  */
 export async function gaugeFatigue(
@@ -97,6 +104,12 @@ export async function gaugeFatigue(
     );
   }
 
+  if (gauge.sampling.mode === "dynamic") return burstFatigue(gauge, category, query);
+  return readingFatigue(gauge, category, query, options.pageSize ?? PAGE_SIZE);
+}
+
+/** The static path: rainflow over the stored readings, paged. */
+async function readingFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }, pageSize: number): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
   const history = createFatigueHistory(await zeroEpochStarts(gauge), longestCoveredIntervalMs(gauge));
   const tally = createFatigueTally(category, FATIGUE_RANGE_BIN_MPA, FATIGUE_MEAN_BIN_MPA);
   const healthThresholds = defaultHealthThresholds(gauge.input);
@@ -106,7 +119,7 @@ export async function gaugeFatigue(
   let readingsOutsideLinearRange = 0;
   let first: number | null = null;
   let last: number | null = null;
-  for await (const page of readingPages(gauge.id, query.from.getTime(), query.to.getTime(), options.pageSize ?? PAGE_SIZE)) {
+  for await (const page of readingPages(gauge.id, query.from.getTime(), query.to.getTime(), pageSize)) {
     // Times are unique and ascending, so the inspection keeps every reading, in the page's order.
     const inspection = inspectReadings(healthThresholds, health, page.map((reading) => ({ time: reading.time, raw: reading.value, value: reading.strain })));
     health = inspection.state;
@@ -134,6 +147,9 @@ export async function gaugeFatigue(
   return {
     fatigue: {
       ...summary,
+      source: "readings",
+      equivalentRange: equivalentRange(summary.cycles),
+      damagePerDay: [],
       from: query.from.toISOString(),
       to: query.to.toISOString(),
       periodSeconds: (query.to.getTime() - query.from.getTime()) / 1000,
@@ -153,5 +169,55 @@ export async function gaugeFatigue(
       yearsToDamageOne: years !== null && Number.isFinite(years) ? years : null,
     },
     matrix: tally.matrix(),
+  };
+}
+
+/**
+ * The dynamic path: the rainflow histograms stored from the gauge's bursts over the period,
+ * summed. Ranges are the bins' upper edges, so damage errs on the safe side of the binning;
+ * the half cycles still open in the newest burst's residue are not in any histogram yet.
+ * Means are not kept per cycle, so the matrix has a single mean column at 0. Bursts are the
+ * covered time: the rate divides by the seconds of samples, not the span between them.
+ */
+async function burstFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
+  const stored = await dailyHistograms(gauge.id, { from: query.from.getTime(), to: query.to.getTime() });
+  const days = stored ? [...stored.days] : [];
+  const total = days.length === 0 ? null : days.slice(1).reduce((sum, [, histogram]) => mergeHistograms(sum, histogram), days[0]![1]);
+  const cycles = total ? occupiedBins(total) : [];
+  const damage = minerDamage(cycles, category);
+  const rateHz = gauge.sampling.mode === "dynamic" ? gauge.sampling.rateHz : 1;
+  const coveredSeconds = stored ? stored.samples / rateHz : 0;
+  const rate = coveredSeconds > 0 ? damageRatePerYear(damage, coveredSeconds) : null;
+  const years = rate === null ? null : yearsToReachDamage(rate);
+  const binWidth = total?.binWidth ?? (gauge.sampling.mode === "dynamic" ? gauge.sampling.rangeBin : FATIGUE_RANGE_BIN_MPA);
+  return {
+    fatigue: {
+      cycles,
+      damage,
+      category,
+      cyclesCounted: totalCycleCount(cycles),
+      source: "bursts",
+      equivalentRange: equivalentRange(cycles),
+      damagePerDay: days.map(([day, histogram]) => ({ day: new Date(day).toISOString().slice(0, 10), damage: minerDamage(occupiedBins(histogram), category) })),
+      from: query.from.toISOString(),
+      to: query.to.toISOString(),
+      periodSeconds: (query.to.getTime() - query.from.getTime()) / 1000,
+      firstReading: stored ? new Date(stored.first).toISOString() : null,
+      lastReading: stored ? new Date(stored.last).toISOString() : null,
+      observedSeconds: stored ? (stored.last - stored.first) / 1000 : 0,
+      coveredSeconds,
+      gapsLeftOut: 0,
+      gapSeconds: 0,
+      longestCoveredIntervalSeconds: longestCoveredIntervalMs(gauge) / 1000,
+      zeroEpochs: 1,
+      readingsUsed: 0,
+      readingsOutsideLinearRange: 0,
+      readingsSkipped: 0,
+      samplesCounted: stored?.samples ?? 0,
+      rangeBinWidth: binWidth,
+      damageRatePerYear: rate,
+      yearsToDamageOne: years !== null && Number.isFinite(years) ? years : null,
+    },
+    matrix: rainflowMatrix(cycles.map((bin) => ({ ...bin, mean: 0 })), binWidth, FATIGUE_MEAN_BIN_MPA),
   };
 }

@@ -10,6 +10,7 @@ import { gaugeColumns, gaugeFieldsOf } from "@/lib/gauges/record";
 import { gaugeInput, type GaugeFields, type GaugeInput, type ZeroRequest } from "@/lib/gauges/schema";
 import { parseWith } from "@/lib/validation";
 import { recordAudit } from "./audit";
+import { restartGaugeEvaluation } from "./evaluation-control";
 import { getVisibleStructure } from "./structures";
 
 export type GaugeView = GaugeFields & {
@@ -183,6 +184,9 @@ export async function updateGauge(actor: Actor, code: string, tag: string, patch
       .where(eq(gauges.id, gauge.id));
     if ("zero" in changed) {
       await insertZeroHistory(tx, actor, gauge.id, { ...after.zero, time: zeroTime }, "typed", reason ?? "edited with the gauge");
+      await restartGaugeEvaluation(tx, gauge, { kind: "zero" }, actorLabel(actor));
+    } else if ("material" in changed) {
+      await restartGaugeEvaluation(tx, gauge, { kind: "material" }, actorLabel(actor));
     }
     await recordAudit(tx, { actor, action: "gauge.update", entityType: "gauge", entityKey: gaugeKey(structure, tag), structureId: structure.id, before: old, after: changed });
   });
@@ -269,6 +273,7 @@ export async function recordZero(actor: Actor, code: string, tag: string, reques
       .set({ zeroValue: zero.value, zeroTemperature: zero.temperature, zeroTime: zero.time, updatedAt: new Date() })
       .where(eq(gauges.id, gauge.id));
     await insertZeroHistory(tx, actor, gauge.id, zero, source, reason);
+    await restartGaugeEvaluation(tx, gauge, { kind: "zero" }, actorLabel(actor));
     await recordAudit(tx, {
       actor,
       action: "gauge.zero",

@@ -16,7 +16,7 @@ import { prepareGauge } from "@/lib/mechanics";
 import { isTimeZone } from "@/lib/validation";
 import { gaugeRowsOf } from "./gauges";
 import { getVisibleStructure } from "./structures";
-import { evaluateInsertedReadings } from "./alert-raising";
+import { evaluateInsertedReadings, type FaultTimesByGauge } from "./alert-raising";
 import { evaluateRosetteLimits } from "./rosette-alert-raising";
 
 /** Per request, as the API documents them; bigger logger files go through /uploads. */
@@ -95,7 +95,7 @@ export async function ingestDecoded(target: IngestTarget, readings: Iterable<Dec
 const MAX_TAGS_LOOKED_UP = 500;
 
 /** The gauge tags a JSON batch names, or undefined when it names too many to look up one by one. */
-function tagsNamed(readings: readonly unknown[]): string[] | undefined {
+export function tagsNamed(readings: readonly unknown[]): string[] | undefined {
   const tags = new Set<string>();
   for (const reading of readings) {
     const gauge = (reading as { gauge?: unknown } | null)?.gauge;
@@ -149,15 +149,22 @@ const NO_ALERTS: AlertCounts = Object.freeze({ opened: 0, escalated: 0, cleared:
 async function storeBatch(target: IngestTarget, batch: PreparedBatch, onStored?: (inserted: readonly GaugeRows[]) => void): Promise<IngestResult> {
   const valid = rowCount(batch.gauges);
   if (valid === 0) return { accepted: 0, duplicates: batch.repeats, rejected: batch.rejected, alerts: { ...NO_ALERTS } };
-  const { inserted, alerts } = await writeTransaction(async (tx) => {
-    const stored = await insertReadings(tx, batch.gauges);
-    await mergeRollups(tx, stored);
-    return { inserted: stored, alerts: await evaluateLimits(tx, target, stored) };
-  });
+  const { inserted, accepted, alerts } = await writeTransaction((tx) => storeConvertedReadings(tx, target, batch.gauges));
   // Told only once committed, so a batch that failed is never counted as arrived.
   onStored?.(inserted);
-  const accepted = rowCount(inserted);
   return { accepted, duplicates: valid - accepted + batch.repeats, rejected: batch.rejected, alerts };
+}
+
+/**
+ * Inside the caller's transaction: stores converted readings (per gauge in time order, one per
+ * time) that are not stored yet, their roll-ups and the limit evaluation. Bursts use it for
+ * their extremes, which limits take as readings at their own instants.
+ */
+export async function storeConvertedReadings(tx: WriteTx, target: IngestTarget, gauges: readonly GaugeRows[]): Promise<{ inserted: readonly GaugeRows[]; accepted: number; alerts: AlertCounts }> {
+  const inserted = await insertReadings(tx, gauges);
+  const evaluation = await evaluateLimits(tx, target, inserted);
+  await mergeRollups(tx, withoutQuarantined(inserted, evaluation.quarantined));
+  return { inserted, accepted: rowCount(inserted), alerts: evaluation.counts };
 }
 
 /**
@@ -165,7 +172,7 @@ async function storeBatch(target: IngestTarget, batch: PreparedBatch, onStored?:
  * duplicates), per gauge in time order, then for the rosettes those gauges belong to, so alerts
  * open, escalate and clear, and their e-mails are queued, atomically with the readings that caused them.
  */
-async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<AlertCounts> {
+async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: readonly GaugeRows[]): Promise<{ counts: AlertCounts; quarantined: FaultTimesByGauge }> {
   const total = { ...NO_ALERTS };
   const add = (counts: AlertCounts) => {
     total.opened += counts.opened;
@@ -183,7 +190,21 @@ async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: reado
   const gaugesById = new Map([...target.gauges.values()].map((entry) => [entry.id, entry.row]));
   const times = inserted.filter((rows) => rows.time.length > 0).map((rows) => ({ gaugeId: rows.gaugeId, times: rows.time }));
   add(await evaluateRosetteLimits(tx, target.structure.id, gaugesById, times, gauges.faultTimes));
-  return total;
+  return { counts: total, quarantined: gauges.quarantined };
+}
+
+/**
+ * Roll-ups summarise what the structure did, so readings sensor health found faulty stay out of
+ * their extremes, sums and counts (they stay stored, marked by `readings.fault`). A replay may change
+ * the verdict of readings rolled up by an earlier request; those roll-ups are left as they were.
+ */
+function withoutQuarantined(inserted: readonly GaugeRows[], quarantined: FaultTimesByGauge): GaugeRows[] {
+  return inserted.map((rows) => {
+    const faulty = quarantined.get(rows.gaugeId);
+    if (!faulty) return rows;
+    const kept = rows.time.flatMap((time, i) => (faulty.has(time) ? [] : [i]));
+    return selectRows(rows, kept);
+  });
 }
 
 const READING_COLUMNS = 7;

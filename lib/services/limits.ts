@@ -3,13 +3,14 @@ import { and, asc, eq, gte, lt } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, writeTransaction } from "@/db/client";
 import { gaugeLimits, readings, type Gauge } from "@/db/schema";
-import type { Actor } from "@/lib/auth/actor";
+import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { episodesOf, type AlertEpisode } from "@/lib/alerting/episodes";
 import { evaluateGauge, gaugeAlertSetup, initialGaugeEvaluationState, type EvaluatedReading } from "@/lib/alerting/evaluate-gauge";
 import type { limitsBody } from "@/lib/alerting/schema";
 import { AppError } from "@/lib/errors";
 import { validateLimits, type Limit, type LimitInput as ProposedLimit, type LimitSetValidation, type Quantity } from "@/lib/limits";
 import { recordAudit } from "./audit";
+import { restartGaugeEvaluation } from "./evaluation-control";
 import { resolveGauge } from "./gauges";
 
 type LimitInput = z.output<typeof limitsBody>["limits"][number];
@@ -62,12 +63,34 @@ export async function getLimits(actor: Actor, code: string, tag: string): Promis
   return limitsOfGauge(gauge.id);
 }
 
-/** Replaces the gauge's whole limit set; an open alert stays open and clears against the new bounds. */
+/** Of the quantities limited before or after, those whose limits went, and those whose limits changed. */
+export function limitChanges<Q extends string>(before: readonly Limit<Q>[], after: readonly Limit<Q>[]): { removed: Q[]; changed: Q[] } {
+  const setOf = (limits: readonly Limit<Q>[], quantity: Q) =>
+    JSON.stringify(
+      limits
+        .filter((limit) => limit.quantity === quantity)
+        .map((limit) => [limit.level, limit.upper ?? null, limit.lower ?? null, limit.hysteresis, limit.persistence])
+        .sort(),
+    );
+  const removed: Q[] = [];
+  const changed: Q[] = [];
+  for (const quantity of new Set(before.map((limit) => limit.quantity))) {
+    if (!after.some((limit) => limit.quantity === quantity)) removed.push(quantity);
+    else if (setOf(before, quantity) !== setOf(after, quantity)) changed.push(quantity);
+  }
+  return { removed, changed };
+}
+
+/**
+ * Replaces the gauge's whole limit set. A quantity whose limits went or changed starts its
+ * evaluation again and its open alert closes, saying why; unchanged quantities go on as they were.
+ */
 export async function replaceLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[]): Promise<Limit[]> {
   const { structure, gauge } = await resolveGauge(actor, code, tag, "limits:edit");
   const limits = checkedLimits(gauge, inputs);
   const before = await limitsOfGauge(gauge.id);
   await writeTransaction(async (tx) => {
+    await restartGaugeEvaluation(tx, gauge, { kind: "limits", ...limitChanges(before, limits) }, actorLabel(actor));
     await tx.delete(gaugeLimits).where(eq(gaugeLimits.gaugeId, gauge.id));
     if (limits.length > 0) {
       await tx.insert(gaugeLimits).values(limits.map((limit) => ({ gaugeId: gauge.id, upper: null, lower: null, ...limit })));

@@ -1,10 +1,11 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { getDb, isUniqueViolation, writeTransaction } from "@/db/client";
-import { structureMembers, structures, users } from "@/db/schema";
+import { structureMembers, structures, users, type AlertMailMode } from "@/db/schema";
 import type { Actor, UserActor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { AppError, notFound } from "@/lib/errors";
+import { sensorMailOf } from "./alert-mail";
 import { recordAudit } from "./audit";
 import { findStructureByCode, getVisibleStructure } from "./structures";
 import { findUserByEmail } from "./users";
@@ -81,22 +82,27 @@ export async function removeMember(actor: Actor, email: string, structureCode: s
   });
 }
 
-/** A member's own choice: each alert e-mail as it happens, or one daily digest. */
-export async function setAlertMailMode(actor: UserActor, structureCode: string, mode: "immediate" | "digest"): Promise<void> {
+/**
+ * A member's own choice: each alert e-mail as it happens, or one daily digest; for `sensor` faults
+ * apart (by default owners get those in the digest, lib/services/alert-mail's sensorMailOf).
+ */
+export async function setAlertMailMode(actor: UserActor, structureCode: string, mode: "immediate" | "digest", which: "alerts" | "sensor" = "alerts"): Promise<void> {
   const structure = await getVisibleStructure(actor, structureCode);
   const updated = await getDb()
     .update(structureMembers)
-    .set({ alertMail: mode })
+    .set(which === "alerts" ? { alertMail: mode } : { sensorMail: mode })
     .where(and(eq(structureMembers.structureId, structure.id), eq(structureMembers.userId, actor.id)))
     .returning({ userId: structureMembers.userId });
   if (updated.length === 0) throw new AppError("bad_request", `You are not a member of ${structure.code}, so you receive no alert e-mails for it.`);
 }
 
-export async function alertMailModeOf(userId: number, structureId: number): Promise<"immediate" | "digest" | null> {
+/** A member's e-mail choices for a structure, the sensor one as it applies when not chosen (sensorMailOf); null when not a member. */
+export async function alertMailModeOf(userId: number, structureId: number): Promise<{ alerts: AlertMailMode; sensor: AlertMailMode } | null> {
   const [row] = await getDb()
-    .select({ mode: structureMembers.alertMail })
+    .select({ alertMail: structureMembers.alertMail, sensorMail: structureMembers.sensorMail, role: users.role })
     .from(structureMembers)
+    .innerJoin(users, eq(users.id, structureMembers.userId))
     .where(and(eq(structureMembers.structureId, structureId), eq(structureMembers.userId, userId)))
     .limit(1);
-  return row?.mode ?? null;
+  return row ? { alerts: row.alertMail, sensor: sensorMailOf(row) } : null;
 }

@@ -9,9 +9,10 @@ import {
   type MatchedInstant,
   type RosetteEvaluationState,
 } from "@/lib/alerting/evaluate-rosette";
+import { parseRosetteEvaluationState } from "@/lib/alerting/evaluation-state";
 import { applyLimitEvents, type AlertCounts, type FaultTimesByGauge, type Notification } from "./alert-raising";
 import { queueAlertMails } from "./alert-mail";
-import { checkpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
+import { CHECKPOINTS_KEPT_MS, readableCheckpointBefore, dropCheckpointsAfter, nextCheckpoint, saveCheckpoints, type Checkpoint } from "./evaluation-checkpoints";
 import { limitOfRow } from "./limits";
 import { MATCHED_STRAINS, matchedInstantOf, matchedStrainsArgs } from "./rosette-series";
 import type { RosetteLimit } from "./rosette-limits";
@@ -22,8 +23,8 @@ type StoredRosetteState = RosetteEvaluationState & { lastCheckpointAt?: number |
 /** The times one gauge received in this request, in order. */
 export type InsertedTimes = { gaugeId: number; times: readonly number[] };
 
-/** A rosette with limits whose gauges received readings in this request, and where its evaluation stands. */
-type RosetteContext = { rosette: Rosette; gaugeA: Gauge; limits: RosetteLimit[]; touched: InsertedTimes[]; stored: StoredRosetteState };
+/** A rosette with limits whose gauges received readings in this request, and where its evaluation stands; `rebuild` when its stored state was unreadable. */
+type RosetteContext = { rosette: Rosette; gaugeA: Gauge; limits: RosetteLimit[]; touched: InsertedTimes[]; stored: StoredRosetteState; rebuild: boolean };
 
 type StateUpdate = { rosetteId: number; stored: StoredRosetteState; checkpoint: Checkpoint<RosetteEvaluationState> | null };
 
@@ -45,8 +46,9 @@ async function loadContexts(tx: WriteTx, structureId: number, gaugesById: Readon
     const limits = limitRows.filter((row) => row.rosetteId === rosette.id).map(limitOfRow);
     if (limits.length === 0) return [];
     const gaugeA = gaugesById.get(rosette.gaugeAId) ?? loaded.find((gauge) => gauge.id === rosette.gaugeAId)!;
-    const state = stateRows.find((row) => row.rosetteId === rosette.id);
-    return [{ rosette, gaugeA, limits, touched, stored: state ? (state.state as StoredRosetteState) : initialRosetteEvaluationState() }];
+    const row = stateRows.find((candidate) => candidate.rosetteId === rosette.id);
+    const stored = row ? parseRosetteEvaluationState(row.state) : null;
+    return [{ rosette, gaugeA, limits, touched, stored: stored ?? initialRosetteEvaluationState(), rebuild: row !== undefined && stored === null }];
   });
 }
 
@@ -117,10 +119,15 @@ async function evaluateRosetteInstants(tx: WriteTx, context: RosetteContext, fau
   const { rosette, touched, stored } = context;
   const first = Math.min(...touched.map(({ times }) => times[0]!));
   const last = Math.max(...touched.map(({ times }) => times.at(-1)!));
+  if (context.rebuild) {
+    // A state this build cannot read: rebuilt from nothing over the instants checkpoints would cover, events already recorded kept.
+    const from = first - CHECKPOINTS_KEPT_MS;
+    await dropCheckpointsAfter(tx, rosetteEvaluationCheckpoints, rosette.id, from);
+    return applyEvaluation(tx, context, stored, await matchedInstants(tx, rosette, from, last + 1), faults, counts, true);
+  }
   const { lastTime } = stored;
   const lateInstant = lastTime !== null && first <= lastTime ? await earliestCompletedInstant(tx, rosette, touched, first, Math.min(last, lastTime)) : undefined;
-  const checkpoint =
-    lateInstant === undefined ? undefined : await checkpointBefore<RosetteEvaluationState>(tx, rosetteEvaluationCheckpoints, rosette.id, lateInstant);
+  const checkpoint = lateInstant === undefined ? undefined : await readableCheckpointBefore(tx, rosetteEvaluationCheckpoints, rosette.id, lateInstant, parseRosetteEvaluationState);
   if (!checkpoint) {
     // In time, or too late for any checkpoint: only instants after the last one evaluated count.
     const start = lastTime === null ? first : Math.max(first, lastTime + 1);

@@ -18,7 +18,10 @@ import { apiRequest, makeStructure, makeUser, params, userToken } from "./helper
 const tokens: Record<string, string> = {};
 let engineer: UserActor;
 let owner: UserActor;
-const T0 = Date.UTC(2026, 10, 1);
+const HOUR = 3_600_000;
+const DAY = 86_400_000;
+// Recent readings: events about readings more than a day old are left to the digest rather than mailed at once.
+const T0 = Math.floor(Date.now() / HOUR) * HOUR - 20 * HOUR;
 const TEN_MINUTES = 600_000;
 
 const at = { params: Promise.resolve({ code: "BR", tag: "G1" }) };
@@ -165,7 +168,8 @@ describe("data that stop arriving", () => {
 describe("the daily digest", () => {
   it("sends one digest of the day's events to those who chose it, and none twice", async () => {
     await setAlertMailMode(owner, "BR", "digest");
-    const nextDay = T0 + 86_400_000 + 6 * 3_600_000;
+    // 06:00 the day after T0's: the digest covers T0's day.
+    const nextDay = Math.floor(T0 / DAY) * DAY + DAY + 6 * HOUR;
     expect(await runDailyDigest(nextDay)).toMatch(/1 digests queued/);
     expect(await runDailyDigest(nextDay)).toMatch(/0 digests queued/);
     const digests = (await getDb().select().from(mailOutbox)).filter((mail) => mail.kind === "digest");

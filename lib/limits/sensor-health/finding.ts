@@ -1,6 +1,19 @@
 export type SensorFaultCode = "stale" | "flat-line" | "jump" | "out-of-range";
 
 /**
+ * A reading's sensor-health verdict as bits, stored with the reading (0: healthy). `after-jump`
+ * marks the readings that follow an unresolved jump: their reference may have moved, so they are
+ * quarantined until an engineer accepts the step or records a new zero.
+ */
+export const FAULT_BITS = { jump: 1, "flat-line": 2, "out-of-range": 4, "after-jump": 8 } as const;
+export type FaultName = keyof typeof FAULT_BITS;
+
+/** The names of a verdict's bits, in a fixed order. */
+export function faultNames(bits: number): FaultName[] {
+  return (Object.keys(FAULT_BITS) as FaultName[]).filter((name) => (bits & FAULT_BITS[name]) !== 0);
+}
+
+/**
  * A sensor-health alert, never a structural one. A condition that lasts (flat line, out of range)
  * is "raised" once when it begins and "resolved" once when it ends, so each batch does not re-raise
  * it; a jump is raised on its own; staleness is checked against the clock (`checkStale`).

@@ -1,6 +1,6 @@
 import type { Reading } from "../episode-machine";
 import { isNewer } from "../time-order";
-import type { ConditionState, Sample, SensorFinding } from "./finding";
+import { FAULT_BITS, type ConditionState, type Sample, type SensorFinding } from "./finding";
 import { flatLineDetector, INITIAL_FLAT_LINE, type FlatLineState, type FlatLineThresholds, type FlatLineWork } from "./flat-line";
 import { INITIAL_JUMP, jumpDetector, type JumpState, type JumpThresholds, type JumpWork } from "./jump";
 import { INITIAL_SENSOR_RANGE, sensorRangeDetector, type SensorRangeThresholds, type SensorRangeWork } from "./sensor-range";
@@ -24,11 +24,16 @@ export function initialSensorHealthState(): SensorHealthState {
   return { lastTime: null, flatLine: INITIAL_FLAT_LINE, jump: INITIAL_JUMP, range: INITIAL_SENSOR_RANGE };
 }
 
-/** `readings` are the new samples in order with their fault flags, ready for `evaluateReadings`. */
+/** A sample taken in, with its verdict: `fault` for `evaluateReadings`, `faultBits` (FAULT_BITS) to store. */
+export interface CheckedReading extends Reading {
+  readonly faultBits: number;
+}
+
+/** `readings` are the new samples in order with their verdicts, ready for `evaluateReadings`. */
 export interface Inspection {
   readonly state: SensorHealthState;
   readonly findings: SensorFinding[];
-  readonly readings: Reading[];
+  readonly readings: CheckedReading[];
 }
 
 /** The detectors' private copies of their stored states, changed in place over a batch. */
@@ -50,22 +55,23 @@ export function inspectReadings(thresholds: SensorHealthThresholds, state: Senso
     range: sensorRangeDetector.begin(state.range),
   };
   const findings: SensorFinding[] = [];
-  const readings: Reading[] = [];
+  const readings: CheckedReading[] = [];
   // A local, stored once at the end: a time written to an object per sample would be boxed each time.
   let lastTime = state.lastTime;
   for (const sample of samples) {
     if (!isNewer(lastTime, sample.time)) continue;
     lastTime = sample.time;
-    readings.push({ time: sample.time, value: sample.value, fault: inspectSample(thresholds, work, sample, findings) });
+    const faultBits = inspectSample(thresholds, work, sample, findings);
+    readings.push({ time: sample.time, value: sample.value, fault: faultBits !== 0, faultBits });
   }
   const detectors = { flatLine: flatLineDetector.end(work.flatLine), jump: jumpDetector.end(work.jump), range: sensorRangeDetector.end(work.range) };
   return { state: { ...state, lastTime, ...detectors }, findings, readings };
 }
 
 /** A raw value outside the sensor's range means nothing, so it is not fed to the other detectors. */
-function inspectSample(thresholds: SensorHealthThresholds, work: DetectorWork, sample: Sample, findings: SensorFinding[]): boolean {
-  if (thresholds.range !== undefined && sensorRangeDetector.advance(thresholds.range, work.range, sample, findings)) return true;
+function inspectSample(thresholds: SensorHealthThresholds, work: DetectorWork, sample: Sample, findings: SensorFinding[]): number {
+  if (thresholds.range !== undefined && sensorRangeDetector.advance(thresholds.range, work.range, sample, findings)) return FAULT_BITS["out-of-range"];
   const jumped = thresholds.jump !== undefined && jumpDetector.advance(thresholds.jump, work.jump, sample, findings);
   const flat = thresholds.flatLine !== undefined && flatLineDetector.advance(thresholds.flatLine, work.flatLine, sample, findings);
-  return jumped || flat;
+  return (jumped ? FAULT_BITS.jump : 0) | (flat ? FAULT_BITS["flat-line"] : 0);
 }

@@ -262,6 +262,28 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/alerts/{id}/resolve": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Resolve a jump (a sensor alert with code jump): accept the step as real, or record a new zero
+         * @description Roles: admin, engineer.
+         *
+         *     After a jump the gauge's readings are kept out of limit evaluation (readings.fault marks them after-jump) until this is done. accept-step evaluates them against the limits from the jump on, raising any alerts they would have raised; new-zero records the reading at the jump as the gauge's zero (as POST /gauges/{tag}/zero does) and leaves the readings between set aside. Either clears the alert. A jump cannot be cleared by hand.
+         */
+        post: operations["postAlertsByIdResolve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/structures/{code}/drawings": {
         parameters: {
             query?: never;
@@ -361,6 +383,89 @@ export interface paths {
         options?: never;
         head?: never;
         patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/bursts": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Send bursts of a dynamic gauge (JSON, or one burst as 32-bit little-endian floats)
+         * @description Roles: admin, engineer, technician, or the structure's logger token.
+         *
+         *     At most 2 000 000 samples and 16 MB per request (413 past that). All valid bursts of a request are stored in one transaction, or none. Samples are converted like readings (one temperature per burst) and kept only as summaries per interval of the gauge's `summaryMinutes` (aligned to the hour), rainflow histograms and captured event waveforms. Rainflow carries its residue from one burst to the next of the gauge; a burst older than the newest one stored is counted on its own, its open half cycles closed at its end. A burst whose (gauge, start) is stored, or repeated in the request, is a duplicate; one that overlaps another without the same start is rejected (`overlap`). A burst with any non-finite sample (NaN, Infinity, null, text) is refused whole (`not-finite`), in JSON and binary alike. Limits apply to each burst's lowest and highest sample and its last one, as readings at their own instants; those three are stored as readings. Each burst is checked on its own; `rejected[].code` is one of: `invalid-burst` (The burst is not an object with gauge, start, rateHz and values.); `missing-gauge` (The burst names no gauge tag.); `unknown-gauge` (No gauge of the structure has this tag.); `retired-gauge` (The gauge is retired and takes no more data.); `gauge-not-convertible` (The gauge's stored configuration cannot convert samples; fix the gauge first.); `not-dynamic` (The gauge is static: send its data as readings, or make it dynamic first.); `invalid-time` (The start is not ISO-8601 with Z or an offset, or is before 1970.); `time-in-future` (The burst ends more than 5 minutes ahead of the server's clock.); `before-zero` (The burst starts earlier than the gauge's first zero reading, from which its strain is measured.); `temperature-out-of-range` (The burst's temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.); `wrong-rate` (rateHz is not the gauge's rate.); `empty-burst` (The burst has no samples.); `not-finite` (A sample (or the strain or stress it converts to) is not a finite number: NaN, Infinity, text or null. The whole burst is refused.); `non-finite-temperature` (The temperature is given but is not a finite number.); `temperature-required` (The gauge's temperature compensation needs the burst's temperature.); `non-positive-frequency` (A vibrating-wire frequency must be above 0 Hz.); `non-positive-frequency-squared` (A vibrating-wire reading in f²/1000 must be above 0.); `impossible-bridge-output` (No bridge of the gauge's arrangement can produce this output change.); `overlap` (The burst overlaps a stored burst of the same gauge, or another burst of the request, without starting at the same instant.). A binary body that is not a whole number of 4-byte floats, or a missing query parameter, is a 400.
+         */
+        post: operations["postStructuresByCodeBursts"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/summaries": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * A dynamic gauge's interval summaries starting in [from, to), oldest first (stress in MPa)
+         * @description At most 5 000 intervals per request; ask for a shorter range for more.
+         */
+        get: operations["getStructuresByCodeGaugesByTagSummaries"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/events": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * A dynamic gauge's captured events starting in [from, to), newest first, without their waveforms
+         * @description At most 1 000 events per request.
+         */
+        get: operations["getStructuresByCodeGaugesByTagEvents"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/events/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One captured event with its waveform: stress in MPa at `rateHz` from `start` */
+        get: operations["getStructuresByCodeEventsById"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Label an event (what it was); null clears the label. Audited
+         * @description Roles: admin, engineer.
+         */
+        patch: operations["patchStructuresByCodeEventsById"];
         trace?: never;
     };
     "/structures/{code}/uploads": {
@@ -486,7 +591,14 @@ export interface components {
             message: string | null;
             openedAt: string;
             bound: number | null;
+            /** @description The furthest value beyond the bound so far in the episode; keeps rising while the alert is open */
             peak: number | null;
+            /** @description When the episode reached its peak */
+            peakAt: string | null;
+            /** @description How many times the episode opened: an alert back beyond within an hour of clearing continues the same episode */
+            openings: number;
+            /** @description Set once the alert has opened 3 times within an hour: its crossings are then e-mailed as one, with a summary when it settles */
+            flappingSince: string | null;
             acknowledgedAt: string | null;
             acknowledgedBy: string | null;
             clearedAt: string | null;
@@ -533,6 +645,49 @@ export interface components {
             /** Format: date-time */
             to: string;
         };
+        BurstResult: {
+            /** @description Samples taken into summaries by this request */
+            accepted: number;
+            /** @description Bursts stored by this request */
+            bursts: number;
+            /** @description Bursts whose (gauge, start) was already stored, or repeated in the request */
+            duplicates: number;
+            rejected: {
+                /** @description Position in `bursts` (0 for a binary body) */
+                index: number;
+                code: string;
+                message: string;
+            }[];
+            /** @description Event waveforms captured and stored by this request */
+            events: number;
+            alerts: {
+                opened: number;
+                escalated: number;
+                cleared: number;
+            };
+        };
+        BurstsInput: {
+            /** @description At most 2 000 000 samples (and 16 MB) per request; more is a 413. */
+            bursts: unknown[];
+        };
+        BurstSummaries: {
+            /** @constant */
+            unit: "MPa";
+            intervals: {
+                start: string;
+                end: string;
+                samples: number;
+                min: number;
+                max: number;
+                mean: number;
+                /** @description RMS about the interval's mean, MPa */
+                rms: number;
+                /** @description Largest rainflow range closed in the interval (full or half cycle), MPa */
+                maxRange: number;
+                /** @description Rainflow cycles closed in the interval; two half cycles make one */
+                cycles: number;
+            }[];
+        };
         DrawingList: {
             drawings: components["schemas"]["File"][];
         };
@@ -543,6 +698,49 @@ export interface components {
                 message: string;
                 details?: unknown;
             };
+        };
+        EventDetail: {
+            id: number;
+            gauge: string;
+            start: string;
+            end: string;
+            /** @description Stress furthest beyond the trigger, MPa */
+            peak: number;
+            peakAt: string;
+            /** @enum {string} */
+            trigger: "above" | "below";
+            /** @description The level crossed, MPa */
+            triggerLevel: number;
+            /** @description True when the waveform reached the cap and its tail was cut */
+            truncated: boolean;
+            label: string | null;
+            rateHz: number;
+            /** @constant */
+            unit: "MPa";
+            /** @description Samples from preSeconds before the first beyond the trigger to postSeconds after the last, MPa */
+            stress: number[];
+        };
+        EventLabelInput: {
+            /** @description What the event was, e.g. "heavy vehicle" or "false trigger"; null clears it */
+            label?: string;
+        };
+        EventList: {
+            events: {
+                id: number;
+                gauge: string;
+                start: string;
+                end: string;
+                /** @description Stress furthest beyond the trigger, MPa */
+                peak: number;
+                peakAt: string;
+                /** @enum {string} */
+                trigger: "above" | "below";
+                /** @description The level crossed, MPa */
+                triggerLevel: number;
+                /** @description True when the waveform reached the cap and its tail was cut */
+                truncated: boolean;
+                label: string | null;
+            }[];
         };
         File: {
             id: number;
@@ -596,6 +794,21 @@ export interface components {
             category: number;
             /** @description Cycles counted, half cycles as 0.5 */
             cyclesCounted: number;
+            /**
+             * @description readings: rainflow over the stored static readings (sees daily and seasonal cycles only); bursts: the rainflow histograms stored from a dynamic gauge's bursts
+             * @enum {string}
+             */
+            source: "readings" | "bursts";
+            /** @description Damage-equivalent constant range Δσ_E = (Σ nᵢ·Δσᵢ³ / 2×10⁶)^(1/3), MPa: compare it with the detail category Δσ_C */
+            equivalentRange: number;
+            /** @description Miner damage per UTC day with data (bursts source; empty for readings) */
+            damagePerDay: {
+                /** @description UTC date, YYYY-MM-DD */
+                day: string;
+                damage: number;
+            }[];
+            /** @description Bursts source: samples summarised over the period */
+            samplesCounted?: number;
             /** @description Start of the period, included (UTC) */
             from: string;
             /** @description End of the period, excluded (UTC) */
@@ -691,6 +904,43 @@ export interface components {
             ratedRange?: number | null;
             /** @description Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed */
             detailCategory?: (160 | 140 | 125 | 112 | 100 | 90 | 80 | 71 | 63 | 56 | 50 | 45 | 40 | 36) | null;
+            /** @description Static: readings one at a time. Dynamic: bursts at a fixed rate, summarised on arrival */
+            sampling?: {
+                /** @constant */
+                mode: "static";
+            } | {
+                /** @constant */
+                mode: "dynamic";
+                /** @description Samples per second of every burst */
+                rateHz: number;
+                /**
+                 * @description Minutes per summary interval, aligned to the hour
+                 * @default 10
+                 * @enum {number}
+                 */
+                summaryMinutes?: 1 | 2 | 3 | 4 | 5 | 6 | 10 | 12 | 15 | 20 | 30 | 60;
+                /**
+                 * @description Width of the rainflow range bins, MPa
+                 * @default 1
+                 */
+                rangeBin?: number;
+                trigger?: {
+                    /** @description MPa: a sample above starts an event */
+                    above?: number | null;
+                    /** @description MPa: a sample below starts an event */
+                    below?: number | null;
+                    /**
+                     * @description s
+                     * @default 2
+                     */
+                    preSeconds?: number;
+                    /**
+                     * @description s
+                     * @default 5
+                     */
+                    postSeconds?: number;
+                } | null;
+            };
         };
         GaugeList: {
             gauges: components["schemas"]["Gauge"][];
@@ -755,6 +1005,43 @@ export interface components {
             ratedRange?: number | null;
             /** @description Fatigue detail category Δσ_C, MPa at 2×10⁶ cycles; null when not assessed */
             detailCategory?: (160 | 140 | 125 | 112 | 100 | 90 | 80 | 71 | 63 | 56 | 50 | 45 | 40 | 36) | null;
+            /** @description Static: readings one at a time. Dynamic: bursts at a fixed rate, summarised on arrival */
+            sampling?: {
+                /** @constant */
+                mode: "static";
+            } | {
+                /** @constant */
+                mode: "dynamic";
+                /** @description Samples per second of every burst */
+                rateHz: number;
+                /**
+                 * @description Minutes per summary interval, aligned to the hour
+                 * @default 10
+                 * @enum {number}
+                 */
+                summaryMinutes?: 1 | 2 | 3 | 4 | 5 | 6 | 10 | 12 | 15 | 20 | 30 | 60;
+                /**
+                 * @description Width of the rainflow range bins, MPa
+                 * @default 1
+                 */
+                rangeBin?: number;
+                trigger?: {
+                    /** @description MPa: a sample above starts an event */
+                    above?: number | null;
+                    /** @description MPa: a sample below starts an event */
+                    below?: number | null;
+                    /**
+                     * @description s
+                     * @default 2
+                     */
+                    preSeconds?: number;
+                    /**
+                     * @description s
+                     * @default 5
+                     */
+                    postSeconds?: number;
+                } | null;
+            };
             reason?: string;
         };
         IngestResult: {
@@ -829,6 +1116,14 @@ export interface components {
                 flags: string[];
             }[];
             nextCursor?: string;
+        };
+        ResolveFaultInput: {
+            /**
+             * @description accept-step: the quarantined readings are checked against the limits from the jump on; new-zero: the reading at the jump becomes the gauge's zero and the readings between stay set aside
+             * @enum {string}
+             */
+            resolution: "accept-step" | "new-zero";
+            comment: string;
         };
         Rosette: {
             tag: string;
@@ -2452,6 +2747,96 @@ export interface operations {
             };
         };
     };
+    postAlertsByIdResolve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Alert id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ResolveFaultInput"];
+            };
+        };
+        responses: {
+            /** @description The alert, cleared */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Alert"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
     getStructuresByCodeDrawings: {
         parameters: {
             query?: never;
@@ -2888,6 +3273,346 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["IngestResult"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeBursts: {
+        parameters: {
+            query?: {
+                /** @description Binary body only: Gauge tag */
+                gauge?: string;
+                /** @description Binary body only: First sample's time, ISO-8601 with Z or an offset */
+                start?: string;
+                /** @description Binary body only: Samples per second: the gauge's rate */
+                rateHz?: string;
+                /** @description Binary body only: °C for the whole burst, when the gauge's compensation needs it */
+                temperature?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["BurstsInput"];
+                "application/octet-stream": string;
+            };
+        };
+        responses: {
+            /** @description What was stored, counted as duplicate and rejected */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BurstResult"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagSummaries: {
+        parameters: {
+            query?: {
+                /** @description ISO-8601 with Z or an offset; default 7 days before `to` */
+                from?: string;
+                /** @description ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`) */
+                to?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The intervals */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BurstSummaries"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagEvents: {
+        parameters: {
+            query?: {
+                /** @description ISO-8601 with Z or an offset; default 7 days before `to` */
+                from?: string;
+                /** @description ISO-8601 with Z or an offset, exclusive; default now (or 7 days after `from`) */
+                to?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The events */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["EventList"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeEventsById: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Event id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The event */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["EventDetail"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    patchStructuresByCodeEventsById: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Event id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["EventLabelInput"];
+            };
+        };
+        responses: {
+            /** @description The event */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["EventDetail"];
                 };
             };
             /** @description Malformed or invalid request */

@@ -19,7 +19,7 @@ const WATCH_100 = limitSet({ level: "watch", upper: 100 });
 describe("opening and persistence", () => {
   it("persistence 1 opens on the first reading beyond the bound, and only strictly beyond", () => {
     expect(eventsOf(WATCH_100, series([100, 101]))).toEqual([
-      { type: "opened", level: "watch", time: MINUTE, value: 101, bound: 100, peak: 101 },
+      { type: "opened", level: "watch", time: MINUTE, value: 101, bound: 100, peak: 101, peakAt: MINUTE },
     ]);
   });
 
@@ -27,7 +27,8 @@ describe("opening and persistence", () => {
     const limits = limitSet({ level: "watch", upper: 100, persistence: 3 });
     expect(summary(limits, [150, 120, 90, 130, 120])).toEqual([]);
     const events = eventsOf(limits, series([150, 120, 90, 130, 125, 110]));
-    expect(events).toEqual([{ type: "opened", level: "watch", time: 5 * MINUTE, value: 110, bound: 100, peak: 130 }]);
+    // the peak is the run's furthest reading (130 at minute 3), not the one completing the run
+    expect(events).toEqual([{ type: "opened", level: "watch", time: 5 * MINUTE, value: 110, bound: 100, peak: 130, peakAt: 3 * MINUTE }]);
   });
 
   it("a reading that stays beyond raises nothing more", () => {
@@ -63,7 +64,7 @@ describe("hysteresis (dead band)", () => {
   it("reports the clearing reading, the episode's bound and its peak", () => {
     const limits = limitSet({ level: "watch", upper: 100, hysteresis: 10 });
     const cleared = eventsOf(limits, series([130, 150, 90])).at(-1);
-    expect(cleared).toEqual({ type: "cleared", level: "watch", time: 2 * MINUTE, value: 90, bound: 100, peak: 150 });
+    expect(cleared).toEqual({ type: "cleared", level: "watch", time: 2 * MINUTE, value: 90, bound: 100, peak: 150, peakAt: MINUTE });
   });
 
   it("a new episode may open after clearing", () => {

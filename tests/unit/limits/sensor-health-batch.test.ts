@@ -1,11 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
+  FAULT_BITS,
   inspectReadings,
   stepFlatLine,
   stepJump,
   stepSensorRange,
-  type Reading,
+  type CheckedReading,
   type Sample,
   type SensorFinding,
   type SensorHealthState,
@@ -17,12 +18,12 @@ import {
 // one taken in counts, a raw value outside the sensor's range is not fed to the other detectors,
 // and a detector without thresholds does not run. Whatever way the batch computes, it must agree.
 
-type Fold = { state: SensorHealthState; findings: SensorFinding[]; readings: Reading[] };
+type Fold = { state: SensorHealthState; findings: SensorFinding[]; readings: CheckedReading[] };
 
 function foldSingleSteps(thresholds: SensorHealthThresholds, state: SensorHealthState, samples: readonly Sample[]): Fold {
   let current = state;
   const findings: SensorFinding[] = [];
-  const readings: Reading[] = [];
+  const readings: CheckedReading[] = [];
   for (const sample of samples) {
     const newer = Number.isFinite(sample.time) && (current.lastTime === null || sample.time > current.lastTime);
     if (!newer) continue;
@@ -31,7 +32,7 @@ function foldSingleSteps(thresholds: SensorHealthThresholds, state: SensorHealth
     if (range) current = { ...current, range: range.state };
     if (range?.finding) findings.push(range.finding);
     if (range?.fault) {
-      readings.push({ time: sample.time, value: sample.value, fault: true });
+      readings.push({ time: sample.time, value: sample.value, fault: true, faultBits: FAULT_BITS["out-of-range"] });
       continue;
     }
     const jump = thresholds.jump && stepJump(thresholds.jump, current.jump, sample);
@@ -39,7 +40,8 @@ function foldSingleSteps(thresholds: SensorHealthThresholds, state: SensorHealth
     if (jump) current = { ...current, jump: jump.state };
     if (flatLine) current = { ...current, flatLine: flatLine.state };
     for (const step of [jump, flatLine]) if (step?.finding) findings.push(step.finding);
-    readings.push({ time: sample.time, value: sample.value, fault: Boolean(jump?.fault) || Boolean(flatLine?.fault) });
+    const faultBits = (jump?.fault ? FAULT_BITS.jump : 0) | (flatLine?.fault ? FAULT_BITS["flat-line"] : 0);
+    readings.push({ time: sample.time, value: sample.value, fault: faultBits !== 0, faultBits });
   }
   return { state: current, findings, readings };
 }
@@ -49,7 +51,7 @@ function inspectInParts(thresholds: SensorHealthThresholds, state: SensorHealthS
   const bounds = [0, ...cuts.map((cut) => Math.min(cut, samples.length)).sort((a, b) => a - b), samples.length];
   let current = state;
   const findings: SensorFinding[] = [];
-  const readings: Reading[] = [];
+  const readings: CheckedReading[] = [];
   for (let part = 0; part + 1 < bounds.length; part++) {
     const inspection = inspectReadings(thresholds, current, samples.slice(bounds[part], bounds[part + 1]));
     current = inspection.state;

@@ -16,6 +16,7 @@ const alert: AlertMailInput = {
   quantity: "stress",
   value: 212.44,
   bound: { side: "upper", value: 200 },
+  peak: 212.44,
   at: new Date("2026-07-01T12:00:00Z"),
 };
 
@@ -45,7 +46,7 @@ describe("alert e-mail", () => {
       expect(part).toContain("upper 200.0 MPa");
       expect(part).toContain("2026-07-01 13:00 BST (Europe/London)");
     }
-    expect(mail.subject).toBe("WARNING: MILL-FB LC-03 stress crossed the warning limit (212.4 MPa)");
+    expect(mail.subject).toBe("WARNING: MILL-FB LC-03 stress crossed the warning limit (peak 212.4 MPa)");
   });
 
   it("links to the gauge's chart and carries the caution", () => {
@@ -64,19 +65,19 @@ describe("alert e-mail", () => {
     expect(html).not.toContain("G<1>");
   });
 
-  it("says when a value is back within bounds", () => {
-    expect(buildAlertMail({ ...alert, event: "cleared", value: 180 }, APP).subject).toBe(
-      "Cleared: MILL-FB LC-03 stress back within the warning limit (180.0 MPa)",
-    );
+  it("says when a value is back within bounds, naming the episode's peak as the alert's page does", () => {
+    const cleared = buildAlertMail({ ...alert, event: "cleared", value: 180, peak: 231.26 }, APP);
+    expect(cleared.subject).toBe("Cleared: MILL-FB LC-03 stress back within the warning limit (peak 231.3 MPa)");
+    expect(cleared.text).toContain("Value at this event: 180.0 MPa");
   });
 
   it("names the quantity with its unit and rounds the value as it is read", () => {
     const strain = buildAlertMail({ ...alert, quantity: "strain", value: 2598.2770717615213, bound: { side: "upper", value: 220 } }, APP);
     expect(strain.text).toContain("Quantity: strain (µε)");
-    expect(strain.text).toContain("Value: 2,598 µε");
+    expect(strain.text).toContain("Value at this event: 2,598 µε");
     const utilisation = buildAlertMail({ ...alert, quantity: "utilisation", value: 0.874, bound: { side: "upper", value: 0.8 } }, APP);
     expect(utilisation.text).toContain("Quantity: utilisation (% of yield)");
-    expect(utilisation.text).toContain("Value: 87 % of yield");
+    expect(utilisation.text).toContain("Value at this event: 87 % of yield");
   });
 });
 

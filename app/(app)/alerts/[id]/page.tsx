@@ -18,7 +18,7 @@ import { getLimits } from "@/lib/services/limits";
 import { getRosetteLimits } from "@/lib/services/rosette-limits";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { getVisibleStructure } from "@/lib/services/structures";
-import { handleAlertAction } from "../actions";
+import { handleAlertAction, resolveFaultAction } from "../actions";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -31,12 +31,14 @@ export default async function AlertPage({ params }: Props) {
   const user = await requireUser();
   const { alert, history } = await pageGuard(Number.isInteger(id) ? getAlert(user, id) : Promise.reject(new Error("bad id")));
   const structure = await pageGuard(getVisibleStructure(user, alert.structure));
-  const [canHandle, gauge, limits, rosetteLimits] = await Promise.all([
+  const [canHandle, canZero, gauge, limits, rosetteLimits] = await Promise.all([
     may(user, "alert:acknowledge", structure),
+    may(user, "zero:record", structure),
     getGauge(user, structure.code, alert.gauge),
     getLimits(user, structure.code, alert.gauge),
     alert.rosette ? getRosetteLimits(user, structure.code, alert.rosette) : [],
   ]);
+  const isHeldJump = alert.kind === "sensor" && alert.code === "jump" && !alert.clearedAt;
   const openedAt = Date.parse(alert.openedAt);
   const clearedAt = alert.clearedAt ? Date.parse(alert.clearedAt) : null;
   // A day either side of the episode, or up to now while it lasts.
@@ -62,6 +64,17 @@ export default async function AlertPage({ params }: Props) {
             <LevelBadge level={alert.level} /> <StateBadge alert={alert} />
           </h2>
           <p>{alertSummary(alert, await unitsOf(user.id))}</p>
+          {isHeldJump && (
+            <p role="status" className="rounded border border-warning/50 bg-orange-50 p-2 text-sm dark:bg-orange-950/40">
+              Limits are not being checked on gauge {alert.gauge}: its readings from the jump on are set aside as faulty until an engineer
+              accepts the step as real or records a new zero.
+            </p>
+          )}
+          {alert.flappingSince && (
+            <p className="text-sm">
+              Flapping since {local(alert.flappingSince)}: opened {alert.openings} times; its crossings are e-mailed as one episode.
+            </p>
+          )}
           <p className="text-sm">
             {alert.rosette ? (
               <Link className="text-accent underline" href={`/structures/${structure.code}/rosettes/${encodeURIComponent(alert.rosette)}`}>
@@ -101,7 +114,27 @@ export default async function AlertPage({ params }: Props) {
             </Field>
             <SubmitButton variant="secondary" pendingLabel="Saving…">Add note</SubmitButton>
           </ActionForm>
-          {!alert.clearedAt && canHandle && (
+          {isHeldJump && canHandle && (
+            <ActionForm action={resolveFaultAction} className={`${cardClass} space-y-3 p-4`} label="Resolve the jump">
+              <input type="hidden" name="alertId" value={alert.id} />
+              <fieldset className="space-y-2 text-sm">
+                <legend className="font-semibold">Resolve the jump</legend>
+                <label className="flex items-start gap-2">
+                  <input type="radio" name="resolution" value="accept-step" defaultChecked />
+                  <span>Accept the step as real: the structure moved; check the set-aside readings against the limits.</span>
+                </label>
+                {canZero && (
+                  <label className="flex items-start gap-2">
+                    <input type="radio" name="resolution" value="new-zero" />
+                    <span>Record a new zero at the jump: the gauge&apos;s reference moved; the readings between stay set aside.</span>
+                  </label>
+                )}
+              </fieldset>
+              <Field name="text" label="What was checked" hint="On site or on the chart; kept in the alert's history." required />
+              <SubmitButton pendingLabel="Resolving…">Resolve</SubmitButton>
+            </ActionForm>
+          )}
+          {!alert.clearedAt && canHandle && !isHeldJump && (
             <ActionForm action={handleAlertAction} className={`${cardClass} space-y-3 p-4`} label="Clear by hand">
               <input type="hidden" name="alertId" value={alert.id} />
               <input type="hidden" name="handling" value="cleared" />

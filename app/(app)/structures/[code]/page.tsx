@@ -160,9 +160,15 @@ export default async function StructurePage({ params }: Props) {
           <ActionForm action={alertMailAction} className="flex flex-wrap items-end gap-3" label="My alert e-mails">
             <input type="hidden" name="code" value={structure.code} />
             <Field name="mode" label="My alert e-mails for this structure" id="alert-mail-mode">
-              <select id="alert-mail-mode" name="mode" defaultValue={mailMode} className={`${inputClass} w-64`}>
+              <select id="alert-mail-mode" name="mode" defaultValue={mailMode.alerts} className={`${inputClass} w-64`}>
                 <option value="immediate">Each alert as it happens</option>
                 <option value="digest">One digest a day</option>
+              </select>
+            </Field>
+            <Field name="sensorMode" label="Sensor faults (a gauge, not the structure)" id="sensor-mail-mode">
+              <select id="sensor-mail-mode" name="sensorMode" defaultValue={mailMode.sensor} className={`${inputClass} w-64`}>
+                <option value="immediate">Each as it happens</option>
+                <option value="digest">In the daily digest</option>
               </select>
             </Field>
             <SubmitButton variant="secondary" pendingLabel="Saving…">Save</SubmitButton>

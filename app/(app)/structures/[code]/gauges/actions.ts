@@ -124,10 +124,12 @@ export async function saveRosetteLimitsAction(code: string, tag: string, payload
 }
 
 export const alertMailAction = formAction(
-  z.object({ code: z.string(), mode: z.enum(["immediate", "digest"]) }),
-  async ({ code, mode }, user) => {
+  z.object({ code: z.string(), mode: z.enum(["immediate", "digest"]), sensorMode: z.enum(["immediate", "digest"]) }),
+  async ({ code, mode, sensorMode }, user) => {
     await setAlertMailMode(user, code, mode);
-    return { message: mode === "immediate" ? "You will get each alert e-mail as it happens." : "You will get one digest a day." };
+    await setAlertMailMode(user, code, sensorMode, "sensor");
+    if (mode === "digest") return { message: "You will get one digest a day." };
+    return { message: `You will get each alert e-mail as it happens, and sensor faults ${sensorMode === "immediate" ? "as they happen too" : "in a daily digest"}.` };
   },
   "/structures",
 );

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { format } from "date-fns";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
+import { DynamicChannel } from "@/components/dynamic/dynamic-channel";
 import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
@@ -64,10 +65,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
   const gauge = await pageGuard(getGauge(user, code, tag));
-  const [canEdit, canZero, canAudit] = await Promise.all([
+  const [canEdit, canZero, canAudit, canLabel] = await Promise.all([
     may(user, "gauge:register", structure),
     may(user, "zero:record", structure),
     may(user, "audit:view", structure),
+    may(user, "alert:acknowledge", structure),
   ]);
   const [zeros, audit, photos, limits, alerts, episodes, statuses] = await Promise.all([
     zeroHistory(user, code, tag),
@@ -146,6 +148,17 @@ export default async function GaugePage({ params, searchParams }: Props) {
           </span>
         )}
       </div>
+      {gauge.sampling.mode === "dynamic" && (
+        <DynamicChannel
+          apiBase={`/api/v1/structures/${code}/gauges/${encodeURIComponent(tag)}`}
+          structureApi={`/api/v1/structures/${code}`}
+          timeZone={structure.timezone}
+          end={latest ? latest.time : Date.now()}
+          canLabel={canLabel}
+          rateHz={gauge.sampling.rateHz}
+          summaryMinutes={gauge.sampling.summaryMinutes}
+        />
+      )}
       <section className="mb-6" aria-labelledby="history">
         <h2 id="history" className="mb-2 text-lg font-semibold">
           History

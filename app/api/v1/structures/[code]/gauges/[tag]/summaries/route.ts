@@ -1,0 +1,11 @@
+import { apiRoute, json } from "@/lib/api/http";
+import { parseQuery, timeRange } from "@/lib/api/readings-schemas";
+import { gaugeSummaries } from "@/lib/services/dynamic-data";
+
+type Params = { code: string; tag: string };
+
+export const GET = apiRoute<Params>(async ({ request, actor, params }) =>
+  json(await gaugeSummaries(actor, params.code, params.tag, parseQuery(request, timeRange))),
+);
+
+export * from "@/lib/api/method-not-allowed";

@@ -1,0 +1,63 @@
+"use client";
+
+import { useMemo } from "react";
+import type uPlot from "uplot";
+import { UplotChart } from "@/components/charts/uplot-chart";
+import { formatInTimeZone } from "@/lib/time-format";
+import { formatInUnit } from "@/lib/units";
+import type { EventDetail } from "@/lib/services/dynamic-data";
+
+/** "2026-07-01 13:00:05.120 BST": an event's instant on the structure's clock, to the millisecond. */
+export const instantText = (iso: string, timeZone: string) => formatInTimeZone(new Date(iso), timeZone, { milliseconds: true });
+
+/**
+ * Trigger level and peak drawn over the waveform. What was drawn is listed in `data-overlays`
+ * (canvas pixel positions included), so a test can check the chart without reading pixels.
+ */
+function drawOverlays(chart: uPlot, event: EventDetail, peakSeconds: number) {
+  const { ctx, bbox } = chart;
+  ctx.save();
+  const y = chart.valToPos(event.triggerLevel, "y", true);
+  ctx.strokeStyle = "#b45309";
+  ctx.fillStyle = "#b45309";
+  ctx.setLineDash([6 * devicePixelRatio, 4 * devicePixelRatio]);
+  ctx.lineWidth = 1.5 * devicePixelRatio;
+  ctx.beginPath();
+  ctx.moveTo(bbox.left, y);
+  ctx.lineTo(bbox.left + bbox.width, y);
+  ctx.stroke();
+  ctx.font = `${11 * devicePixelRatio}px sans-serif`;
+  ctx.fillText(`trigger ${event.trigger} ${formatInUnit(event.triggerLevel, "MPa")}`, bbox.left + 4, y - 4);
+  const px = chart.valToPos(peakSeconds, "x", true);
+  const py = chart.valToPos(event.peak, "y", true);
+  ctx.setLineDash([]);
+  ctx.fillStyle = "#b42318";
+  ctx.beginPath();
+  ctx.arc(px, py, 4 * devicePixelRatio, 0, 2 * Math.PI);
+  ctx.fill();
+  ctx.fillText(`peak ${formatInUnit(event.peak, "MPa")}`, px + 6 * devicePixelRatio, py);
+  ctx.restore();
+  chart.root.dataset.overlays = JSON.stringify({ trigger: { value: event.triggerLevel, y: Math.round(y) }, peak: { value: event.peak, x: Math.round(px), y: Math.round(py) } });
+}
+
+/** A captured waveform: stress (MPa) against seconds from the event's first sample. */
+export function WaveformChart({ event }: { event: EventDetail }) {
+  const startMs = Date.parse(event.start);
+  const peakSeconds = (Date.parse(event.peakAt) - startMs) / 1000;
+  const data = useMemo<uPlot.AlignedData>(() => [event.stress.map((_, i) => i / event.rateHz), event.stress], [event]);
+  const options = useMemo(
+    () => ({
+      cursor: { drag: { x: true, y: false } },
+      legend: { show: true },
+      scales: { x: { time: false }, y: { range: (_c: uPlot, min: number, max: number) => [Math.min(min, event.triggerLevel) - 1, Math.max(max, event.triggerLevel) + 1] as [number, number] } },
+      axes: [{ label: "Seconds from the first sample kept (s)" }, { label: "Stress (MPa)", size: 70 }],
+      series: [
+        { label: "t", value: (_c: uPlot, seconds: number | null) => (seconds === null ? "—" : `${seconds.toFixed(3)} s`) },
+        { label: "stress", stroke: "#17565d", width: 1.5, points: { show: false }, value: (_c: uPlot, v: number | null) => formatInUnit(v, "MPa") },
+      ],
+      hooks: { draw: [(chart: uPlot) => drawOverlays(chart, event, peakSeconds)] },
+    }),
+    [event, peakSeconds],
+  );
+  return <UplotChart options={options} data={data} height={260} label={`Waveform of event ${event.id}, stress in MPa`} />;
+}
