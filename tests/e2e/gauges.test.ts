@@ -106,7 +106,7 @@ describe("a technician on site with a phone", () => {
     await technician.waitForURL(/\/gauges\/E2E-Q1b$/);
     await technician.getByTestId("gauge-status").getByText("Replaced gauge").waitFor();
     await technician.getByRole("link", { name: "E2E-Q1", exact: true }).click();
-    await technician.getByTestId("gauge-status").getByText(/Retired/).waitFor();
+    await technician.getByTestId("gauge-status").getByText(/^Retired \d{4}-/).waitFor();
     await technician.getByTestId("gauge-status").getByText("Replaced by").waitFor();
     await saveScreenshot(technician, "gauge-page-phone");
   });

@@ -1,6 +1,7 @@
 import { createClient } from "@libsql/client";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser } from "playwright-core";
+import { DEMO_USERS } from "@/db/seed";
 import type { Role } from "@/db/schema";
 import { DESKTOP, PHONE, SignInPage, launchBrowser, newContext, saveScreenshot, signOut } from "./browser";
 
@@ -14,12 +15,26 @@ afterAll(async () => {
 
 // What each demo role must see, from the demo memberships in db/seed.ts. Administrators see every
 // structure in the database, including those other browser tests create.
+// The seeded memberships, plus any structure another browser test file's engineer created (its creator becomes a member).
 const VISIBLE: Record<Role, () => Promise<string[]>> = {
   admin: allStructureCodes,
-  engineer: async () => ["MILL-FB", "ORCH-PD"],
+  engineer: async () => ["MILL-FB", "ORCH-PD", ...(await structuresCreatedInTests("engineer"))],
   technician: async () => ["MILL-FB"],
   owner: async () => ["MILL-FB", "ORCH-PD"],
 };
+
+/** Structures outside the seeded demo that the demo user of `role` is a member of. */
+async function structuresCreatedInTests(role: Role): Promise<string[]> {
+  const email = DEMO_USERS.find((user) => user.role === role)!.email;
+  const client = createClient({ url: inject("databaseUrl") });
+  const result = await client.execute({
+    sql: `SELECT s.code FROM structures s JOIN structure_members m ON m.structure_id = s.id JOIN users u ON u.id = m.user_id
+          WHERE u.email = ? AND s.code NOT IN ('MILL-FB', 'ORCH-PD')`,
+    args: [email],
+  });
+  client.close();
+  return result.rows.map((row) => String(row.code));
+}
 
 async function allStructureCodes(): Promise<string[]> {
   const client = createClient({ url: inject("databaseUrl") });
