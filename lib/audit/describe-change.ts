@@ -49,6 +49,23 @@ function thermalText(value: unknown): string {
   return "none";
 }
 
+/** "dynamic, 100 Hz, summaries every 10 min, range bins 1 MPa, trigger above 40 MPa (2 s before, 5 s after)", or "static". */
+function samplingText(value: unknown): string {
+  const sampling = (value ?? {}) as Json;
+  if (sampling.mode !== "dynamic") return "static (readings one at a time)";
+  const trigger = (sampling.trigger ?? null) as Json | null;
+  const bounds = trigger
+    ? [trigger.above != null ? `above ${number(trigger.above)} MPa` : null, trigger.below != null ? `below ${number(trigger.below)} MPa` : null].filter(Boolean).join(" or ")
+    : "";
+  const window = trigger ? ` (${number(trigger.preSeconds ?? 2)} s before, ${number(trigger.postSeconds ?? 5)} s after)` : "";
+  return [
+    `dynamic, ${number(sampling.rateHz)} Hz`,
+    `summaries every ${number(sampling.summaryMinutes ?? 10)} min`,
+    `range bins ${number(sampling.rangeBin ?? 1)} MPa`,
+    bounds ? `trigger ${bounds}${window}` : "no trigger",
+  ].join(", ");
+}
+
 const BRIDGE_WORDS: Record<string, string> = {
   quarter: "quarter bridge",
   "half-bending": "half bridge, bending",
@@ -87,6 +104,7 @@ const FIELDS: Record<string, FieldWording> = {
   ratedRange: { name: "Rated range", show: (value) => `± ${number(value)} µε` },
   detailCategory: { name: "Fatigue detail category", show: (value) => `Δσ_C = ${number(value)} MPa` },
   limits: { name: "Limits", show: limitsText },
+  sampling: { name: "Sampling", show: samplingText },
   "drawing.x": { name: "Position across the drawing", show: (value) => `${number(Math.round(Number(value) * 1000) / 10)} %` },
   "drawing.y": { name: "Position down the drawing", show: (value) => `${number(Math.round(Number(value) * 1000) / 10)} %` },
   "drawing.id": { name: "Drawing", show: (value) => `no. ${number(value)}` },

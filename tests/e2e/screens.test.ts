@@ -160,6 +160,8 @@ describe("drawings", () => {
       await page.goto(MAIN_PAGES.structure);
       const tags = page.getByTestId("gauge-marker").filter({ hasText: /^GP-R1/ }).locator("[data-label-slot]");
       await expect(tags.count()).resolves.toBe(3);
+      // The drawings stream in behind a skeleton: measure once each tag is shown.
+      for (const tag of await tags.all()) await tag.waitFor();
       const boxes = await Promise.all((await tags.all()).map((tag) => tag.boundingBox()));
       for (let i = 0; i < boxes.length; i++) {
         for (let j = i + 1; j < boxes.length; j++) {

@@ -22,6 +22,18 @@ describe("audit trail in words", () => {
     expect(changes).toContainEqual({ field: "Why", from: "—", to: "after repair" });
   });
 
+  it("reads a change of sampling mode in words, not as stored JSON", () => {
+    const [change] = describeChange(
+      { sampling: { mode: "static" } },
+      { sampling: { mode: "dynamic", rateHz: 100, summaryMinutes: 10, rangeBin: 0.5, trigger: { above: 40, preSeconds: 2, postSeconds: 5 } } },
+    );
+    expect(change).toEqual({
+      field: "Sampling",
+      from: "static (readings one at a time)",
+      to: "dynamic, 100 Hz, summaries every 10 min, range bins 0.5 MPa, trigger above 40 MPa (2 s before, 5 s after)",
+    });
+  });
+
   it("reads a limit set as sentences, utilisation in % of yield", () => {
     const [change] = describeChange(
       { limits: [] },
