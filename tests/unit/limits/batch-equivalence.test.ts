@@ -14,7 +14,7 @@ import {
   type Reading,
 } from "@/lib/limits";
 
-// The acceptance rule: the engineer's backtest must match what live ingestion raises on the
+// An engineer trusts a backtest only if it raises what live ingestion would: the two must agree on the
 // same data, whatever the batch sizes and however often the state is stored and read back.
 
 const levelArb = fc.record({
