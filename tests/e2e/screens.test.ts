@@ -140,6 +140,8 @@ describe("audit trail", () => {
     await page.getByLabel(/^Location/).fill("Diagonal D3, mid-length, west face");
     await page.getByRole("button", { name: "Save changes" }).click();
     await page.waitForURL(/\/gauges\/DG-3$/);
+    // The audit trail streams in after the page shell; read it once the new entry shows.
+    await expect.poll(() => page.getByTestId("audit-change").allTextContents(), { timeout: 15_000 }).toContain("Gauge factor: 2.08 → 2.09");
     const changes = await page.getByTestId("audit-change").allTextContents();
     expect(changes).toContain("Gauge factor: 2.08 → 2.09");
     expect(changes).toContain("Location: Diagonal D3, mid-length → Diagonal D3, mid-length, west face");
