@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 import type uPlot from "uplot";
@@ -8,8 +9,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { fetchJson } from "@/lib/api/fetcher";
 import type { BurstSummaries, EventDetail, EventList } from "@/lib/services/dynamic-data";
-import { formatInUnit } from "@/lib/units";
-import { WaveformChart, instantText } from "./waveform-chart";
+import { WaveformChart, instantText, useStressDisplay } from "./waveform-chart";
 
 const DAY_MS = 86_400_000;
 
@@ -23,15 +23,17 @@ type Props = {
   canLabel: boolean;
   rateHz: number;
   summaryMinutes: number;
+  /** The event to show first (from an alert's link) instead of the newest. */
+  initialEvent: number | null;
 };
 
 /** A dynamic gauge's summaries over the last days, its events, and the waveform of the chosen one. */
-export function DynamicChannel({ apiBase, structureApi, timeZone, end, canLabel, rateHz, summaryMinutes }: Props) {
+export function DynamicChannel({ apiBase, structureApi, timeZone, end, canLabel, rateHz, summaryMinutes, initialEvent }: Props) {
   const [range] = useState(() => ({ from: new Date(end - 7 * DAY_MS).toISOString(), to: new Date(end + 60_000).toISOString() }));
   const query = new URLSearchParams(range).toString();
   const summaries = useSWR<BurstSummaries>(`${apiBase}/summaries?${query}`, fetchJson, { revalidateOnFocus: false });
   const events = useSWR<EventList>(`${apiBase}/events?${query}`, fetchJson, { revalidateOnFocus: false });
-  const [chosen, setChosen] = useState<number | null>(null);
+  const [chosen, setChosen] = useState<number | null>(initialEvent);
   const selected = chosen ?? events.data?.events[0]?.id ?? null;
 
   return (
@@ -53,17 +55,18 @@ export function DynamicChannel({ apiBase, structureApi, timeZone, end, canLabel,
 }
 
 function SummaryCharts({ answer, error, timeZone }: { answer: BurstSummaries | undefined; error: Error | undefined; timeZone: string }) {
+  const stress = useStressDisplay();
   const columns = useMemo(() => {
     if (!answer) return null;
     const t = answer.intervals.map((i) => Date.parse(i.start) / 1000);
-    const pick = (key: "min" | "max" | "mean" | "rms" | "cycles") => answer.intervals.map((i) => i[key]);
-    return { envelope: [t, pick("min"), pick("max"), pick("mean"), pick("rms")] as uPlot.AlignedData, cycles: [t, pick("cycles")] as uPlot.AlignedData };
-  }, [answer]);
+    const pick = (key: "min" | "max" | "mean" | "rms") => answer.intervals.map((i) => stress.toDisplay(i[key]));
+    return { envelope: [t, pick("min"), pick("max"), pick("mean"), pick("rms")] as uPlot.AlignedData, cycles: [t, answer.intervals.map((i) => i.cycles)] as uPlot.AlignedData };
+  }, [answer, stress]);
   const envelopeOptions = useMemo(
     () =>
-      timeChartOptions(timeZone, "MPa", {
+      timeChartOptions(timeZone, stress.unit, {
         legend: { show: true },
-        valueAxis: { label: "Stress (MPa)", size: 70 },
+        valueAxis: { label: `Stress (${stress.unit})`, size: 70 },
         series: [
           { label: "min", stroke: "#7aa7ad", width: 1, points: { show: false } },
           { label: "max", stroke: "#7aa7ad", width: 1, points: { show: false } },
@@ -72,7 +75,7 @@ function SummaryCharts({ answer, error, timeZone }: { answer: BurstSummaries | u
         ],
         bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
       }),
-    [timeZone],
+    [timeZone, stress.unit],
   );
   const cycleOptions = useMemo(() => {
     const base = timeChartOptions(timeZone, "MPa", {
@@ -97,7 +100,7 @@ function SummaryCharts({ answer, error, timeZone }: { answer: BurstSummaries | u
     <div className="grid gap-4 lg:grid-cols-2">
       <section className={`${cardClass} p-3`} aria-label="Summary envelope chart">
         <h3 className="mb-1 text-sm font-semibold">
-          Stress per interval <span className="font-normal text-slate-500">(MPa; band = min to max, line = mean, RMS about the mean)</span>
+          Stress per interval <span className="font-normal text-slate-500">({stress.unit}; band = min to max, line = mean, RMS about the mean)</span>
         </h3>
         <UplotChart options={envelopeOptions} data={columns.envelope} label="Stress summaries over time" />
       </section>
@@ -112,6 +115,7 @@ function SummaryCharts({ answer, error, timeZone }: { answer: BurstSummaries | u
 }
 
 function EventTable({ list, error, timeZone, selected, onSelect }: { list: EventList | undefined; error: Error | undefined; timeZone: string; selected: number | null; onSelect: (id: number) => void }) {
+  const stress = useStressDisplay();
   return (
     <section className={`${cardClass} p-3`} aria-labelledby="events-heading">
       <h3 id="events-heading" className="mb-2 text-sm font-semibold">
@@ -142,7 +146,7 @@ function EventTable({ list, error, timeZone, selected, onSelect }: { list: Event
                     </button>
                   </td>
                   <td className={`${tdClass} tabular-nums`}>
-                    {formatInUnit(event.peak, "MPa")} <span className="text-xs text-slate-500">({event.trigger} {formatInUnit(event.triggerLevel, "MPa")})</span>
+                    {stress.text(event.peak)} <span className="text-xs text-slate-500">({event.trigger} {stress.text(event.triggerLevel)})</span>
                   </td>
                   <td className={tdClass}>{event.label ?? <span className="text-slate-500">—</span>}</td>
                 </tr>
@@ -156,6 +160,7 @@ function EventTable({ list, error, timeZone, selected, onSelect }: { list: Event
 }
 
 function EventViewer({ url, timeZone, canLabel, onLabelled }: { url: string; timeZone: string; canLabel: boolean; onLabelled: () => void }) {
+  const stress = useStressDisplay();
   const { data: event, error, mutate } = useSWR<EventDetail>(url, fetchJson, { revalidateOnFocus: false });
   const [label, setLabel] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
@@ -176,11 +181,25 @@ function EventViewer({ url, timeZone, canLabel, onLabelled }: { url: string; tim
     <section className={`${cardClass} space-y-2 p-3`} aria-label="Waveform viewer" data-testid="waveform-viewer">
       <h3 className="text-sm font-semibold">Event {event.id} on {event.gauge}</h3>
       <p className="text-xs text-slate-600 dark:text-slate-400" data-testid="event-facts">
-        From {instantText(event.start, timeZone)}, {seconds.toFixed(2)} s at {event.rateHz} Hz · peak {formatInUnit(event.peak, "MPa")} at {instantText(event.peakAt, timeZone)} · trigger {event.trigger}{" "}
-        {formatInUnit(event.triggerLevel, "MPa")}
+        From {instantText(event.start, timeZone)}, {seconds.toFixed(2)} s at {event.rateHz} Hz · peak {stress.text(event.peak)} at {instantText(event.peakAt, timeZone)} · trigger {event.trigger}{" "}
+        {stress.text(event.triggerLevel)}
         {event.truncated && " · cut at the longest waveform kept"}
       </p>
       <WaveformChart event={event} />
+      {event.alerts.length > 0 && (
+        <p className="text-sm" data-testid="event-alerts">
+          Raised{" "}
+          {event.alerts.map((alert, i) => (
+            <span key={alert.id}>
+              {i > 0 && ", "}
+              <Link className="text-accent underline" href={`/alerts/${alert.id}`}>
+                {alert.level} alert {alert.id}
+              </Link>{" "}
+              (opened {instantText(alert.openedAt, timeZone)})
+            </span>
+          ))}
+        </p>
+      )}
       {canLabel ? (
         <form
           className="flex flex-wrap items-end gap-2"

@@ -89,6 +89,9 @@ export const eventDetailSchema = z
     rateHz: z.number(),
     unit: z.literal("MPa"),
     stress: z.array(z.number()).meta({ description: "Samples from preSeconds before the first beyond the trigger to postSeconds after the last, MPa" }),
+    alerts: z
+      .array(z.object({ id: z.number().int(), level: z.enum(["watch", "warning", "critical"]), openedAt: z.string() }))
+      .meta({ description: "Limit alerts of the gauge that opened, or reached their peak, within the event's waveform, oldest first" }),
   })
   .meta({ id: "EventDetail" });
 

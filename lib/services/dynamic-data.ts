@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, desc, eq, gte, lt } from "drizzle-orm";
+import { and, asc, between, desc, eq, gte, lt, or } from "drizzle-orm";
 import { getDb, writeTransaction } from "@/db/client";
-import { burstSummaries, dynamicEvents, gauges, type DynamicEventRow } from "@/db/schema";
+import { alerts, burstSummaries, dynamicEvents, gauges, type DynamicEventRow } from "@/db/schema";
 import type { z } from "zod";
 import type { eventDetailSchema, eventListSchema, summariesSchema } from "@/lib/api/burst-schemas";
 import type { Actor } from "@/lib/auth/actor";
@@ -145,10 +145,34 @@ async function eventOf(actor: Actor, code: string, id: number) {
   return { structure, ...row };
 }
 
-/** One event with its waveform (MPa at `rateHz` from `start`). */
+/** The gauge's limit alerts that opened or peaked inside an event: the waveform links to what it raised. */
+async function alertsDuring(event: Pick<DynamicEventRow, "gaugeId" | "start" | "end">): Promise<EventDetail["alerts"]> {
+  // Alert instants are whole milliseconds; a sample's instant may not be.
+  const inside = { from: new Date(Math.floor(event.start)), to: new Date(Math.ceil(event.end)) };
+  const rows = await getDb()
+    .select({ id: alerts.id, level: alerts.level, openedAt: alerts.openedAt })
+    .from(alerts)
+    .where(
+      and(
+        eq(alerts.gaugeId, event.gaugeId),
+        eq(alerts.kind, "limit"),
+        or(between(alerts.openedAt, inside.from, inside.to), between(alerts.peakAt, inside.from, inside.to)),
+      ),
+    )
+    .orderBy(asc(alerts.openedAt), asc(alerts.id));
+  return rows.map((row) => ({ ...row, openedAt: row.openedAt.toISOString() }));
+}
+
+/** One event with its waveform (MPa at `rateHz` from `start`) and the alerts it raised. */
 export async function getEvent(actor: Actor, code: string, id: number): Promise<EventDetail> {
   const { event, tag } = await eventOf(actor, code, id);
-  return { ...eventSummary(event, tag), rateHz: event.rateHz, unit: "MPa", stress: Array.from(readFloat32LE(event.waveform)) };
+  return {
+    ...eventSummary(event, tag),
+    rateHz: event.rateHz,
+    unit: "MPa",
+    stress: Array.from(readFloat32LE(event.waveform)),
+    alerts: await alertsDuring(event),
+  };
 }
 
 /**
@@ -176,8 +200,8 @@ export async function labelEvent(actor: Actor, code: string, id: number, label: 
   return getEvent(actor, code, id);
 }
 
-/** The captured event holding an instant of a gauge, if any: an alert on a burst's peak links to its waveform. */
-export async function eventAt(gaugeId: number, time: number): Promise<number | null> {
+/** The captured event holding an instant of a gauge, if any. */
+async function eventAt(gaugeId: number, time: number): Promise<number | null> {
   const [row] = await getDb()
     .select({ id: dynamicEvents.id })
     .from(dynamicEvents)
@@ -185,4 +209,21 @@ export async function eventAt(gaugeId: number, time: number): Promise<number | n
     .orderBy(desc(dynamicEvents.start))
     .limit(1);
   return row?.id ?? null;
+}
+
+/**
+ * The waveforms behind an alert on a dynamic gauge: the event holding the sample that opened it
+ * and, when the episode peaked in a later one, that event too. Empty for a static gauge or when
+ * no waveform was captured (the trigger may sit beyond the limit).
+ */
+export async function alertWaveforms(actor: Actor, code: string, tag: string, instants: { openedAt: string; peakAt: string | null }): Promise<{ id: number; holds: "opening" | "peak" | "opening and peak" }[]> {
+  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  if (gauge.sampling.mode !== "dynamic") return [];
+  const opening = await eventAt(gauge.id, Date.parse(instants.openedAt));
+  const peak = instants.peakAt ? await eventAt(gauge.id, Date.parse(instants.peakAt)) : null;
+  if (opening !== null && opening === peak) return [{ id: opening, holds: "opening and peak" }];
+  return [
+    ...(opening === null ? [] : [{ id: opening, holds: "opening" as const }]),
+    ...(peak === null ? [] : [{ id: peak, holds: "peak" as const }]),
+  ];
 }

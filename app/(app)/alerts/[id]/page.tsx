@@ -13,6 +13,7 @@ import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getAlert } from "@/lib/services/alerts";
+import { alertWaveforms } from "@/lib/services/dynamic-data";
 import { getGauge } from "@/lib/services/gauges";
 import { getLimits } from "@/lib/services/limits";
 import { getRosetteLimits } from "@/lib/services/rosette-limits";
@@ -31,12 +32,13 @@ export default async function AlertPage({ params }: Props) {
   const user = await requireUser();
   const { alert, history } = await pageGuard(Number.isInteger(id) ? getAlert(user, id) : Promise.reject(new Error("bad id")));
   const structure = await pageGuard(getVisibleStructure(user, alert.structure));
-  const [canHandle, canZero, gauge, limits, rosetteLimits] = await Promise.all([
+  const [canHandle, canZero, gauge, limits, rosetteLimits, waveforms] = await Promise.all([
     may(user, "alert:acknowledge", structure),
     may(user, "zero:record", structure),
     getGauge(user, structure.code, alert.gauge),
     getLimits(user, structure.code, alert.gauge),
     alert.rosette ? getRosetteLimits(user, structure.code, alert.rosette) : [],
+    alert.kind === "limit" && !alert.rosette ? alertWaveforms(user, structure.code, alert.gauge, alert) : [],
   ]);
   const isHeldJump = alert.kind === "sensor" && alert.code === "jump" && !alert.clearedAt;
   const openedAt = Date.parse(alert.openedAt);
@@ -86,6 +88,21 @@ export default async function AlertPage({ params }: Props) {
               </Link>
             )}
           </p>
+          {waveforms.length > 0 && (
+            <ul className="space-y-1 text-sm" aria-label="Waveforms of this alert" data-testid="alert-waveforms">
+              {waveforms.map((waveform) => (
+                <li key={waveform.id}>
+                  <Link
+                    className="text-accent underline"
+                    href={`/structures/${structure.code}/gauges/${encodeURIComponent(alert.gauge)}?event=${waveform.id}#dynamic`}
+                  >
+                    Waveform of event {waveform.id}
+                  </Link>{" "}
+                  <span className="text-slate-500">(holds the {waveform.holds})</span>
+                </li>
+              ))}
+            </ul>
+          )}
           <h3 className="font-semibold">History</h3>
           <ol className="space-y-2 text-sm" aria-label="Alert history">
             {history.map((event) => (

@@ -60,7 +60,10 @@ function ChangeList({ before, after }: { before: unknown; after: unknown }) {
 
 export default async function GaugePage({ params, searchParams }: Props) {
   const { code, tag: rawTag } = await params;
-  const { page, ...filter } = alertListParamsOf(await searchParams, { state: "all" });
+  const query = await searchParams;
+  const { page, ...filter } = alertListParamsOf(query, { state: "all" });
+  // ?event=<id>: an alert's link opens the waveform that raised it.
+  const linkedEvent = typeof query.event === "string" && /^[1-9]\d{0,15}$/.test(query.event) ? Number(query.event) : null;
   const tag = decodeURIComponent(rawTag);
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
@@ -157,6 +160,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
           canLabel={canLabel}
           rateHz={gauge.sampling.rateHz}
           summaryMinutes={gauge.sampling.summaryMinutes}
+          initialEvent={linkedEvent}
         />
       )}
       <section className="mb-6" aria-labelledby="history">
