@@ -719,6 +719,13 @@ export interface components {
             unit: "MPa";
             /** @description Samples from preSeconds before the first beyond the trigger to postSeconds after the last, MPa */
             stress: number[];
+            /** @description Limit alerts of the gauge that opened, or reached their peak, within the event's waveform, oldest first */
+            alerts: {
+                id: number;
+                /** @enum {string} */
+                level: "watch" | "warning" | "critical";
+                openedAt: string;
+            }[];
         };
         EventLabelInput: {
             /** @description What the event was, e.g. "heavy vehicle" or "false trigger"; null clears it */
