@@ -9,7 +9,8 @@ import * as gaugeRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/route";
 import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatigue/route";
 import { GET as openapi } from "@/app/api/v1/openapi.json/route";
 import { getClient, getDb } from "@/db/client";
-import { auditLog, mailOutbox } from "@/db/schema";
+import { eq } from "drizzle-orm";
+import { alerts, auditLog, gauges, mailOutbox } from "@/db/schema";
 import { createGauge } from "@/lib/services/gauges";
 import type { UserActor } from "@/lib/auth/actor";
 import { microstrainGauge } from "../fixtures/gauges";
@@ -253,6 +254,15 @@ describe("events and limits on dynamic gauges", () => {
     expect(detail.stress[229]).toBeCloseTo(30, 4);
     expect(detail.stress[230]).toBeCloseTo(1, 5);
     expect(detail.end).toBe(iso(START + 25_300));
+    // The waveform names the alert its peak opened, so the engineer can go from one to the other.
+    const [alert] = await getDb()
+      .select({ id: alerts.id, openedAt: alerts.openedAt })
+      .from(alerts)
+      .innerJoin(gauges, eq(gauges.id, alerts.gaugeId))
+      .where(eq(gauges.tag, "D4"));
+    expect(detail.alerts).toEqual([{ id: alert!.id, level: "warning", openedAt: alert!.openedAt.toISOString() }]);
+    expect(Date.parse(detail.alerts[0].openedAt)).toBeGreaterThanOrEqual(Date.parse(detail.start));
+    expect(Date.parse(detail.alerts[0].openedAt)).toBeLessThanOrEqual(Date.parse(detail.end));
   });
 
   it("lets an engineer label an event, audited, and not an owner", async () => {
