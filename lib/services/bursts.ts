@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, gt, inArray, lt, sql } from "drizzle-orm";
-import { writeTransaction, type WriteTx } from "@/db/client";
+import { getDb, writeTransaction, type WriteTx } from "@/db/client";
 import { burstSummaries, bursts, dynamicEvents, dynamicStates, type StoredSampling } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import {
@@ -182,6 +182,11 @@ const slack = (rateHz: number) => 500 / rateHz;
  * Stores the valid bursts of one request in one transaction: each gauge's bursts in time order
  * through summaries, rainflow and event capture, then their extremes and last samples as
  * readings, which limits evaluate like any others.
+ *
+ * Summaries, rainflow and events are worked out before the transaction, against what is stored
+ * then, so the one write transaction at a time only checks that nothing changed and writes. A
+ * request for the same gauge that committed in between changes the basis; the gauge's plan is
+ * then made again inside the transaction, against what is stored now.
  */
 export async function ingestBursts(target: IngestTarget, decoded: readonly DecodedBurst[], now = Date.now()): Promise<BurstIngestResult> {
   const rejected: BurstRejection[] = [];
@@ -195,12 +200,21 @@ export async function ingestBursts(target: IngestTarget, decoded: readonly Decod
   });
   const result: BurstIngestResult = { accepted: 0, bursts: 0, duplicates: 0, rejected, events: 0, alerts: { ...NO_ALERTS } };
   if (byGauge.size === 0) return result;
+  const plans = new Map<number, GaugePlan>();
+  for (const [gaugeId, list] of byGauge) {
+    list.sort((a, b) => a.start - b.start || a.index - b.index);
+    plans.set(gaugeId, planGauge(await readBasis(getDb(), list)));
+  }
   await writeTransaction(async (tx) => {
     const extremes: GaugeRows[] = [];
-    for (const list of byGauge.values()) {
-      const kept = await leaveOutStored(tx, list.sort((a, b) => a.start - b.start || a.index - b.index), result);
-      if (kept.length === 0) continue;
-      extremes.push(await storeGaugeBursts(tx, target, kept, result));
+    for (const [gaugeId, list] of byGauge) {
+      const basis = await readBasis(tx, list);
+      const planned = plans.get(gaugeId)!;
+      const plan = sameBasis(planned.basis, basis) ? planned : planGauge(basis);
+      result.duplicates += plan.basis.duplicates;
+      result.rejected.push(...plan.basis.rejected);
+      if (plan.basis.kept.length === 0) continue;
+      extremes.push(await writeGaugePlan(tx, target, plan, result));
     }
     if (extremes.length > 0) result.alerts = (await storeConvertedReadings(tx, target, extremes)).alerts;
   });
@@ -208,35 +222,67 @@ export async function ingestBursts(target: IngestTarget, decoded: readonly Decod
   return result;
 }
 
+/** What a gauge's plan was made against: the bursts left after duplicates and overlaps, and the stored rainflow and capture state. */
+interface PlanBasis {
+  kept: PreparedBurst[];
+  duplicates: number;
+  rejected: BurstRejection[];
+  state: StoredState | null;
+}
+
+/** The write transaction, or the shared client before it opens: both read through Drizzle alike. */
+type Reader = Pick<WriteTx, "select">;
+
+async function readBasis(reader: Reader, list: PreparedBurst[]): Promise<PlanBasis> {
+  const gaugeId = list[0]!.gauge.id;
+  return { ...(await leaveOutStored(reader, list)), state: await loadState(reader, gaugeId) };
+}
+
+/**
+ * A stored state only changes when a burst is stored in time, which moves its end; the residue
+ * is compared too, so a state rebuilt in between is never taken for the one planned against.
+ */
+function sameBasis(a: PlanBasis, b: PlanBasis): boolean {
+  const indices = (basis: PlanBasis) => basis.kept.map((burst) => burst.index).join(",") + "/" + basis.rejected.map((r) => r.index).join(",");
+  return (
+    indices(a) === indices(b) &&
+    a.duplicates === b.duplicates &&
+    a.state?.end === b.state?.end &&
+    JSON.stringify(a.state?.residue ?? null) === JSON.stringify(b.state?.residue ?? null)
+  );
+}
+
 /**
  * Drops duplicates (a (gauge, start) stored, or earlier in the request) and refuses overlaps,
- * against what is stored and what this request keeps. The write transaction holds SQLite's
- * write lock, so nothing can be stored between the look-up and the insert.
+ * against what is stored and what this request keeps. Inside the write transaction, which holds
+ * SQLite's write lock, nothing can be stored between this look-up and the insert.
  */
-async function leaveOutStored(tx: WriteTx, list: PreparedBurst[], result: BurstIngestResult): Promise<PreparedBurst[]> {
+async function leaveOutStored(reader: Reader, list: PreparedBurst[]): Promise<Omit<PlanBasis, "state">> {
   const gaugeId = list[0]!.gauge.id;
-  const stored = await tx
+  const stored = await reader
     .select({ start: bursts.start, end: bursts.end })
     .from(bursts)
     .where(and(eq(bursts.gaugeId, gaugeId), lt(bursts.start, Math.max(...list.map((b) => b.end))), gt(bursts.end, list[0]!.start)));
   const storedStarts = new Set(stored.map((row) => row.start));
   const kept: PreparedBurst[] = [];
+  const rejected: BurstRejection[] = [];
+  let duplicates = 0;
   for (const burst of list) {
     const eps = slack(burst.sampling.rateHz);
     if (storedStarts.has(burst.start) || kept.some((other) => other.start === burst.start)) {
-      result.duplicates++;
+      duplicates++;
       continue;
     }
     const clash = [...stored, ...kept].find((other) => other.start < burst.end - eps && other.end > burst.start + eps);
     if (clash) {
-      result.rejected.push(
+      rejected.push(
         reject(burst.index, "overlap", `The burst (${new Date(burst.start).toISOString()} to ${new Date(burst.end).toISOString()}) overlaps one from ${new Date(clash.start).toISOString()} to ${new Date(clash.end).toISOString()}; a resend must start at the same instant.`),
       );
       continue;
     }
     kept.push(burst);
   }
-  return kept;
+  return { kept, duplicates, rejected };
 }
 
 type StoredState = { end: number; residue: RainflowResidue; capture: CaptureState | null };
@@ -244,8 +290,8 @@ type StoredState = { end: number; residue: RainflowResidue; capture: CaptureStat
 const float32Bytes = (values: Float32Array) => Buffer.from(writeFloat32LE(values));
 const floatsOf = (bytes: Uint8Array | null) => (bytes ? Float32Array.from(readFloat32LE(bytes)) : new Float32Array(0));
 
-async function loadState(tx: WriteTx, gaugeId: number): Promise<StoredState | null> {
-  const [row] = await tx.select().from(dynamicStates).where(eq(dynamicStates.gaugeId, gaugeId)).limit(1);
+async function loadState(reader: Reader, gaugeId: number): Promise<StoredState | null> {
+  const [row] = await reader.select().from(dynamicStates).where(eq(dynamicStates.gaugeId, gaugeId)).limit(1);
   if (!row) return null;
   const capture: CaptureState | null =
     row.captureNextTime === null
@@ -282,15 +328,26 @@ function closeResidue(residue: RainflowResidue, interval: IntervalSummary) {
   }, residue).finish();
 }
 
-/** One gauge's new bursts, in time order: summaries, residue, events and burst rows; returns the extremes (and last samples) as reading rows. */
-async function storeGaugeBursts(tx: WriteTx, target: IngestTarget, list: PreparedBurst[], result: BurstIngestResult): Promise<GaugeRows> {
-  const { gauge } = list[0]!;
-  const sampling = list.at(-1)!.sampling;
+/** One gauge's kept bursts worked through: what the transaction writes for them. */
+interface GaugePlan {
+  basis: PlanBasis;
+  sampling: DynamicSampling;
+  /** The rainflow and capture state after the last burst in time; null when none was. */
+  state: StoredState | null;
+  intervals: Map<number, IntervalSummary>;
+  events: CapturedEvent[];
+  readings: { time: number; index: number; burst: PreparedBurst }[];
+  samples: number;
+}
+
+/** One gauge's new bursts, in time order, through summaries, residue and event capture; no database. */
+function planGauge(basis: PlanBasis): GaugePlan {
+  const list = basis.kept;
+  const sampling = list.at(-1)?.sampling ?? null;
+  const plan: GaugePlan = { basis, sampling: sampling!, state: basis.state, intervals: new Map(), events: [], readings: [], samples: 0 };
+  if (!sampling) return plan;
   const trigger = sampling.trigger ? { rateHz: sampling.rateHz, ...sampling.trigger } : null;
-  let state = await loadState(tx, gauge.id);
-  const intervals = new Map<number, IntervalSummary>();
-  const events: CapturedEvent[] = [];
-  const readings: { time: number; index: number; burst: PreparedBurst }[] = [];
+  let state = basis.state;
   for (const burst of list) {
     const config = { rateHz: sampling.rateHz, summaryMinutes: sampling.summaryMinutes, rangeBin: sampling.rangeBin };
     // A burst older than the newest one stored cannot join the signal the residue belongs to (its
@@ -300,31 +357,40 @@ async function storeGaugeBursts(tx: WriteTx, target: IngestTarget, list: Prepare
     const block = summarizeBlock(burst.stress, burst.start, config, inTime ? state?.residue : undefined);
     if (!inTime) closeResidue(block.residue, block.intervals.at(-1)!);
     for (const interval of block.intervals) {
-      const earlier = intervals.get(interval.start);
-      intervals.set(interval.start, earlier ? mergeSummaries(earlier, interval) : interval);
+      const earlier = plan.intervals.get(interval.start);
+      plan.intervals.set(interval.start, earlier ? mergeSummaries(earlier, interval) : interval);
     }
     let capture = inTime ? (state?.capture ?? null) : null;
     if (trigger) {
       const captured = captureEvents(burst.stress, burst.start, trigger, capture);
-      events.push(...captured.events);
+      plan.events.push(...captured.events);
       capture = captured.state;
     }
     if (inTime) state = { end: burst.end, residue: block.residue, capture };
-    result.accepted += burst.stress.length;
-    result.bursts++;
+    plan.samples += burst.stress.length;
     // The last sample shows where the burst ends, so an alert opened on a peak can clear in it.
     for (const index of new Set([block.minIndex, block.maxIndex, burst.stress.length - 1])) {
-      readings.push({ time: Math.round(burst.start + (index * 1000) / sampling.rateHz), index, burst });
+      plan.readings.push({ time: Math.round(burst.start + (index * 1000) / sampling.rateHz), index, burst });
     }
   }
+  plan.state = state;
+  return plan;
+}
+
+/** Writes one gauge's plan (burst rows, merged summaries, state, events); returns the extremes (and last samples) as reading rows. */
+async function writeGaugePlan(tx: WriteTx, target: IngestTarget, plan: GaugePlan, result: BurstIngestResult): Promise<GaugeRows> {
+  const list = plan.basis.kept;
+  const { gauge } = list[0]!;
   await tx.insert(bursts).values(list.map((b) => ({ gaugeId: gauge.id, start: b.start, end: b.end, samples: b.stress.length, temperature: b.temperature })));
-  await mergeStoredSummaries(tx, gauge.id, sampling, intervals);
-  if (state) await saveState(tx, gauge.id, state);
-  if (events.length > 0) {
-    await tx.insert(dynamicEvents).values(events.map((event) => eventRow(target, gauge.id, sampling, event)));
-    result.events += events.length;
+  await mergeStoredSummaries(tx, gauge.id, plan.sampling, plan.intervals);
+  if (plan.state && plan.state !== plan.basis.state) await saveState(tx, gauge.id, plan.state);
+  if (plan.events.length > 0) {
+    await tx.insert(dynamicEvents).values(plan.events.map((event) => eventRow(target, gauge.id, plan.sampling, event)));
+    result.events += plan.events.length;
   }
-  return extremeRows(gauge, readings);
+  result.accepted += plan.samples;
+  result.bursts += list.length;
+  return extremeRows(gauge, plan.readings);
 }
 
 function eventRow(target: IngestTarget, gaugeId: number, sampling: DynamicSampling, event: CapturedEvent) {

@@ -31,7 +31,7 @@ beforeAll(async () => {
   const owner = await makeUser("owner");
   await makeStructure("BR", [engineer, owner]);
   await makeStructure("OTHER", [engineer]);
-  for (const tag of ["D1", "D2", "D3", "D4", "D5", "D6"]) {
+  for (const tag of ["D1", "D2", "D3", "D4", "D5", "D6", "D7", "D8"]) {
     await createGauge(engineer, "BR", { ...microstrainGauge(tag), material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 }, sampling: dynamic });
   }
   await createGauge(engineer, "BR", microstrainGauge("S1"));
@@ -149,6 +149,34 @@ describe("POST /bursts", () => {
     ]);
     // Counted on its own and closed at its end: 240 half cycles from crest to trough and back.
     expect(intervals[0].cycles).toBe(120);
+  });
+
+  it("stores each burst once, with the joined signal's cycles, when two requests for a gauge arrive together", async () => {
+    // Summaries are worked out before the write transaction: whichever request commits second
+    // finds its basis changed and counts again against what the first stored.
+    const first = signal(60, footfall);
+    const second = signal(60, (t) => footfall(t + 60));
+    const [alone, both] = await Promise.all([
+      postJson([{ gauge: "D7", start: iso(T0), rateHz: RATE, values: first }]),
+      postJson([
+        { gauge: "D7", start: iso(T0), rateHz: RATE, values: first },
+        { gauge: "D7", start: iso(T0 + 60_000), rateHz: RATE, values: second },
+      ]),
+    ]);
+    expect([alone.status, both.status]).toEqual([200, 200]);
+    expect(alone.body.bursts + both.body.bursts).toBe(2);
+    expect(alone.body.duplicates + both.body.duplicates).toBe(1);
+    expect(await storedBursts("D7")).toBe(2);
+    await postJson([
+      { gauge: "D8", start: iso(T0), rateHz: RATE, values: first },
+      { gauge: "D8", start: iso(T0 + 60_000), rateHz: RATE, values: second },
+    ]);
+    const [together] = (await summaries("D7")).intervals;
+    expect(together).toEqual((await summaries("D8")).intervals[0]);
+    // Physics: 120 s of a 2 Hz cosine is 240 periods; the last half period waits in the residue.
+    expect(together.samples).toBe(12_000);
+    expect(together.cycles).toBeGreaterThanOrEqual(239);
+    expect(together.cycles).toBeLessThanOrEqual(240);
   });
 });
 
