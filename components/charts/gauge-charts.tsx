@@ -12,6 +12,7 @@ import { inDisplayUnits } from "@/lib/units";
 import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { chartExportFileName, chartExportTitleLines } from "@/lib/series/chart-export";
 import { EnvelopeChart, type ChartEpisode, type ChartEvent, type TimeRange } from "./envelope-chart";
+import { ShowAllLimitsSwitch } from "./show-all-limits";
 import { ThermalScatter } from "./thermal-scatter";
 
 const HOUR = 3_600_000;
@@ -188,10 +189,7 @@ export function GaugeCharts({
       <p className="text-xs text-slate-600 dark:text-slate-400" data-testid="chart-range">
         {local(range.from)} to {local(range.to)} ({timeZone}). Drag across a chart to zoom in; double-click it to zoom back out.
       </p>
-      <label className="flex items-center gap-2 text-sm">
-        <input type="checkbox" checked={showAllLimits} onChange={(event) => setShowAllLimits(event.target.checked)} />
-        Show all limits (the scale then reaches every bound; otherwise it fits the data and far bounds are marked at the edge)
-      </label>
+      <ShowAllLimitsSwitch checked={showAllLimits} onChange={setShowAllLimits} />
       {problem && <p className="text-sm text-critical">{problem}</p>}
       {quantities.map(([quantity, title, answer]) => (
         <EnvelopeChart

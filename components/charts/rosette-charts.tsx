@@ -9,6 +9,7 @@ import { limitLines, ROSETTE_LIMIT_QUANTITIES, type Limit, type RosetteLimitQuan
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
 import { EnvelopeChart, type ChartEpisode, type ChartEvent, type TimeRange } from "./envelope-chart";
+import { ShowAllLimitsSwitch } from "./show-all-limits";
 
 const DAY = 86_400_000;
 const POINTS = 800;
@@ -49,7 +50,8 @@ function RosetteChart({
   limits = NO_LIMITS,
   episodes = NONE,
   events = NONE,
-}: RosetteChartProps<ChartEpisode> & { quantity: ChartedQuantity; range: TimeRange }) {
+  showAllLimits = false,
+}: RosetteChartProps<ChartEpisode> & { quantity: ChartedQuantity; range: TimeRange; showAllLimits?: boolean }) {
   const units = useUnits();
   const url =
     `/api/v1/structures/${encodeURIComponent(structureCode)}/rosettes/${encodeURIComponent(tag)}/series` +
@@ -72,6 +74,7 @@ function RosetteChart({
       lines={lines}
       episodes={episodes}
       events={events}
+      showAllLimits={showAllLimits}
     />
   );
 }
@@ -79,6 +82,7 @@ function RosetteChart({
 /** The plane stress state at a rosette over time: principal stresses, von Mises and principal angle. */
 export function RosetteCharts({ end, episodes = NONE, ...shared }: RosetteChartProps<RosetteEpisode> & { end: number }) {
   const [days, setDays] = useState(7);
+  const [showAllLimits, setShowAllLimits] = useState(false);
   const range = { from: end - days * DAY, to: end };
   return (
     <div className="space-y-3">
@@ -89,8 +93,16 @@ export function RosetteCharts({ end, episodes = NONE, ...shared }: RosetteChartP
           </button>
         ))}
       </div>
+      <ShowAllLimitsSwitch checked={showAllLimits} onChange={setShowAllLimits} />
       {CHARTED.map((quantity) => (
-        <RosetteChart key={quantity} {...shared} quantity={quantity} range={range} episodes={episodes.filter((episode) => episode.quantity === quantity)} />
+        <RosetteChart
+          key={quantity}
+          {...shared}
+          quantity={quantity}
+          range={range}
+          episodes={episodes.filter((episode) => episode.quantity === quantity)}
+          showAllLimits={showAllLimits}
+        />
       ))}
     </div>
   );

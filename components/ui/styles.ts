@@ -27,3 +27,15 @@ export const tableClass = "min-w-full divide-y divide-slate-200 text-sm dark:div
 // No uppercase: it would turn the unit µε into "ΜΕ".
 export const thClass = "px-3 py-2 text-left text-xs font-semibold text-slate-500 dark:text-slate-400";
 export const tdClass = "px-3 py-2 align-middle";
+
+/**
+ * A table that turns into stacked cards on a phone: each row a block, each cell a line headed by
+ * its column name (the cell's `data-label`), so nothing scrolls sideways at 390 px.
+ */
+export const stackedTable = {
+  table: `${tableClass} max-sm:block`,
+  head: "max-sm:sr-only",
+  body: "divide-y divide-slate-100 max-sm:block dark:divide-slate-800",
+  row: "max-sm:block max-sm:py-2",
+  cell: `${tdClass} max-sm:block max-sm:py-1 max-sm:before:block max-sm:before:text-xs max-sm:before:font-semibold max-sm:before:text-slate-500 max-sm:before:content-[attr(data-label)]`,
+} as const;

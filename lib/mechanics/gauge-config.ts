@@ -34,7 +34,7 @@ export type ThermalCompensation =
   | { method: "polynomial"; coefficients: readonly number[] }
   /**
    * Expansion coefficient (µε/°C) the foil gauge is matched to (required), or of the vibrating wire
-   * (defaults to the steel wire's 12).
+   * (defaults to the steel wire's `STEEL_WIRE_CTE`).
    */
   | { method: "cte"; gaugeCte?: number | null };
 
@@ -76,7 +76,7 @@ export interface GaugeConfig {
   leadResistance?: number | null;
   /** Ohms. */
   gaugeResistance?: number | null;
-  /** Defaults to `none` for foil and to `cte` with the steel wire's 12 µε/°C for vibrating wire. */
+  /** Defaults to `none` for foil and to `cte` with the steel wire's coefficient (`STEEL_WIRE_CTE`) for vibrating wire. */
   thermal?: ThermalCompensation | null;
   material: Material;
   /** MPa added to the computed stress: the dead-load stress present when the gauge was zeroed. */

@@ -3,10 +3,11 @@ import { failure } from "./result";
 import type { GaugeKind, ThermalCompensation } from "./gauge-config";
 
 /**
- * Carbon-steel vibrating wire's expansion coefficient in µε/°C: a handbook value from memory
- * (steel wire lies about 11–13 µε/°C).
+ * Carbon-steel vibrating wire's expansion coefficient in µε/°C, the API's default for a new wire
+ * gauge: a handbook value from memory (steel wire lies about 11–13 µε/°C). A gauge stores the
+ * coefficient it was created with, so changing this default never re-converts a stored gauge.
  */
-export const STEEL_WIRE_CTE = 12;
+export const STEEL_WIRE_CTE = 12.2;
 
 const MAX_THERMAL_OUTPUT_TERMS = 5;
 

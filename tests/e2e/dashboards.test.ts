@@ -482,6 +482,12 @@ describe("the rosette page's limits editor", () => {
       // The demo rosette's stresses stay far below 250 MPa: the axis fits the data and the bound is marked at its top edge.
       const offScale = async () => JSON.parse((await vonMises.locator("[data-off-scale-lines]").getAttribute("data-off-scale-lines")) ?? "[]");
       await expect.poll(offScale, { timeout: 10_000 }).toEqual([expect.objectContaining({ level: "warning", value: 250, side: "above" })]);
+      // As on a gauge's charts, the switch stretches the scale to every bound: the line is drawn in view, no arrow left.
+      await engineer.getByLabel(/^Show all limits/).first().check();
+      await expect.poll(offScale, { timeout: 10_000 }).toEqual([]);
+      await expect.poll(() => drawnLimitLines(vonMises), { timeout: 10_000 }).toEqual([expect.objectContaining({ level: "warning", value: 250 })]);
+      await engineer.getByLabel(/^Show all limits/).first().uncheck();
+      await expect.poll(offScale, { timeout: 10_000 }).toEqual([expect.objectContaining({ level: "warning", value: 250, side: "above" })]);
       const sigma1 = engineer.getByRole("region", { name: "Principal stress σ1 chart" }).first();
       await sigma1.locator("canvas").waitFor();
       await expect(drawnLimitLines(sigma1)).resolves.toEqual([]);

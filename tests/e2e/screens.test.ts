@@ -153,6 +153,20 @@ describe("audit trail", () => {
       await saveScreenshot(pages[size], `audit-trail-${size}-${STAGE}`);
     }
   });
+
+  it("stacks the audit rows on a phone, so the page never scrolls sideways", async () => {
+    const page = pages.phone;
+    await page.goto("/structures/MILL-FB/gauges/DG-3");
+    const row = page.getByTestId("audit-row").first();
+    await row.waitFor();
+    await page.waitForLoadState("networkidle");
+    // Each field is a line headed by its column name, and neither the page nor the section overflows.
+    await expect(row.locator("td").first().evaluate((cell) => getComputedStyle(cell).display)).resolves.toBe("block");
+    const section = page.getByRole("region", { name: /^Changes to this location/ });
+    const { scroll, client } = await section.evaluate((element) => ({ scroll: element.scrollWidth, client: element.clientWidth }));
+    expect(scroll).toBeLessThanOrEqual(client);
+    expect(await documentOverflow(page)).toBeLessThanOrEqual(0);
+  });
 });
 
 describe("drawings", () => {

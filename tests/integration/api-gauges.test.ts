@@ -64,14 +64,14 @@ describe("registering gauges", () => {
     expect(gauge).toMatchObject({ ...expected, status: "active", polarity: 1, initialStress: 0, thermal: { method: "none" } });
   });
 
-  // Carbon-steel wire expands about 12 µε/°C (handbook value, from memory); the default is stored
+  // Carbon-steel wire expands about 12.2 µε/°C (handbook value, from memory; steel lies about 11–13); the default is stored
   // with the gauge, so a later change of default never rewrites how its readings convert.
   it("defaults a vibrating-wire gauge to the steel wire's expansion coefficient and stores it", async () => {
     const response = await post(tokens.engineer, vibratingWire);
     expect(response.status).toBe(201);
-    expect((await response.json()).thermal).toEqual({ method: "cte", gaugeCte: 12 });
+    expect((await response.json()).thermal).toEqual({ method: "cte", gaugeCte: 12.2 });
     const withoutCoefficient = await post(tokens.engineer, { ...vibratingWire, tag: "VW-2", thermal: { method: "cte" } });
-    expect((await withoutCoefficient.json()).thermal).toEqual({ method: "cte", gaugeCte: 12 });
+    expect((await withoutCoefficient.json()).thermal).toEqual({ method: "cte", gaugeCte: 12.2 });
   });
 
   it("answers 409 naming the duplicate tag", async () => {
@@ -115,6 +115,14 @@ describe("editing, zeroing and retiring", () => {
 
     const refused = await patch(tokens.engineer!, "G1", { input: "frequency-squared" });
     expect(refused.status).toBe(400);
+  });
+
+  it("keeps the coefficient an older wire gauge was stored with when it is edited after the default changed", async () => {
+    // 12 µε/°C: the default such a gauge was created with before; an edit must not swap in today's.
+    expect((await post(tokens.engineer, { ...vibratingWire, tag: "VW-OLD", thermal: { method: "cte", gaugeCte: 12 } })).status).toBe(201);
+    const response = await patch(tokens.engineer!, "VW-OLD", { gaugeFactor: 3.6 });
+    expect(response.status).toBe(200);
+    expect(await response.json()).toMatchObject({ gaugeFactor: 3.6, thermal: { method: "cte", gaugeCte: 12 } });
   });
 
   it("sets a typed zero and keeps the previous one in the history", async () => {

@@ -13,7 +13,7 @@ import { MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
-import { buttonClass, cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
+import { buttonClass, cardClass, stackedTable, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { may } from "@/lib/auth/authorize";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
@@ -261,9 +261,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
           <h2 id="audit" className="mb-3 font-semibold">
             Changes to this location&apos;s gauges
           </h2>
-          <div className="overflow-x-auto">
-            <table className={tableClass}>
-              <thead>
+          {audit.length === 0 ? (
+            <p className="text-sm text-slate-600 dark:text-slate-400">No changes recorded yet: edits, zeros, limits and replacements at this location will be listed here.</p>
+          ) : (
+            <table className={stackedTable.table}>
+              <thead className={stackedTable.head}>
                 <tr>
                   <th className={thClass}>When</th>
                   <th className={thClass}>Who</th>
@@ -271,22 +273,26 @@ export default async function GaugePage({ params, searchParams }: Props) {
                   <th className={thClass}>Old → new</th>
                 </tr>
               </thead>
-              <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
+              <tbody className={stackedTable.body}>
                 {audit.map((entry) => (
-                  <tr key={entry.id} data-testid="audit-row">
-                    <td className={`${tdClass} whitespace-nowrap`}>{when(entry.at)}</td>
-                    <td className={tdClass}>{entry.actorLabel}</td>
-                    <td className={tdClass}>
+                  <tr key={entry.id} data-testid="audit-row" className={stackedTable.row}>
+                    <td className={`${stackedTable.cell} whitespace-nowrap`} data-label="When">
+                      {when(entry.at)}
+                    </td>
+                    <td className={stackedTable.cell} data-label="Who">
+                      {entry.actorLabel}
+                    </td>
+                    <td className={stackedTable.cell} data-label="What">
                       <span title={entry.action}>{actionInWords(entry.action)}</span> <span className="font-mono text-xs">{entry.entityKey.split("/")[1]}</span>
                     </td>
-                    <td className={`${tdClass} max-w-md break-words text-xs`}>
+                    <td className={`${stackedTable.cell} max-w-md break-words text-xs`} data-label="Old → new">
                       <ChangeList before={entry.before} after={entry.after} />
                     </td>
                   </tr>
                 ))}
               </tbody>
             </table>
-          </div>
+          )}
         </section>
       )}
       {active && canEdit && (
