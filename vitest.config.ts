@@ -32,12 +32,13 @@ export default defineConfig({
       integration("integration-client", "client"),
       {
         // The attacks as a suite, against the production build with the demo seeded (like the
-        // browser tests, without a browser): a few minutes on two cores.
+        // browser tests, without a browser): a few minutes on two cores. The faults (tests/faults)
+        // start, kill and restart production servers of their own on databases of their own.
         extends: true,
         test: {
           name: "security",
           environment: "node",
-          include: ["tests/security/**/*.test.ts"],
+          include: ["tests/security/**/*.test.ts", "tests/faults/**/*.test.ts"],
           globalSetup: ["tests/e2e/global-setup.ts"],
           setupFiles: ["tests/security/setup.ts"],
           testTimeout: 60_000,

@@ -6,12 +6,14 @@ declare module "next-auth" {
     sessionVersion: number;
   }
   interface Session {
-    user: { id: string; role: Role; sessionVersion: number; sessionId: string; name?: string | null; email?: string | null };
+    user: { id: string; role: Role; sessionFormat: number | undefined; sessionVersion: number; sessionId: string; name?: string | null; email?: string | null };
   }
 }
 
 declare module "next-auth/jwt" {
   interface JWT {
+    /** SESSION_FORMAT of the release that wrote the cookie; absent in cookies of format 1. */
+    sessionFormat?: number;
     role: Role;
     /** The user's session version when they signed in (users.session_version). */
     sessionVersion: number;

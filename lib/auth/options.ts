@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { endSession } from "./session-claims";
+import { endSession, SESSION_FORMAT } from "./session-claims";
 import { clientAddressOf, verifyCredentials } from "./sign-in";
 
 const SESSION_HOURS = 12;
@@ -32,6 +32,7 @@ export const authOptions: NextAuthOptions = {
   callbacks: {
     jwt({ token, user }) {
       if (user) {
+        token.sessionFormat = SESSION_FORMAT;
         token.role = user.role;
         token.sessionVersion = user.sessionVersion;
         token.sessionId = randomUUID();
@@ -42,6 +43,7 @@ export const authOptions: NextAuthOptions = {
       if (session.user) {
         session.user.id = token.sub!;
         session.user.role = token.role;
+        session.user.sessionFormat = token.sessionFormat;
         session.user.sessionVersion = token.sessionVersion;
         session.user.sessionId = token.sessionId;
       }

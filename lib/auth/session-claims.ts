@@ -5,17 +5,26 @@ import { endedSessions } from "@/db/schema";
 import { getUserById } from "@/lib/services/users";
 import type { UserActor } from "./actor";
 
+/**
+ * The shape of the claims this release writes into session cookies. Raise it whenever a release
+ * adds, removes or changes the meaning of a claim: cookies written by an earlier release then stop
+ * counting and their holders are asked to sign in again, instead of the code guessing at claims
+ * that were never written. 2: subject, role, session version and session id (1 had no version or id).
+ */
+export const SESSION_FORMAT = 2;
+
 /** What the session cookie says about its holder (the JWT's claims). */
-export type SessionClaims = { sub?: string; sessionVersion?: number; sessionId?: string };
+export type SessionClaims = { sub?: string; sessionFormat?: number; sessionVersion?: number; sessionId?: string };
 
 /**
  * The user a session belongs to as the database knows them now, or null when the session no
- * longer counts: the account is gone or deactivated, its sessions were ended since (password,
- * role, "sign out everywhere"), or this session was signed out and its cookie copied.
+ * longer counts: an earlier release wrote it (another SESSION_FORMAT), the account is gone or
+ * deactivated, its sessions were ended since (password, role, "sign out everywhere"), or this
+ * session was signed out and its cookie copied.
  */
 export async function userForSession(claims: SessionClaims | null | undefined): Promise<UserActor | null> {
   const id = Number(claims?.sub);
-  if (!claims || !Number.isInteger(id) || !claims.sessionId) return null;
+  if (!claims || claims.sessionFormat !== SESSION_FORMAT || !Number.isInteger(id) || !claims.sessionId) return null;
   const user = await getUserById(id);
   if (!user || !user.active || user.sessionVersion !== claims.sessionVersion) return null;
   const [ended] = await getDb()

@@ -12,7 +12,7 @@ import { userForSession } from "./session-claims";
 export async function currentUser(): Promise<UserActor | null> {
   const session = await getServerSession(authOptions);
   const user = session?.user;
-  return userForSession(user && { sub: user.id, sessionVersion: user.sessionVersion, sessionId: user.sessionId });
+  return userForSession(user && { sub: user.id, sessionFormat: user.sessionFormat, sessionVersion: user.sessionVersion, sessionId: user.sessionId });
 }
 
 /** For pages: the signed-in user, or a redirect to the sign-in page. */

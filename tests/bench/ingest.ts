@@ -19,7 +19,7 @@ import { createStructure } from "@/lib/services/structures";
 import { createToken } from "@/lib/services/tokens";
 import { createUser } from "@/lib/services/users";
 import type { UserActor } from "@/lib/auth/actor";
-import { waitForServer } from "../e2e/global-setup";
+import { waitForServer } from "../e2e/app-server";
 import { freePort } from "../free-port";
 import type { BenchResult } from "./mechanics";
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { userForSession, endSession, type SessionClaims } from "@/lib/auth/session-claims";
+import { userForSession, endSession, SESSION_FORMAT, type SessionClaims } from "@/lib/auth/session-claims";
 import { verifyCredentials } from "@/lib/auth/sign-in";
 import { requestPasswordReset, setPasswordWithLink } from "@/lib/services/accounts";
 import { endEverySession, setPasswordFromCommandLine, updateUser } from "@/lib/services/users";
@@ -13,7 +13,7 @@ process.env.NEXTAUTH_SECRET = "integration-test-secret";
 async function signIn(email: string, password = "correct-horse", sessionId = crypto.randomUUID()): Promise<SessionClaims> {
   const outcome = await verifyCredentials(email, password, null);
   if (!("actor" in outcome)) throw new Error(`sign-in refused: ${outcome.refused}`);
-  return { sub: String(outcome.actor.id), sessionVersion: outcome.sessionVersion, sessionId };
+  return { sub: String(outcome.actor.id), sessionFormat: SESSION_FORMAT, sessionVersion: outcome.sessionVersion, sessionId };
 }
 
 const resetLinkToken = async (to: string) => {
@@ -70,5 +70,15 @@ describe("sessions end on the server", () => {
     expect(await userForSession({ ...claims, sessionId: undefined })).toBeNull();
     expect(await userForSession({ ...claims, sub: "999999" })).toBeNull();
     expect(await userForSession({ ...claims, sessionVersion: claims.sessionVersion! + 1 })).toBeNull();
+  });
+
+  it("refuses sessions written by a release with another session format, however right their other claims", async () => {
+    const user = await makeUser("owner", "old-release@test.example");
+    const claims = await signIn(user.email);
+    expect(await userForSession(claims)).not.toBeNull();
+    const { sessionFormat: _, ...withoutFormat } = claims;
+    expect(await userForSession(withoutFormat)).toBeNull();
+    expect(await userForSession({ ...claims, sessionFormat: SESSION_FORMAT - 1 })).toBeNull();
+    expect(await userForSession({ ...claims, sessionFormat: SESSION_FORMAT + 1 })).toBeNull();
   });
 });

@@ -1,5 +1,7 @@
 import { spawnSync } from "node:child_process";
+import { encode } from "next-auth/jwt";
 import { beforeAll, describe, expect, it } from "vitest";
+import { SESSION_FORMAT } from "@/lib/auth/session-claims";
 import { createUser } from "@/lib/services/users";
 import { baseUrl, serverDb, signInOverHttp } from "./helpers";
 
@@ -8,7 +10,7 @@ import { baseUrl, serverDb, signInOverHttp } from "./helpers";
 const whoAmI = (cookie: string) => fetch(`${baseUrl()}/api/v1/structures`, { headers: { cookie } });
 
 beforeAll(async () => {
-  for (const who of ["guessed", "replayed", "reset"]) {
+  for (const who of ["guessed", "replayed", "reset", "upgraded"]) {
     await createUser(null, { email: `${who}@sessions.example`, name: `Session ${who}`, role: "owner", password: "right-password" });
   }
 });
@@ -62,5 +64,26 @@ describe("session replay", () => {
     expect(cli.status, cli.stderr).toBe(0);
     expect((await whoAmI(cookie!)).status).toBe(401);
     expect((await signInOverHttp("reset@sessions.example", "another-password")).cookie).not.toBeNull();
+  });
+});
+
+describe("sessions of an earlier release", () => {
+  /** A session cookie as a release writing `format` would have, signed with the server's secret. */
+  async function cookieOfFormat(format: number | undefined) {
+    const { rows } = await serverDb().execute("select id, email, role, session_version from users where email = 'upgraded@sessions.example'");
+    const user = rows[0]!;
+    const token = { sub: String(user.id), email: String(user.email), role: user.role, sessionVersion: Number(user.session_version), sessionId: crypto.randomUUID(), sessionFormat: format };
+    return `next-auth.session-token=${await encode({ token: token as never, secret: process.env.NEXTAUTH_SECRET! })}`;
+  }
+
+  it("asks the holder of a cookie in an earlier session format to sign in again, and accepts the current format", async () => {
+    // The same claims with this release's format work: the refusal below is the format's alone.
+    expect((await whoAmI(await cookieOfFormat(SESSION_FORMAT))).status).toBe(200);
+    for (const format of [undefined, SESSION_FORMAT - 1]) {
+      const cookie = await cookieOfFormat(format);
+      expect((await whoAmI(cookie)).status, `format ${format}`).toBe(401);
+      const page = await fetch(`${baseUrl()}/`, { headers: { cookie }, redirect: "manual" });
+      expect(new URL(page.headers.get("location") ?? "", baseUrl()).pathname, `format ${format}`).toBe("/signin");
+    }
   });
 });
