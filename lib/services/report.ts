@@ -11,7 +11,7 @@ import { REPORT_CAUTIONS } from "@/lib/report/cautions";
 import { activeSpan, completeness, expectedReadings, type Span } from "@/lib/report/completeness";
 import { firstOf, missingHourRuns } from "@/lib/report/gaps";
 import { dayText, lastDay, periodKey, periodName, previousMonthPeriod, type ReportPeriod } from "@/lib/report/period";
-import { periodHeadline, periodLevel } from "@/lib/report/status";
+import { periodHeadline, periodLevel, type CheckedGauges } from "@/lib/report/status";
 import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { gaugeRowsOf } from "./gauges";
@@ -165,6 +165,18 @@ function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, 
   };
 }
 
+/** Which of the report's gauges an all clear covers; faulty readings are not in `received`, so a gauge that sent only those is faulty, not silent. */
+function checkedGauges(gauges: ReportGauge[], limitedTags: Set<string>): CheckedGauges {
+  const checked: CheckedGauges = { withLimits: 0, withoutLimits: 0, faulty: 0, silent: 0 };
+  for (const gauge of gauges) {
+    const faulty = gauge.leftOut !== null || gauge.condition.state === "sensor-fault";
+    if (faulty) checked.faulty++;
+    if (gauge.readings.received > 0) checked[limitedTags.has(gauge.tag) ? "withLimits" : "withoutLimits"]++;
+    else if (!faulty) checked.silent++;
+  }
+  return checked;
+}
+
 const readingShare = (received: number, expected: number) => ({
   received,
   expected,
@@ -259,6 +271,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
   // A gauge belongs in the report if it was on the structure at some time in the period.
   const inPeriod = allGauges.filter((gauge) => lifeOf(gauge).start < span.end && (lifeOf(gauge).end ?? Infinity) > span.start);
   const conditionOf = new Map(statuses.map((status) => [status.tag, conditionView(status.condition)]));
+  const limitedTags = new Set(statuses.filter((status) => status.hasLimits).map((status) => status.tag));
 
   const gauges: ReportGauge[] = [];
   for (const gauge of inPeriod) {
@@ -298,7 +311,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
     generatedAt: now.toISOString(),
     summary: {
       level,
-      headline: periodHeadline(level, share),
+      headline: periodHeadline(level, share, checkedGauges(gauges, limitedTags)),
       alerts: {
         watch: limitLevels.filter((l) => l === "watch").length,
         warning: limitLevels.filter((l) => l === "warning").length,

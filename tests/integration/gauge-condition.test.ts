@@ -119,6 +119,9 @@ describe("a gauge's condition", () => {
     expect(j1.strain).toMatchObject({ min: 100, max: 102 });
     expect(report.gauges.find((gauge) => gauge.tag === "N1")!.condition.state).toBe("no-limits");
     expect(report.summary.current.state).toBe("sensor-fault");
+    // Counted by hand from the setup: J1, S1 and W1 carry limits and sent readings; N1 sent
+    // readings without limits; J1's jump is a sensor fault; X1 and X2 (added above) are silent.
+    expect(report.summary.headline).toMatch(/^No limit was crossed on the 3 gauges with limits that sent readings \(.+\); 1 gauge has no limits and was not checked; 1 gauge had sensor faults, whose faulty readings were not checked; 2 gauges sent no readings\.$/);
     const parsed = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText();
     const text = parsed.text.replace(/\s+/g, " ");
     expect(text).toContain("Condition now Sensor fault (jump) since");
