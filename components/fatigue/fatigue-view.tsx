@@ -246,7 +246,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
           {fatigue.readingsSkipped > 0 && (
             <li>
               {count(fatigue.readingsSkipped)} faulty readings were left out: beyond the gauge&apos;s rated range, or found faulty by sensor health (a
-              jump or spike, a flat line).
+              jump or spike, a flat line, or held after a jump until an engineer resolves it).
             </li>
           )}
         </ul>

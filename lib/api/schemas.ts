@@ -114,7 +114,7 @@ export const gaugeFatigueSchema = z
         "Readings counted although flagged outside-linear-range: real stress, but the S-N approach assumes elastic stress ranges, so many of them make the estimate doubtful",
     }),
     readingsSkipped: z.number().int().meta({
-      description: "Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range)",
+      description: "Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range, or held after a jump until an engineer resolves it)",
     }),
     rangeBinWidth: z.number().meta({ description: "Width of the range bins, MPa" }),
     damageRatePerYear: z.number().nullable().meta({ description: "Damage per Julian year over the time covered by data; null when no time is covered" }),

@@ -14,14 +14,37 @@ export function periodLevel(limitAlertLevels: readonly string[], readingsReceive
   return readingsReceived > 0 ? "all-clear" : "no-data";
 }
 
-/** One sentence for the top of the report. */
-export function periodHeadline(level: PeriodLevel, completeness: number | null): string {
+/**
+ * What an all clear rests on, gauge by gauge over the period: gauges with limits that sent
+ * readings (the ones checked), gauges that sent readings but have no limits (never checked),
+ * gauges with faulty sensor readings (part of what they sent was not checked), gauges silent all
+ * period. A faulty gauge is also counted in the first two by its limits.
+ */
+export type CheckedGauges = { withLimits: number; withoutLimits: number; faulty: number; silent: number };
+
+const gauges = (n: number) => `${n} ${n === 1 ? "gauge" : "gauges"}`;
+
+/** The gauges the all clear does not cover, each as a clause; none when every gauge was checked. */
+function uncheckedClauses({ withoutLimits, faulty, silent }: CheckedGauges): string[] {
+  return [
+    withoutLimits > 0 ? `${gauges(withoutLimits)} ${withoutLimits === 1 ? "has" : "have"} no limits and ${withoutLimits === 1 ? "was" : "were"} not checked` : null,
+    faulty > 0 ? `${gauges(faulty)} had sensor faults, whose faulty readings were not checked` : null,
+    silent > 0 ? `${gauges(silent)} sent no readings` : null,
+  ].filter((clause) => clause !== null);
+}
+
+/** One sentence for the top of the report; an all clear names the gauges it covers and those it does not. */
+export function periodHeadline(level: PeriodLevel, completeness: number | null, checked: CheckedGauges): string {
   switch (level) {
     case "no-data":
       return "No readings were received in this period: the report cannot say whether the structure stayed within its limits.";
     case "all-clear": {
       const share = completeness === null ? "" : ` (${formatPercent(completeness)} of the expected readings were received)`;
-      return `No limit was crossed on the readings received${share}.`;
+      const covered =
+        checked.withLimits > 0
+          ? `No limit was crossed on the ${gauges(checked.withLimits)} with limits that sent readings${share}`
+          : `No gauge with limits sent readings, so no limit was checked${share}`;
+      return `${[covered, ...uncheckedClauses(checked)].join("; ")}.`;
     }
     default:
       return `At least one limit was crossed: the highest level reached was ${level}.`;

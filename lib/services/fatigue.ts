@@ -6,7 +6,6 @@ import type { z } from "zod";
 import type { gaugeFatigueSchema } from "@/lib/api/schemas";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";
-import { defaultHealthThresholds } from "@/lib/alerting/evaluate-gauge";
 import { DEFAULT_EXPECTED_INTERVAL_S, STALE_AFTER_INTERVALS } from "@/lib/alerting/gauge-state";
 import {
   createFatigueHistory,
@@ -21,7 +20,6 @@ import {
 } from "@/lib/fatigue";
 import { mergeHistograms, occupiedBins } from "@/lib/dynamic";
 import { dailyHistograms } from "./dynamic-data";
-import { initialSensorHealthState, inspectReadings } from "@/lib/limits";
 import { Flag, isOutOfRange } from "@/lib/mechanics";
 import { resolveGauge } from "./gauges";
 
@@ -35,13 +33,13 @@ const PAGE_SIZE = 20_000;
 /** The fatigue endpoint's body; the fields are documented on the schema. */
 export type GaugeFatigue = z.output<typeof gaugeFatigueSchema>;
 
-type StressReading = { time: number; value: number; strain: number; stress: number; flags: number };
+type StressReading = { time: number; stress: number; flags: number; fault: number };
 
 /** A gauge's readings in [from, to) in time order, a page at a time by keyset on t. */
 async function* readingPages(gaugeId: number, from: number, to: number, pageSize: number): AsyncGenerator<StressReading[]> {
   for (let after = from; ; ) {
     const page = await getDb()
-      .select({ time: readings.time, value: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
+      .select({ time: readings.time, stress: readings.stress, flags: readings.flags, fault: readings.fault })
       .from(readings)
       .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, after), lt(readings.time, to)))
       .orderBy(asc(readings.time))
@@ -55,12 +53,13 @@ async function* readingPages(gaugeId: number, from: number, to: number, pageSize
 
 /**
  * The one rule for which stored readings fatigue leaves out as faulty: beyond the gauge's rated
- * range, or found faulty by the sensor-health detectors (a jump or spike, a flat line, a raw value
- * outside the sensor's range). The detectors run again here over the period because readings do
- * not yet store their verdict; once they do, this reads the stored verdict instead.
+ * range, or carrying the sensor-health verdict stored at ingestion (a jump, a flat line, a raw
+ * value outside the sensor's range, or held after a jump until an engineer resolves it). Reading
+ * the stored verdict, not running the detectors again, is what sees the hold: the detectors alone
+ * would take the plausible readings after a jump as healthy.
  */
-function isFaultyReading(reading: StressReading, sensorFault: boolean): boolean {
-  return isOutOfRange(reading.flags) || sensorFault;
+function isFaultyReading(reading: StressReading): boolean {
+  return isOutOfRange(reading.flags) || reading.fault !== 0;
 }
 
 /**
@@ -112,28 +111,23 @@ export async function gaugeFatigue(
 async function readingFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }, pageSize: number): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
   const history = createFatigueHistory(await zeroEpochStarts(gauge), longestCoveredIntervalMs(gauge));
   const tally = createFatigueTally(category, FATIGUE_RANGE_BIN_MPA, FATIGUE_MEAN_BIN_MPA);
-  const healthThresholds = defaultHealthThresholds(gauge.input);
-  let health = initialSensorHealthState();
   let readingsUsed = 0;
   let readingsSkipped = 0;
   let readingsOutsideLinearRange = 0;
   let first: number | null = null;
   let last: number | null = null;
   for await (const page of readingPages(gauge.id, query.from.getTime(), query.to.getTime(), pageSize)) {
-    // Times are unique and ascending, so the inspection keeps every reading, in the page's order.
-    const inspection = inspectReadings(healthThresholds, health, page.map((reading) => ({ time: reading.time, raw: reading.value, value: reading.strain })));
-    health = inspection.state;
-    page.forEach((reading, i) => {
-      if (isFaultyReading(reading, inspection.readings[i]!.fault === true)) {
+    for (const reading of page) {
+      if (isFaultyReading(reading)) {
         readingsSkipped++;
-        return;
+        continue;
       }
       if (reading.flags & Flag.outsideLinearRange) readingsOutsideLinearRange++;
       history.push(reading.time, reading.stress);
       readingsUsed++;
       first ??= reading.time;
       last = reading.time;
-    });
+    }
     tally.add(history.takeCounted());
   }
   tally.add(history.finish());

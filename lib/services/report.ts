@@ -11,7 +11,7 @@ import { REPORT_CAUTIONS } from "@/lib/report/cautions";
 import { activeSpan, completeness, expectedReadings, type Span } from "@/lib/report/completeness";
 import { firstOf, missingHourRuns } from "@/lib/report/gaps";
 import { dayText, lastDay, periodKey, periodName, previousMonthPeriod, type ReportPeriod } from "@/lib/report/period";
-import { periodHeadline, periodLevel } from "@/lib/report/status";
+import { periodHeadline, periodLevel, type CheckedGauges } from "@/lib/report/status";
 import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { gaugeRowsOf } from "./gauges";
@@ -82,54 +82,32 @@ async function hoursWithReadings(gaugeIds: number[], period: Span): Promise<Map<
   return byGauge;
 }
 
-/** Sensor faults that make readings unbelievable; a stale alert has no readings to doubt. */
-const FAULT_CODES = ["jump", "flat-line", "out-of-range"];
-
 /**
- * Per gauge with a sensor fault open at some time in the period, the extremes of the readings taken
- * outside every fault and within the gauge's rated range, and how many were left out. Such gauges
- * are few, so reading their raw rows costs little; the others keep their daily roll-ups.
+ * Per gauge with readings in the period it does not believe, the extremes of the others and how
+ * many were left out. Not believed: a stored sensor-health verdict (a jump, a flat line, out of
+ * the sensor's range, or held after a jump until an engineer resolves it), or beyond the gauge's
+ * rated range. The verdict is read as stored, so a step the engineer accepted counts again and a
+ * held reading counts as faulty whether or not its alert is still open.
  */
-async function believedExtremes(structureId: number, gaugeIds: number[], period: Span) {
-  const faults = await getDb()
-    .select({ gaugeId: alerts.gaugeId, openedAt: alerts.openedAt, clearedAt: alerts.clearedAt })
-    .from(alerts)
-    .where(
-      and(
-        eq(alerts.structureId, structureId),
-        eq(alerts.kind, "sensor"),
-        inArray(alerts.code, FAULT_CODES),
-        lt(alerts.openedAt, new Date(period.end)),
-        or(isNull(alerts.clearedAt), gte(alerts.clearedAt, new Date(period.start))),
-      ),
-    );
-  const suspects = [...new Set(faults.map((fault) => fault.gaugeId))].filter((id) => gaugeIds.includes(id));
-  const result = new Map<number, Totals & { leftOut: number }>();
-  for (const gaugeId of suspects) {
-    const inFault = or(
-      ...faults
-        .filter((fault) => fault.gaugeId === gaugeId)
-        .map((fault) => and(gte(readings.time, fault.openedAt.getTime()), fault.clearedAt ? lt(readings.time, fault.clearedAt.getTime()) : undefined)),
-    );
-    const believed = sql`not (${inFault}) and (${readings.flags} & ${Flag.outOfRange}) = 0`;
-    const [row] = await getDb()
-      .select({
-        gaugeId: readings.gaugeId,
-        count: sql<number>`sum(case when ${believed} then 1 else 0 end)`,
-        all: sql<number>`count(*)`,
-        strainMin: sql<number>`min(case when ${believed} then ${readings.strain} end)`,
-        strainMax: sql<number>`max(case when ${believed} then ${readings.strain} end)`,
-        stressMin: sql<number>`min(case when ${believed} then ${readings.stress} end)`,
-        stressMax: sql<number>`max(case when ${believed} then ${readings.stress} end)`,
-        temperatureMin: sql<number | null>`min(case when ${believed} then ${readings.temperature} end)`,
-        temperatureMax: sql<number | null>`max(case when ${believed} then ${readings.temperature} end)`,
-      })
-      .from(readings)
-      .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, period.start), lt(readings.time, period.end)))
-      .groupBy(readings.gaugeId);
-    if (row) result.set(gaugeId, { ...row, count: Number(row.count), leftOut: Number(row.all) - Number(row.count) });
-  }
-  return result;
+async function believedExtremes(gaugeIds: number[], period: Span) {
+  const believed = sql`${readings.fault} = 0 and (${readings.flags} & ${Flag.outOfRange}) = 0`;
+  const rows = await getDb()
+    .select({
+      gaugeId: readings.gaugeId,
+      count: sql<number>`sum(case when ${believed} then 1 else 0 end)`,
+      all: sql<number>`count(*)`,
+      strainMin: sql<number>`min(case when ${believed} then ${readings.strain} end)`,
+      strainMax: sql<number>`max(case when ${believed} then ${readings.strain} end)`,
+      stressMin: sql<number>`min(case when ${believed} then ${readings.stress} end)`,
+      stressMax: sql<number>`max(case when ${believed} then ${readings.stress} end)`,
+      temperatureMin: sql<number | null>`min(case when ${believed} then ${readings.temperature} end)`,
+      temperatureMax: sql<number | null>`max(case when ${believed} then ${readings.temperature} end)`,
+    })
+    .from(readings)
+    .where(and(inArray(readings.gaugeId, gaugeIds), gte(readings.time, period.start), lt(readings.time, period.end)))
+    .groupBy(readings.gaugeId)
+    .having(sql`count(*) > sum(case when ${believed} then 1 else 0 end)`);
+  return new Map(rows.map((row) => [row.gaugeId, { ...row, count: Number(row.count), leftOut: Number(row.all) - Number(row.count) }]));
 }
 
 type Totals = Awaited<ReturnType<typeof dailyTotals>> extends Map<number, infer T> ? T : never;
@@ -144,7 +122,7 @@ type GaugeFacts = {
   fatigue: ReportGauge["fatigue"];
 };
 
-const LEFT_OUT_REASON = "taken while a sensor fault (jump, flat line or beyond rated range) was open, or beyond the gauge's rated range";
+const LEFT_OUT_REASON = "found faulty by the sensor checks (jump, flat line, beyond the sensor's range, or held after a jump until an engineer resolves it), or beyond the gauge's rated range";
 
 function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, condition, fatigue }: GaugeFacts): ReportGauge {
   const intervalS = gauge.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S;
@@ -185,6 +163,18 @@ function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, 
     },
     fatigue,
   };
+}
+
+/** Which of the report's gauges an all clear covers; faulty readings are not in `received`, so a gauge that sent only those is faulty, not silent. */
+function checkedGauges(gauges: ReportGauge[], limitedTags: Set<string>): CheckedGauges {
+  const checked: CheckedGauges = { withLimits: 0, withoutLimits: 0, faulty: 0, silent: 0 };
+  for (const gauge of gauges) {
+    const faulty = gauge.leftOut !== null || gauge.condition.state === "sensor-fault";
+    if (faulty) checked.faulty++;
+    if (gauge.readings.received > 0) checked[limitedTags.has(gauge.tag) ? "withLimits" : "withoutLimits"]++;
+    else if (!faulty) checked.silent++;
+  }
+  return checked;
 }
 
 const readingShare = (received: number, expected: number) => ({
@@ -269,7 +259,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
     allIds.length ? installedAt(allGauges) : new Map<number, number>(),
     allIds.length ? dailyTotals(allIds, span) : new Map<number, Totals>(),
     allIds.length ? hoursWithReadings(allIds, span) : new Map<number, HourCount[]>(),
-    allIds.length ? believedExtremes(structure.id, allIds, span) : new Map<number, Totals & { leftOut: number }>(),
+    allIds.length ? believedExtremes(allIds, span) : new Map<number, Totals & { leftOut: number }>(),
     gaugeStatuses(structure, now.getTime()),
     structureSummary(structure, now.getTime()),
   ]);
@@ -281,6 +271,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
   // A gauge belongs in the report if it was on the structure at some time in the period.
   const inPeriod = allGauges.filter((gauge) => lifeOf(gauge).start < span.end && (lifeOf(gauge).end ?? Infinity) > span.start);
   const conditionOf = new Map(statuses.map((status) => [status.tag, conditionView(status.condition)]));
+  const limitedTags = new Set(statuses.filter((status) => status.hasLimits).map((status) => status.tag));
 
   const gauges: ReportGauge[] = [];
   for (const gauge of inPeriod) {
@@ -320,7 +311,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
     generatedAt: now.toISOString(),
     summary: {
       level,
-      headline: periodHeadline(level, share),
+      headline: periodHeadline(level, share, checkedGauges(gauges, limitedTags)),
       alerts: {
         watch: limitLevels.filter((l) => l === "watch").length,
         warning: limitLevels.filter((l) => l === "warning").length,

@@ -17,6 +17,8 @@ export type GaugeStatus = {
   member: string | null;
   retired: boolean;
   condition: GaugeCondition;
+  /** Whether any limit is set on it: under a worse condition, "no-limits" does not show. */
+  hasLimits: boolean;
   latest: LatestReading | null;
   openAlerts: number;
 };
@@ -129,7 +131,7 @@ async function statusesOf(structureIds: number[], gaugeRows: Gauge[], now: numbe
       registeredAt: gauge.createdAt.getTime(),
       now,
     });
-    return { tag: gauge.tag, label: gauge.label, member: gauge.member, retired: gauge.status === "retired", condition, latest, openAlerts: open.count(gauge.id) };
+    return { tag: gauge.tag, label: gauge.label, member: gauge.member, retired: gauge.status === "retired", condition, hasLimits: limited.has(gauge.id), latest, openAlerts: open.count(gauge.id) };
   });
   return { statuses, open };
 }

@@ -2,9 +2,12 @@ import { PDFParse } from "pdf-parse";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as structureRoute from "@/app/api/v1/structures/[code]/route";
 import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
-import { getClient } from "@/db/client";
+import { and, eq } from "drizzle-orm";
+import { getClient, getDb } from "@/db/client";
+import { alerts } from "@/db/schema";
 import type { UserActor } from "@/lib/auth/actor";
 import { renderReportPdf } from "@/lib/report/pdf";
+import { resolveSensorFault } from "@/lib/services/fault-resolution";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import { replaceLimits } from "@/lib/services/limits";
 import { structureReport } from "@/lib/services/report";
@@ -116,11 +119,38 @@ describe("a gauge's condition", () => {
     expect(j1.strain).toMatchObject({ min: 100, max: 102 });
     expect(report.gauges.find((gauge) => gauge.tag === "N1")!.condition.state).toBe("no-limits");
     expect(report.summary.current.state).toBe("sensor-fault");
+    // Counted by hand from the setup: J1, S1 and W1 carry limits and sent readings; N1 sent
+    // readings without limits; J1's jump is a sensor fault; X1 and X2 (added above) are silent.
+    expect(report.summary.headline).toMatch(/^No limit was crossed on the 3 gauges with limits that sent readings \(.+\); 1 gauge has no limits and was not checked; 1 gauge had sensor faults, whose faulty readings were not checked; 2 gauges sent no readings\.$/);
     const parsed = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText();
     const text = parsed.text.replace(/\s+/g, " ");
     expect(text).toContain("Condition now Sensor fault (jump) since");
-    expect(text).toContain("2 readings left out: taken while a sensor fault");
+    expect(text).toContain("2 readings left out: found faulty by the sensor checks");
     expect(text).toMatch(/Gauge N1 Condition now No limits/);
+  });
+});
+
+describe("the report after an engineer accepts a jump as a real step", () => {
+  it("takes the readings after the jump back into its extremes, as their stored verdicts now say", async () => {
+    await makeStructure("STP", [engineer]);
+    await createGauge(engineer, "STP", microstrainGauge("J2", { zero }));
+    await replaceLimits(engineer, "STP", "J2", [limit]);
+    // The same 2 600 µε step as J1's: a jump, and the reading after it held with it.
+    await ingest("STP", recent("J2", [100, 102, 101, 2_700, 2_701]));
+    const [jump] = await getDb()
+      .select({ id: alerts.id })
+      .from(alerts)
+      .where(and(eq(alerts.gaugeId, (await resolveGauge(engineer, "STP", "J2", "structure:view")).gauge.id), eq(alerts.code, "jump")));
+    const today = Math.floor(now / DAY) * DAY;
+    const period = { from: new Date(today - DAY), to: new Date(today + DAY) };
+    const held = (await structureReport(engineer, "STP", period, new Date(now))).gauges[0]!;
+    expect(held.leftOut?.readings).toBe(2);
+
+    await resolveSensorFault(engineer, jump!.id, "accept-step", "Bearing settled, confirmed on site");
+    const accepted = (await structureReport(engineer, "STP", period, new Date(now))).gauges[0]!;
+    expect(accepted.leftOut).toBeNull();
+    // All five readings: 100 to 2 701 µε (thermal compensation none, zero 0).
+    expect(accepted.strain).toMatchObject({ min: 100, max: 2_701 });
   });
 });
 

@@ -841,7 +841,7 @@ export interface components {
             readingsUsed: number;
             /** @description Readings counted although flagged outside-linear-range: real stress, but the S-N approach assumes elastic stress ranges, so many of them make the estimate doubtful */
             readingsOutsideLinearRange: number;
-            /** @description Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range) */
+            /** @description Faulty readings left out: beyond the gauge's rated range, or found faulty by sensor health (jump or spike, flat line, raw value out of range, or held after a jump until an engineer resolves it) */
             readingsSkipped: number;
             /** @description Width of the range bins, MPa */
             rangeBinWidth: number;
