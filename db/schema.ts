@@ -176,8 +176,12 @@ export const gauges = sqliteTable(
     /** Vibrating wire: multiplier from the calibration record; null means 1. */
     calibrationFactor: real("calibration_factor"),
     polarity: integer("polarity").notNull().default(1),
+    /** Quarter bridge "2-wire" or "3-wire"; null where not recorded, and then lead_resistance is the arm's. */
+    wiring: text("wiring"),
     leadResistance: real("lead_resistance"),
     gaugeResistance: real("gauge_resistance"),
+    /** Bridge excitation in volts; null where not recorded. */
+    excitationVoltage: real("excitation_voltage"),
     thermal: text("thermal", { mode: "json" }).$type<StoredThermal>().notNull(),
     material: text("material", { mode: "json" }).$type<StoredMaterial>().notNull(),
     initialStress: real("initial_stress").notNull().default(0),

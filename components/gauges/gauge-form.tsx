@@ -204,10 +204,19 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {select("polarity", "Polarity", [["1", "Normal (tension positive)"], ["-1", "Reversed (wired the other way)"]])}
               {applies.leadResistances && (
                 <>
-                  {input("leadResistance", "Lead resistance in the gauge's arm", { unit: "Ω", hint: "Both leads for 2-wire, one for 3-wire; empty for no correction." })}
+                  {select(
+                    "wiring",
+                    "Quarter-bridge wiring",
+                    [["", "Not recorded"], ["2-wire", "2-wire (both leads in the gauge's arm)"], ["3-wire", "3-wire (one lead in the gauge's arm)"]],
+                    "Decides how many leads dilute the gauge's signal.",
+                  )}
+                  {values.wiring
+                    ? input("leadResistance", "Resistance of one lead", { unit: "Ω", hint: "Measured or from cable length; empty for no correction." })
+                    : input("leadResistance", "Lead resistance in the gauge's arm", { unit: "Ω", hint: "Both leads for 2-wire, one for 3-wire; empty for no correction." })}
                   {input("gaugeResistance", "Gauge resistance", { unit: "Ω", hint: "e.g. 120 or 350." })}
                 </>
               )}
+              {applies.excitationVoltage && input("excitationVoltage", "Bridge excitation", { unit: "V", hint: "As set in the logger, e.g. 2.5 or 5; empty if not known." })}
               {input("ratedRange", "Rated range", { unit: "µε", hint: "Either side of zero; readings beyond are flagged." })}
               {input("expectedInterval", "Expected interval between readings", { unit: "s", hint: "Used to tell when data stop arriving." })}
             </div>

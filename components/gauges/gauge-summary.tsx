@@ -26,7 +26,11 @@ export function GaugeSummary({ gauge }: { gauge: GaugeView }) {
     ...(gauge.loggerGaugeFactor ? [["Logger gauge factor", num(gauge.loggerGaugeFactor)] as [string, string]] : []),
     ...(!foil ? [[CALIBRATION_FACTOR_LABEL, num(gauge.calibrationFactor ?? 1)] as [string, string]] : []),
     ["Polarity", gauge.polarity === -1 ? "Reversed (−1)" : "Normal (+1)"],
-    ...(gauge.leadResistance != null ? [["Lead / gauge resistance", `${num(gauge.leadResistance, "Ω")} / ${num(gauge.gaugeResistance, "Ω")}`] as [string, string]] : []),
+    ...(gauge.bridge === "quarter" ? [["Quarter-bridge wiring", gauge.wiring ?? "Not recorded"] as [string, string]] : []),
+    ...(gauge.leadResistance != null
+      ? [[gauge.wiring ? "Resistance of one lead / gauge" : "Lead resistance in arm / gauge", `${num(gauge.leadResistance, "Ω")} / ${num(gauge.gaugeResistance, "Ω")}`] as [string, string]]
+      : []),
+    ...(foil ? [["Bridge excitation", gauge.excitationVoltage != null ? num(gauge.excitationVoltage, "V") : "Not recorded"] as [string, string]] : []),
     ["Temperature compensation", thermalText(gauge)],
     ["Material", gauge.material.name ?? "—"],
     ["E / ν / α", `${num(gauge.material.E, "MPa")} / ${num(gauge.material.nu)} / ${num(gauge.material.alpha, "µε/°C")}`],

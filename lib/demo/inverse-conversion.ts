@@ -1,5 +1,5 @@
 import { prepareGauge, type Bridge, type GaugeConfig, type GaugeConverter } from "@/lib/mechanics";
-import { bridgeOutputFor, leadWireCorrection, loggerGaugeFactorCorrection } from "@/lib/mechanics/bridge";
+import { bridgeOutputFor, gaugeArmLeadResistance, leadWireCorrection, loggerGaugeFactorCorrection } from "@/lib/mechanics/bridge";
 import { MICRO } from "@/lib/mechanics/stress";
 import { frequencySquaredFromHz } from "@/lib/mechanics/vibrating-wire";
 
@@ -50,10 +50,9 @@ function gaugeStrainInverse(config: GaugeConfig): (gaugeStrain: number) => numbe
   return (gaugeStrain) => zero + 1000 * polarity * bridgeOutput((gaugeFactor * gaugeStrain * MICRO) / lead, nu);
 }
 
-function quarterBridgeLeadFactor({ bridge, leadResistance, gaugeResistance }: GaugeConfig): number {
-  return bridge === "quarter" && leadResistance != null && gaugeResistance != null
-    ? leadWireCorrection(leadResistance, gaugeResistance)
-    : 1;
+function quarterBridgeLeadFactor(config: GaugeConfig): number {
+  const armResistance = gaugeArmLeadResistance(config);
+  return armResistance === null ? 1 : leadWireCorrection(armResistance, config.gaugeResistance!);
 }
 
 /** R = R₀ + ε/(K·C) in f²/1000, and f = √(1000·R) for a gauge read in Hz. */

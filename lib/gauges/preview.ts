@@ -14,6 +14,7 @@ const FIELD_WORDS: Record<string, string> = {
   loggerGaugeFactor: "gauge factor set in the logger",
   calibrationFactor: "calibration multiplier",
   polarity: "polarity",
+  wiring: "quarter-bridge wiring",
   leadResistance: "lead resistance",
   gaugeResistance: "gauge resistance",
   thermal: "temperature compensation",

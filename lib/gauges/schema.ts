@@ -4,6 +4,7 @@ import {
   FOIL_INPUTS,
   GAUGE_KINDS,
   VIBRATING_WIRE_INPUTS,
+  QUARTER_BRIDGE_WIRINGS,
   prepareGauge,
   type GaugeConfigErrorCode,
 } from "@/lib/mechanics";
@@ -36,6 +37,8 @@ export const PLAUSIBLE = {
   gaugeResistance: { min: 50, max: 10_000 },
   /** Ω in the gauge's arm: a few ohms per hundred metres of ordinary instrument cable. */
   leadResistance: { min: 0, max: 200 },
+  /** V: bridge excitation of strain-gauge loggers is about 0.5 to 10 V (common practice); 25 V leaves room for unusual units. */
+  excitationVoltage: { min: 0.1, max: 25 },
 } as const;
 
 const within = (range: { min: number; max: number }, what: string) =>
@@ -132,8 +135,14 @@ export const gaugeFields = z.object({
   loggerGaugeFactor: optional(positive),
   calibrationFactor: optional(positive).meta({ description: "Vibrating wire: multiplier from the gauge's calibration record (default 1)" }),
   polarity: z.union([z.literal(1), z.literal(-1)], { error: "Polarity is 1 or -1." }).default(1),
-  leadResistance: optional(within(PLAUSIBLE.leadResistance, "The lead resistance in Ω")).meta({ description: "Ω" }),
+  wiring: optional(z.enum(QUARTER_BRIDGE_WIRINGS, { error: "Choose the quarter bridge's wiring: 2-wire or 3-wire." })).meta({
+    description: "Quarter bridge: 2-wire (both leads in the gauge's arm) or 3-wire (one); null when not recorded",
+  }),
+  leadResistance: optional(within(PLAUSIBLE.leadResistance, "The lead resistance in Ω")).meta({
+    description: "Ω: with wiring given, the resistance of one lead; without it, the resistance in series with the gauge in its arm",
+  }),
   gaugeResistance: optional(within(PLAUSIBLE.gaugeResistance, "The gauge resistance in Ω (usually 120, 350 or 1,000)")).meta({ description: "Ω" }),
+  excitationVoltage: optional(within(PLAUSIBLE.excitationVoltage, "The bridge excitation in V")).meta({ description: "Bridge excitation, V; null when not recorded" }),
   thermal: optional(thermalInput),
   material: materialInput,
   initialStress: number.default(0).meta({ description: "MPa" }),
@@ -175,6 +184,14 @@ function checkConsistency(gauge: GaugeFields, ctx: z.RefinementCtx) {
     ctx.addIssue({ code: "custom", path: ["bridge"], message: "A gauge read in mV/V needs its bridge arrangement." });
     return;
   }
+  if (gauge.wiring && gauge.bridge !== "quarter") {
+    ctx.addIssue({ code: "custom", path: ["wiring"], message: "2-wire or 3-wire applies to a quarter bridge; leave it empty for other arrangements." });
+    return;
+  }
+  if (gauge.kind === "vibrating-wire" && gauge.excitationVoltage !== null) {
+    ctx.addIssue({ code: "custom", path: ["excitationVoltage"], message: "Vibrating-wire gauges have no bridge excitation; leave it empty." });
+    return;
+  }
   if (gauge.kind === "vibrating-wire" && gauge.bridge) {
     ctx.addIssue({ code: "custom", path: ["bridge"], message: "Vibrating-wire gauges have no bridge; leave it empty." });
     return;
@@ -210,6 +227,7 @@ export function toGaugeConfig(gauge: GaugeFields) {
     loggerGaugeFactor: gauge.loggerGaugeFactor,
     calibrationFactor: gauge.calibrationFactor,
     polarity: gauge.polarity,
+    wiring: gauge.wiring,
     leadResistance: gauge.leadResistance,
     gaugeResistance: gauge.gaugeResistance,
     thermal: gauge.thermal,

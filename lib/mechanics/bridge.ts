@@ -1,4 +1,4 @@
-import type { Bridge } from "./gauge-config";
+import type { Bridge, GaugeConfig, QuarterBridgeWiring } from "./gauge-config";
 
 /**
  * Strain (dimensionless, tension positive) from the change of bridge output ratio Vr in V/V, the
@@ -65,6 +65,19 @@ export function loggerGaugeFactorCorrection(loggerGaugeFactor: number, gaugeFact
 /** Lead resistance in the gauge's arm dilutes its resistance change by R_G / (R_G + R_L). */
 export function leadWireCorrection(leadResistance: number, gaugeResistance: number): number {
   return 1 + leadResistance / gaugeResistance;
+}
+
+const LEADS_IN_GAUGE_ARM: Readonly<Record<QuarterBridgeWiring, number>> = { "2-wire": 2, "3-wire": 1 };
+
+/**
+ * Ohms in series with a quarter-bridge gauge in its arm, or null when the correction does not apply
+ * (another arrangement, or a resistance not given). Without recorded wiring the stored lead
+ * resistance is already the arm's.
+ */
+export function gaugeArmLeadResistance(config: Pick<GaugeConfig, "bridge" | "wiring" | "leadResistance" | "gaugeResistance">): number | null {
+  const { bridge, wiring, leadResistance, gaugeResistance } = config;
+  if (bridge !== "quarter" || leadResistance == null || gaugeResistance == null) return null;
+  return wiring ? LEADS_IN_GAUGE_ARM[wiring] * leadResistance : leadResistance;
 }
 
 /** Loggers report mV/V; the bridge relations want V/V. */

@@ -25,6 +25,13 @@ export const BRIDGES = [
 ] as const;
 export type Bridge = (typeof BRIDGES)[number];
 
+/**
+ * How a quarter bridge's gauge is wired to the logger: 2-wire puts both leads in series with the
+ * gauge; 3-wire moves one lead into the adjacent arm, so only one dilutes the gauge's signal.
+ */
+export const QUARTER_BRIDGE_WIRINGS = ["2-wire", "3-wire"] as const;
+export type QuarterBridgeWiring = (typeof QUARTER_BRIDGE_WIRINGS)[number];
+
 export const THERMAL_METHODS = ["none", "polynomial", "cte"] as const;
 export type ThermalMethod = (typeof THERMAL_METHODS)[number];
 
@@ -72,7 +79,12 @@ export interface GaugeConfig {
    * output before the bridge relation, for the other inputs the strain.
    */
   polarity?: 1 | -1;
-  /** Ohms in series with the gauge in its arm (both leads for 2-wire, one for 3-wire). */
+  /** Quarter bridge: null when not recorded (gauges registered before the wiring was asked for). */
+  wiring?: QuarterBridgeWiring | null;
+  /**
+   * Ohms. With the wiring recorded, the resistance of one lead; without it, the resistance in
+   * series with the gauge in its arm (as gauges registered before the wiring was asked for give it).
+   */
   leadResistance?: number | null;
   /** Ohms. */
   gaugeResistance?: number | null;

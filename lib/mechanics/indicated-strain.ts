@@ -1,5 +1,5 @@
 import { isFiniteNumber, isPositive } from "./checks";
-import { bridgeFormula, leadWireCorrection, loggerGaugeFactorCorrection, millivoltsPerVoltToRatio } from "./bridge";
+import { bridgeFormula, gaugeArmLeadResistance, leadWireCorrection, loggerGaugeFactorCorrection, millivoltsPerVoltToRatio } from "./bridge";
 import { READING_FAILURES, type GaugeConfigErrorCode, type ReadingErrorCode } from "./errors";
 import type { GaugeConfig } from "./gauge-config";
 import { failure, type Failure } from "./result";
@@ -70,14 +70,14 @@ function foilReader(config: GaugeConfig): RawReader | ConfigFailure {
   };
 }
 
-/** The API applies the lead correction to quarter bridges when both resistances are known. */
+/** The API applies the lead correction to quarter bridges when both resistances are known; the wiring says how many leads are in the arm. */
 function quarterBridgeLeadCorrection(config: GaugeConfig): number | ConfigFailure {
-  const { leadResistance, gaugeResistance } = config;
-  if (config.bridge !== "quarter" || leadResistance == null || gaugeResistance == null) return 1;
-  if (!isFiniteNumber(leadResistance) || leadResistance < 0 || !isPositive(gaugeResistance)) {
+  const armResistance = gaugeArmLeadResistance(config);
+  if (armResistance === null) return 1;
+  if (!isFiniteNumber(armResistance) || armResistance < 0 || !isPositive(config.gaugeResistance)) {
     return failure("invalid-resistance", "Lead resistance must be 0 Ω or more and gauge resistance above 0 Ω.");
   }
-  return leadWireCorrection(leadResistance, gaugeResistance);
+  return leadWireCorrection(armResistance, config.gaugeResistance!);
 }
 
 function vibratingWireReader(config: GaugeConfig): RawReader | ConfigFailure {

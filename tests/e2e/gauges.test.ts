@@ -56,10 +56,18 @@ describe("a technician on site with a phone", () => {
     await form.field("Polarity").selectOption("-1");
     await expect(technician.getByTestId("preview-strain").textContent()).resolves.toBe("-1,996.0 µε");
     await saveScreenshot(technician, "gauge-form-phone");
+    await form.field("Quarter-bridge wiring").selectOption("3-wire");
+    await form.fill([
+      [/^Resistance of one lead/, "1.8"],
+      [/^Gauge resistance/, "120"],
+      [/^Bridge excitation/, "2.5"],
+    ]);
 
     await technician.getByRole("button", { name: "Register gauge" }).click();
     await technician.waitForURL(/\/structures\/MILL-FB\/gauges\/E2E-Q1$/);
     await technician.getByRole("heading", { name: "Gauge E2E-Q1" }).waitFor();
+    await technician.getByText("3-wire", { exact: true }).waitFor();
+    await technician.getByText("2.5 V", { exact: true }).waitFor();
     await expect(technician.getByTestId("zero-row").count()).resolves.toBe(1);
     const overflow = await technician.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
@@ -72,9 +80,11 @@ describe("a technician on site with a phone", () => {
       ["Tag", "E2E-BAD"],
       [/^Gauge factor/, "-2"],
       [/^Raw value at zero/, "0"],
+      [/^Bridge excitation/, "2500"],
     ]);
     await technician.getByRole("button", { name: "Register gauge" }).click();
     await technician.getByText("Must be greater than zero.").waitFor();
+    await technician.getByText("The bridge excitation in V lies between 0.1 and 25.").waitFor();
     await expect(form.field("Tag").inputValue()).resolves.toBe("E2E-BAD");
   });
 

@@ -125,6 +125,24 @@ describe("editing, zeroing and retiring", () => {
     expect(await response.json()).toMatchObject({ gaugeFactor: 3.6, thermal: { method: "cte", gaugeCte: 12 } });
   });
 
+  it("records the wiring and excitation of a technician's gauge, audited, and answers a wiring on a full bridge on its field", async () => {
+    const created = await post(tokens.technician, { ...quarterBridge, tag: "G-WIRED", leadResistance: 1.8, gaugeResistance: 120 });
+    // recorded before the wiring was asked for: no wiring, no excitation, the lead taken as the arm's
+    expect(await created.json()).toMatchObject({ wiring: null, excitationVoltage: null, leadResistance: 1.8 });
+    const response = await patch(tokens.technician!, "G-WIRED", { wiring: "3-wire", excitationVoltage: 2.5 });
+    expect(response.status).toBe(200);
+    expect(await response.json()).toMatchObject({ wiring: "3-wire", excitationVoltage: 2.5 });
+    const [latest] = await gaugeAuditTrail(engineer, "BR", "G-WIRED");
+    expect(latest).toMatchObject({ action: "gauge.update", before: { wiring: null, excitationVoltage: null }, after: { wiring: "3-wire", excitationVoltage: 2.5 } });
+
+    const refused = await patch(tokens.technician!, "G-WIRED", { bridge: "full-bending", excitationVoltage: 2500 });
+    expect(refused.status).toBe(400);
+    const { error } = await refused.json();
+    expect(error.details.issues.map((issue: { path: string }) => issue.path)).toContain("excitationVoltage");
+    const wiredFull = await patch(tokens.technician!, "G-WIRED", { bridge: "full-bending" });
+    expect((await wiredFull.json()).error.details.issues.map((issue: { path: string }) => issue.path)).toContain("wiring");
+  });
+
   it("sets a typed zero and keeps the previous one in the history", async () => {
     const response = await zero.POST(
       apiRequest("/structures/BR/gauges/G1/zero", { token: tokens.technician, body: { value: 0.02, temperature: 9, time: "2026-12-01T07:00:00Z", reason: "after bearing repair" } }),

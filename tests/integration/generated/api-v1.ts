@@ -866,10 +866,14 @@ export interface components {
             calibrationFactor?: number | null;
             /** @default 1 */
             polarity?: 1 | -1;
-            /** @description Ω */
+            /** @description Quarter bridge: 2-wire (both leads in the gauge's arm) or 3-wire (one); null when not recorded */
+            wiring?: ("2-wire" | "3-wire") | null;
+            /** @description Ω: with wiring given, the resistance of one lead; without it, the resistance in series with the gauge in its arm */
             leadResistance?: number | null;
             /** @description Ω */
             gaugeResistance?: number | null;
+            /** @description Bridge excitation, V; null when not recorded */
+            excitationVoltage?: number | null;
             thermal?: ({
                 /** @constant */
                 method: "none";
@@ -967,10 +971,14 @@ export interface components {
             calibrationFactor?: number | null;
             /** @default 1 */
             polarity?: 1 | -1;
-            /** @description Ω */
+            /** @description Quarter bridge: 2-wire (both leads in the gauge's arm) or 3-wire (one); null when not recorded */
+            wiring?: ("2-wire" | "3-wire") | null;
+            /** @description Ω: with wiring given, the resistance of one lead; without it, the resistance in series with the gauge in its arm */
             leadResistance?: number | null;
             /** @description Ω */
             gaugeResistance?: number | null;
+            /** @description Bridge excitation, V; null when not recorded */
+            excitationVoltage?: number | null;
             thermal?: ({
                 /** @constant */
                 method: "none";

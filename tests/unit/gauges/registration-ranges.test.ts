@@ -26,6 +26,7 @@ describe("plausible ranges at registration", () => {
     expect(fieldsWithErrors(foil)).toEqual([]);
     expect(fieldsWithErrors(wire)).toEqual([]);
     expect(fieldsWithErrors({ ...foil, leadResistance: 0.9, gaugeResistance: 350 })).toEqual([]);
+    expect(fieldsWithErrors({ ...foil, wiring: "3-wire", leadResistance: 0.45, gaugeResistance: 350, excitationVoltage: 2.5 })).toEqual([]);
   });
 
   it.each([
@@ -44,6 +45,13 @@ describe("plausible ranges at registration", () => {
     // Foil gauges are made at 60 to 5 000 Ω (common practice); 350 kΩ is a unit slip.
     [{ ...foil, gaugeResistance: 350_000 }, "gaugeResistance"],
     [{ ...foil, leadResistance: 5_000, gaugeResistance: 350 }, "leadResistance"],
+    // Loggers excite strain-gauge bridges at about 0.5 to 10 V (common practice); 2 500 is millivolts typed as volts.
+    [{ ...foil, excitationVoltage: 2_500 }, "excitationVoltage"],
+    [{ ...foil, excitationVoltage: 0 }, "excitationVoltage"],
+    [{ ...wire, excitationVoltage: 5 }, "excitationVoltage"],
+    [{ ...foil, wiring: "4-wire" }, "wiring"],
+    // 2-wire and 3-wire describe a single active gauge's leads: a half or full bridge has no such choice.
+    [{ ...foil, bridge: "full-bending", wiring: "3-wire" }, "wiring"],
   ])("answers an absurd value on its field: %#", (body, field) => {
     expect(fieldsWithErrors(body)).toContain(field);
   });

@@ -96,6 +96,26 @@ describe("foil gauge read in mV/V", () => {
     expectClose(converted(uncorrected.convert(reading)).strain, (microstrain * 350) / 352.5, 1e-9);
   });
 
+  it("with the wiring recorded, takes the lead resistance per lead: one in the arm for 3-wire, two for 2-wire", () => {
+    const gaugeResistance = 120;
+    const oneLead = 1.8;
+    const microstrain = 800;
+    const strainedGauge = gaugeResistance * (1 + 2 * microstrain * 1e-6);
+    // 3-wire: one lead in the gauge arm, one in the adjacent arm; balanced at rest (common practice)
+    const threeWire = 1000 * bridgeOutput([strainedGauge + oneLead, gaugeResistance + oneLead, gaugeResistance, gaugeResistance]);
+    const threeWireGauge = prepared(foilGauge({ wiring: "3-wire", leadResistance: oneLead, gaugeResistance }));
+    expectClose(converted(threeWireGauge.convert(threeWire)).strain, microstrain, 1e-9);
+    // 2-wire: both leads in the gauge arm, completion resistor R_G beside it, so the bridge rests off
+    // balance and the zero reading takes that offset; the correction is then exact to first order
+    const rest = 1000 * bridgeOutput([gaugeResistance + 2 * oneLead, gaugeResistance, gaugeResistance, gaugeResistance]);
+    const twoWire = 1000 * bridgeOutput([strainedGauge + 2 * oneLead, gaugeResistance, gaugeResistance, gaugeResistance]);
+    const twoWireGauge = prepared(foilGauge({ wiring: "2-wire", leadResistance: oneLead, gaugeResistance, zero: { value: rest } }));
+    expectClose(converted(twoWireGauge.convert(twoWire)).strain, microstrain, 2e-3);
+    // the same resistance read as one lead of a 3-wire gauge would leave half the dilution in place
+    const misread = prepared(foilGauge({ wiring: "3-wire", leadResistance: oneLead, gaugeResistance, zero: { value: rest } }));
+    expect(converted(misread.convert(twoWire)).strain).toBeLessThan(microstrain * (1 - 0.5 * oneLead / gaugeResistance));
+  });
+
   it("applies the lead correction only to a quarter bridge (lead resistance sits in the gauge's own arm)", () => {
     const gauge = prepared(foilGauge({ bridge: "half-bending", leadResistance: 12, gaugeResistance: 120 }));
     expectClose(converted(gauge.convert(1)).strain, 1000);

@@ -1,0 +1,2 @@
+ALTER TABLE `gauges` ADD `wiring` text;--> statement-breakpoint
+ALTER TABLE `gauges` ADD `excitation_voltage` real;
