@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { signOut } from "next-auth/react";
 import { useState } from "react";
 import { buttonClass } from "@/components/ui/styles";
@@ -15,9 +16,9 @@ export function SignOutButton() {
   return (
     <div className="space-y-3">
       <div className="flex justify-center gap-2">
-        <a href="/" className={buttonClass("secondary")}>
+        <Link href="/" className={buttonClass("secondary")}>
           Stay signed in
-        </a>
+        </Link>
         <button type="button" className={buttonClass()} disabled={pending !== null} onClick={() => void signOutFrom("here")}>
           {pending === "here" ? "Signing out…" : "Sign out"}
         </button>

@@ -34,6 +34,7 @@ export function StructureGlance({ summary, timeZone }: { summary: StructureSumma
         <dd>
           {summary.lastReadingAt === null
             ? "none yet"
+            // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
             : `${local(summary.lastReadingAt)} (${formatDistanceStrict(summary.lastReadingAt, Date.now(), { addSuffix: true })})`}
         </dd>
         <dt className="text-slate-500 dark:text-slate-400">Gauges</dt>

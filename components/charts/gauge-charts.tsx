@@ -1,6 +1,6 @@
 "use client";
 
-import { useCallback, useMemo, useState } from "react";
+import { useCallback, useMemo, useRef, useState } from "react";
 import useSWR from "swr";
 import type uPlot from "uplot";
 import { useUnits } from "@/components/units/units-context";
@@ -74,25 +74,22 @@ export function GaugeCharts({
   const units = useUnits();
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}`;
   const [range, setRange] = useState<TimeRange>(initialRange ?? { from: end - 7 * DAY, to: end });
-  // The ranges zoomed out of, so a double-click steps back one zoom at a time.
-  const [zoomedFrom, setZoomedFrom] = useState<TimeRange[]>([]);
+  // The ranges zoomed out of, so a double-click steps back one zoom at a time; never drawn, so a ref.
+  const zoomedFrom = useRef<TimeRange[]>([]);
   const [showAllLimits, setShowAllLimits] = useState(false);
   const zoomIn = useCallback(
     (next: TimeRange) => {
-      setZoomedFrom((history) => [...history, range]);
+      zoomedFrom.current.push(range);
       setRange(next);
     },
     [range],
   );
   const zoomOut = useCallback(() => {
-    setZoomedFrom((history) => {
-      const previous = history.at(-1);
-      if (previous) setRange(previous);
-      return history.slice(0, -1);
-    });
+    const previous = zoomedFrom.current.pop();
+    if (previous) setRange(previous);
   }, []);
   const choose = (next: TimeRange) => {
-    setZoomedFrom([]);
+    zoomedFrom.current = [];
     setRange(next);
   };
   const [charts] = useState(() => new Map<Quantity, uPlot>());

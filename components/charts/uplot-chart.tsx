@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef } from "react";
+import { useEffect, useEffectEvent, useRef } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
 import { legendTime, timeTickLabels, zoneWallClock } from "@/lib/series/time-labels";
@@ -25,13 +25,17 @@ export function UplotChart({
 }) {
   const box = useRef<HTMLDivElement>(null);
   const chart = useRef<uPlot | null>(null);
+  // Read when the chart is built, not watched: later data goes through setData, and a parent's new
+  // onCreate function is no reason to rebuild the chart.
+  const dataAtBuild = useEffectEvent(() => data);
+  const announceBuilt = useEffectEvent((created: uPlot) => onCreate?.(created));
 
   useEffect(() => {
     const element = box.current;
     if (!element) return;
-    const created = new uPlot({ ...options, width: element.clientWidth || 600, height }, data, element);
+    const created = new uPlot({ ...options, width: element.clientWidth || 600, height }, dataAtBuild(), element);
     chart.current = created;
-    onCreate?.(created);
+    announceBuilt(created);
     const resize = new ResizeObserver(() => created.setSize({ width: element.clientWidth, height }));
     resize.observe(element);
     return () => {

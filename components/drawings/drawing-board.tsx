@@ -149,12 +149,13 @@ export function DrawingBoard({
       )}
 
       <figure className={`${cardClass} overflow-hidden p-2`}>
+        {/* eslint-disable-next-line jsx-a11y/click-events-have-key-events, jsx-a11y/no-static-element-interactions -- a pointer shortcut: the keyboard places a gauge through "Type the position instead" */}
         <div
           data-testid="drawing-canvas"
           onClick={placeAtTap}
           className={`relative ${placing ? "cursor-crosshair ring-2 ring-accent" : ""}`}
         >
-          {/* A plain img: the bytes come from the API behind the session, which the image optimiser could not fetch. */}
+          {/* eslint-disable-next-line @next/next/no-img-element -- a plain img: the bytes come from the API behind the session, which the image optimiser could not fetch */}
           <img src={drawing.url} alt={drawing.title} width={drawing.width ?? undefined} height={drawing.height ?? undefined} className="block h-auto w-full select-none" draggable={false} />
           {onThisDrawing.map((gauge) => (
             <GaugeMarker

@@ -48,8 +48,8 @@ export async function StructureDrawings({
                 href={`/structures/${encodeURIComponent(structure.code)}/drawings/${drawing.id}`}
                 className="block overflow-hidden rounded-md border border-slate-200 hover:border-accent dark:border-slate-700"
               >
-                {/* A plain img: the bytes come from the API behind the session, which the image optimiser could not fetch. */}
                 <span className="relative block bg-white">
+                  {/* eslint-disable-next-line @next/next/no-img-element -- a plain img: the bytes come from the API behind the session, which the image optimiser could not fetch */}
                   <img src={drawing.url} alt="" width={drawing.width ?? undefined} height={drawing.height ?? undefined} loading="lazy" className="block w-full" />
                   {slotted(markers.filter((marker) => marker.placement?.id === drawing.id)).map(({ marker, slot }) => (
                       <GaugeMarker

@@ -1,15 +1,15 @@
 "use client";
 
-import { useCallback, useEffect, useState } from "react";
+import { useState } from "react";
+import useSWR from "swr";
 import type { FileView } from "@/lib/services/files";
+import { fetchJson } from "@/lib/api/fetcher";
 import { deleteUploadedFile } from "@/components/files/delete-file";
 import { UploadForm } from "@/components/files/upload-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass } from "@/components/ui/styles";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
-
-type Loaded = { status: "loading" } | { status: "ready"; photos: FileView[] } | { status: "failed"; message: string };
 
 /**
  * A gauge's installation photos with, for those allowed, an upload form and a delete button.
@@ -18,22 +18,13 @@ type Loaded = { status: "loading" } | { status: "ready"; photos: FileView[] } | 
  */
 export function GaugePhotos({ structureCode, tag, canUpload, initialPhotos }: { structureCode: string; tag: string; canUpload: boolean; initialPhotos?: FileView[] }) {
   const listUrl = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}/photos`;
-  const [loaded, setLoaded] = useState<Loaded>(initialPhotos ? { status: "ready", photos: initialPhotos } : { status: "loading" });
+  const { data, error, mutate } = useSWR<{ photos: FileView[] }>(listUrl, fetchJson, {
+    fallbackData: initialPhotos && { photos: initialPhotos },
+    revalidateOnMount: !initialPhotos,
+    revalidateOnFocus: false,
+  });
   const [deletion, setDeletion] = useState<ActionState>(IDLE);
-
-  const reload = useCallback(async () => {
-    try {
-      const response = await fetch(listUrl, { cache: "no-store" });
-      const body = await response.json();
-      setLoaded(response.ok ? { status: "ready", photos: body.photos } : { status: "failed", message: body.error?.message ?? "The photos could not be loaded." });
-    } catch {
-      setLoaded({ status: "failed", message: "The photos could not be loaded: the server could not be reached." });
-    }
-  }, [listUrl]);
-
-  useEffect(() => {
-    if (!initialPhotos) void reload();
-  }, [initialPhotos, reload]);
+  const reload = () => mutate();
 
   async function remove(photo: FileView) {
     if (!window.confirm(`Delete the photo "${photo.title}"? This cannot be undone.`)) return;
@@ -48,20 +39,20 @@ export function GaugePhotos({ structureCode, tag, canUpload, initialPhotos }: { 
       <h2 id={`photos-${tag}-heading`} className="mb-3 font-semibold">
         Installation photos
       </h2>
-      {loaded.status === "loading" && <p className="text-sm text-slate-500">Loading photos…</p>}
-      {loaded.status === "failed" && <FormMessage state={{ status: "error", message: loaded.message }} />}
-      {loaded.status === "ready" &&
-        (loaded.photos.length === 0 ? (
+      {!data && !error && <p className="text-sm text-slate-500">Loading photos…</p>}
+      {error && <FormMessage state={{ status: "error", message: `The photos could not be loaded: ${error.message}` }} />}
+      {data &&
+        (data.photos.length === 0 ? (
           <EmptyState title={`No photos of ${tag} yet`}>
             <p>A photo of the bonded gauge and its wiring helps whoever checks it next.</p>
           </EmptyState>
         ) : (
           <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-            {loaded.photos.map((photo) => (
+            {data.photos.map((photo) => (
               <li key={photo.id} data-testid="gauge-photo">
                 <figure className="overflow-hidden rounded-md border border-slate-200 dark:border-slate-700">
                   <a href={photo.url} target="_blank" rel="noopener" aria-label={`Open "${photo.title}" full size`}>
-                    {/* A plain img: the bytes come from the API behind the session, which the image optimiser could not fetch. */}
+                    {/* eslint-disable-next-line @next/next/no-img-element -- a plain img: the bytes come from the API behind the session, which the image optimiser could not fetch */}
                     <img src={photo.url} alt={photo.title} width={photo.width ?? undefined} height={photo.height ?? undefined} loading="lazy" className="block aspect-[4/3] w-full bg-slate-100 object-cover" />
                   </a>
                   <figcaption className="flex items-start justify-between gap-2 px-3 py-2 text-sm">

@@ -48,12 +48,12 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
   const units = useUnits();
   const [sorting, setSorting] = useState<SortingState>([{ id: "state", desc: false }]);
   const [filter, setFilter] = useState("");
-  const stressUnit = inDisplayUnits(units, "stress", 0).unit;
-  const temperatureUnit = inDisplayUnits(units, "temperature", 0).unit;
-  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "short", timeStyle: "short" }).format(ms);
 
-  const columns = useMemo(
-    () => [
+  const columns = useMemo(() => {
+    const stressUnit = inDisplayUnits(units, "stress", 0).unit;
+    const temperatureUnit = inDisplayUnits(units, "temperature", 0).unit;
+    const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "short", timeStyle: "short" }).format(ms);
+    return [
       column.accessor("tag", {
         header: "Gauge",
         meta: { cellClass: STICKY_CELL },
@@ -84,10 +84,10 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
       }),
       column.accessor("time", { header: "Last reading", cell: (info) => (info.getValue() === null ? "none" : local(info.getValue()!)) }),
       column.accessor("openAlerts", { header: "Open alerts" }),
-    ],
-    [structureCode, units, timeZone],
-  );
+    ];
+  }, [structureCode, units, timeZone]);
 
+  // eslint-disable-next-line react-hooks/incompatible-library -- the React Compiler is not used here, and the table's functions never leave this component
   const table = useReactTable({
     data: rows,
     columns,

@@ -5,7 +5,6 @@ import { burstSummaries, bursts, dynamicEvents, dynamicStates, type StoredSampli
 import type { Actor } from "@/lib/auth/actor";
 import {
   captureEvents,
-  closeOpenEvent,
   decodeHistogram,
   encodeHistogram,
   mergeSummaries,

@@ -4,7 +4,7 @@ import { getClient, writeTransaction } from "@/db/client";
 import { REJECTION_CODES } from "@/lib/ingest/rejections";
 import type { UserActor } from "@/lib/auth/actor";
 import { loggerToken, makeUser, userToken } from "./helpers";
-import { makeIngestStructure, postReadings, rollupMismatches, storedCount, strainReadings, type Reading } from "./readings-fixtures";
+import { makeIngestStructure, postReadings, rollupMismatches, storedCount, strainReadings } from "./readings-fixtures";
 
 const tokens: Record<string, string> = {};
 let engineer: UserActor;

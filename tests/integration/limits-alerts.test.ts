@@ -13,7 +13,7 @@ import { evaluateInsertedReadings } from "@/lib/services/alert-raising";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import type { UserActor } from "@/lib/auth/actor";
 import { microstrainGauge } from "../fixtures/gauges";
-import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
+import { apiRequest, makeStructure, makeUser, userToken } from "./helpers";
 
 const tokens: Record<string, string> = {};
 let engineer: UserActor;

@@ -48,7 +48,7 @@ describe("rainflow carried across blocks", () => {
     // ASTM E1049-85 (reapproved 2017), 5.4.4 example: ranges 3 ×0.5, 4 ×1.5, 6 ×0.5, 8 ×1.0, 9 ×0.5.
     const config = { rateHz: 1, summaryMinutes: 10, rangeBin: 1 };
     const bursts = [ASTM_E1049_EXAMPLE.slice(0, 3), ASTM_E1049_EXAMPLE.slice(3, 6), ASTM_E1049_EXAMPLE.slice(6)];
-    let histogram: RangeHistogram = emptyHistogram(1);
+    const histogram: RangeHistogram = emptyHistogram(1);
     let residue: RainflowResidue | undefined;
     let start = Date.UTC(2026, 0, 1);
     for (const burst of bursts) {

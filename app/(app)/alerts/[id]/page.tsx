@@ -44,6 +44,7 @@ export default async function AlertPage({ params }: Props) {
   const openedAt = Date.parse(alert.openedAt);
   const clearedAt = alert.clearedAt ? Date.parse(alert.clearedAt) : null;
   // A day either side of the episode, or up to now while it lasts.
+  // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
   const around = { from: openedAt - DAY_MS, to: Math.min(Date.now(), (clearedAt ?? Date.now()) + DAY_MS) };
   const local = (date: Date | string) =>
     new Intl.DateTimeFormat("en-GB", { timeZone: structure.timezone, dateStyle: "medium", timeStyle: "medium" }).format(new Date(date));

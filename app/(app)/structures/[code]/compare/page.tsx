@@ -18,6 +18,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const structure = await pageGuard(getVisibleStructure(user, code));
   const statuses = (await gaugeStatuses(structure)).filter((status) => !status.retired);
   const requested = ((await searchParams).gauges ?? "").split(",").filter((tag) => statuses.some((s) => s.tag === tag));
+  // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
   const end = Math.max(0, ...statuses.map((status) => status.latest?.time ?? 0)) || Date.now();
   return (
     <>

@@ -156,6 +156,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
           apiBase={`/api/v1/structures/${code}/gauges/${encodeURIComponent(tag)}`}
           structureApi={`/api/v1/structures/${code}`}
           timeZone={structure.timezone}
+          // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
           end={latest ? latest.time : Date.now()}
           canLabel={canLabel}
           rateHz={gauge.sampling.rateHz}

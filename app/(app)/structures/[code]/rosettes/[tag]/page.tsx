@@ -34,6 +34,7 @@ export default async function RosettePage({ params }: Props) {
     pageGuard(getRosetteLimits(user, code, tag)),
     may(user, "limits:edit", structure),
   ]);
+  // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
   const end = Math.max(0, ...latest.map((reading) => reading?.time ?? 0)) || Date.now();
   return (
     <>
