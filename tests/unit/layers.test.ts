@@ -25,6 +25,7 @@ const PURE = [
   "lib/alerting/",
   "lib/gauges/",
   "lib/files/",
+  "lib/thermal/",
   "lib/units.ts",
   "lib/errors.ts",
   "lib/time-format.ts",

@@ -1,0 +1,2 @@
+export * from "./least-squares";
+export * from "./model";
