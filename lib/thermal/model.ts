@@ -59,16 +59,18 @@ export function temperatureHistory(samples: readonly ThermalSample[]): Temperatu
 
 /** T at `time` by linear interpolation between the neighbouring readings, or null where unknown. */
 export function temperatureAt(history: readonly TemperaturePoint[], time: number): number | null {
+  const first = history[0];
+  const last = history[history.length - 1];
+  if (!first || !last || time < first.time || time > last.time) return null;
   let low = 0;
   let high = history.length - 1;
-  if (high < 0 || time < history[0].time || time > history[high].time) return null;
   while (high - low > 1) {
     const middle = (low + high) >> 1;
-    if (history[middle].time <= time) low = middle;
+    if ((history[middle]?.time ?? Infinity) <= time) low = middle;
     else high = middle;
   }
-  const before = history[low];
-  const after = history[high];
+  const before = history[low] ?? first;
+  const after = history[high] ?? last;
   if (before.time === time) return before.temperature;
   if (after.time === time) return after.temperature;
   if (after.time - before.time > MAX_TEMPERATURE_GAP_MS) return null;
@@ -141,8 +143,8 @@ export function fitThermalModel(samples: readonly ThermalSample[], request: Ther
 /** 0, step, 2·step, … up to the lesser of a day and half the period, at least the sampling interval apart. */
 export function lagGrid(periodMinutes: number, inPeriod: readonly ThermalSample[]): number[] {
   const bound = Math.min(MAX_AUTO_LAG_MINUTES, Math.floor(periodMinutes / 2));
-  const intervals = inPeriod.slice(1).map((sample, i) => sample.time - inPeriod[i].time).filter((gap) => gap > 0).sort((a, b) => a - b);
-  const typicalMinutes = intervals.length ? intervals[intervals.length >> 1] / MINUTE_MS : 1;
+  const intervals = inPeriod.slice(1).map((sample, i) => sample.time - (inPeriod[i]?.time ?? sample.time)).filter((gap) => gap > 0).sort((a, b) => a - b);
+  const typicalMinutes = (intervals[intervals.length >> 1] ?? MINUTE_MS) / MINUTE_MS;
   const step = Math.max(1, Math.round(typicalMinutes), Math.ceil(bound / MAX_LAG_STEPS));
   const grid: number[] = [];
   for (let lag = 0; lag <= bound; lag += step) grid.push(lag);
@@ -165,7 +167,7 @@ function fitAtLag(inPeriod: readonly ThermalSample[], history: readonly Temperat
   const rows = points.map((point) => (drift ? [1, point.temperature - meanTemperature, point.days - meanDays] : [1, point.temperature - meanTemperature]));
   const fit = leastSquares(rows, points.map((point) => point.strain));
   if (!fit) return null;
-  const [centredIntercept, slope, driftPerDay = 0] = fit.coefficients;
+  const [centredIntercept = NaN, slope = NaN, driftPerDay = 0] = fit.coefficients;
   const parameters = drift ? 3 : 2;
   const model: ThermalModel = {
     intercept: centredIntercept - slope * meanTemperature - driftPerDay * meanDays,

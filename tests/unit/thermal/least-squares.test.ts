@@ -22,7 +22,7 @@ describe("ordinary least squares by the normal equations", () => {
     const y = [3.1, 5.2, 5.9, 9.4, 13.8, 15.1];
     const xBar = x.reduce((s, v) => s + v, 0) / x.length;
     const yBar = y.reduce((s, v) => s + v, 0) / y.length;
-    const sxy = x.reduce((s, v, i) => s + (v - xBar) * (y[i] - yBar), 0);
+    const sxy = x.reduce((s, v, i) => s + (v - xBar) * ((y[i] ?? NaN) - yBar), 0);
     const sxx = x.reduce((s, v) => s + (v - xBar) ** 2, 0);
     const fit = leastSquares(x.map((v) => [1, v]), y)!;
     expect(fit.coefficients[1]).toBeCloseTo(sxy / sxx, 12);
@@ -32,7 +32,7 @@ describe("ordinary least squares by the normal equations", () => {
   it("recovers an exact plane with two regressors and answers null for a regressor with no spread", () => {
     // Physical invariant of least squares: data lying exactly on the model is fitted with zero residual.
     const rows = [[1, 0, 0], [1, 1, 0], [1, 0, 1], [1, 2, 3], [1, 5, 1]];
-    const y = rows.map(([, u, v]) => 2 - 3 * u + 0.5 * v);
+    const y = rows.map(([, u = NaN, v = NaN]) => 2 - 3 * u + 0.5 * v);
     const fit = leastSquares(rows, y)!;
     expect(fit.coefficients.map((c) => Number(c.toFixed(9)))).toEqual([2, -3, 0.5]);
     expect(fit.residualSumOfSquares).toBeLessThan(1e-18);

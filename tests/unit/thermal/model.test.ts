@@ -71,8 +71,8 @@ describe("thermal model fit", () => {
     const samples = synthetic(30, { stepAt, step: 20 });
     const model = fitThermalModel(samples, { from: START + DAY_MS, to: START + 15 * DAY_MS, lagMinutes: "auto", drift: false });
     const residuals = thermalResiduals(model, samples, temperatureHistory(samples));
-    const before = residuals.filter((_, i) => samples[i].time >= START + DAY_MS && samples[i].time < stepAt) as number[];
-    const after = residuals.filter((_, i) => samples[i].time >= stepAt) as number[];
+    const before = residuals.filter((_, i) => samples[i]!.time >= START + DAY_MS && samples[i]!.time < stepAt) as number[];
+    const after = residuals.filter((_, i) => samples[i]!.time >= stepAt) as number[];
     const mean = (values: number[]) => values.reduce((s, v) => s + v, 0) / values.length;
     expect(Math.max(...before.map(Math.abs))).toBeLessThan(1);
     expect(mean(before)).toBeCloseTo(0, 1);
