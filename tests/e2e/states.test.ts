@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page, Route } from "playwright-core";
+import type { Browser, Page, Request, Route } from "playwright-core";
 import { DESKTOP, PHONE, SignInPage, launchBrowser, newContext } from "./browser";
 import { foilGaugeBody } from "../fixtures/gauges";
 
@@ -28,12 +28,12 @@ afterAll(async () => {
 });
 
 /** Requests matching `matches` wait at the network until `release()`, so a screen can be read while it waits for them. */
-async function holdRequests(page: Page, matches: (url: URL) => boolean) {
+async function holdRequests(page: Page, matches: (url: URL, request: Request) => boolean) {
   const held: Route[] = [];
   let holding = true;
   const handler = async (route: Route) => {
     const request = route.request();
-    if (holding && matches(new URL(request.url()))) held.push(route);
+    if (holding && matches(new URL(request.url()), request)) held.push(route);
     else await route.continue();
   };
   await page.route("**/*", handler);
@@ -58,11 +58,33 @@ describe("loading screens", () => {
         await page.goto("/structures/MILL-FB/gauges/LC-M1");
         const chart = page.getByRole("region", { name: "Stress chart" });
         await chart.getByRole("status").filter({ hasText: "Loading the stress…" }).waitFor();
-        await expect.poll(() => gate.heldCount()).toBeGreaterThan(0);
+        await expect.poll(() => gate.heldCount(), { timeout: 15_000 }).toBeGreaterThan(0);
       } finally {
         await gate.release();
       }
       await page.getByRole("region", { name: "Stress chart" }).locator("canvas").first().waitFor();
+    });
+  }
+
+  for (const size of Object.keys(SIZES) as Size[]) {
+    it(`shows the structure's loading screen while the page is read after a click (${size})`, async () => {
+      const page = pages[size];
+      const isStructurePage = (url: URL) => url.pathname === "/structures/MILL-FB";
+      // The link's prefetch brings the loading screen ahead of the click; only the page itself is held.
+      const gate = await holdRequests(page, (url, request) => isStructurePage(url) && request.headers()["rsc"] === "1" && !request.headers()["next-router-prefetch"]);
+      try {
+        await page.goto("/");
+        const card = page.getByTestId("structure-card").filter({ hasText: "MILL-FB" });
+        await card.hover();
+        await page.waitForLoadState("networkidle");
+        await card.click();
+        await page.getByRole("status").filter({ hasText: "Loading the structure…" }).waitFor();
+        await expect.poll(() => gate.heldCount(), { timeout: 15_000 }).toBeGreaterThan(0);
+        expect(await documentOverflow(page)).toBeLessThanOrEqual(0);
+      } finally {
+        await gate.release();
+      }
+      await page.getByRole("heading", { level: 2, name: "Gauges" }).waitFor();
     });
   }
 });
@@ -71,8 +93,8 @@ describe("error and empty screens", () => {
   for (const size of Object.keys(SIZES) as Size[]) {
     it(`says in words that a structure code does not exist (${size})`, async () => {
       const page = pages[size];
-      // The loading screen streams first, so the answer's status is already sent: the words are what counts.
-      await page.goto("/structures/NO-SUCH-CODE");
+      const response = await page.goto("/structures/NO-SUCH-CODE");
+      expect(response?.status()).toBe(404);
       await page.getByRole("heading", { level: 1, name: "Not found" }).waitFor();
       await expect(page.getByText(/does not exist, or it belongs to a structure you are not a member of/).isVisible()).resolves.toBe(true);
       expect(await documentOverflow(page)).toBeLessThanOrEqual(0);
