@@ -15,8 +15,10 @@ export function useActionForm() {
 
 /**
  * A form bound to a server action. Fields inside it pick their errors from its state and the
- * outcome message shows at the end. What was typed stays after an error (React would clear it
- * when the action is passed as `action`), and the form is cleared after a success.
+ * outcome message shows at the end. Before the page's JavaScript has loaded (or without it) the
+ * browser posts the form natively to the action and the page comes back with its outcome. Once
+ * loaded, the submit is taken over so that what was typed stays after an error (React clears a
+ * form after its `action` runs), and the form is cleared after a success.
  */
 export function ActionForm({
   action,
@@ -43,7 +45,7 @@ export function ActionForm({
 
   return (
     <ActionFormContext.Provider value={{ state, pending }}>
-      <form ref={form} onSubmit={submit} className={className} aria-label={label} aria-busy={pending} noValidate>
+      <form ref={form} action={dispatch} onSubmit={submit} className={className} aria-label={label} aria-busy={pending} noValidate>
         {children}
         <FormMessage state={state} />
       </form>
