@@ -14,7 +14,10 @@ import { meanBinIndex, rangeBinIndex, type Cycle, type RangeBin } from "@/lib/fa
 export interface RangeHistogram {
   readonly binWidth: number;
   counts: Float64Array;
-  /** Range bin k − 1 → (mean bin → cycles); a row is absent when no mean was recorded in it. */
+  /**
+   * Range bin k − 1 → (mean bin → half cycles); a row is absent when no mean was recorded in it.
+   * Whole half cycles keep the values small integers, which the engine stores without allocating.
+   */
   means: (Map<number, number> | undefined)[];
 }
 
@@ -35,17 +38,17 @@ export function addRange(histogram: RangeHistogram, range: number, count: number
   return bin;
 }
 
-function addToMeanBin(histogram: RangeHistogram, bin: number, meanBin: number, count: number) {
+function addToMeanBin(histogram: RangeHistogram, bin: number, meanBin: number, halves: number) {
   let row = histogram.means[bin - 1];
   if (!row) histogram.means[bin - 1] = row = new Map();
-  row.set(meanBin, (row.get(meanBin) ?? 0) + count);
+  row.set(meanBin, (row.get(meanBin) ?? 0) + halves);
 }
 
 /** Adds `count` cycles between the extremes `from` and `to`, with their range and mean; answers the range. */
 export function addCycle(histogram: RangeHistogram, from: number, to: number, count: number): number {
   const range = Math.abs(to - from);
   const bin = addRange(histogram, range, count);
-  addToMeanBin(histogram, bin, meanBinIndex((from + to) / 2, histogram.binWidth), count);
+  addToMeanBin(histogram, bin, meanBinIndex((from + to) / 2, histogram.binWidth), count * 2);
   return range;
 }
 
@@ -58,7 +61,7 @@ function checkSameWidth(a: RangeHistogram, b: RangeHistogram) {
 function mergeMeanRows(a: Map<number, number> | undefined, b: Map<number, number> | undefined): Map<number, number> | undefined {
   if (!a || !b) return a || b ? new Map(a ?? b) : undefined;
   const merged = new Map(a);
-  for (const [meanBin, count] of b) merged.set(meanBin, (merged.get(meanBin) ?? 0) + count);
+  for (const [meanBin, halves] of b) merged.set(meanBin, (merged.get(meanBin) ?? 0) + halves);
   return merged;
 }
 
@@ -83,7 +86,7 @@ export function rebinHistogram(histogram: RangeHistogram, binWidth: number): Ran
   histogram.counts.forEach((count, i) => {
     if (count <= 0) return;
     const bin = addRange(rebinned, (i + 1) * histogram.binWidth, count);
-    for (const [meanBin, cycles] of histogram.means[i] ?? []) addToMeanBin(rebinned, bin, meanBinIndex(meanBin * histogram.binWidth, binWidth), cycles);
+    for (const [meanBin, halves] of histogram.means[i] ?? []) addToMeanBin(rebinned, bin, meanBinIndex(meanBin * histogram.binWidth, binWidth), halves);
   });
   return rebinned;
 }
@@ -100,9 +103,9 @@ export function histogramCells(histogram: RangeHistogram): { cells: Cycle[]; wit
     if (count <= 0) return;
     const range = (i + 1) * width;
     let known = 0;
-    for (const [meanBin, cycles] of [...(histogram.means[i] ?? [])].sort(([a], [b]) => a - b)) {
-      cells.push({ range, mean: meanBin * width, count: cycles });
-      known += cycles;
+    for (const [meanBin, halves] of [...(histogram.means[i] ?? [])].sort(([a], [b]) => a - b)) {
+      cells.push({ range, mean: meanBin * width, count: halves / 2 });
+      known += halves / 2;
     }
     if (count > known) withoutMean.push({ range, count: count - known });
   });
@@ -162,9 +165,9 @@ export function encodeHistogram(histogram: RangeHistogram): Uint8Array {
     const row = [...(histogram.means[i] ?? [])].sort(([a], [b]) => a - b);
     writeVarint(body, row.length);
     let previousMean = 0;
-    for (const [meanBin, cycles] of row) {
+    for (const [meanBin, halves] of row) {
       writeVarint(body, zigzag(meanBin - previousMean));
-      writeVarint(body, Math.round(cycles * 2));
+      writeVarint(body, halves);
       previousMean = meanBin;
     }
     previous = i + 1;
@@ -204,9 +207,9 @@ export function decodeHistogram(bytes: Uint8Array): RangeHistogram {
     let known = 0;
     for (let cells = readVarint(); cells > 0; cells--) {
       meanBin += unzigzag(readVarint());
-      const cycles = readVarint() / 2;
-      addToMeanBin(histogram, stored, meanBin, cycles);
-      known += cycles;
+      const halves = readVarint();
+      addToMeanBin(histogram, stored, meanBin, halves);
+      known += halves / 2;
     }
     if (known > count) throw new RangeError(`A stored histogram holds more cycles by mean (${known}) than by range (${count}) in range bin ${bin}.`);
   }
