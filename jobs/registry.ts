@@ -50,12 +50,13 @@ export function jobsEnabled(): boolean {
 }
 
 /**
- * One run under the job's lease: its summary, null when another holder has the lease, or the
- * error logged (never thrown into the scheduler) and answered as "error".
+ * One run under the job's lease: its summary, null when another holder has the lease (or, for a
+ * scheduled run, another instance already ran its `slot`), or the error logged (never thrown
+ * into the scheduler) and answered as "error".
  */
-export async function runJob(job: Job): Promise<string | null> {
+export async function runJob(job: Job, slot: Date | null = null): Promise<string | null> {
   try {
-    return await withLease(job.name, job.leaseMs, job.run);
+    return await withLease(job.name, job.leaseMs, job.run, PROCESS_HOLDER, slot);
   } catch (error) {
     console.error(`Job "${job.name}" failed:`, error);
     return "error";
@@ -71,7 +72,8 @@ export function startJobs(): boolean {
   releaseLeasesOnStop();
   for (const job of JOBS) {
     // createTask, then start: node-cron 4's schedule() starts at once and ignores v3's `scheduled: false`.
-    const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true, timezone: job.timezone });
+    // node-cron's context.date is the scheduled instant, the same on every instance whose clock agrees to within the schedule's period.
+    const task = createTask(job.schedule, (context) => runJob(job, context.date), { name: job.name, noOverlap: true, timezone: job.timezone });
     void task.start();
   }
   return true;
