@@ -63,3 +63,5 @@ export const loadTestResultsSchema = loadTestSummarySchema
 export type LoadTestSummary = z.output<typeof loadTestSummarySchema>;
 export type LoadTestGauge = z.output<typeof loadTestGaugeSchema>;
 export type LoadTestResults = z.output<typeof loadTestResultsSchema>;
+
+export const loadTestId = z.coerce.number({ error: "The load test id is a number." }).int("The load test id is a whole number.").positive("The load test id is positive.");
