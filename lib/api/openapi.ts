@@ -508,6 +508,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
     post: {
       summary: "Record a load test: its window, the load, and the predicted peak strain per gauge (as a list or as CSV text). Audited",
       roles: "admin, engineer",
+      parameters: [codeParameter],
       notes:
         "Every gauge named must be the structure's: unknown tags are all named in one 400 (`details.unknownGauges`) and nothing is stored. " +
         "A window holding no data is stored all the same (a logger file often arrives after the test): the answer's `dataState` is `none` and each gauge says `no-data` until readings arrive. " +

@@ -70,6 +70,10 @@ export function parsePredictedTable(text: string): PredictedTable {
       continue;
     }
     const predicted = Number(value);
+    if (!Number.isFinite(predicted)) {
+      problems.push(`Line ${line} (${gauge}): ${value} is beyond any strain; give µε.`);
+      continue;
+    }
     if (predicted === 0) {
       problems.push(`Line ${line} (${gauge}): a predicted strain of 0 µε has no sign to measure in and no ratio; leave the gauge out instead.`);
       continue;
