@@ -89,3 +89,7 @@ export function resultsCsv(results: Pick<LoadTestResults, "gauges">): string {
   );
   return [RESULTS_CSV_HEADER.map(csvField).join(","), ...lines].join("\r\n") + "\r\n";
 }
+
+/** A strain for the screen: to 0.1 µε with its unit; a dash where nothing was measured. */
+export const strainText = (value: number | null) => (value === null ? "—" : `${roundStrain(value).toFixed(1)} µε`);
+export const ratioText = (value: number | null) => (value === null ? "—" : roundRatio(value).toFixed(2));

@@ -8,6 +8,7 @@ import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
 import * as burstsRoute from "@/app/api/v1/structures/[code]/bursts/route";
 import { getDb } from "@/db/client";
 import { auditLog, loadTestPredictions, loadTests } from "@/db/schema";
+import type { LoadTestResults } from "@/lib/api/load-test-schemas";
 import { structureReport } from "@/lib/services/report";
 import { createGauge } from "@/lib/services/gauges";
 import { microstrainGauge } from "../fixtures/gauges";
@@ -62,7 +63,8 @@ const storedTests = async () => (await getDb().select({ n: count() }).from(loadT
 const storedPredictions = async () => (await getDb().select({ n: count() }).from(loadTestPredictions))[0]!.n;
 
 const window = { start: iso(START), end: iso(END) };
-const byGauge = (results: { gauges: { gauge: string }[] }) => Object.fromEntries(results.gauges.map((gauge) => [gauge.gauge, gauge]));
+/** The results' line of a gauge. */
+const byGauge = (results: LoadTestResults) => (tag: string) => results.gauges.find((gauge) => gauge.gauge === tag)!;
 
 beforeAll(async () => {
   team = await makeTeam("LT");
@@ -94,20 +96,20 @@ describe("load tests through the API", () => {
     id = body.id;
     const gauges = byGauge(body);
     // Planted: S1 rises 120 µε from 40 (ratio 120/100), S2 falls 60 µε from −15 (ratio −60/−75).
-    expect(gauges.S1).toMatchObject({ state: "measured", source: "readings", direction: "tension", baseline: { time: iso(START - MINUTE), strain: 40 }, against: 0 });
-    expect(gauges.S1.measured).toBeCloseTo(120, 6);
-    expect(gauges.S1.ratio).toBeCloseTo(1.2, 6);
-    expect(gauges.S1.peakAt).toEqual({ start: iso(START + 15 * MINUTE), end: iso(START + 15 * MINUTE) });
-    expect(gauges.S1.readings).toBe(30);
-    expect(gauges.S2).toMatchObject({ state: "measured", direction: "compression", baseline: { strain: -15 } });
-    expect(gauges.S2.measured).toBeCloseTo(-60, 6);
-    expect(gauges.S2.ratio).toBeCloseTo(0.8, 6);
+    expect(gauges("S1")).toMatchObject({ state: "measured", source: "readings", direction: "tension", baseline: { time: iso(START - MINUTE), strain: 40 }, against: 0 });
+    expect(gauges("S1").measured).toBeCloseTo(120, 6);
+    expect(gauges("S1").ratio).toBeCloseTo(1.2, 6);
+    expect(gauges("S1").peakAt).toEqual({ start: iso(START + 15 * MINUTE), end: iso(START + 15 * MINUTE) });
+    expect(gauges("S1").readings).toBe(30);
+    expect(gauges("S2")).toMatchObject({ state: "measured", direction: "compression", baseline: { strain: -15 } });
+    expect(gauges("S2").measured).toBeCloseTo(-60, 6);
+    expect(gauges("S2").ratio).toBeCloseTo(0.8, 6);
     // D1 from its 10-minute summaries: rest at 10 µε, crest at 100 µε in the 09:10 interval.
-    expect(gauges.D1).toMatchObject({ state: "measured", source: "summaries", peakAt: { start: iso(START + 10 * MINUTE), end: iso(START + 20 * MINUTE) } });
-    expect(gauges.D1.baseline.strain).toBeCloseTo(10, 3);
-    expect(gauges.D1.measured).toBeCloseTo(90, 2);
-    expect(gauges.D1.ratio).toBeCloseTo(0.9, 4);
-    expect(gauges.S3).toMatchObject({ state: "no-data", measured: null, ratio: null, message: expect.stringMatching(/^No data in window/) });
+    expect(gauges("D1")).toMatchObject({ state: "measured", source: "summaries", peakAt: { start: iso(START + 10 * MINUTE), end: iso(START + 20 * MINUTE) } });
+    expect(gauges("D1").baseline?.strain).toBeCloseTo(10, 3);
+    expect(gauges("D1").measured).toBeCloseTo(90, 2);
+    expect(gauges("D1").ratio).toBeCloseTo(0.9, 4);
+    expect(gauges("S3")).toMatchObject({ state: "no-data", measured: null, ratio: null, message: expect.stringMatching(/^No data in window/) });
     expect(body.dataState).toBe("partial");
     expect(body.caution).toMatch(/licensed engineer/);
   });
@@ -116,7 +118,7 @@ describe("load tests through the API", () => {
     const list = await listRoute.GET(apiRequest("/structures/LT/load-tests", { token: team.tokens.owner }), params({ code: "LT" }));
     expect((await list.json()).loadTests).toEqual([expect.objectContaining({ id, title: "Static test, truck at midspan", gauges: 4, createdBy: "Test engineer" })]);
     const one = await testRoute.GET(apiRequest(`/structures/LT/load-tests/${id}`, { token: team.tokens.technician }), params({ code: "LT", id: String(id) }));
-    expect(byGauge(await one.json()).S1.ratio).toBeCloseTo(1.2, 6);
+    expect(byGauge(await one.json())("S1").ratio).toBeCloseTo(1.2, 6);
     const [audit] = await getDb().select().from(auditLog).where(eq(auditLog.action, "load-test.create"));
     expect(audit).toMatchObject({ entityKey: `LT/${id}`, actorLabel: team.users.engineer.email });
   });
