@@ -5,7 +5,7 @@ import { directionOf, type GaugeResponse } from "./peak";
 export const LOAD_TEST_CAUTION =
   "The ratio of measured to predicted strain is one input to the engineer's judgement of the structure, not a verdict: it depends on the model, " +
   "the gauge's position, temperature during the test and how the load was placed. Its meaning, and any decision taken on it, rest with a licensed " +
-  "engineer under local codes; monitoring supplements inspection and never replaces it.";
+  "engineer under local codes.";
 
 const iso = (ms: number) => new Date(ms).toISOString();
 
