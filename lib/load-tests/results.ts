@@ -1,5 +1,6 @@
 import type { LoadTestGauge, LoadTestResults } from "@/lib/api/load-test-schemas";
 import { csvField } from "@/lib/ingest/csv-preview";
+import { formatInTimeZone } from "@/lib/time-format";
 import { directionOf, type GaugeResponse } from "./peak";
 
 export const LOAD_TEST_CAUTION =
@@ -93,3 +94,19 @@ export function resultsCsv(results: Pick<LoadTestResults, "gauges">): string {
 /** A strain for the screen: to 0.1 µε with its unit; a dash where nothing was measured. */
 export const strainText = (value: number | null) => (value === null ? "—" : `${roundStrain(value).toFixed(1)} µε`);
 export const ratioText = (value: number | null) => (value === null ? "—" : roundRatio(value).toFixed(2));
+
+/** A test as lines of text for the printed report: a heading, the window and load, then one line per gauge. */
+export function loadTestReportLines(test: LoadTestResults, timeZone: string): { title: string; lines: string[] } {
+  const when = `${formatInTimeZone(new Date(test.start), timeZone)} to ${formatInTimeZone(new Date(test.end), timeZone)}`;
+  return {
+    title: `Load test: ${test.title}`,
+    lines: [
+      `${when}; ${test.load}; recorded by ${test.createdBy}.`,
+      ...test.gauges.map((gauge) =>
+        gauge.state === "measured"
+          ? `${gauge.gauge}: measured ${strainText(gauge.measured)} from a baseline of ${strainText(gauge.baseline?.strain ?? null)}, predicted ${strainText(gauge.predicted)}, ratio ${ratioText(gauge.ratio)}.`
+          : `${gauge.gauge}: predicted ${strainText(gauge.predicted)}. ${gauge.message}`,
+      ),
+    ],
+  };
+}

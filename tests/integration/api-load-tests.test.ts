@@ -1,5 +1,6 @@
 import { parse } from "csv-parse/sync";
 import { count, eq } from "drizzle-orm";
+import { PDFParse } from "pdf-parse";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as listRoute from "@/app/api/v1/structures/[code]/load-tests/route";
 import * as testRoute from "@/app/api/v1/structures/[code]/load-tests/[id]/route";
@@ -9,6 +10,7 @@ import * as burstsRoute from "@/app/api/v1/structures/[code]/bursts/route";
 import { getDb } from "@/db/client";
 import { auditLog, loadTestPredictions, loadTests } from "@/db/schema";
 import type { LoadTestResults } from "@/lib/api/load-test-schemas";
+import { renderReportPdf } from "@/lib/report/pdf";
 import { structureReport } from "@/lib/services/report";
 import { createGauge } from "@/lib/services/gauges";
 import { microstrainGauge } from "../fixtures/gauges";
@@ -138,6 +140,11 @@ describe("load tests through the API", () => {
     const period = { from: new Date(Date.UTC(2026, 5, 1)), to: new Date(Date.UTC(2026, 6, 1)) };
     const report = await structureReport(team.users.owner, "LT", period, new Date(Date.UTC(2026, 6, 2)));
     expect(report.loadTests.map((test) => test.id)).toContain(id);
+    const pdf = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText();
+    const text = pdf.text.replace(/\s+/g, " ");
+    expect(text).toContain("Load test: Static test, truck at midspan");
+    expect(text).toContain("S1: measured 120.0 microstrain from a baseline of 40.0 microstrain, predicted 100.0 microstrain, ratio 1.20.");
+    expect(text).toContain("S3: predicted 50.0 microstrain. No data in window");
     const july = await structureReport(team.users.owner, "LT", { from: period.to, to: new Date(Date.UTC(2026, 7, 1)) }, new Date(Date.UTC(2026, 7, 2)));
     expect(july.loadTests).toEqual([]);
   });
