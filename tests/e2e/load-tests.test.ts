@@ -110,7 +110,7 @@ describe("load tests", () => {
     expect(row).toMatchObject({ gauge: TAG, "measured peak (µε)": "90.0", "ratio (measured/predicted)": "0.90", "predicted (µε)": "100.0" });
   });
 
-  it("shows the owner the test on a phone at 390x844 without sideways scrolling", async () => {
+  it("shows the owner the test and the month's report on a phone at 390x844 without sideways scrolling", async () => {
     const page = await (await newContext(browser, PHONE)).newPage();
     await new SignInPage(page).signInAs("owner");
     await page.goto("/structures/MILL-FB/load-tests");
@@ -125,5 +125,11 @@ describe("load tests", () => {
     await results.waitForChart(TAG);
     await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(PHONE.width);
     await saveScreenshot(page, "load-test-phone");
+
+    // The report of the month holds the test with its table.
+    await page.goto("/structures/MILL-FB/report?month=2026-03");
+    const inReport = page.getByTestId("report-load-test").filter({ hasText: title });
+    await inReport.waitFor();
+    await expect(inReport.locator(`tr[data-gauge="${TAG}"]`).getByTestId("ratio").textContent()).resolves.toBe("0.90");
   });
 });
