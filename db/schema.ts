@@ -422,6 +422,48 @@ export const dynamicEvents = sqliteTable(
   (t) => [index("dynamic_events_gauge").on(t.gaugeId, t.start), index("dynamic_events_structure").on(t.structureId, t.start)],
 );
 
+/**
+ * A diagnostic load test recorded by an engineer: the window the load stood on the structure and
+ * what it was. Results are worked out when read, from the readings stored then, so a logger file
+ * uploaded after the test counts.
+ */
+export const loadTests = sqliteTable(
+  "load_tests",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    /** What loaded the structure, where and when. */
+    load: text("load").notNull(),
+    /** Epoch ms; `end` is excluded. */
+    start: integer("start").notNull(),
+    end: integer("end").notNull(),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdByLabel: text("created_by_label").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("load_tests_structure").on(t.structureId, t.start)],
+);
+
+/** The model's predicted peak strain of each gauge in a load test, µε (tension positive). */
+export const loadTestPredictions = sqliteTable(
+  "load_test_predictions",
+  {
+    loadTestId: integer("load_test_id")
+      .notNull()
+      .references(() => loadTests.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    predicted: real("predicted").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.loadTestId, t.gaugeId] })],
+);
+
+export type LoadTest = typeof loadTests.$inferSelect;
+
 export type Gauge = typeof gauges.$inferSelect;
 export type BurstSummaryRow = typeof burstSummaries.$inferSelect;
 export type DynamicEventRow = typeof dynamicEvents.$inferSelect;

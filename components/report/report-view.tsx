@@ -1,6 +1,7 @@
 "use client";
 
 import { ConditionBadge } from "@/components/alerts/state-badge";
+import { ReportLoadTests } from "@/components/load-tests/report-load-tests";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { useUnits } from "@/components/units/units-context";
@@ -77,6 +78,10 @@ export function ReportView({ report }: { report: StructureReport }) {
             <GapLists gauges={report.gauges} timeZone={zone} />
           </>
         )}
+      </Section>
+
+      <Section id="load-tests-heading" title="Load tests">
+        <ReportLoadTests tests={report.loadTests} timeZone={zone} />
       </Section>
 
       <Section id="alerts-heading" title="Alerts and how they were handled">

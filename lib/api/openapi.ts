@@ -32,6 +32,8 @@ import { BURST_REJECTION_CODES } from "@/lib/ingest/burst-input";
 import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
+import { loadTestListSchema, loadTestResultsSchema } from "./load-test-schemas";
+import { loadTestInput } from "@/lib/load-tests";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
 import { acknowledgeBody, backtestBody, limitsBody, resolveFaultBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
@@ -69,6 +71,7 @@ const ERROR_MEANING: Record<number, string> = {
 
 const codeParameter = { name: "code", in: "path" as const, description: "Structure code" };
 const tagParameter = { name: "tag", in: "path" as const, description: "Gauge tag" };
+const loadTestParameter = { name: "id", in: "path" as const, description: "Load test id" };
 const rosetteTagParameter = { name: "tag", in: "path" as const, description: "Rosette tag" };
 
 const timezoneParameter = {
@@ -497,6 +500,44 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 404],
     },
   },
+  "/structures/{code}/load-tests": {
+    get: {
+      summary: "The structure's diagnostic load tests, newest window first",
+      parameters: [codeParameter],
+      response: { status: 200, schema: loadTestListSchema, description: "The load tests" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Record a load test: its window, the load, and the predicted peak strain per gauge (as a list or as CSV text). Audited",
+      roles: "admin, engineer",
+      parameters: [codeParameter],
+      notes:
+        "Every gauge named must be the structure's: unknown tags are all named in one 400 (`details.unknownGauges`) and nothing is stored. " +
+        "A window holding no data is stored all the same (a logger file often arrives after the test): the answer's `dataState` is `none` and each gauge says `no-data` until readings arrive. " +
+        "Results are worked out when read. Per gauge, the baseline is the last believed reading before the window start (for a dynamic gauge: the mean of the last summary interval ended by then); " +
+        "the measured peak is the largest change from it in the sign of the prediction (tension positive), and the ratio is measured ÷ predicted. " +
+        "Readings with a sensor-health verdict or beyond the gauge's rated range are left out.",
+      request: loadTestInput,
+      response: { status: 201, schema: loadTestResultsSchema, description: "The test with its results as they stand" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/load-tests/{id}": {
+    get: {
+      summary: "One load test with its results per gauge: baseline, measured peak, predicted, ratio",
+      parameters: [codeParameter, loadTestParameter],
+      response: { status: 200, schema: loadTestResultsSchema, description: "The test and its results" },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/load-tests/{id}/results.csv": {
+    get: {
+      summary: "The results table as CSV, units in the header (strain to 0.1 µε, ratios to 0.01; empty cells where nothing was measured)",
+      parameters: [codeParameter, loadTestParameter],
+      response: { status: 200, description: "The results as text/csv", text: { contentType: "text/csv" } },
+      errors: [400, 401, 404],
+    },
+  },
   "/files/{id}": {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
@@ -623,6 +664,7 @@ const TAGS: Record<string, string> = {
   events: "Waveforms captured around trigger crossings of dynamic gauges, and their labels",
   uploads: "Sending a logger file of any size, streamed",
   report: "The periodic structure report",
+  "load-tests": "Diagnostic load tests: measured against predicted strain per gauge",
   files: "Stored photos and drawings",
 };
 

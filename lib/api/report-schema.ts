@@ -3,6 +3,7 @@ import { ALERT_KINDS, ALERT_LEVELS, GAUGE_STATUSES } from "@/db/schema";
 import { CONDITION_STATES } from "@/lib/alerting/condition";
 import { conditionSchema } from "./schemas";
 import { PERIOD_LEVELS } from "@/lib/report/status";
+import { loadTestResultsSchema } from "./load-test-schemas";
 
 /** Response of GET /structures/{code}/report: the periodic structure report. Times are UTC ISO-8601. */
 
@@ -132,6 +133,7 @@ export const structureReportSchema = z
     }),
     gauges: z.array(reportGaugeSchema).meta({ description: "Gauges installed at some time in the period, by tag" }),
     alerts: z.array(reportAlertSchema).meta({ description: "Alerts open at any time in the period, newest first" }),
+    loadTests: z.array(loadTestResultsSchema).meta({ description: "Load tests whose window overlaps the period, oldest first, with their results" }),
     cautions: z.array(z.string()),
   })
   .meta({ id: "StructureReport" });

@@ -9,6 +9,7 @@ export const ACTIONS = {
   "readings:ingest": "Send or upload readings",
   "limits:edit": "Change limits",
   "alert:acknowledge": "Acknowledge and clear alerts",
+  "load-test:record": "Record load tests and their predicted strains",
   "token:manage": "Create and revoke logger tokens of the structure",
   "audit:view": "Read the audit trail",
   "users:manage": "Add, change and deactivate users",
@@ -26,6 +27,7 @@ const STRUCTURE_SCOPED: ReadonlySet<Action> = new Set<Action>([
   "readings:ingest",
   "limits:edit",
   "alert:acknowledge",
+  "load-test:record",
   "token:manage",
   "audit:view",
 ]);
@@ -43,6 +45,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "readings:ingest",
     "limits:edit",
     "alert:acknowledge",
+    "load-test:record",
     "token:manage",
     "audit:view",
   ]),

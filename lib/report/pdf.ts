@@ -4,6 +4,7 @@ import { formatInTimeZone } from "@/lib/time-format";
 import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "./format";
 import { pdfText } from "./pdf-text";
 import { conditionText } from "@/lib/alerting/condition-display";
+import { loadTestReportLines } from "@/lib/load-tests/results";
 
 /**
  * The report as an A4 PDF, in SI units. Built with pdfkit and its standard Helvetica, so no font
@@ -122,6 +123,17 @@ function alertSection(doc: Doc, report: StructureReport) {
   }
 }
 
+function loadTestSection(doc: Doc, report: StructureReport) {
+  if (report.loadTests.length === 0) return;
+  heading(doc, "Load tests");
+  for (const test of report.loadTests) {
+    const { title, lines } = loadTestReportLines(test, report.structure.timezone);
+    heading(doc, title, 11);
+    for (const line of lines) paragraph(doc, line, { size: 9 });
+    paragraph(doc, test.caution, { size: 9, color: MUTED });
+  }
+}
+
 function cautions(doc: Doc, report: StructureReport) {
   heading(doc, "Read with care");
   for (const caution of report.cautions) paragraph(doc, `- ${caution}`);
@@ -162,6 +174,7 @@ export function renderReportPdf(report: StructureReport): Promise<Buffer> {
   summary(doc, report);
   gaugeTables(doc, report);
   alertSection(doc, report);
+  loadTestSection(doc, report);
   cautions(doc, report);
   footers(doc, report);
   doc.end();

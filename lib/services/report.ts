@@ -15,6 +15,7 @@ import { periodHeadline, periodLevel, type CheckedGauges } from "@/lib/report/st
 import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { gaugeRowsOf } from "./gauges";
+import { loadTestsOfPeriod } from "./load-tests";
 import { conditionView, gaugeStatuses, structureSummary, type ConditionView } from "./status";
 import { getVisibleStructure } from "./structures";
 
@@ -323,6 +324,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
     },
     gauges,
     alerts: reportAlerts,
+    loadTests: await loadTestsOfPeriod(structure, span),
     cautions: REPORT_CAUTIONS,
   };
 }

@@ -9,7 +9,7 @@ import { baseUrl, expectContractError, makeCallers, millIds, scanRouteFiles, sto
 // token only sends readings. Bodies are never valid (a JSON array), so nothing is stored.
 const routes = scanRouteFiles();
 let callers: Caller[];
-let ids: { alert: number; file: number };
+let ids: Awaited<ReturnType<typeof millIds>>;
 let calls = 0;
 
 beforeAll(async () => {
@@ -23,7 +23,7 @@ function pathFor(pattern: string, method: HttpMethod): string {
   return `/api/v1${pattern}`
     .replace("{code}", "MILL-FB")
     .replace("{tag}", destructive ? "NO-SUCH" : pattern.includes("rosettes") ? "R1" : "LC-M1")
-    .replace("{id}", String(destructive ? 999_999 : pattern.startsWith("/alerts") ? ids.alert : ids.file));
+    .replace("{id}", String(destructive ? 999_999 : pattern.startsWith("/alerts") ? ids.alert : pattern.includes("/load-tests/") ? ids.loadTest : ids.file));
 }
 
 // "out of sight": a 404, or for a route addressed by id a 400 about the body given before the id is

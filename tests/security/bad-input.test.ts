@@ -115,6 +115,25 @@ function corpus(): Case[] {
   add({ label: "acknowledgement comment a number", method: "POST", path: "/api/v1/alerts/1/acknowledge", body: json({ comment: 5 }) });
   add({ label: "acknowledgement of alert NaN", method: "POST", path: "/api/v1/alerts/NaN/acknowledge", body: json({ comment: "ok" }) });
 
+  // Load tests: windows, predicted strains as a list and as CSV; nothing may be stored half.
+  const L = `${S}/MILL-FB/load-tests`;
+  const test = { title: "Probe", load: "Probe truck", start: "2026-01-01T09:00:00Z", end: "2026-01-01T10:00:00Z" };
+  const one = [{ gauge: "LC-M1", predicted: 80 }];
+  for (const window of [{ end: "2026-01-01T09:00:00Z" }, { end: "2026-01-01T08:00:00Z" }, { end: "2026-02-01T09:00:00Z" }, { start: far[0] }, { start: "yesterday" }, { end: 1e308 }])
+    add({ label: `load test window ${json(window)}`, method: "POST", path: L, body: json({ ...test, ...window, predicted: one }) });
+  for (const raw of numbersJson) add({ label: `load test predicted ${raw}`, method: "POST", path: L, body: json({ ...test, predicted: one }).replace('"predicted":80', `"predicted":${raw}`) });
+  for (const predicted of [[], [{ gauge: "NO-SUCH", predicted: 10 }, { gauge: "LC-M1", predicted: 10 }], [...one, ...one], [{ gauge: "<script>", predicted: 1 }], "LC-M1,80", [{ predicted: 0 }]])
+    add({ label: `load test predicted list ${json(predicted).slice(0, 40)}`, method: "POST", path: L, body: json({ ...test, predicted }) });
+  for (const csv of ["gauge,predicted\nNO-SUCH,10\nLC-M1,12\n", "gauge,predicted\nLC-M1,1,5\n", "gauge,predicted\nLC-M1,twelve\n", "gauge,predicted\nLC-M1,0\n", "gauge,predicted\nLC-M1,1e999\n", "gauge,predicted\n", "", '"unclosed,1\n', "gauge;predicted\nLC-M1;12\n"])
+    add({ label: `load test CSV ${json(csv).slice(0, 40)}`, method: "POST", path: L, body: json({ ...test, predictedCsv: csv }) });
+  add({ label: "load test with both tables", method: "POST", path: L, body: json({ ...test, predicted: one, predictedCsv: "LC-M1,80" }) });
+  add({ label: "load test without a title", method: "POST", path: L, body: json({ ...test, title: "", predicted: one }) });
+  add({ label: "load test without a load", method: "POST", path: L, body: json({ ...test, load: null, predicted: one }) });
+  for (const id of ["NaN", "0", "-1", "1.5", "1e308", "%3Cscript%3E", "999999"]) {
+    add({ label: `load test numbered ${id}`, method: "GET", path: `${L}/${id}` });
+    add({ label: `load test CSV numbered ${id}`, method: "GET", path: `${L}/${id}/results.csv` });
+  }
+
   // Names in the path and the query.
   const pathNames = ["%3Cscript%3E", "'%20OR%201%3D1--", "%00", "..%2F..%2Fetc%2Fpasswd", "x".repeat(3000), "MILL-FB%E2%80%AE", "%F0%9F%92%A5", "1e308"];
   for (const name of pathNames) {

@@ -26,6 +26,7 @@ const PURE = [
   "lib/gauges/",
   "lib/files/",
   "lib/thermal/",
+  "lib/load-tests/",
   "lib/units.ts",
   "lib/errors.ts",
   "lib/time-format.ts",

@@ -15,6 +15,7 @@ const EXPECTED: Record<Action, Record<Role, boolean>> = {
   "readings:ingest": { admin: true, engineer: true, technician: true, owner: false },
   "limits:edit": { admin: true, engineer: true, technician: false, owner: false },
   "alert:acknowledge": { admin: true, engineer: true, technician: false, owner: false },
+  "load-test:record": { admin: true, engineer: true, technician: false, owner: false },
   "token:manage": { admin: true, engineer: true, technician: false, owner: false },
   "audit:view": { admin: true, engineer: true, technician: false, owner: false },
   "users:manage": { admin: true, engineer: false, technician: false, owner: false },

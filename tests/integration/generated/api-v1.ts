@@ -547,6 +547,63 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/load-tests": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The structure's diagnostic load tests, newest window first */
+        get: operations["getStructuresByCodeLoadTests"];
+        put?: never;
+        /**
+         * Record a load test: its window, the load, and the predicted peak strain per gauge (as a list or as CSV text). Audited
+         * @description Roles: admin, engineer.
+         *
+         *     Every gauge named must be the structure's: unknown tags are all named in one 400 (`details.unknownGauges`) and nothing is stored. A window holding no data is stored all the same (a logger file often arrives after the test): the answer's `dataState` is `none` and each gauge says `no-data` until readings arrive. Results are worked out when read. Per gauge, the baseline is the last believed reading before the window start (for a dynamic gauge: the mean of the last summary interval ended by then); the measured peak is the largest change from it in the sign of the prediction (tension positive), and the ratio is measured ÷ predicted. Readings with a sensor-health verdict or beyond the gauge's rated range are left out.
+         */
+        post: operations["postStructuresByCodeLoadTests"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/load-tests/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One load test with its results per gauge: baseline, measured peak, predicted, ratio */
+        get: operations["getStructuresByCodeLoadTestsById"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/load-tests/{id}/results.csv": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The results table as CSV, units in the header (strain to 0.1 µε, ratios to 0.01; empty cells where nothing was measured) */
+        get: operations["getStructuresByCodeLoadTestsByIdResultsCsv"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/files/{id}": {
         parameters: {
             query?: never;
@@ -1103,6 +1160,106 @@ export interface components {
                 persistence?: number;
             }[];
         };
+        LoadTestGauge: {
+            gauge: string;
+            label: string | null;
+            member: string | null;
+            /**
+             * @description `readings`: the stored readings in the window; `summaries`: a dynamic gauge's interval summaries overlapping the window (their extremes, converted from stress by ε = (σ − σ₀)/E), so the peak is known to the interval
+             * @enum {string}
+             */
+            source: "readings" | "summaries";
+            /** @description Predicted peak strain, µε */
+            predicted: number;
+            /**
+             * @description The sign of the prediction, in which the peak is sought
+             * @enum {string}
+             */
+            direction: "tension" | "compression";
+            /**
+             * @description `measured`; `no-data`: no believed reading (or summary) in the window; `no-baseline`: nothing before the window to measure from
+             * @enum {string}
+             */
+            state: "measured" | "no-data" | "no-baseline";
+            /** @description The state in words */
+            message: string;
+            /** @description Last reading (or summary mean) before the window start, µε: the value the load is measured from */
+            baseline: {
+                time: string;
+                strain: number;
+            } | null;
+            /** @description Largest change from the baseline in the predicted sign, µε (0 when the gauge never moved that way); null unless measured */
+            measured: number | null;
+            /** @description Where the peak lies: a reading's instant (start = end) or a summary interval */
+            peakAt: {
+                start: string;
+                end: string;
+            } | null;
+            /** @description Largest change against the predicted sign, µε (0 when none) */
+            against: number | null;
+            /** @description measured ÷ predicted; null unless measured */
+            ratio: number | null;
+            /** @description Readings (or summary intervals) in the window that were used */
+            readings: number;
+        };
+        LoadTestInput: {
+            title: string;
+            /** @description What loaded the structure, where and when (e.g. two 32 t trucks side by side at midspan) */
+            load: string;
+            /**
+             * Format: date-time
+             * @description Start of the test window, ISO-8601 with Z or an offset; the baseline is the last value before it
+             */
+            start: string;
+            /**
+             * Format: date-time
+             * @description End of the window, excluded; after start, at most 7 days later
+             */
+            end: string;
+            /** @description Predicted peak strain per gauge; give this or `predictedCsv` */
+            predicted?: components["schemas"]["PredictedStrain"][];
+            /** @description The same table as CSV text: a header naming `gauge` (or `tag`) and `predicted` (a unit in brackets allowed), or two columns without a header */
+            predictedCsv?: string;
+        };
+        LoadTestList: {
+            /** @description Newest window first */
+            loadTests: components["schemas"]["LoadTestSummary"][];
+        };
+        LoadTestResults: {
+            id: number;
+            title: string;
+            /** @description What loaded the structure */
+            load: string;
+            start: string;
+            /** @description End of the window, excluded */
+            end: string;
+            createdAt: string;
+            /** @description Who recorded the test */
+            createdBy: string;
+            structure: string;
+            /**
+             * @description Whether every gauge, some, or none had data to measure in the window
+             * @enum {string}
+             */
+            dataState: "complete" | "partial" | "none";
+            /** @description By gauge tag */
+            gauges: components["schemas"]["LoadTestGauge"][];
+            caution: string;
+        };
+        LoadTestSummary: {
+            id: number;
+            title: string;
+            /** @description What loaded the structure */
+            load: string;
+            start: string;
+            /** @description End of the window, excluded */
+            end: string;
+            /** @description Gauges with a predicted strain */
+            gauges: number;
+            createdAt: string;
+            /** @description Who recorded the test */
+            createdBy: string;
+        };
         PhotoList: {
             photos: components["schemas"]["File"][];
         };
@@ -1116,6 +1273,12 @@ export interface components {
         } | {
             /** @description null takes the gauge off its drawing */
             drawingId: null;
+        };
+        PredictedStrain: {
+            /** @description Gauge tag */
+            gauge: string;
+            /** @description Predicted peak change of stress-producing strain under the load, µε, tension positive; not 0 */
+            predicted: number;
         };
         ReadingsInput: {
             /** @description At most 50 000 readings (and 10 MB) per request; more is a 413. */
@@ -1447,6 +1610,8 @@ export interface components {
                     text: string | null;
                 }[];
             }[];
+            /** @description Load tests whose window overlaps the period, oldest first, with their results */
+            loadTests: components["schemas"]["LoadTestResults"][];
             cautions: string[];
         };
         ZeroInput: {
@@ -3915,6 +4080,232 @@ export interface operations {
                 content: {
                     "application/json": components["schemas"]["StructureReport"];
                     "application/pdf": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeLoadTests: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The load tests */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LoadTestList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeLoadTests: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["LoadTestInput"];
+            };
+        };
+        responses: {
+            /** @description The test with its results as they stand */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LoadTestResults"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeLoadTestsById: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Load test id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The test and its results */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LoadTestResults"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeLoadTestsByIdResultsCsv: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Load test id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The results as text/csv */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "text/csv": string;
                 };
             };
             /** @description Malformed or invalid request */

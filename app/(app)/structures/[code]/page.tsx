@@ -100,6 +100,9 @@ export default async function StructurePage({ params }: Props) {
             <Link href={`/structures/${code}/report`} className={buttonClass("secondary")}>
               Report
             </Link>
+            <Link href={`/structures/${code}/load-tests`} className={buttonClass("secondary")}>
+              Load tests
+            </Link>
             {canIngest && (
               <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
                 Upload logger file
