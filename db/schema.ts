@@ -693,6 +693,8 @@ export const jobLeases = sqliteTable("job_leases", {
   leaseUntil: integer("lease_until", { mode: "timestamp_ms" }).notNull(),
   lastStartedAt: integer("last_started_at", { mode: "timestamp_ms" }),
   lastFinishedAt: integer("last_finished_at", { mode: "timestamp_ms" }),
+  /** The newest scheduled instant a run was started for: each instant runs once across instances. */
+  lastSlot: integer("last_slot", { mode: "timestamp_ms" }),
   /** "ok: …" with the job's own summary, or "error: …". */
   lastOutcome: text("last_outcome"),
 });

@@ -1,7 +1,7 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
 import os from "node:os";
-import { and, eq, lt, or } from "drizzle-orm";
+import { and, eq, isNull, lt, or } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { jobLeases } from "@/db/schema";
 
@@ -22,17 +22,21 @@ const held = new Map<string, { name: string; holder: string; stop: AbortControll
 /**
  * Takes the lease `name` in one statement: a new row, or the existing one when its lease has
  * run out or is already ours. SQLite runs the statement under its write lock, so of two
- * processes racing here exactly one gets the row back.
+ * processes racing here exactly one gets the row back. With a `slot` (the scheduled instant
+ * the run is for), the row is also refused once a run for that instant or a later one started:
+ * two instances whose timers fire a moment apart would otherwise run the job one after the
+ * other, as the first gives the lease back before the second asks.
  */
-async function acquire(name: string, holder: string, ttlMs: number): Promise<boolean> {
+async function acquire(name: string, holder: string, ttlMs: number, slot: Date | null): Promise<boolean> {
   const now = Date.now();
+  const free = or(lt(jobLeases.leaseUntil, new Date(now)), eq(jobLeases.holder, holder));
   const taken = await getDb()
     .insert(jobLeases)
-    .values({ name, holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now) })
+    .values({ name, holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now), lastSlot: slot })
     .onConflictDoUpdate({
       target: jobLeases.name,
-      set: { holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now) },
-      setWhere: or(lt(jobLeases.leaseUntil, new Date(now)), eq(jobLeases.holder, holder)),
+      set: { holder, leaseUntil: new Date(now + ttlMs), lastStartedAt: new Date(now), ...(slot ? { lastSlot: slot } : {}) },
+      setWhere: slot ? and(free, or(isNull(jobLeases.lastSlot), lt(jobLeases.lastSlot, slot))) : free,
     })
     .returning({ name: jobLeases.name });
   return taken.length > 0;
@@ -59,19 +63,22 @@ async function release(name: string, holder: string, outcome: string) {
  * Runs `fn` only if this process holds the database lease `name`, so that of several app
  * instances only one runs a job at a time. The lease is renewed while `fn` runs; if it is lost
  * anyway (the database was unreachable longer than the lease), `signal` aborts and `fn` should
- * stop at its next safe point. Answers `fn`'s summary, or null when another holder has the lease.
+ * stop at its next safe point. A scheduled run names its `slot`, the instant it was scheduled
+ * for, and runs only if no instance has started a run for that instant (or a later one) yet.
+ * Answers `fn`'s summary, or null when another holder has the lease or the slot was run.
  */
 export async function withLease(
   name: string,
   ttlMs: number,
   fn: (signal: AbortSignal) => Promise<string>,
   holder: string = PROCESS_HOLDER,
+  slot: Date | null = null,
 ): Promise<string | null> {
   const run = `${name}\n${holder}`;
   if (running.has(run)) return null;
   running.add(run);
   try {
-    if (!(await acquire(name, holder, ttlMs))) return null;
+    if (!(await acquire(name, holder, ttlMs, slot))) return null;
     const lost = new AbortController();
     held.set(run, { name, holder, stop: lost });
     const timer = setInterval(() => {

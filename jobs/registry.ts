@@ -6,6 +6,7 @@ import { runDailyDigest } from "./daily-digest";
 import { runRollupMaintenance } from "./rollup-maintenance";
 import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
+import { sweepFileStore } from "@/lib/services/files";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -31,6 +32,7 @@ export const JOBS: Job[] = [
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
+  { name: "file-store-sweep", schedule: "0 45 2 * * *", leaseMs: 15 * 60_000, run: () => sweepFileStore() },
   // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.
   { name: "monthly-report", schedule: "0 0 7 1 * *", timezone: "UTC", leaseMs: 30 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
   // Loaded only when enabled: it carries the whole demo scenario.
@@ -50,12 +52,13 @@ export function jobsEnabled(): boolean {
 }
 
 /**
- * One run under the job's lease: its summary, null when another holder has the lease, or the
- * error logged (never thrown into the scheduler) and answered as "error".
+ * One run under the job's lease: its summary, null when another holder has the lease (or, for a
+ * scheduled run, another instance already ran its `slot`), or the error logged (never thrown
+ * into the scheduler) and answered as "error".
  */
-export async function runJob(job: Job): Promise<string | null> {
+export async function runJob(job: Job, slot: Date | null = null): Promise<string | null> {
   try {
-    return await withLease(job.name, job.leaseMs, job.run);
+    return await withLease(job.name, job.leaseMs, job.run, PROCESS_HOLDER, slot);
   } catch (error) {
     console.error(`Job "${job.name}" failed:`, error);
     return "error";
@@ -71,7 +74,8 @@ export function startJobs(): boolean {
   releaseLeasesOnStop();
   for (const job of JOBS) {
     // createTask, then start: node-cron 4's schedule() starts at once and ignores v3's `scheduled: false`.
-    const task = createTask(job.schedule, () => runJob(job), { name: job.name, noOverlap: true, timezone: job.timezone });
+    // node-cron's context.date is the scheduled instant, the same on every instance whose clock agrees to within the schedule's period.
+    const task = createTask(job.schedule, (context) => runJob(job, context.date), { name: job.name, noOverlap: true, timezone: job.timezone });
     void task.start();
   }
   return true;

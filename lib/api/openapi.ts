@@ -350,7 +350,9 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       response: { status: 200, schema: gaugeFatigueSchema, description: "The fatigue figures of the period" },
       alternative: {
         contentType: "text/csv",
-        description: "With format=csv or Accept: text/csv: the rainflow matrix, rows by range bin upper edge (MPa), columns by mean bin centre (MPa), cycles in the cells",
+        description:
+          "With format=csv or Accept: text/csv: the rainflow matrix, rows by range bin upper edge (MPa), columns by mean bin centre (MPa; a cycle's mean is that of its two extremes), " +
+          "cycles in the cells. A dynamic gauge's mean bins are its range bin width; cycles of intervals stored before means were kept are in a last column, \"mean not recorded\"",
       },
       errors: [400, 401, 404],
     },

@@ -6,17 +6,20 @@
  *   const { events, state } = captureEvents(stress, start, trigger, storedCaptureState);
  *   stored = mergeSummaries(stored, block.intervals[i]);                   // late bursts too
  */
-export { emptySummary, mergeSummaries, rmsOf, type IntervalSummary } from "./interval-summary";
+export { countCycle, emptySummary, mergeSummaries, rmsOf, type IntervalSummary } from "./interval-summary";
 export { SUMMARY_MINUTES, sampleTime, summarizeBlock, type BlockSummary, type SummaryConfig } from "./summarize-block";
 export {
+  addCycle,
   addRange,
   decodeHistogram,
   emptyHistogram,
   encodeHistogram,
+  histogramCells,
   histogramCycles,
   largestBinnedRange,
   mergeHistograms,
   occupiedBins,
+  rebinHistogram,
   type RangeHistogram,
 } from "./range-histogram";
 export {

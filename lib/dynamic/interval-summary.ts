@@ -1,4 +1,4 @@
-import { emptyHistogram, mergeHistograms, type RangeHistogram } from "./range-histogram";
+import { addCycle, emptyHistogram, mergeHistograms, type RangeHistogram } from "./range-histogram";
 
 /**
  * What is kept of one gauge's samples over one summary interval (stress in MPa). The spread is
@@ -23,6 +23,13 @@ export interface IntervalSummary {
 
 export function emptySummary(start: number, binWidth: number): IntervalSummary {
   return { start, samples: 0, min: Infinity, max: -Infinity, mean: 0, m2: 0, maxRange: 0, cycles: 0, histogram: emptyHistogram(binWidth) };
+}
+
+/** A rainflow cycle (or half cycle) between two extremes, closed in this interval. */
+export function countCycle(summary: IntervalSummary, from: number, to: number, count: number): void {
+  const range = addCycle(summary.histogram, from, to, count);
+  summary.cycles += count;
+  if (range > summary.maxRange) summary.maxRange = range;
 }
 
 /** RMS about the interval's mean, MPa. */

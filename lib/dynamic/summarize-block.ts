@@ -1,6 +1,5 @@
 import { createRainflowStream, type RainflowResidue } from "@/lib/fatigue";
-import { emptySummary, type IntervalSummary } from "./interval-summary";
-import { addRange } from "./range-histogram";
+import { countCycle, emptySummary, type IntervalSummary } from "./interval-summary";
 
 /** Interval lengths that divide the hour, so every interval starts on a whole hour's grid. */
 export const SUMMARY_MINUTES = [1, 2, 3, 4, 5, 6, 10, 12, 15, 20, 30, 60] as const;
@@ -48,12 +47,7 @@ export function summarizeBlock(stress: ArrayLike<number>, start: number, config:
   const intervalMs = config.summaryMinutes * MINUTE_MS;
   const intervals: IntervalSummary[] = [];
   let current = emptySummary(0, rangeBin);
-  const rainflow = createRainflowStream((from, to, count) => {
-    const range = Math.abs(to - from);
-    addRange(current.histogram, range, count);
-    current.cycles += count;
-    if (range > current.maxRange) current.maxRange = range;
-  }, resume);
+  const rainflow = createRainflowStream((from, to, count) => countCycle(current, from, to, count), resume);
 
   let minIndex = -1;
   let maxIndex = -1;

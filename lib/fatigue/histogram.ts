@@ -13,6 +13,11 @@ export interface RainflowMatrix {
   meanCentres: number[];
   /** counts[row][column], cycles with half cycles as 0.5. */
   counts: number[][];
+  /**
+   * Per row, the cycles counted without their mean (histograms stored before means were kept);
+   * absent when every cycle's mean is known.
+   */
+  meanNotRecorded?: number[];
 }
 
 // Differences of sampled values carry rounding noise; without this slack a range meant to sit on
@@ -36,7 +41,7 @@ export function rangeBinIndex(range: number, width: number): number {
  * Mean bins are centred on multiples of the width, so a mean of zero sits mid-bin; a mean on a
  * boundary goes to the bin above. Adding 0 turns −0 into 0, which would otherwise label a column.
  */
-function meanBinIndex(mean: number, width: number): number {
+export function meanBinIndex(mean: number, width: number): number {
   return Math.round(mean / width) + 0;
 }
 
@@ -94,22 +99,33 @@ function indexSpan(indices: readonly number[]): number[] {
 
 /**
  * Range × mean matrix for export. The grid is dense between the occupied extremes, so a narrow
- * width over a wide spread makes a large matrix: the caller picks widths to suit.
+ * width over a wide spread makes a large matrix: the caller picks widths to suit. Cycles whose
+ * mean was never recorded (`withoutMean`, by range bin) get a column of their own rather than a
+ * mean they did not have.
  */
-export function rainflowMatrix(cycles: readonly Cycle[], rangeBinWidth: number, meanBinWidth: number): RainflowMatrix {
+export function rainflowMatrix(cycles: readonly Cycle[], rangeBinWidth: number, meanBinWidth: number, withoutMean: readonly RangeBin[] = []): RainflowMatrix {
   checkWidth(rangeBinWidth);
   checkWidth(meanBinWidth);
   const rangeBins = cycles.map(({ range }) => rangeBinIndex(range, rangeBinWidth));
   const meanBins = cycles.map(({ mean }) => meanBinIndex(mean, meanBinWidth));
-  const rows = indexSpan(rangeBins);
+  const unknownBins = withoutMean.map(({ range }) => rangeBinIndex(range, rangeBinWidth));
+  const rows = indexSpan([...rangeBins, ...unknownBins]);
   const columns = indexSpan(meanBins);
   const counts = rows.map(() => columns.map(() => 0));
   cycles.forEach(({ count }, i) => {
     counts[rangeBins[i]! - rows[0]!]![meanBins[i]! - columns[0]!]! += count;
   });
-  return {
+  const matrix: RainflowMatrix = {
     rangeUpperEdges: rows.map((bin) => bin * rangeBinWidth),
     meanCentres: columns.map((bin) => bin * meanBinWidth),
     counts,
   };
+  if (withoutMean.length > 0) {
+    const unknown = rows.map(() => 0);
+    withoutMean.forEach(({ count }, i) => {
+      unknown[unknownBins[i]! - rows[0]!]! += count;
+    });
+    matrix.meanNotRecorded = unknown;
+  }
+  return matrix;
 }

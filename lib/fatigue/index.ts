@@ -20,7 +20,7 @@ export {
   type RainflowStream,
 } from "./rainflow";
 export { createFatigueHistory, type FatigueHistory, type HistoryCoverage } from "./history";
-export { binRanges, mergeIntoCells, rainflowMatrix, rangeBinIndex, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
+export { binRanges, meanBinIndex, mergeIntoCells, rainflowMatrix, rangeBinIndex, totalCycleCount, type RainflowMatrix, type RangeBin } from "./histogram";
 export {
   DETAIL_CATEGORIES,
   DETAIL_CATEGORY_VALUES,
@@ -32,5 +32,5 @@ export {
 export { SECONDS_PER_YEAR, damageRatePerYear, equivalentRange, minerDamage, yearsToReachDamage } from "./damage";
 export { fatigueSummary, type FatigueSummary } from "./summary";
 export { createFatigueTally, type FatigueTally } from "./tally";
-export { rainflowMatrixCsv } from "./matrix-csv";
+export { MEAN_NOT_RECORDED, rainflowMatrixCsv } from "./matrix-csv";
 export { formatScientific } from "./format";

@@ -11,8 +11,8 @@ import {
   readFloat32LE,
   summarizeBlock,
   writeFloat32LE,
-  addRange,
-  emptyHistogram,
+  countCycle,
+  rebinHistogram,
   type CaptureState,
   type CapturedEvent,
   type IntervalSummary,
@@ -319,12 +319,7 @@ async function saveState(tx: WriteTx, gaugeId: number, state: StoredState) {
 
 /** The block's residue closed as half cycles into its last interval, for a burst that no later burst will continue. */
 function closeResidue(residue: RainflowResidue, interval: IntervalSummary) {
-  createRainflowStream((from, to, count) => {
-    const range = Math.abs(to - from);
-    addRange(interval.histogram, range, count);
-    interval.cycles += count;
-    interval.maxRange = Math.max(interval.maxRange, range);
-  }, residue).finish();
+  createRainflowStream((from, to, count) => countCycle(interval, from, to, count), residue).finish();
 }
 
 /** One gauge's kept bursts worked through: what the transaction writes for them. */
@@ -443,14 +438,6 @@ function summaryOfRow(row: typeof burstSummaries.$inferSelect): IntervalSummary 
   };
 }
 
-/** Ranges of a histogram in other bins, moved to `binWidth` by their upper edge (so damage still errs on the safe side). */
-function rebinned(summary: IntervalSummary, binWidth: number): IntervalSummary {
-  if (summary.histogram.binWidth === binWidth) return summary;
-  const histogram = emptyHistogram(binWidth);
-  summary.histogram.counts.forEach((count, i) => count > 0 && addRange(histogram, (i + 1) * summary.histogram.binWidth, count));
-  return { ...summary, histogram };
-}
-
 /** Adds the request's intervals to those stored (late bursts land in intervals already there). */
 async function mergeStoredSummaries(tx: WriteTx, gaugeId: number, sampling: DynamicSampling, intervals: Map<number, IntervalSummary>) {
   const starts = [...intervals.keys()];
@@ -459,7 +446,8 @@ async function mergeStoredSummaries(tx: WriteTx, gaugeId: number, sampling: Dyna
   const lengths = new Map(stored.map((row) => [row.start, row.length]));
   for (const row of stored) {
     const fresh = intervals.get(row.start)!;
-    intervals.set(row.start, mergeSummaries(summaryOfRow(row), rebinned(fresh, decodeHistogram(row.histogram).binWidth)));
+    const earlier = summaryOfRow(row);
+    intervals.set(row.start, mergeSummaries(earlier, { ...fresh, histogram: rebinHistogram(fresh.histogram, earlier.histogram.binWidth) }));
   }
   const rows = [...intervals.values()].map((s) => ({
     gaugeId,

@@ -18,7 +18,7 @@ import {
   yearsToReachDamage,
   type RainflowMatrix,
 } from "@/lib/fatigue";
-import { mergeHistograms, occupiedBins } from "@/lib/dynamic";
+import { histogramCells, mergeHistograms, occupiedBins, type RangeHistogram } from "@/lib/dynamic";
 import { dailyHistograms } from "./dynamic-data";
 import { Flag, isOutOfRange } from "@/lib/mechanics";
 import { resolveGauge } from "./gauges";
@@ -166,11 +166,17 @@ async function readingFatigue(gauge: Gauge, category: number, query: { from: Dat
   };
 }
 
+function burstMatrix(total: RangeHistogram | null, binWidth: number): RainflowMatrix {
+  const { cells, withoutMean } = total ? histogramCells(total) : { cells: [], withoutMean: [] };
+  return rainflowMatrix(cells, binWidth, binWidth, withoutMean);
+}
+
 /**
  * The dynamic path: the rainflow histograms stored from the gauge's bursts over the period,
  * summed. Ranges are the bins' upper edges, so damage errs on the safe side of the binning;
  * the half cycles still open in the newest burst's residue are not in any histogram yet.
- * Means are not kept per cycle, so the matrix has a single mean column at 0. Bursts are the
+ * The matrix's mean bins are the histograms' own (the gauge's range bin width); cycles of
+ * intervals stored before means were kept go to its "mean not recorded" column. Bursts are the
  * covered time: the rate divides by the seconds of samples, not the span between them.
  */
 async function burstFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
@@ -212,6 +218,6 @@ async function burstFatigue(gauge: Gauge, category: number, query: { from: Date;
       damageRatePerYear: rate,
       yearsToDamageOne: years !== null && Number.isFinite(years) ? years : null,
     },
-    matrix: rainflowMatrix(cycles.map((bin) => ({ ...bin, mean: 0 })), binWidth, FATIGUE_MEAN_BIN_MPA),
+    matrix: burstMatrix(total, binWidth),
   };
 }

@@ -7,7 +7,7 @@ import { may, requirePermission } from "@/lib/auth/authorize";
 import { parseWith } from "@/lib/validation";
 import { AppError } from "@/lib/errors";
 import { drawingFields, photoFields, type PlacementInput } from "@/lib/files/schema";
-import { deleteFile, readFile, saveFile } from "@/lib/storage/file-store";
+import { deleteFile, readFile, saveFile, sweepStore } from "@/lib/storage/file-store";
 import type { ImageInfo } from "@/lib/storage/image-type";
 import { checkUpload } from "@/lib/storage/upload-rules";
 import { recordAudit } from "./audit";
@@ -221,4 +221,18 @@ export async function placeGauge(actor: Actor, code: string, tag: string, input:
     await writePlacement(tx, actor, structure, gauge, after);
   });
   return getGauge(actor, code, tag);
+}
+
+/** Far longer than any upload takes between storing its bytes and committing its row. */
+export const FILE_SWEEP_GRACE_MS = 10 * 60_000;
+
+/**
+ * Makes the file store agree with the files table again: bytes that no row refers to (a process
+ * killed between storing an upload and committing its row, or between deleting a row and its
+ * bytes) and parts of interrupted writes go, once older than the grace. A system task, no actor.
+ */
+export async function sweepFileStore(now = Date.now()): Promise<string> {
+  const rows = await getDb().select({ storageKey: files.storageKey }).from(files);
+  const removed = await sweepStore(new Set(rows.map((row) => row.storageKey)), now - FILE_SWEEP_GRACE_MS);
+  return `${rows.length} stored files referenced, ${removed.length} leftovers removed`;
 }

@@ -28,12 +28,57 @@ function pathOf(key: string): string {
   return path.join(/*turbopackIgnore: true*/ storageFolder(), key);
 }
 
+/** Where bytes are written before they are whole: a process killed mid-write leaves its part here, never under a key. */
+const INCOMING = ".incoming";
+
+/**
+ * Writes the bytes under a new key: first to the incoming folder, flushed to disk, then renamed
+ * into place (one step on one file system), so a key names whole bytes or nothing.
+ */
 export async function saveFile(bytes: Uint8Array, contentType: ImageType): Promise<string> {
   const key = `${randomBytes(16).toString("hex")}.${IMAGE_TYPES[contentType].extension}`;
-  await fs.promises.mkdir(storageFolder(), { recursive: true });
+  const incoming = path.join(/*turbopackIgnore: true*/ storageFolder(), INCOMING, key);
+  await fs.promises.mkdir(path.dirname(incoming), { recursive: true });
   // "wx" never overwrites: a clash of 128 random bits would fail loudly rather than lose a file.
-  await fs.promises.writeFile(pathOf(key), bytes, { flag: "wx" });
+  const handle = await fs.promises.open(incoming, "wx");
+  try {
+    await handle.writeFile(bytes);
+    await handle.sync();
+  } finally {
+    await handle.close();
+  }
+  await fs.promises.rename(incoming, pathOf(key));
   return key;
+}
+
+/**
+ * Removes what no stored row refers to and no upload still needs: files under a key that is not
+ * in `referenced`, and parts left in the incoming folder, last changed before `cutoff` (epoch ms).
+ * An upload's bytes are stored before its row commits, so the cutoff must lie further back than
+ * any upload takes. Answers the names removed.
+ */
+export async function sweepStore(referenced: ReadonlySet<string>, cutoff: number): Promise<string[]> {
+  const folder = storageFolder();
+  const removed: string[] = [];
+  const sweep = async (directory: string, isLeftover: (name: string) => boolean) => {
+    let names: string[];
+    try {
+      names = await fs.promises.readdir(directory);
+    } catch {
+      return; // no folder yet: nothing was ever stored
+    }
+    for (const name of names) {
+      if (!isLeftover(name)) continue;
+      const file = path.join(/*turbopackIgnore: true*/ directory, name);
+      const stat = await fs.promises.stat(file).catch(() => null);
+      if (!stat?.isFile() || stat.mtimeMs >= cutoff) continue;
+      await fs.promises.rm(file, { force: true });
+      removed.push(directory === folder ? name : `${INCOMING}/${name}`);
+    }
+  };
+  await sweep(folder, (name) => isStorageKey(name) && !referenced.has(name));
+  await sweep(path.join(/*turbopackIgnore: true*/ folder, INCOMING), () => true);
+  return removed;
 }
 
 /** The stored bytes as a web stream, or null when they are missing. */

@@ -135,3 +135,47 @@ describe("alerts in the app", () => {
     await saveScreenshot(admin, "admin-mail");
   });
 });
+
+describe("the gauge page's alert table", () => {
+  type ApiAlert = { gauge: string; kind: string; quantity?: string; peak: number | null; bound: number | null };
+
+  it("shows peaks and bounds in the person's units: ksi after switching, MPa again after switching back, on a desktop and a phone", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    await new SignInPage(page).signInAs("technician");
+    const response = await page.request.get("/api/v1/structures/MILL-FB/alerts?state=all");
+    expect(response.status()).toBe(200);
+    const stressAlerts = ((await response.json()) as { alerts: ApiAlert[] }).alerts.filter((a) => a.gauge === "LC-Q1" && a.kind === "limit" && a.quantity === "stress");
+    expect(stressAlerts.length).toBeGreaterThan(0);
+    const rows = () => page.getByRole("table", { name: "Alerts" }).getByTestId("alert-row");
+    const units = page.getByLabel("Units", { exact: true });
+    try {
+      await page.goto("/structures/MILL-FB/gauges/LC-Q1");
+      await rows().first().waitFor();
+      const text = (value: number, unit: string, decimals: number) => `${value.toFixed(decimals)} ${unit}`;
+      for (const alert of stressAlerts) await rows().filter({ hasText: `stress reached ${text(alert.peak!, "MPa", 1)} (bound ${text(alert.bound!, "MPa", 1)})` }).first().waitFor();
+
+      await units.selectOption("us");
+      // 1 ksi = 6.894757 MPa (NIST SP 811, Appendix B); stresses in ksi are written to two decimals.
+      const ksi = (mpa: number) => text(mpa / 6.894757, "ksi", 2);
+      for (const alert of stressAlerts) await rows().filter({ hasText: `stress reached ${ksi(alert.peak!)} (bound ${ksi(alert.bound!)})` }).first().waitFor();
+      await expect(rows().filter({ hasText: "MPa" }).count()).resolves.toBe(0);
+      await saveScreenshot(page, "gauge-alerts-us-units");
+
+      const phone = await (await newContext(browser, PHONE)).newPage();
+      await new SignInPage(phone).signInAs("technician");
+      await phone.goto("/structures/MILL-FB/gauges/LC-Q1");
+      const phoneRows = phone.getByRole("table", { name: "Alerts" }).getByTestId("alert-row");
+      await phoneRows.filter({ hasText: `(bound ${ksi(stressAlerts[0]!.bound!)})` }).first().waitFor();
+      await expect(phoneRows.filter({ hasText: "MPa" }).count()).resolves.toBe(0);
+      await saveScreenshot(phone, "gauge-alerts-us-units-phone");
+
+      await units.selectOption("si");
+      await rows().filter({ hasText: `(bound ${text(stressAlerts[0]!.bound!, "MPa", 1)})` }).first().waitFor();
+      await expect(rows().filter({ hasText: "ksi" }).count()).resolves.toBe(0);
+    } finally {
+      // Units are the person's preference, kept on the server: leave them as the seed had them.
+      if ((await units.inputValue()) !== "si") await units.selectOption("si");
+    }
+  });
+});

@@ -1,3 +1,4 @@
+import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as burstsRoute from "@/app/api/v1/structures/[code]/bursts/route";
 import * as summariesRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/summaries/route";
@@ -10,7 +11,7 @@ import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatig
 import { GET as openapi } from "@/app/api/v1/openapi.json/route";
 import { getClient, getDb } from "@/db/client";
 import { eq } from "drizzle-orm";
-import { alerts, auditLog, gauges, mailOutbox } from "@/db/schema";
+import { alerts, auditLog, burstSummaries, gauges, mailOutbox } from "@/db/schema";
 import { createGauge } from "@/lib/services/gauges";
 import type { UserActor } from "@/lib/auth/actor";
 import { microstrainGauge } from "../fixtures/gauges";
@@ -31,7 +32,7 @@ beforeAll(async () => {
   const owner = await makeUser("owner");
   await makeStructure("BR", [engineer, owner]);
   await makeStructure("OTHER", [engineer]);
-  for (const tag of ["D1", "D2", "D3", "D4", "D5", "D6", "D7", "D8"]) {
+  for (const tag of ["D1", "D2", "D3", "D4", "D5", "D6", "D7", "D8", "D9", "D10"]) {
     await createGauge(engineer, "BR", { ...microstrainGauge(tag), material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 }, sampling: dynamic });
   }
   await createGauge(engineer, "BR", microstrainGauge("S1"));
@@ -361,6 +362,64 @@ describe("fatigue from the stored histograms", () => {
     expect(result.damagePerDay.map((d: { day: string }) => d.day)).toEqual([day(START), day(START + DAY)]);
     expect(result.damagePerDay[0].damage).toBeCloseTo(59 / endurance, 12);
     expect(result.damagePerDay[1].damage).toBeCloseTo(60 / endurance, 12);
+  });
+
+  async function rainflowCsv(tag: string, from: number, to: number): Promise<string[][]> {
+    const response = await fatigueRoute.GET(
+      apiRequest(`/structures/BR/gauges/${tag}/fatigue?from=${iso(from)}&to=${iso(to)}&category=71&format=csv`, { token: tokens.owner }),
+      params({ code: "BR", tag }),
+    );
+    expect(response.status).toBe(200);
+    expect(response.headers.get("content-type")).toBe("text/csv; charset=utf-8");
+    return parse(await response.text(), { record_delimiter: "\r\n" }) as string[][];
+  }
+
+  it("exports counts per range bin and mean bin as CSV, each cycle's mean that of its two extremes", async () => {
+    // Two bursts a day apart, each a 1 Hz swing of ±250 µε: ±50 MPa (Hooke's law, σ = E·ε), first about
+    // 1 MPa (5 µε), then about 21 MPa (105 µε). ASTM E1049-85: a cycle's mean is (peak + valley) / 2.
+    await postBinary({ gauge: "D9", start: iso(START), rateHz: RATE }, floats(signal(60, swing)));
+    await postBinary({ gauge: "D9", start: iso(START + DAY), rateHz: RATE }, floats(signal(60, (t) => swing(t) + 100)));
+    const [header, ...rows] = await rainflowCsv("D9", START, START + 2 * DAY);
+    expect(header![0]).toBe("range bin upper edge (MPa) \\ mean bin centre (MPa)");
+    const means = header!.slice(1).map(Number);
+    const cell = (range: number, mean: number) => Number(rows.find((cells) => Number(cells[0]) === range)![1 + means.indexOf(mean)]);
+    // ASTM E1049-85 5.4.4 by hand: the first burst closes 118 half cycles of 100 MPa about 1 MPa and
+    // leaves its last crest (51) and trough (−49) in the residue. The second goes on rising to its
+    // first crest, 71 MPa: that range of 120 exceeds the 100 before it, which closes as a half cycle
+    // about 1 MPa (step 5), while −49 → 71 waits as the new start. Each later trough and crest, −29
+    // and 71, closes a full cycle of 100 MPa about 21 MPa (step 4): 59, the last trough waiting.
+    expect(cell(100, 1)).toBe(59.5);
+    expect(cell(100, 21)).toBe(59);
+    expect(rows.at(-1)![0]).toBe("100");
+    expect(header).not.toContain("mean not recorded");
+    // Every cycle of the JSON answer is in the matrix once.
+    const total = rows.flatMap((cells) => cells.slice(1).map(Number)).reduce((a, b) => a + b, 0);
+    expect(total).toBe((await fatigue("D9", START, START + 2 * DAY)).cyclesCounted);
+  });
+
+  it("says mean not recorded for the cycles of intervals stored before means were kept, and keeps them when a burst lands there", async () => {
+    // An interval as an earlier release stored it (histogram format 1, written out by hand): bin
+    // width 1 MPa as a little-endian float64, then bin 40 (LEB128 gap 40) holding 7 cycles (14 halves).
+    const old = Buffer.alloc(10);
+    old.writeDoubleLE(1, 0);
+    old.set([40, 14], 8);
+    const [gauge] = await getDb().select({ id: gauges.id }).from(gauges).where(eq(gauges.tag, "D10"));
+    await getDb().insert(burstSummaries).values({ gaugeId: gauge!.id, start: START, length: 600_000, samples: 3_000, min: -20, max: 20, mean: 0, m2: 1, maxRange: 40, cycles: 7, histogram: old });
+    expect(await rainflowCsv("D10", START, START + DAY)).toEqual([
+      ["range bin upper edge (MPa) \\ mean bin centre (MPa)", "mean not recorded"],
+      ["40", "7"],
+    ]);
+    // A burst in the same interval: its cycles come with their means, the old ones stay unrecorded.
+    await postBinary({ gauge: "D10", start: iso(START + 60_000), rateHz: RATE }, floats(signal(60, swing)));
+    const [header, ...rows] = await rainflowCsv("D10", START, START + DAY);
+    expect(header).toEqual(["range bin upper edge (MPa) \\ mean bin centre (MPa)", "1", "mean not recorded"]);
+    expect(rows[0]).toEqual(["40", "0", "7"]);
+    expect(rows.at(-1)).toEqual(["100", "59", "0"]);
+    expect(rows).toHaveLength(61);
+    expect((await fatigue("D10", START, START + DAY)).cycles).toEqual([
+      { range: 40, count: 7 },
+      { range: 100, count: 59 },
+    ]);
   });
 
   it("keeps the readings path for a static gauge, saying so", async () => {

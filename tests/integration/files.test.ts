@@ -13,7 +13,7 @@ import type { UserActor } from "@/lib/auth/actor";
 import { parseWith } from "@/lib/validation";
 import { gaugeInput } from "@/lib/gauges/schema";
 import { createGauge, gaugeAuditTrail, getGauge } from "@/lib/services/gauges";
-import { uploadDrawing } from "@/lib/services/files";
+import { sweepFileStore, uploadDrawing } from "@/lib/services/files";
 import { UPLOAD_LIMIT_BYTES } from "@/lib/storage/upload-rules";
 import { SVG_DRAWING, TEXT_FILE, jpegImage, pngImage } from "../fixtures/images";
 import { foilGaugeBody } from "../fixtures/gauges";
@@ -22,7 +22,8 @@ import { apiRequest, makeStructure, makeTeam, params } from "./helpers";
 const storage = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-files-"));
 process.env.FILE_STORAGE_DIR = storage;
 afterAll(() => fs.rmSync(storage, { recursive: true, force: true }));
-const storedFiles = () => fs.readdirSync(storage);
+/** The files stored under keys; bytes are written in the incoming folder first and renamed when whole. */
+const storedFiles = () => fs.readdirSync(storage).filter((name) => name !== ".incoming");
 
 let tokens: Record<"engineer" | "technician" | "owner", string>;
 let engineer: UserActor;
@@ -94,6 +95,8 @@ describe("uploading", () => {
     const rows = await getDb().select({ key: files.storageKey }).from(files);
     expect(rows.map((r) => r.key).sort()).toEqual(storedFiles().sort());
     for (const { key } of rows) expect(key).toMatch(/^[0-9a-f]{32}\.(png|jpg)$/);
+    // Every upload's bytes were renamed into place whole: nothing waits in the incoming folder.
+    expect(fs.readdirSync(path.join(storage, ".incoming"))).toEqual([]);
   });
 
   it.each([
@@ -169,6 +172,38 @@ describe("nothing half-saved", () => {
       fs.rmSync(blocker);
     }
     expect(await getDb().select({ id: files.id }).from(files)).toHaveLength(rowsBefore);
+  });
+});
+
+describe("what an interrupted upload leaves", () => {
+  it("is swept once older than any upload takes; stored files, young leftovers and files not of the store's shape stay", async () => {
+    const kept = await uploadDrawing(engineer, "BR", { bytes: png.bytes, fields: { title: "Kept plan" } });
+    const [row] = await getDb().select({ storageKey: files.storageKey }).from(files).where(eq(files.id, kept.id));
+    const now = Date.now();
+    const plant = (name: string, ageMs: number) => {
+      const file = path.join(storage, name);
+      fs.mkdirSync(path.dirname(file), { recursive: true });
+      fs.writeFileSync(file, "left behind");
+      fs.utimesSync(file, new Date(now - ageMs), new Date(now - ageMs));
+    };
+    // As a process killed between storing the bytes and committing the row leaves them, an hour ago and just now.
+    plant(`${"a".repeat(32)}.png`, 60 * 60_000);
+    plant(`${"b".repeat(32)}.jpg`, 1_000);
+    // Half an upload's bytes in the incoming folder, an hour ago; and something the store never wrote.
+    plant(`.incoming/${"c".repeat(32)}.webp`, 60 * 60_000);
+    plant("README.txt", 60 * 60_000);
+    fs.utimesSync(path.join(storage, row!.storageKey), new Date(now - 60 * 60_000), new Date(now - 60 * 60_000));
+
+    expect(await sweepFileStore(now)).toMatch(/, 2 leftovers removed$/);
+    const left = storedFiles();
+    expect(left).toContain(row!.storageKey);
+    expect(left).toContain(`${"b".repeat(32)}.jpg`);
+    expect(left).toContain("README.txt");
+    expect(left).not.toContain(`${"a".repeat(32)}.png`);
+    expect(fs.readdirSync(path.join(storage, ".incoming"))).toEqual([]);
+    expect(await (await getFile(tokens.engineer, kept.id)).arrayBuffer()).toEqual(Buffer.from(png.bytes).buffer.slice(0));
+    fs.rmSync(path.join(storage, `${"b".repeat(32)}.jpg`));
+    fs.rmSync(path.join(storage, "README.txt"));
   });
 });
 

@@ -5,29 +5,18 @@ import { createClient } from "@libsql/client";
 import { drizzle } from "drizzle-orm/libsql";
 import { migrate } from "drizzle-orm/libsql/migrator";
 import { afterAll, describe, expect, it } from "vitest";
+import { migrationsBefore } from "./migration-sql";
 
 // Migrations as a database made before dynamic channels had them: every one up to the one that adds
 // `sampling`, then that one on top of stored gauges.
 const folder = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-migration-"));
 afterAll(() => fs.rmSync(folder, { recursive: true, force: true }));
 
-function migrationsBefore(tag: string): string {
-  const source = path.join(process.cwd(), "drizzle");
-  const target = path.join(folder, "before");
-  fs.cpSync(source, target, { recursive: true });
-  const journalFile = path.join(target, "meta", "_journal.json");
-  const journal = JSON.parse(fs.readFileSync(journalFile, "utf8"));
-  const cut = journal.entries.findIndex((entry: { tag: string }) => entry.tag === tag);
-  journal.entries = journal.entries.slice(0, cut);
-  fs.writeFileSync(journalFile, JSON.stringify(journal));
-  return target;
-}
-
 describe("migration 0010_dynamic_channels", () => {
   it("makes every stored gauge static and keeps its readings", async () => {
     const client = createClient({ url: `file:${path.join(folder, "old.db")}` });
     const db = drizzle(client);
-    await migrate(db, { migrationsFolder: migrationsBefore("0010_dynamic_channels") });
+    await migrate(db, { migrationsFolder: migrationsBefore("_dynamic_channels", folder) });
     await client.execute("INSERT INTO structures (code, name) VALUES ('OLD', 'Old structure')");
     await client.execute(
       `INSERT INTO gauges (structure_id, tag, kind, input, gauge_factor, thermal, material, zero_value, zero_time)

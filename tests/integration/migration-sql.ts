@@ -17,3 +17,20 @@ export async function rerunMigration(name: string): Promise<void> {
     if (sql) await getClient().execute(sql);
   }
 }
+
+/**
+ * A copy of the committed migrations in `folder` with the journal cut before the migration whose
+ * tag ends with `name` (whatever number a merge gives it): migrating with it makes a database as
+ * it stood before that migration, for a test to store rows in and then migrate the rest of the way.
+ */
+export function migrationsBefore(name: string, folder: string): string {
+  const target = path.join(folder, "before");
+  fs.cpSync(path.join(process.cwd(), "drizzle"), target, { recursive: true });
+  const journalPath = path.join(target, "meta", "_journal.json");
+  const journal = JSON.parse(fs.readFileSync(journalPath, "utf8")) as { entries: { tag: string }[] };
+  const index = journal.entries.findIndex((entry) => entry.tag.endsWith(name));
+  if (index < 1) throw new Error(`no migration after the first named ${name}`);
+  journal.entries = journal.entries.slice(0, index);
+  fs.writeFileSync(journalPath, JSON.stringify(journal));
+  return target;
+}

@@ -6,6 +6,7 @@ import { drizzle } from "drizzle-orm/libsql";
 import { migrate } from "drizzle-orm/libsql/migrator";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { rollupMismatches } from "./readings-fixtures";
+import { migrationsBefore } from "./migration-sql";
 
 /**
  * The repair migration on a database that already holds what ingestion used to store: the
@@ -20,24 +21,11 @@ let client: Client;
 const H = 3_600_000;
 const T0 = Date.UTC(2026, 2, 1, 12);
 
-function migrationsBefore(tag: string): string {
-  const source = path.join(process.cwd(), "drizzle");
-  const target = path.join(folder, "before");
-  fs.cpSync(source, target, { recursive: true });
-  const journalPath = path.join(target, "meta", "_journal.json");
-  const journal = JSON.parse(fs.readFileSync(journalPath, "utf8"));
-  const index = journal.entries.findIndex((entry: { tag: string }) => entry.tag.endsWith(tag));
-  expect(index).toBeGreaterThan(0);
-  journal.entries = journal.entries.slice(0, index);
-  fs.writeFileSync(journalPath, JSON.stringify(journal));
-  return target;
-}
-
 const rows = async (sql: string) => (await client.execute(sql)).rows.map((row) => ({ ...row }));
 
 beforeAll(async () => {
   client = createClient({ url: `file:${path.join(folder, "old.db")}` });
-  await migrate(drizzle(client), { migrationsFolder: migrationsBefore(REPAIR) });
+  await migrate(drizzle(client), { migrationsFolder: migrationsBefore(REPAIR, folder) });
   await client.batch([
     "INSERT INTO structures (id, code, name) VALUES (1, 'PV', 'Poisoned')",
     `INSERT INTO gauges (id, structure_id, tag, kind, input, gauge_factor, thermal, material, zero_value, zero_time)

@@ -83,6 +83,15 @@ describe("rainflow matrix as CSV", () => {
     );
   });
 
+  it("gives cycles stored without their mean a column of their own, spanning their range bins too", () => {
+    // The example's cycles with means (histogram.test.ts), plus 2 cycles of range 22 whose mean was never recorded.
+    const matrix = rainflowMatrix(rainflow(ASTM_EXAMPLE), 5, 1, [{ range: 22, count: 2 }]);
+    expect(rainflowMatrixCsv(matrix)).toBe(
+      "range bin upper edge (MPa) \\ mean bin centre (MPa),-1,0,1,mean not recorded\r\n" +
+        "5,0.5,0.5,1,0\r\n10,0,0.5,1.5,0\r\n15,0,0,0,0\r\n20,0,0,0,0\r\n25,0,0,0,2\r\n",
+    );
+  });
+
   it("strips binary rounding noise from the labels", () => {
     // 3 × 0.1 is 0.30000000000000004 in IEEE 754 doubles (common knowledge).
     const csv = rainflowMatrixCsv({ rangeUpperEdges: [3 * 0.1], meanCentres: [0], counts: [[1]] });

@@ -31,6 +31,7 @@ import { getLimits } from "@/lib/services/limits";
 import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
+import { unitsOf } from "@/lib/services/users";
 import { retireGaugeAction } from "../actions";
 
 type Props = { params: Promise<{ code: string; tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
@@ -74,7 +75,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     may(user, "audit:view", structure),
     may(user, "alert:acknowledge", structure),
   ]);
-  const [zeros, audit, photos, limits, alerts, episodes, statuses] = await Promise.all([
+  const [zeros, audit, photos, limits, alerts, episodes, statuses, units] = await Promise.all([
     zeroHistory(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
@@ -82,6 +83,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     listAlerts(user, code, { ...filter, gauge: tag, limit: ALERTS_PER_PAGE, offset: pageOffset(page) }),
     listGaugeEpisodes(user, code, tag),
     gaugeStatuses(structure),
+    unitsOf(user.id),
   ]);
   const status = statuses.find((candidate) => candidate.tag === gauge.tag)!;
   const latest = status.latest;
@@ -198,7 +200,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
           Alerts on this gauge
         </h2>
         <AlertFilters {...filter} />
-        <AlertTable alerts={alerts.alerts} timeZones={{ [structure.code]: structure.timezone }} />
+        <AlertTable alerts={alerts.alerts} timeZones={{ [structure.code]: structure.timezone }} units={units} />
         <Pager total={alerts.total} page={page} perPage={ALERTS_PER_PAGE} query={filter} noun="alerts" />
       </section>
       <div className="grid gap-6 lg:grid-cols-2">

@@ -1,0 +1,1 @@
+ALTER TABLE `job_leases` ADD `last_slot` integer;
