@@ -11,6 +11,9 @@ import { CHECKPOINTS_KEPT_MS, readableCheckpointBefore, dropCheckpointsAfter, ne
 import { limitOfRow } from "./limits";
 import { refreshStaleAlert } from "./stale-alerts";
 
+/** Who the alert history names for the events the evaluation itself records. */
+export const EVALUATION_LABEL = "evaluation on ingest";
+
 export type AlertCounts = { opened: number; escalated: number; cleared: number };
 
 export type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
@@ -101,7 +104,9 @@ export type Notification =
   | { kind: "limit"; alertId: number; eventId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
   | { kind: "sensor"; alertId: number; eventId: number; type: "opened" | "cleared"; code: string; message: string; time: number; gauges?: string[] }
   | { kind: "flapping"; alertId: number; type: "started"; openings: number; event: LimitEvent; rosette: string | null; since: number }
-  | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number };
+  | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number }
+  /** A person's change closed the alert (limits, material or zero changed): `because` says which and by whom. */
+  | { kind: "closed"; alertId: number; eventId: number; alert: Alert; because: string; time: number };
 
 /**
  * Records a subject's limit events in time order. A replay from a checkpoint meets again the events
@@ -206,7 +211,7 @@ async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitE
   }
   const [recorded] = await tx
     .insert(alertEvents)
-    .values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" })
+    .values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: EVALUATION_LABEL })
     .returning({ id: alertEvents.id });
   counts[event.type] += 1;
   if (mailed) notifications.push({ kind: "limit", alertId, eventId: recorded!.id, type: event.type, event, rosette: rosette?.tag ?? null });
@@ -258,7 +263,7 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
     await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
     const [event] = await tx
       .insert(alertEvents)
-      .values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message })
+      .values({ alertId: open.id, type: "cleared", at, byLabel: EVALUATION_LABEL, text: finding.message })
       .returning({ id: alertEvents.id });
     notifications.push({ kind: "sensor", alertId: open.id, eventId: event!.id, type: "cleared", code: finding.code, message: finding.message, time: finding.time });
     return;
@@ -271,7 +276,7 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
     .returning({ id: alerts.id });
   const [event] = await tx
     .insert(alertEvents)
-    .values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message })
+    .values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: EVALUATION_LABEL, text: finding.message })
     .returning({ id: alertEvents.id });
   notifications.push({ kind: "sensor", alertId: created!.id, eventId: event!.id, type: "opened", code: finding.code, message: finding.message, time: finding.time });
 }
