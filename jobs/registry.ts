@@ -6,6 +6,7 @@ import { runDailyDigest } from "./daily-digest";
 import { runRollupMaintenance } from "./rollup-maintenance";
 import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
+import { runFlappingSettle } from "./flapping-settle";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -29,6 +30,7 @@ export const JOBS: Job[] = [
     run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
   },
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
+  { name: "flapping-settle", schedule: "30 * * * * *", leaseMs: 5 * 60_000, run: () => runFlappingSettle() },
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
   // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.

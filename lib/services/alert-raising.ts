@@ -232,23 +232,21 @@ export async function followOpenPeaks(tx: WriteTx, subject: AlertSubject, before
   }
 }
 
+/** Flapping alerts that have stayed cleared for a whole window by `upTo`: settled, their summary due. */
+export function quietFlappingAlerts(upTo: number) {
+  return and(eq(alerts.kind, "limit"), isNotNull(alerts.flappingSince), isNull(alerts.settledAt), lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)));
+}
+
 /**
  * A flapping alert has settled when it stayed cleared for the whole window: its summary e-mail
- * goes out then, judged by the readings' own clock (the newest reading evaluated).
+ * goes out then. Ingestion judges by the readings' own clock (the newest reading evaluated); the
+ * settling job by the wall clock, for a gauge that falls quiet with no reading to tell.
  */
-async function settleFlapping(tx: WriteTx, subject: AlertSubject, upTo: number, notifications: Notification[]) {
+export async function settleFlapping(tx: WriteTx, gaugeId: number, upTo: number, notifications: Notification[]) {
   const settled = await tx
     .select()
     .from(alerts)
-    .where(
-      and(
-        eq(alerts.gaugeId, subject.gauge.id),
-        eq(alerts.kind, "limit"),
-        isNotNull(alerts.flappingSince),
-        isNull(alerts.settledAt),
-        lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)),
-      ),
-    );
+    .where(and(eq(alerts.gaugeId, gaugeId), quietFlappingAlerts(upTo)));
   for (const alert of settled) {
     await tx.update(alerts).set({ settledAt: new Date(upTo) }).where(eq(alerts.id, alert.id));
     notifications.push({ kind: "flapping-settled", alertId: alert.id, alert, time: alert.clearedAt!.getTime() });
@@ -386,7 +384,7 @@ async function applyEvaluation(
   await followOpenPeaks(tx, subject, from.current.episodes, result.state.episodes);
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   await storeVerdicts(tx, gauge.id, result.verdicts, replayed ? batch : []);
-  if (batch.length > 0) await settleFlapping(tx, subject, batch.at(-1)!.time, notifications);
+  if (batch.length > 0) await settleFlapping(tx, gauge.id, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
   return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes, verdicts: result.verdicts };
 }
