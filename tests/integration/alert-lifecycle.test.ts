@@ -3,10 +3,12 @@ import { beforeAll, beforeEach, describe, expect, it } from "vitest";
 import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
 import * as alertsRoute from "@/app/api/v1/structures/[code]/alerts/route";
 import * as resolveRoute from "@/app/api/v1/alerts/[id]/resolve/route";
+import * as gaugeReadingsRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/readings/route";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, evaluationStates, gauges, mailOutbox, readings, rollups } from "@/db/schema";
 import { runDailyDigest } from "@/jobs/daily-digest";
 import { runStaleWatch } from "@/jobs/stale-watch";
+import { EVALUATION_STATE_VERSION } from "@/lib/alerting/evaluation-state";
 import { FAULT_BITS } from "@/lib/limits";
 import { handleAlert, openSensorFaults } from "@/lib/services/alerts";
 import { createGauge, getGauge, recordZero, updateGauge } from "@/lib/services/gauges";
@@ -268,6 +270,50 @@ describe("a jump", () => {
   });
 });
 
+/** The gauge's readings through the API, as time index and flags. */
+async function apiFlags(tag: string) {
+  const query = `from=${new Date(T0 - HOUR).toISOString()}&to=${new Date(T0 + DAY).toISOString()}`;
+  const response = await gaugeReadingsRoute.GET(apiRequest(`/structures/LIFE/gauges/${tag}/readings?${query}`, { token: engineerToken }), params({ code: "LIFE", tag }));
+  expect(response.status).toBe(200);
+  return ((await response.json()).readings as { time: string; flags: string[] }[]).map((reading) => reading.flags);
+}
+
+describe("a lone spike", () => {
+  // Common practice: one reading far from both neighbours is noise on the channel, a fault of that
+  // reading alone; a change of level that stays is a jump. 2 600 µε out and straight back is > 1 500 µε both ways.
+  it("is set aside on its own: no sensor alert, nothing held, the following good readings are checked against the limits", async () => {
+    await newGauge("SPK", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    const result = await post("SPK", [100, 100, 2700, 100, 600], 0);
+    // The spike opens nothing; the 600 µε reading after it does.
+    expect(result.alerts.opened).toBe(1);
+    const raised = await alertsOf("SPK");
+    expect(raised.map((alert) => [alert.kind, alert.openedAt])).toEqual([["limit", new Date(at(4))]]);
+    expect(await faultsOf("SPK")).toEqual([0, 0, FAULT_BITS.spike, 0, 0]);
+    expect(await hourlyMaxStrain("SPK")).toBe(600);
+    expect((await openSensorFaults([await gaugeId("SPK")])).size).toBe(0);
+    // 2 700 µε is also 540 MPa, past the 355 MPa yield (σ = E·ε): outside the linear range as well.
+    expect(await apiFlags("SPK")).toEqual([[], [], ["outside-linear-range", "spike"], [], []]);
+  });
+
+  it("sent last in a batch waits for the next reading: back, it stays a spike; still up, it becomes the jump", async () => {
+    await newGauge("SPB", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    await post("SPB", [100, 2700], 0);
+    expect(await faultsOf("SPB")).toEqual([0, FAULT_BITS.spike]);
+    expect(await alertsOf("SPB")).toEqual([]);
+    await post("SPB", [110], 2);
+    expect(await faultsOf("SPB")).toEqual([0, FAULT_BITS.spike, 0]);
+
+    await newGauge("JPB", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    await post("JPB", [100, 2700], 0);
+    const next = await post("JPB", [2710], 2);
+    expect(next.alerts.opened).toBe(0);
+    expect(await faultsOf("JPB")).toEqual([0, FAULT_BITS.jump, FAULT_BITS["after-jump"]]);
+    const [jump] = await alertsOf("JPB");
+    expect(jump).toMatchObject({ kind: "sensor", code: "jump", openedAt: new Date(at(1)), clearedAt: null });
+    expect(await apiFlags("JPB")).toEqual([[], ["outside-linear-range", "jump"], ["outside-linear-range", "after-jump"]]);
+  });
+});
+
 describe("stored evaluation state", () => {
   it("of an unknown version is rebuilt from the stored readings instead of breaking ingestion", async () => {
     await newGauge("SV", [{ quantity: "strain", level: "watch", upper: 100 }]);
@@ -279,7 +325,7 @@ describe("stored evaluation state", () => {
     expect(back.alerts).toEqual({ opened: 0, escalated: 0, cleared: 1 });
     expect((await alertsOf("SV")).map((alert) => alert.clearedAt !== null)).toEqual([true]);
     const [row] = await getDb().select().from(evaluationStates).where(eq(evaluationStates.gaugeId, id));
-    expect((row!.state as { current: { version: number } }).current.version).toBe(2);
+    expect((row!.state as { current: { version: number } }).current.version).toBe(EVALUATION_STATE_VERSION);
   });
 });
 
