@@ -79,7 +79,7 @@ function mailFor(notification: Notification, facts: MailFacts) {
     }
     case "closed":
       return buildAlertMail(
-        { ...facts, ...eventFacts(clearingOf(notification.alert, notification.time), null), event: "cleared", closedBecause: notification.because },
+        { ...facts, ...eventFacts(clearingOf(notification.alert, notification.time), notification.rosette), event: "cleared", closedBecause: notification.because },
         appUrl(),
       );
   }

@@ -106,7 +106,7 @@ export type Notification =
   | { kind: "flapping"; alertId: number; type: "started"; openings: number; event: LimitEvent; rosette: string | null; since: number }
   | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number }
   /** A person's change closed the alert (limits, material or zero changed): `because` says which and by whom. */
-  | { kind: "closed"; alertId: number; eventId: number; alert: Alert; because: string; time: number };
+  | { kind: "closed"; alertId: number; eventId: number; alert: Alert; because: string; time: number; rosette: string | null };
 
 /**
  * Records a subject's limit events in time order. A replay from a checkpoint meets again the events

@@ -5,7 +5,7 @@ import { alertEvents, alerts, evaluationCheckpoints, evaluationStates, rosetteEv
 import { parseRosetteEvaluationState, restartAtNewZero, restartEpisode, restartQuantities, type GaugeEvaluationState } from "@/lib/alerting/evaluation-state";
 import { QUANTITIES, type Quantity, type RosetteLimitQuantity } from "@/lib/limits";
 import { queueAlertMails } from "./alert-mail";
-import { storedStateOf, type Notification, type StoredState } from "./alert-raising";
+import { storedStateOf, type AlertSubject, type Notification, type StoredState } from "./alert-raising";
 import { dropCheckpointsAfter } from "./evaluation-checkpoints";
 
 /** A gauge's stored evaluation state, checked; undefined when there is none (or it is being rebuilt anyway). */
@@ -38,12 +38,13 @@ type Closing = { because: string; next: string };
  * Closes the gauge's open limit alerts on these quantities, saying why as a line of each alert's
  * history, and tells the people who were told they opened, through the alerts' own e-mails.
  */
-async function closeLimitAlerts(tx: WriteTx, gauge: Gauge, quantities: readonly string[], closing: Closing, byLabel: string) {
+async function closeLimitAlerts(tx: WriteTx, { gauge, rosette }: AlertSubject, quantities: readonly string[], closing: Closing, byLabel: string) {
   if (quantities.length === 0) return;
+  const ofSubject = rosette === null ? isNull(alerts.rosetteId) : eq(alerts.rosetteId, rosette.id);
   const open = await tx
     .select()
     .from(alerts)
-    .where(and(eq(alerts.gaugeId, gauge.id), eq(alerts.kind, "limit"), isNull(alerts.rosetteId), isNull(alerts.clearedAt), inArray(alerts.quantity, [...quantities])));
+    .where(and(eq(alerts.gaugeId, gauge.id), eq(alerts.kind, "limit"), ofSubject, isNull(alerts.clearedAt), inArray(alerts.quantity, [...quantities])));
   const at = new Date();
   const notifications: Notification[] = [];
   for (const alert of open) {
@@ -54,7 +55,7 @@ async function closeLimitAlerts(tx: WriteTx, gauge: Gauge, quantities: readonly 
       .values({ alertId: alert.id, type: "cleared", at, byLabel, text: `Closed because ${closing.because}. ${closing.next}` })
       .returning({ id: alertEvents.id });
     const because = `Closed because ${closing.because} by ${byLabel}. ${closing.next}`;
-    notifications.push({ kind: "closed", alertId: alert.id, eventId: event!.id, alert, because, time: at.getTime() });
+    notifications.push({ kind: "closed", alertId: alert.id, eventId: event!.id, alert, because, time: at.getTime(), rosette: rosette?.tag ?? null });
   }
   await queueAlertMails(tx, gauge, notifications, at.getTime());
 }
@@ -96,14 +97,15 @@ const ZERO_AFTER_JUMP = "Readings from the jump to the new zero stay set aside; 
  */
 export async function restartGaugeEvaluation(tx: WriteTx, gauge: Gauge, change: EvaluationChange, byLabel: string) {
   const loaded = await loadGaugeState(tx, gauge.id);
+  const subject = { gauge, rosette: null };
   if (change.kind === "limits") {
-    await closeLimitAlerts(tx, gauge, change.removed, CLOSINGS.removed, byLabel);
-    await closeLimitAlerts(tx, gauge, change.changed, CLOSINGS.changed, byLabel);
+    await closeLimitAlerts(tx, subject, change.removed, CLOSINGS.removed, byLabel);
+    await closeLimitAlerts(tx, subject, change.changed, CLOSINGS.changed, byLabel);
     if (loaded) await saveGaugeState(tx, gauge.id, restartQuantities(loaded.stored.current, [...change.removed, ...change.changed]));
     return;
   }
   const quantities: Quantity[] = change.kind === "zero" ? [...QUANTITIES] : ["stress", "utilisation"];
-  await closeLimitAlerts(tx, gauge, quantities, CLOSINGS[change.kind], byLabel);
+  await closeLimitAlerts(tx, subject, quantities, CLOSINGS[change.kind], byLabel);
   if (change.kind === "zero") await closeJumpAlert(tx, gauge, byLabel);
   if (!loaded) return;
   const current = loaded.stored.current;
@@ -118,12 +120,33 @@ export async function restartAfterHandClear(tx: WriteTx, alert: { gaugeId: numbe
     if (loaded) await saveGaugeState(tx, alert.gaugeId, restartQuantities(loaded.stored.current, [alert.quantity as Quantity]));
     return;
   }
-  const [row] = await tx.select().from(rosetteEvaluationStates).where(eq(rosetteEvaluationStates.rosetteId, alert.rosetteId));
+  await restartRosetteQuantities(tx, alert.rosetteId, [alert.quantity as RosetteLimitQuantity]);
+}
+
+/** The rosette's machines of these quantities start again; its checkpoints go, as a gauge's do. */
+async function restartRosetteQuantities(tx: WriteTx, rosetteId: number, quantities: readonly RosetteLimitQuantity[]) {
+  if (quantities.length === 0) return;
+  const [row] = await tx.select().from(rosetteEvaluationStates).where(eq(rosetteEvaluationStates.rosetteId, rosetteId));
   const state = row && parseRosetteEvaluationState(row.state);
-  const quantity = alert.quantity as RosetteLimitQuantity;
   // An unreadable state is rebuilt by the next ingestion anyway.
-  if (!state?.episodes[quantity]) return;
-  const episodes = { ...state.episodes, [quantity]: restartEpisode(state.episodes[quantity]) };
-  await tx.update(rosetteEvaluationStates).set({ state: { ...state, episodes, lastCheckpointAt: null } }).where(eq(rosetteEvaluationStates.rosetteId, alert.rosetteId));
-  await dropCheckpointsAfter(tx, rosetteEvaluationCheckpoints, alert.rosetteId, ALL_TIMES);
+  if (!state) return;
+  const episodes = { ...state.episodes };
+  for (const quantity of quantities) if (episodes[quantity]) episodes[quantity] = restartEpisode(episodes[quantity]);
+  await tx.update(rosetteEvaluationStates).set({ state: { ...state, episodes, lastCheckpointAt: null } }).where(eq(rosetteEvaluationStates.rosetteId, rosetteId));
+  await dropCheckpointsAfter(tx, rosetteEvaluationCheckpoints, rosetteId, ALL_TIMES);
+}
+
+/**
+ * A rosette's limits changed: as for a gauge, a quantity whose limits went or changed starts again
+ * and its open alert closes, saying why, to the people told it opened.
+ */
+export async function restartRosetteEvaluation(
+  tx: WriteTx,
+  subject: { gauge: Gauge; rosette: { id: number; tag: string } },
+  change: { removed: readonly RosetteLimitQuantity[]; changed: readonly RosetteLimitQuantity[] },
+  byLabel: string,
+) {
+  await closeLimitAlerts(tx, subject, change.removed, CLOSINGS.removed, byLabel);
+  await closeLimitAlerts(tx, subject, change.changed, CLOSINGS.changed, byLabel);
+  await restartRosetteQuantities(tx, subject.rosette.id, [...change.removed, ...change.changed]);
 }
