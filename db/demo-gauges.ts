@@ -205,8 +205,8 @@ export const DEMO_GAUGES: DemoGauge[] = [
       input: "frequency-squared",
       zero: { value: 702.9, temperature: 9.8 },
     }),
-    // A loose connector: one reading jumps further than any column moves, a sensor fault, not a load.
-    story: (start) => ({ trafficAmplitude: -9, thermalRestraint: 0.2, spikes: [{ time: start + 70 * DAY_MS + 11 * 3_600_000, strain: 2600 }] }),
+    // A loose connector: the reading steps further than any column moves and stays there, a jump (a sensor fault, not a load).
+    story: (start) => ({ trafficAmplitude: -9, thermalRestraint: 0.2, steps: [{ time: start + 70 * DAY_MS + 11 * 3_600_000, strain: 2600 }] }),
   },
 ];
 

@@ -190,23 +190,43 @@ async function seedReadings() {
   }
 }
 
+/** How the demo's dynamic loggers record: a minute at 100 Hz every five minutes. */
+export const DEMO_BURSTS = { rateHz: DEMO_BURST_RATE_HZ, burstSeconds: 60, everyMinutes: 5 } as const;
+const BURST_STEP_MS = DEMO_BURSTS.everyMinutes * 60_000;
+
+/**
+ * A demo structure's dynamic gauges, as their logger sends to them: the ingestion target, when
+ * their bursts start (the last few days of the demo period), and each gauge's synthetic source.
+ * Null when the structure has none.
+ */
+export async function demoBurstStory(structureCode: string) {
+  const demo = DEMO_DYNAMIC_GAUGES.filter((gauge) => gauge.structure === structureCode);
+  if (demo.length === 0) return null;
+  const installer = (await installers())[structureCode]!;
+  const target = await openIngestion(installer, structureCode, demo.map((gauge) => gauge.input.tag));
+  const readingsFrom = await readingsStart(structureCode, [...target.gauges.values()].map((gauge) => gauge.id));
+  const start = readingsFrom + (DEMO_DAYS - DEMO_BURST_DAYS) * 86_400_000;
+  const gauges = demo.flatMap(({ input, story }) => {
+    const entry = target.gauges.get(input.tag);
+    return entry ? [{ tag: input.tag, gaugeId: entry.id, retired: entry.retired, config: gaugeConfigOf(entry.row), story }] : [];
+  });
+  return { target, start, gauges };
+}
+
 /**
  * The last few days of the demo period as bursts of the dynamic gauges, through the burst service
- * like any logger's: a minute at 100 Hz every five minutes, requests of up to the contract's
- * sample limit, in time order so rainflow carries its residue from burst to burst.
+ * like any logger's, requests of up to the contract's sample limit, in time order so rainflow
+ * carries its residue from burst to burst.
  */
 async function seedBursts() {
-  const installerOf = await installers();
-  for (const [structureCode, installer] of Object.entries(installerOf)) {
-    const demo = DEMO_DYNAMIC_GAUGES.filter((gauge) => gauge.structure === structureCode);
-    if (demo.length === 0) continue;
-    const target = await openIngestion(installer, structureCode, demo.map((gauge) => gauge.input.tag));
-    const readingsFrom = await readingsStart(structureCode, [...target.gauges.values()].map((gauge) => gauge.id));
-    const start = readingsFrom + (DEMO_DAYS - DEMO_BURST_DAYS) * 86_400_000;
-    const gaugesToFeed = demo.map(({ input, story }) => ({ tag: input.tag, config: gaugeConfigOf(target.gauges.get(input.tag)!.row), story }));
+  for (const structureCode of DEMO_STRUCTURE_CODES) {
+    const story = await demoBurstStory(structureCode);
+    if (!story) continue;
+    const { target, start, gauges: gaugesToFeed } = story;
     let batch: IncomingBurst[] = [];
     let samples = 0;
-    const bursts = syntheticBursts({ start, days: DEMO_BURST_DAYS, seed: DEMO_SEED, rateHz: DEMO_BURST_RATE_HZ, burstSeconds: 60, everyMinutes: 5, gauges: gaugesToFeed });
+    const count = (DEMO_BURST_DAYS * 86_400_000) / BURST_STEP_MS;
+    const bursts = syntheticBursts({ start, count, seed: DEMO_SEED, ...DEMO_BURSTS, gauges: gaugesToFeed });
     for (const burst of bursts) {
       if (samples + burst.values.length > MAX_BURST_SAMPLES_PER_REQUEST / 4) {
         await ingestBursts(target, batch);

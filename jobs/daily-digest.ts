@@ -10,6 +10,7 @@ import { gaugeStatuses } from "@/lib/services/status";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 import { sensorMailOf } from "@/lib/services/alert-mail";
+import { EVALUATION_LABEL } from "@/lib/services/alert-raising";
 import { receivesAlertMail } from "@/lib/auth/permissions";
 
 const DAY_MS = 86_400_000;
@@ -44,6 +45,8 @@ function factsOf({ event, alert, gauge, rosette }: EventRow): DigestEvent {
     peak: alert.peak ?? event.value ?? 0,
     bound: { side: (alert.peak ?? 0) >= bound ? "upper" : "lower", value: bound },
     at: event.at,
+    // Closed by a person (by hand, or by changing what the alert compared), not by the values: their words and name.
+    closedBecause: event.type === "cleared" && event.byLabel !== EVALUATION_LABEL ? `${event.text ?? "Cleared"} (${event.byLabel ?? "unknown"})` : null,
   };
 }
 

@@ -7,6 +7,7 @@ import { runRollupMaintenance } from "./rollup-maintenance";
 import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
 import { sweepFileStore } from "@/lib/services/files";
+import { runFlappingSettle } from "./flapping-settle";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -30,6 +31,7 @@ export const JOBS: Job[] = [
     run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
   },
   { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
+  { name: "flapping-settle", schedule: "30 * * * * *", leaseMs: 5 * 60_000, run: () => runFlappingSettle() },
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
   { name: "file-store-sweep", schedule: "0 45 2 * * *", leaseMs: 15 * 60_000, run: () => sweepFileStore() },

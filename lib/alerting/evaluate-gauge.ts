@@ -80,7 +80,10 @@ export type GaugeEvaluation = {
   findings: SensorFinding[];
   /** Times of the readings limit evaluation skipped as faults, in order: a rosette on this gauge skips its instants too. */
   faultTimes: number[];
-  /** By reading time, the sensor-health verdict (FAULT_BITS) of each faulty reading taken in; healthy ones are absent. */
+  /**
+   * By reading time, the sensor-health verdict (FAULT_BITS) of each faulty reading taken in, and of
+   * an earlier reading this batch showed to be a jump; healthy ones are absent.
+   */
   verdicts: Map<number, number>;
 };
 
@@ -90,12 +93,14 @@ export function evaluateGauge(setup: GaugeAlertSetup, state: GaugeEvaluationStat
     state.health,
     readings.map((reading) => ({ time: reading.time, raw: reading.raw, value: reading.strain })),
   );
-  const held = holdAfterJump(state.hold, inspection.readings);
+  const held = holdAfterJump(state.hold, inspection.readings, inspection.earlierJumps);
   const taken = takenIn(readings, held.readings);
   const { episodes, events } = evaluateQuantities(setup, state.episodes, held.readings, taken);
   const faultTimes: number[] = [];
   for (let index = 0; index < taken.faults.length; index++) if (taken.faults[index]) faultTimes.push(held.readings[index]!.time);
   const verdicts = new Map<number, number>();
+  // A suspect of an earlier batch judged a jump by this one: its stored verdict changes too.
+  for (const time of inspection.earlierJumps) verdicts.set(time, FAULT_BITS.jump);
   for (const reading of held.readings) if (reading.faultBits !== 0) verdicts.set(reading.time, reading.faultBits);
   return { state: { ...state, episodes, health: inspection.state, hold: held.hold }, events, findings: inspection.findings, faultTimes, verdicts };
 }
@@ -129,10 +134,11 @@ function evaluateQuantities(
 /**
  * A jump may be a real step (a crack, a bearing slipping) or the gauge's reference moving (a
  * debonding foil): the readings cannot tell, so every reading after it is quarantined until an
- * engineer says which.
+ * engineer says which. A lone spike holds nothing. `earlierJumps`: jumps at readings of earlier
+ * batches, found by this one's first reading.
  */
-function holdAfterJump(hold: FaultHold | null, readings: readonly CheckedReading[]): { hold: FaultHold | null; readings: CheckedReading[] } {
-  let current = hold;
+function holdAfterJump(hold: FaultHold | null, readings: readonly CheckedReading[], earlierJumps: readonly number[]): { hold: FaultHold | null; readings: CheckedReading[] } {
+  let current = hold ?? (earlierJumps.length > 0 ? { since: earlierJumps[0]! } : null);
   const marked = readings.map((reading) => {
     if (current !== null && reading.time > current.since) {
       const faultBits = reading.faultBits | FAULT_BITS["after-jump"];

@@ -6,7 +6,7 @@ import { initialEpisodeState, initialSensorHealthState, LEVELS, type EpisodeStat
  * build (or damaged) is rebuilt by replaying stored readings, never trusted by a cast. Raise the
  * version whenever the shape or its meaning changes.
  */
-export const EVALUATION_STATE_VERSION = 2;
+export const EVALUATION_STATE_VERSION = 3;
 
 /** An unresolved jump: readings after `since` are quarantined until an engineer resolves it. */
 export type FaultHold = { since: number };
@@ -39,7 +39,7 @@ const conditionSchema = z.object({ active: z.boolean() });
 const healthSchema = z.object({
   lastTime: time.nullable(),
   flatLine: conditionSchema.extend({ recent: z.array(z.number()) }),
-  jump: z.object({ previous: z.number().nullable() }),
+  jump: z.object({ previous: z.number().nullable(), suspect: z.object({ time, change: z.number() }).nullable() }),
   range: conditionSchema,
 });
 
@@ -76,7 +76,7 @@ export function restartQuantities(state: GaugeEvaluationState, quantities: reado
  */
 export function restartAtNewZero(state: GaugeEvaluationState, quantities: readonly Quantity[]): GaugeEvaluationState {
   const restarted = restartQuantities(state, quantities);
-  return { ...restarted, health: { ...restarted.health, jump: { previous: null } }, hold: null };
+  return { ...restarted, health: { ...restarted.health, jump: { previous: null, suspect: null } }, hold: null };
 }
 
 const rosetteStateSchema = z.object({

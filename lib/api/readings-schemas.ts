@@ -133,7 +133,10 @@ export const readingsPageSchema = z
         temperature: z.number().nullable(),
         strain: z.number(),
         stress: z.number(),
-        flags: z.array(z.string()),
+        flags: z.array(z.string()).meta({
+          description:
+            "Words, each once: from the conversion `outside-linear-range` (stress near yield or strain past the gauge's rated range) and `out-of-range` (past the rated range); from sensor health `spike` (a lone reading far from both neighbours, set aside on its own; the newest reading stays a spike until the next one shows whether it was a jump), `jump` (a change of level that stayed), `after-jump` (held after an unresolved jump), `flat-line`, `out-of-range` (raw value outside the sensor's range). Readings with a sensor-health word are left out of limits, extremes, reports and fatigue.",
+        }),
       }),
     ),
     nextCursor: z.string().optional(),

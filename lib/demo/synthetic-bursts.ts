@@ -15,7 +15,8 @@ export interface SyntheticBurstGauge {
 
 export interface SyntheticBurstOptions {
   start: number;
-  days: number;
+  /** Bursts per gauge, one every `everyMinutes` from `start`. */
+  count: number;
   seed: number;
   rateHz: number;
   /** A burst of `burstSeconds` every `everyMinutes`: loggers that record a minute in five. */
@@ -79,7 +80,7 @@ function strainOf(story: BurstStory, random: Random, start: number, samples: num
 export function* syntheticBursts(options: SyntheticBurstOptions): Generator<SyntheticBurst> {
   const samples = options.burstSeconds * options.rateHz;
   const step = options.everyMinutes * 60_000;
-  const count = Math.floor((options.days * 86_400_000) / step);
+  const { count } = options;
   for (const gauge of options.gauges) {
     const random = mulberry32(streamSeed(options.seed, gauge.tag));
     const toRaw = prepareInverseConversion(gauge.config);

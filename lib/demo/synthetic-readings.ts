@@ -40,8 +40,10 @@ export interface GaugeStory {
   driftPerDay?: number;
   /** Share (0 to 1) of the member's free thermal expansion that its supports prevent. */
   thermalRestraint?: number;
-  /** One-reading jumps: added to the first reading at or after `time`. */
+  /** One-reading spikes: added to the first reading at or after `time`. */
   spikes?: readonly { time: number; strain: number }[];
+  /** Lasting offsets from `time` on, as from a connector working loose or a bond slipping. */
+  steps?: readonly { time: number; strain: number }[];
   /** The logger was offline: no readings in this window. */
   offline?: TimeWindow;
   /** Strain held over a window (a heavy load parked on the span), planted to cross a limit. */
@@ -153,7 +155,7 @@ type GaugeStep = (time: number, interval: number, siteTemperature: number, wante
 function gaugeStory({ tag, config, story = {} }: SyntheticGauge, climate: SyntheticClimate, start: number, random: Random): GaugeStep {
   const toRaw: InverseConversion = prepareInverseConversion(config);
   const referenceTemperature = config.zero.temperature ?? climate.meanTemperature;
-  const { trafficAmplitude = 0, noise = 1.5, driftPerDay = 0, thermalRestraint = 0, spikes = [], offline, sustainedLoad } = story;
+  const { trafficAmplitude = 0, noise = 1.5, driftPerDay = 0, thermalRestraint = 0, spikes = [], steps = [], offline, sustainedLoad } = story;
   const restrainedStrainPerDegree = -thermalRestraint * config.material.alpha;
   return (time, interval, siteTemperature, wanted) => {
     const temperature = siteTemperature + climate.thermometerNoise * gaussian(random);
@@ -165,6 +167,7 @@ function gaugeStory({ tag, config, story = {} }: SyntheticGauge, climate: Synthe
       restrainedStrainPerDegree * (temperature - referenceTemperature);
     if (sustainedLoad && within(sustainedLoad, time)) strain += sustainedLoad.strain;
     for (const spike of spikes) if (time >= spike.time && time < spike.time + interval) strain += spike.strain;
+    for (const step of steps) if (time >= step.time) strain += step.strain;
     if (!wanted || (offline && within(offline, time))) return null;
     return { gauge: tag, time, value: toRaw(strain, temperature), temperature, mechanicalStrain: strain };
   };

@@ -19,8 +19,8 @@ export const BURST_REJECTION_CODES = {
   "temperature-out-of-range": "The burst's temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.",
   "wrong-rate": "rateHz is not the gauge's rate.",
   "empty-burst": "The burst has no samples.",
-  "not-finite": "A sample (or the strain or stress it converts to) is not a finite number: NaN, Infinity, text or null. The whole burst is refused.",
-  "non-finite-temperature": "The temperature is given but is not a finite number.",
+  "not-finite":
+    "A sample or the burst's temperature (or the strain or stress a sample converts to) is not a finite number: NaN, Infinity, text or null. The whole burst is refused.",
   "temperature-required": "The gauge's temperature compensation needs the burst's temperature.",
   "non-positive-frequency": "A vibrating-wire frequency must be above 0 Hz.",
   "non-positive-frequency-squared": "A vibrating-wire reading in f²/1000 must be above 0.",
@@ -64,7 +64,7 @@ const MISSING_GAUGE = failure("missing-gauge", 'Name the burst\'s gauge by its t
 const MISSING_START = failure("invalid-time", 'The burst has no "start"; send the first sample\'s time as ISO-8601 with Z or an offset.');
 const RATE_NOT_NUMBER = failure("wrong-rate", '"rateHz" must be the gauge\'s sampling rate as a positive number.');
 const VALUES_NOT_ARRAY = failure("invalid-burst", '"values" must be an array of raw samples (numbers).');
-const TEMPERATURE_NOT_NUMBER = failure("non-finite-temperature", "The temperature must be a number in °C, or left out.");
+const TEMPERATURE_NOT_NUMBER = failure("not-finite", "The temperature must be a number in °C, or left out.");
 const EMPTY = failure("empty-burst", "The burst has no samples; leave empty bursts out.");
 
 /** The burst's start: ISO-8601 with Z or an offset, as the contract wants for JSON and for the binary query. */
@@ -77,7 +77,7 @@ export function decodeBurstRate(rateHz: unknown): number | Failure<"wrong-rate">
   return typeof rateHz === "number" && Number.isFinite(rateHz) && rateHz > 0 ? rateHz : RATE_NOT_NUMBER;
 }
 
-export function decodeBurstTemperature(temperature: unknown): number | null | Failure<"non-finite-temperature"> {
+export function decodeBurstTemperature(temperature: unknown): number | null | Failure<"not-finite"> {
   if (temperature === undefined || temperature === null) return null;
   return typeof temperature === "number" && Number.isFinite(temperature) ? temperature : TEMPERATURE_NOT_NUMBER;
 }

@@ -23,14 +23,14 @@ const MISSING_TIME = failure("missing-time", "The reading has no time; send it a
 const TIME_NOT_TEXT = failure("invalid-time", 'The time must be ISO-8601 text such as "2026-03-01T12:00:00Z", not a number.');
 const MISSING_VALUE = failure("missing-value", "The reading has no value; send the logger's raw value as a number.");
 const VALUE_NOT_NUMBER = failure(
-  "non-finite-value",
+  "not-finite",
   "The value must be a JSON number. JSON cannot carry NaN or Infinity: leave such readings out.",
 );
-const TEMPERATURE_NOT_NUMBER = failure("non-finite-temperature", "The temperature must be a number in °C, or left out.");
+const TEMPERATURE_NOT_NUMBER = failure("not-finite", "The temperature must be a number in °C, or left out.");
 
-function textValueProblem(text: string): Failure<"non-finite-value"> {
+function textValueProblem(text: string): Failure<"not-finite"> {
   return failure(
-    "non-finite-value",
+    "not-finite",
     `The value "${text.slice(0, 40)}" is text; send the raw value as a JSON number (JSON cannot carry NaN or Infinity: leave such readings out).`,
   );
 }
@@ -99,10 +99,10 @@ export function decodeCsvReading(fields: readonly string[], columns: CsvColumns,
   const valueText = fields[columns.value]!;
   if (valueText.trim() === "") return MISSING_VALUE;
   const value = csvNumber(valueText);
-  if (value === null) return csvNumberProblem("non-finite-value", "value", valueText);
+  if (value === null) return csvNumberProblem("not-finite", "value", valueText);
   const temperatureText = columns.temperature < 0 ? "" : fields[columns.temperature]!;
   if (temperatureText.trim() === "") return { gauge, time, value, temperature: null };
   const temperature = csvNumber(temperatureText);
-  if (temperature === null) return csvNumberProblem("non-finite-temperature", "temperature", temperatureText);
+  if (temperature === null) return csvNumberProblem("not-finite", "temperature", temperatureText);
   return { gauge, time, value, temperature };
 }

@@ -15,9 +15,8 @@ export const REJECTION_CODES = {
   "invalid-time": "The time is not ISO-8601 with a date, lacks an offset where one is required, or is before 1970.",
   "time-in-future": "The time is more than 5 minutes ahead of the server's clock.",
   "missing-value": "The reading has no value.",
-  "non-finite-value": "The value is not a finite number (text, NaN, Infinity).",
-  "non-finite-temperature": "The temperature is given but is not a finite number.",
-  "not-finite": "The strain or stress the value converts to is not a finite number (the value is far outside anything a gauge reads).",
+  "not-finite":
+    "The value, or the temperature, strain or stress it converts to, is not a finite number (text, NaN, Infinity, or a value so far outside anything a gauge reads that its conversion overflows).",
   "before-zero": "The time is earlier than the gauge's first zero reading, from which its strain is measured.",
   "temperature-out-of-range": "The temperature is outside −80…+150 °C, beyond what a strain gauge installation reads.",
   "temperature-required": "The gauge's temperature compensation needs the temperature at each reading.",

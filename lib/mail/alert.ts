@@ -22,6 +22,11 @@ export type AlertEventFacts = {
   /** The alert's furthest value so far, the same number its page and the API show. */
   peak: number;
   at: Date;
+  /**
+   * When a person's action closed the alert rather than the values coming back (limits, material or
+   * zero changed, cleared by hand): the sentence saying why and by whom. "Back within" would be untrue.
+   */
+  closedBecause?: string | null;
 };
 
 export type AlertMailInput = AlertEventFacts & { structure: AlertStructure };
@@ -65,7 +70,9 @@ const EVENT_WORDING: Record<AlertMailEvent, string> = {
 export function describeAlertEvent(facts: AlertEventFacts): { headline: string; value: string; bound: string; peak: string } {
   const value = formatQuantity(facts.quantity, facts.value);
   const bound = `${facts.bound.side} ${formatQuantity(facts.quantity, facts.bound.value)}`;
-  const headline = `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
+  const headline = facts.closedBecause
+    ? `${QUANTITY_NAME[facts.quantity]} alert at the ${facts.level} limit closed`
+    : `${QUANTITY_NAME[facts.quantity]} ${EVENT_WORDING[facts.event]} the ${facts.level} limit`;
   return { headline, value, bound, peak: formatQuantity(facts.quantity, facts.peak) };
 }
 
@@ -73,7 +80,7 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
   const { structure, gauge } = input;
   const { headline, value, bound, peak } = describeAlertEvent(input);
   const place = alertPlace(input, appUrl, structure.code);
-  const levelWord = input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
+  const levelWord = input.closedBecause ? "Closed" : input.event === "cleared" ? "Cleared" : input.level.toUpperCase();
   const subject = `${levelWord}: ${structure.code} ${place.name} ${headline} (peak ${peak})`;
   const facts: [string, string][] = [
     ["Structure", `${structure.name} (${structure.code})`],
@@ -83,11 +90,11 @@ export function buildAlertMail(input: AlertMailInput, appUrl: string): BuiltMail
     ["Level", input.level],
     ["Quantity", `${QUANTITY_NAME[input.quantity]} (${quantityScale(input.quantity).unit})`],
     ["Peak so far", peak],
-    ["Value at this event", value],
+    input.closedBecause ? ["Why closed", input.closedBecause] : ["Value at this event", value],
     ["Bound", bound],
     ["Time", `${formatInTimeZone(input.at, structure.timezone)} (${structure.timezone})`],
   ];
-  const opening = `On ${structure.name}, ${input.rosette ? place.name : `gauge ${gauge.tag}`}: ${headline}.`;
+  const opening = `On ${structure.name}, ${input.rosette ? place.name : `gauge ${gauge.tag}`}: ${headline}.${input.closedBecause ? ` ${input.closedBecause}` : ""}`;
   const text = [
     opening,
     facts.map(([name, fact]) => `${name}: ${fact}`).join("\n"),

@@ -31,7 +31,7 @@ function describeLine(facts: DigestEvent, appUrl: string, structureCode: string)
   }
   const { headline, value, bound } = describeAlertEvent(facts);
   const place = alertPlace(facts, appUrl, structureCode);
-  return { gauge: place.name, what: `${headline}: ${value} (bound ${bound})`, link: place.link };
+  return { gauge: place.name, what: `${headline}: ${facts.closedBecause ?? `${value} (bound ${bound})`}`, link: place.link };
 }
 
 /** One e-mail a day for people who chose the digest: every alert event of their structures, oldest first. */

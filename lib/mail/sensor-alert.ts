@@ -29,6 +29,12 @@ const NOT_CHECKED: Record<string, string> = {
   default: "This is not a structural alert, but limits are NOT being checked on this gauge while its readings are faulty.",
 };
 
+/** A jump is settled by a person (accepted as real, or a new zero), who says how; other faults end by themselves. */
+function clearedOpening({ structure, gauge, code, message }: SensorAlertMailInput, fault: string): string {
+  if (code === "jump") return `On ${structure.name}, gauge ${gauge.tag}: the ${fault} is resolved. ${message}`;
+  return `On ${structure.name}, ${code === "stale" ? "readings are arriving again" : `gauge ${gauge.tag} is reporting normally again`} (${fault} resolved).`;
+}
+
 /** A sensor fault told as such: it says nothing about the structure, only that a gauge cannot be trusted now. */
 export function buildSensorAlertMail(input: SensorAlertMailInput, appUrl: string): BuiltMail {
   const { structure, gauge } = input;
@@ -38,7 +44,7 @@ export function buildSensorAlertMail(input: SensorAlertMailInput, appUrl: string
   const subject = `${input.event === "cleared" ? "Resolved" : "Sensor fault"}: ${structure.code} ${silent ? which : gauge.tag} ${fault}`;
   const opening =
     input.event === "cleared"
-      ? `On ${structure.name}, ${input.code === "stale" ? "readings are arriving again" : `gauge ${gauge.tag} is reporting normally again`} (${fault} resolved).`
+      ? clearedOpening(input, fault)
       : `On ${structure.name}, ${which}: ${fault}. ${NOT_CHECKED[input.code] ?? NOT_CHECKED.default}`;
   const link = gaugeChartLink(appUrl, structure.code, gauge.tag);
   const facts = [

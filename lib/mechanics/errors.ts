@@ -19,8 +19,6 @@ export type GaugeConfigErrorCode =
   | MaterialErrorCode;
 
 export type ReadingErrorCode =
-  | "non-finite-value"
-  | "non-finite-temperature"
   | "not-finite"
   | "temperature-required"
   | "non-positive-frequency"
@@ -29,9 +27,9 @@ export type ReadingErrorCode =
 
 /** Shared, frozen failures: refusing a reading allocates nothing. */
 export const READING_FAILURES = {
-  nonFiniteValue: failure("non-finite-value", "The reading's value is not a finite number; send the raw value as a number."),
+  nonFiniteValue: failure("not-finite", "The reading's value is not a finite number; send the raw value as a number."),
   nonFiniteTemperature: failure(
-    "non-finite-temperature",
+    "not-finite",
     "The reading's temperature is not a finite number; send it in °C or leave it out.",
   ),
   notFinite: failure(

@@ -1,3 +1,4 @@
+import { faultNames } from "@/lib/limits";
 import { flagWords, type DerivedDecimals } from "@/lib/mechanics";
 
 /** The columns of GET …/readings as CSV, in the contract's names (what scripts look up). */
@@ -17,11 +18,19 @@ export function readingsCsvHeader(header: ReadingsCsvHeader, input: string): str
   return `\uFEFF${named.join(",")}\n`;
 }
 
-export type StoredReadingRow = { t: number; value: number; temperature: number | null; strain: number; stress: number; flags: number };
+export type StoredReadingRow = { t: number; value: number; temperature: number | null; strain: number; stress: number; flags: number; fault: number };
+
+/**
+ * A reading's flag words: the conversion's (`outside-linear-range`, `out-of-range`) and sensor
+ * health's verdict (`spike`, `jump`, `after-jump`, `flat-line`, `out-of-range`), each word once.
+ */
+export function readingFlagWords(row: Pick<StoredReadingRow, "flags" | "fault">): string[] {
+  return [...new Set<string>([...flagWords(row.flags), ...faultNames(row.fault)])];
+}
 
 /** One reading: raw value and temperature as the logger wrote them, strain and stress to the gauge's resolution. */
 export function readingsCsvLine(row: StoredReadingRow, decimals: DerivedDecimals | null): string {
   const strain = decimals ? row.strain.toFixed(decimals.strain) : String(row.strain);
   const stress = decimals ? row.stress.toFixed(decimals.stress) : String(row.stress);
-  return `${new Date(row.t).toISOString()},${row.value},${row.temperature ?? ""},${strain},${stress},${flagWords(row.flags).join(" ")}\n`;
+  return `${new Date(row.t).toISOString()},${row.value},${row.temperature ?? ""},${strain},${stress},${readingFlagWords(row).join(" ")}\n`;
 }

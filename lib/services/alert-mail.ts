@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { WriteTx } from "@/db/client";
-import { alertEvents, structureMembers, structures, users, type AlertMailMode, type Gauge, type Role } from "@/db/schema";
+import { alertEvents, structureMembers, structures, users, type Alert, type AlertMailMode, type Gauge, type Role } from "@/db/schema";
 import { IMMEDIATE_MAIL_MAX_AGE_MS } from "@/lib/alerting/flapping";
 import type { Level, Quantity, RosetteLimitQuantity } from "@/lib/limits";
 import { buildAlertMail, type AlertStructure } from "@/lib/mail/alert";
@@ -48,6 +48,13 @@ function eventFacts(event: LimitEvent, rosette: string | null) {
   };
 }
 
+/** An alert row told as its last event: a clearing at `time`, its peak as the value. */
+function clearingOf(alert: Alert, time: number): LimitEvent {
+  const bound = alert.bound ?? 0;
+  const peak = alert.peak ?? bound;
+  return { type: "cleared", level: alert.level as Level, time, value: peak, bound, peak, peakAt: time, quantity: alert.quantity as Quantity | RosetteLimitQuantity };
+}
+
 function mailFor(notification: Notification, facts: MailFacts) {
   switch (notification.kind) {
     case "sensor":
@@ -64,21 +71,17 @@ function mailFor(notification: Notification, facts: MailFacts) {
       );
     case "flapping-settled": {
       const { alert } = notification;
-      const bound = alert.bound ?? 0;
-      const peak = alert.peak ?? bound;
       // The alert row carries what the summary tells: its last clearing as the event, its peak as the value.
-      const settled = { type: "cleared" as const, level: alert.level as Level, time: notification.time, value: peak, bound, peak, peakAt: notification.time };
       return buildFlappingMail(
-        {
-          ...facts,
-          ...eventFacts({ ...settled, quantity: alert.quantity as Quantity | RosetteLimitQuantity }, null),
-          phase: "settled",
-          openings: alert.openings,
-          since: alert.openedAt,
-        },
+        { ...facts, ...eventFacts(clearingOf(alert, notification.time), null), phase: "settled", openings: alert.openings, since: alert.openedAt },
         appUrl(),
       );
     }
+    case "closed":
+      return buildAlertMail(
+        { ...facts, ...eventFacts(clearingOf(notification.alert, notification.time), notification.rosette), event: "cleared", closedBecause: notification.because },
+        appUrl(),
+      );
   }
 }
 
@@ -86,6 +89,7 @@ function priorityOf(notification: Notification): number {
   if (notification.kind === "sensor") return MAIL_PRIORITY.sensor;
   if (notification.kind === "limit") return priorityOfLimitMail(notification.event.level, notification.type === "cleared");
   if (notification.kind === "flapping") return MAIL_PRIORITY[notification.event.level];
+  // A closing, like a settling, asks nobody to act at once.
   return MAIL_PRIORITY.watch;
 }
 
@@ -101,6 +105,8 @@ function stepOf(notification: Notification): string {
       return `flapping:${notification.event.time}`;
     case "flapping-settled":
       return `settled:${notification.time}`;
+    case "closed":
+      return `closed:${notification.time}`;
     case "sensor":
       return `${notification.type}:${notification.time}`;
   }

@@ -11,6 +11,9 @@ import { CHECKPOINTS_KEPT_MS, readableCheckpointBefore, dropCheckpointsAfter, ne
 import { limitOfRow } from "./limits";
 import { refreshStaleAlert } from "./stale-alerts";
 
+/** Who the alert history names for the events the evaluation itself records. */
+export const EVALUATION_LABEL = "evaluation on ingest";
+
 export type AlertCounts = { opened: number; escalated: number; cleared: number };
 
 export type StoredState = { current: GaugeEvaluationState; lastCheckpointAt: number | null };
@@ -101,7 +104,9 @@ export type Notification =
   | { kind: "limit"; alertId: number; eventId: number; type: "opened" | "escalated" | "cleared"; event: LimitEvent; rosette: string | null }
   | { kind: "sensor"; alertId: number; eventId: number; type: "opened" | "cleared"; code: string; message: string; time: number; gauges?: string[] }
   | { kind: "flapping"; alertId: number; type: "started"; openings: number; event: LimitEvent; rosette: string | null; since: number }
-  | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number };
+  | { kind: "flapping-settled"; alertId: number; alert: Alert; time: number }
+  /** A person's change closed the alert (limits, material or zero changed): `because` says which and by whom. */
+  | { kind: "closed"; alertId: number; eventId: number; alert: Alert; because: string; time: number; rosette: string | null };
 
 /**
  * Records a subject's limit events in time order. A replay from a checkpoint meets again the events
@@ -206,7 +211,7 @@ async function applyLimitEvent(tx: WriteTx, subject: AlertSubject, event: LimitE
   }
   const [recorded] = await tx
     .insert(alertEvents)
-    .values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: "evaluation on ingest" })
+    .values({ alertId, type: event.type, at, level: event.level, value: event.value, byLabel: EVALUATION_LABEL })
     .returning({ id: alertEvents.id });
   counts[event.type] += 1;
   if (mailed) notifications.push({ kind: "limit", alertId, eventId: recorded!.id, type: event.type, event, rosette: rosette?.tag ?? null });
@@ -227,23 +232,21 @@ export async function followOpenPeaks(tx: WriteTx, subject: AlertSubject, before
   }
 }
 
+/** Flapping alerts that have stayed cleared for a whole window by `upTo`: settled, their summary due. */
+export function quietFlappingAlerts(upTo: number) {
+  return and(eq(alerts.kind, "limit"), isNotNull(alerts.flappingSince), isNull(alerts.settledAt), lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)));
+}
+
 /**
  * A flapping alert has settled when it stayed cleared for the whole window: its summary e-mail
- * goes out then, judged by the readings' own clock (the newest reading evaluated).
+ * goes out then. Ingestion judges by the readings' own clock (the newest reading evaluated); the
+ * settling job by the wall clock, for a gauge that falls quiet with no reading to tell.
  */
-async function settleFlapping(tx: WriteTx, subject: AlertSubject, upTo: number, notifications: Notification[]) {
+export async function settleFlapping(tx: WriteTx, gaugeId: number, upTo: number, notifications: Notification[]) {
   const settled = await tx
     .select()
     .from(alerts)
-    .where(
-      and(
-        eq(alerts.gaugeId, subject.gauge.id),
-        eq(alerts.kind, "limit"),
-        isNotNull(alerts.flappingSince),
-        isNull(alerts.settledAt),
-        lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)),
-      ),
-    );
+    .where(and(eq(alerts.gaugeId, gaugeId), quietFlappingAlerts(upTo)));
   for (const alert of settled) {
     await tx.update(alerts).set({ settledAt: new Date(upTo) }).where(eq(alerts.id, alert.id));
     notifications.push({ kind: "flapping-settled", alertId: alert.id, alert, time: alert.clearedAt!.getTime() });
@@ -258,7 +261,7 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
     await tx.update(alerts).set({ clearedAt: at }).where(eq(alerts.id, open.id));
     const [event] = await tx
       .insert(alertEvents)
-      .values({ alertId: open.id, type: "cleared", at, byLabel: "evaluation on ingest", text: finding.message })
+      .values({ alertId: open.id, type: "cleared", at, byLabel: EVALUATION_LABEL, text: finding.message })
       .returning({ id: alertEvents.id });
     notifications.push({ kind: "sensor", alertId: open.id, eventId: event!.id, type: "cleared", code: finding.code, message: finding.message, time: finding.time });
     return;
@@ -271,7 +274,7 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
     .returning({ id: alerts.id });
   const [event] = await tx
     .insert(alertEvents)
-    .values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: "evaluation on ingest", text: finding.message })
+    .values({ alertId: created!.id, type: "opened", at, level: "warning", byLabel: EVALUATION_LABEL, text: finding.message })
     .returning({ id: alertEvents.id });
   notifications.push({ kind: "sensor", alertId: created!.id, eventId: event!.id, type: "opened", code: finding.code, message: finding.message, time: finding.time });
 }
@@ -381,7 +384,7 @@ async function applyEvaluation(
   await followOpenPeaks(tx, subject, from.current.episodes, result.state.episodes);
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   await storeVerdicts(tx, gauge.id, result.verdicts, replayed ? batch : []);
-  if (batch.length > 0) await settleFlapping(tx, subject, batch.at(-1)!.time, notifications);
+  if (batch.length > 0) await settleFlapping(tx, gauge.id, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
   return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes, verdicts: result.verdicts };
 }

@@ -88,10 +88,7 @@ function convertSamples(index: number, gauge: GaugeEntry, values: ArrayLike<unkn
     const value = values[i];
     if (typeof value !== "number" || !Number.isFinite(value)) return notFinite(index, i, value);
     const result = converter.convert(value, temperature);
-    if (!result.ok) {
-      const code = result.code === "non-finite-value" ? "not-finite" : result.code;
-      return reject(index, code, `Sample ${i}: ${result.message}`);
-    }
+    if (!result.ok) return reject(index, result.code, `Sample ${i}: ${result.message}`);
     if (!Number.isFinite(result.stress)) return reject(index, "not-finite", `Sample ${i} converts to a stress that is not finite; check the gauge's configuration.`);
     stress[i] = result.stress;
   }
@@ -111,7 +108,7 @@ function convertFloats(index: number, converter: GaugeConverter, values: Float32
     const value = values[i]!;
     if (!Number.isFinite(value)) return notFinite(index, i, value);
     const result = converter.convert(value, temperature);
-    if (!result.ok) return reject(index, result.code === "non-finite-value" ? "not-finite" : result.code, `Sample ${i}: ${result.message}`);
+    if (!result.ok) return reject(index, result.code, `Sample ${i}: ${result.message}`);
     const converted = result.stress;
     if (!Number.isFinite(converted)) return reject(index, "not-finite", `Sample ${i} converts to a stress that is not finite; check the gauge's configuration.`);
     stress[i] = converted;

@@ -63,14 +63,13 @@ export async function resolveSensorFault(actor: Actor, id: number, resolution: F
     }
     const now = new Date();
     await tx.update(alerts).set({ clearedAt: now }).where(eq(alerts.id, id));
-    await tx.insert(alertEvents).values({
-      alertId: id,
-      type: "cleared",
-      at: now,
-      byId: actor.kind === "user" ? actor.id : null,
-      byLabel: actorLabel(actor),
-      text: `Accepted as a real step; limits checked again from the jump on. ${text}`,
-    });
+    const message = `Accepted as a real step by ${actorLabel(actor)}; limits are checked again from the jump on. ${text}`;
+    const [event] = await tx
+      .insert(alertEvents)
+      .values({ alertId: id, type: "cleared", at: now, byId: actor.kind === "user" ? actor.id : null, byLabel: actorLabel(actor), text: message })
+      .returning({ id: alertEvents.id });
+    // Those told of the jump are told how it was settled.
+    notifications.push({ kind: "sensor", alertId: id, eventId: event!.id, type: "cleared", code: "jump", message, time: now.getTime() });
     await recordAudit(tx, { actor, action: "alert.accept-step", entityType: "alert", entityKey: String(id), structureId: structure.id, after: { text, since: hold?.since ?? null, ...counts } });
     await queueAlertMails(tx, gauge, notifications);
     return hold?.since ?? null;

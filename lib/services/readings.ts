@@ -2,9 +2,9 @@ import "server-only";
 import { getClient } from "@/db/client";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";
-import { derivedDecimals, flagWords, writtenDecimals } from "@/lib/mechanics";
+import { derivedDecimals, writtenDecimals } from "@/lib/mechanics";
 import { gaugeConfigOf } from "@/lib/gauges/record";
-import { readingsCsvHeader, readingsCsvLine, type ReadingsCsvHeader, type StoredReadingRow } from "@/lib/series/readings-csv";
+import { readingFlagWords, readingsCsvHeader, readingsCsvLine, type ReadingsCsvHeader, type StoredReadingRow } from "@/lib/series/readings-csv";
 import { bucketGrid, chooseSource, createBucketAccumulator, ROLLUP_RESOLUTIONS, type SeriesSource } from "@/lib/series";
 import type { SeriesQuantity } from "@/lib/api/readings-schemas";
 import { resolveGauge } from "./gauges";
@@ -98,7 +98,7 @@ type StoredReading = StoredReadingRow;
 /** Readings of a gauge after `after` (exclusive) and before `to`, oldest first. */
 async function readingsAfter(gaugeId: number, after: number, to: number, limit: number): Promise<StoredReading[]> {
   const result = await getClient().execute({
-    sql: "SELECT t, value, temperature, strain, stress, flags FROM readings WHERE gauge_id = ? AND t > ? AND t < ? ORDER BY t LIMIT ?",
+    sql: "SELECT t, value, temperature, strain, stress, flags, fault FROM readings WHERE gauge_id = ? AND t > ? AND t < ? ORDER BY t LIMIT ?",
     args: [gaugeId, after, to, limit],
   });
   return result.rows as unknown as StoredReading[];
@@ -110,7 +110,7 @@ const toView = (row: StoredReading): ReadingView => ({
   temperature: row.temperature,
   strain: row.strain,
   stress: row.stress,
-  flags: flagWords(row.flags),
+  flags: readingFlagWords(row),
 });
 
 /** Where a listing starts: just after the cursor's reading, or at `from`. */

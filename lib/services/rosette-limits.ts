@@ -3,14 +3,15 @@ import { asc, eq, inArray } from "drizzle-orm";
 import type { z } from "zod";
 import { getClient, getDb, writeTransaction } from "@/db/client";
 import { gauges, rosetteLimits, type Gauge } from "@/db/schema";
-import type { Actor } from "@/lib/auth/actor";
+import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { episodesOf } from "@/lib/alerting/episodes";
 import { evaluateGauge, gaugeAlertSetup, initialGaugeEvaluationState } from "@/lib/alerting/evaluate-gauge";
 import { evaluateRosette, initialRosetteEvaluationState, type FaultTimesOfGauges } from "@/lib/alerting/evaluate-rosette";
 import type { rosetteLimitsBody } from "@/lib/alerting/schema";
 import type { Limit, RosetteLimitQuantity } from "@/lib/limits";
 import { recordAudit } from "./audit";
-import { limitOfRow, storedReadingsBetween, validLimitsOrRefuse, type BacktestResult } from "./limits";
+import { restartRosetteEvaluation } from "./evaluation-control";
+import { limitChanges, limitOfRow, storedReadingsBetween, validLimitsOrRefuse, type BacktestResult } from "./limits";
 import { MATCHED_STRAINS, matchedInstantOf, matchedStrainsArgs } from "./rosette-series";
 import { resolveRosette } from "./rosettes";
 
@@ -40,14 +41,17 @@ export async function getRosetteLimits(actor: Actor, code: string, tag: string):
 }
 
 /**
- * Replaces the rosette's whole limit set; an open alert stays open and clears against the new
- * bounds. The stresses need no yield, so validation is the gauge's without the utilisation check.
+ * Replaces the rosette's whole limit set. A quantity whose limits went or changed starts its
+ * evaluation again and its open alert closes, saying why, as a gauge's does. The stresses need no
+ * yield, so validation is the gauge's without the utilisation check.
  */
 export async function replaceRosetteLimits(actor: Actor, code: string, tag: string, inputs: RosetteLimitInput[]): Promise<RosetteLimit[]> {
   const { structure, rosette } = await resolveRosette(actor, code, tag, "limits:edit");
   const limits = validLimitsOrRefuse(inputs);
   const before = await limitsOfRosette(rosette.id);
   await writeTransaction(async (tx) => {
+    const [gaugeA] = await tx.select().from(gauges).where(eq(gauges.id, rosette.gaugeAId));
+    await restartRosetteEvaluation(tx, { gauge: gaugeA!, rosette }, limitChanges(before, limits), actorLabel(actor));
     await tx.delete(rosetteLimits).where(eq(rosetteLimits.rosetteId, rosette.id));
     if (limits.length > 0) {
       await tx.insert(rosetteLimits).values(limits.map((limit) => ({ rosetteId: rosette.id, upper: null, lower: null, ...limit })));

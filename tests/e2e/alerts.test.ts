@@ -44,7 +44,7 @@ describe("alerts in the app", () => {
     await expect(owner.getByRole("form", { name: "Clear by hand" }).count()).resolves.toBe(0);
   });
 
-  // The seed gives L3-C2 a loose connector's spike: a jump that holds the gauge in sensor fault.
+  // The seed gives L3-C2 a loose connector's step: a jump that holds the gauge in sensor fault.
   it("on a phone, a held jump says limits are not being checked and offers its two resolutions", async () => {
     const phone = await (await newContext(browser, PHONE)).newPage();
     await new SignInPage(phone).signInAs("engineer");

@@ -98,7 +98,7 @@ describe("logger-file upload", () => {
     const wallClock = (i: number) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", dateStyle: "medium", timeStyle: "short" }).format(fileStart() + i * 60_000);
     await expect(page.getByTestId("arrival-row").allTextContents()).resolves.toEqual([`LC-M12,997${wallClock(0)}${wallClock(2999)}`]);
     const rows = await upload.rejectedRows().allTextContents();
-    expect(rows[0]).toMatch(/^12non-finite-value.*not a finite number/);
+    expect(rows[0]).toMatch(/^12not-finite.*not a finite number/);
     expect(rows[1]).toMatch(/^502unknown-gauge.*LC-X9/);
     expect(rows[2]).toMatch(/^2002invalid-time.*ISO-8601/);
     await saveScreenshot(page, "upload-report");
@@ -107,7 +107,7 @@ describe("logger-file upload", () => {
     const report = fs.readFileSync((await download.path())!, "utf8").split("\n");
     expect(report[0]).toMatch(/3000 rows, 2997 stored, 0 duplicates, 3 rejected/);
     expect(report[1]).toBe("line,code,message");
-    expect(report[2]).toMatch(/^12,non-finite-value,/);
+    expect(report[2]).toMatch(/^12,not-finite,/);
     await context.close();
   });
 });

@@ -3,14 +3,17 @@ import { beforeAll, beforeEach, describe, expect, it } from "vitest";
 import * as readingsRoute from "@/app/api/v1/structures/[code]/readings/route";
 import * as alertsRoute from "@/app/api/v1/structures/[code]/alerts/route";
 import * as resolveRoute from "@/app/api/v1/alerts/[id]/resolve/route";
+import * as gaugeReadingsRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/readings/route";
 import { getDb, writeTransaction } from "@/db/client";
 import { alertEvents, alerts, evaluationStates, gauges, mailOutbox, readings, rollups } from "@/db/schema";
 import { runDailyDigest } from "@/jobs/daily-digest";
 import { runStaleWatch } from "@/jobs/stale-watch";
+import { EVALUATION_STATE_VERSION } from "@/lib/alerting/evaluation-state";
 import { FAULT_BITS } from "@/lib/limits";
 import { handleAlert, openSensorFaults } from "@/lib/services/alerts";
-import { createGauge, getGauge, recordZero } from "@/lib/services/gauges";
+import { createGauge, getGauge, recordZero, updateGauge } from "@/lib/services/gauges";
 import { replaceLimits } from "@/lib/services/limits";
+import { setAlertMailMode } from "@/lib/services/memberships";
 import type { UserActor } from "@/lib/auth/actor";
 import { microstrainGauge } from "../fixtures/gauges";
 import { apiRequest, loggerToken, makeStructure, makeUser, params, userToken } from "./helpers";
@@ -114,6 +117,63 @@ describe("changing limits", () => {
   });
 });
 
+describe("an alert closed by a configuration change", () => {
+  const mails = async () => getDb().select().from(mailOutbox).orderBy(mailOutbox.id);
+
+  it("is e-mailed to the people told it opened, saying it closed because the limits were changed and by whom, once", async () => {
+    await newGauge("CL", [{ quantity: "strain", level: "warning", upper: 100 }]);
+    await post("CL", [150], 0);
+    const opened = await mails();
+    expect(opened.map((mail) => mail.toAddress).sort()).toEqual(["eng@life.example", "own@life.example"]);
+    await getDb().delete(mailOutbox);
+    await replaceLimits(engineer, "LIFE", "CL", [{ quantity: "strain", level: "warning", upper: 200 }]);
+    const closed = await mails();
+    expect(closed.map((mail) => mail.toAddress).sort()).toEqual(["eng@life.example", "own@life.example"]);
+    // Not "back within": the reading of 150 µε stays beyond the old bound; a person's change closed it.
+    expect(closed[0]!.subject).toBe("Closed: LIFE CL strain alert at the warning limit closed (peak 150 µε)");
+    expect(closed[0]!.text).toContain("Closed because the limits were changed by eng@life.example.");
+    expect(closed[0]!.text).not.toContain("back within");
+    // The same change again finds no open alert: nobody is told twice.
+    await replaceLimits(engineer, "LIFE", "CL", [{ quantity: "strain", level: "warning", upper: 250 }]);
+    expect(await mails()).toHaveLength(2);
+  });
+
+  it("says so when the limits were removed, the material changed or a new zero was recorded", async () => {
+    await newGauge("CR", [{ quantity: "strain", level: "watch", upper: 100 }]);
+    await newGauge("CM", [{ quantity: "stress", level: "watch", upper: 20 }]);
+    await newGauge("CZ", [{ quantity: "strain", level: "watch", upper: 100 }]);
+    // 150 µε × 200 000 MPa = 30 MPa, beyond the 20 MPa bound (σ = E·ε).
+    for (const tag of ["CR", "CM", "CZ"]) await post(tag, [150], 0);
+    await getDb().delete(mailOutbox);
+    await replaceLimits(engineer, "LIFE", "CR", []);
+    await updateGauge(engineer, "LIFE", "CM", { material: { E: 210000, nu: 0.3, alpha: 12, yield: 355 } });
+    await recordZero(engineer, "LIFE", "CZ", { value: 150, temperature: 10, time: new Date(at(0)).toISOString(), reason: "re-zeroed" });
+    const sent = (await mails()).filter((mail) => mail.toAddress === "eng@life.example").map((mail) => mail.text);
+    expect(sent).toHaveLength(3);
+    expect(sent[0]).toContain("Closed because the limits of this quantity were removed by eng@life.example.");
+    expect(sent[1]).toContain("Closed because the gauge's material was changed by eng@life.example.");
+    expect(sent[2]).toContain("Closed because a new zero was recorded by eng@life.example.");
+  });
+
+  it("reaches a member who takes the digest in the digest, in the same words", async () => {
+    const digestReader = await makeUser("engineer", "digest@life.example");
+    await makeStructure("LIFED", [digestReader]);
+    await setAlertMailMode(digestReader, "LIFED", "digest");
+    const dayLogger = await loggerToken("LIFED");
+    await createGauge(digestReader, "LIFED", microstrainGauge("DG"));
+    await replaceLimits(digestReader, "LIFED", "DG", [{ quantity: "strain", level: "watch", upper: 100 }]);
+    const body = { readings: [{ gauge: "DG", time: new Date(at(0)).toISOString(), value: 150, temperature: 10 }] };
+    await readingsRoute.POST(apiRequest("/structures/LIFED/readings", { token: dayLogger, body }), params({ code: "LIFED" }));
+    await replaceLimits(digestReader, "LIFED", "DG", []);
+    expect((await mails()).filter((mail) => mail.toAddress === "digest@life.example")).toEqual([]);
+    await runDailyDigest(Date.now() + DAY);
+    const [digest] = (await mails()).filter((mail) => mail.toAddress === "digest@life.example");
+    expect(digest!.text).toMatch(/strain alert at the watch limit closed: Closed because the limits of this quantity were removed\. .*\(digest@life\.example\)/);
+    // Back to e-mails as they happen, so the later digest test of this file sees only its own readers.
+    await setAlertMailMode(digestReader, "LIFED", "immediate");
+  });
+});
+
 describe("a new zero", () => {
   it("is never taken for a jump", async () => {
     await newGauge("RZ", [{ quantity: "strain", level: "watch", upper: 500 }]);
@@ -171,9 +231,14 @@ describe("a jump", () => {
 
   it("accepted as a real step: the quarantined readings are checked against the limits from the jump on", async () => {
     const { jump } = await jumpOn("JA");
+    await getDb().delete(mailOutbox);
     const response = await resolve(jump.id, "accept-step");
     expect(response.status).toBe(200);
     expect((await response.json()).clearedAt).not.toBeNull();
+    // The engineer, told of the jump at once, is told how it was settled (the owner reads sensor faults in the digest).
+    const resolved = (await getDb().select().from(mailOutbox)).filter((mail) => mail.subject.startsWith("Resolved: LIFE JA"));
+    expect(resolved.map((mail) => mail.toAddress)).toEqual(["eng@life.example"]);
+    expect(resolved[0]!.text).toContain("Accepted as a real step by eng@life.example");
     const limit = (await alertsOf("JA")).find((alert) => alert.kind === "limit");
     expect(limit).toMatchObject({ level: "watch", openedAt: new Date(at(2)), peak: 2020, clearedAt: null });
     expect(await faultsOf("JA")).toEqual([0, 0, 0, 0, 0]);
@@ -183,7 +248,10 @@ describe("a jump", () => {
 
   it("settled by a new zero: the reading at the jump is the zero, the readings between stay set aside, later ones are checked", async () => {
     const { jump } = await jumpOn("JZ");
+    await getDb().delete(mailOutbox);
     expect((await resolve(jump.id, "new-zero")).status).toBe(200);
+    const [resolved] = (await getDb().select().from(mailOutbox)).filter((mail) => mail.subject.startsWith("Resolved: LIFE JZ"));
+    expect(resolved!.text).toContain("Resolved by a new zero recorded by eng@life.example");
     expect((await getGauge(engineer, "LIFE", "JZ")).zero).toMatchObject({ value: 2000 });
     const [cleared] = (await alertsOf("JZ")).filter((alert) => alert.code === "jump");
     expect(cleared!.clearedAt).not.toBeNull();
@@ -202,6 +270,50 @@ describe("a jump", () => {
   });
 });
 
+/** The gauge's readings through the API, as time index and flags. */
+async function apiFlags(tag: string) {
+  const query = `from=${new Date(T0 - HOUR).toISOString()}&to=${new Date(T0 + DAY).toISOString()}`;
+  const response = await gaugeReadingsRoute.GET(apiRequest(`/structures/LIFE/gauges/${tag}/readings?${query}`, { token: engineerToken }), params({ code: "LIFE", tag }));
+  expect(response.status).toBe(200);
+  return ((await response.json()).readings as { time: string; flags: string[] }[]).map((reading) => reading.flags);
+}
+
+describe("a lone spike", () => {
+  // Common practice: one reading far from both neighbours is noise on the channel, a fault of that
+  // reading alone; a change of level that stays is a jump. 2 600 µε out and straight back is > 1 500 µε both ways.
+  it("is set aside on its own: no sensor alert, nothing held, the following good readings are checked against the limits", async () => {
+    await newGauge("SPK", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    const result = await post("SPK", [100, 100, 2700, 100, 600], 0);
+    // The spike opens nothing; the 600 µε reading after it does.
+    expect(result.alerts.opened).toBe(1);
+    const raised = await alertsOf("SPK");
+    expect(raised.map((alert) => [alert.kind, alert.openedAt])).toEqual([["limit", new Date(at(4))]]);
+    expect(await faultsOf("SPK")).toEqual([0, 0, FAULT_BITS.spike, 0, 0]);
+    expect(await hourlyMaxStrain("SPK")).toBe(600);
+    expect((await openSensorFaults([await gaugeId("SPK")])).size).toBe(0);
+    // 2 700 µε is also 540 MPa, past the 355 MPa yield (σ = E·ε): outside the linear range as well.
+    expect(await apiFlags("SPK")).toEqual([[], [], ["outside-linear-range", "spike"], [], []]);
+  });
+
+  it("sent last in a batch waits for the next reading: back, it stays a spike; still up, it becomes the jump", async () => {
+    await newGauge("SPB", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    await post("SPB", [100, 2700], 0);
+    expect(await faultsOf("SPB")).toEqual([0, FAULT_BITS.spike]);
+    expect(await alertsOf("SPB")).toEqual([]);
+    await post("SPB", [110], 2);
+    expect(await faultsOf("SPB")).toEqual([0, FAULT_BITS.spike, 0]);
+
+    await newGauge("JPB", [{ quantity: "strain", level: "watch", upper: 500 }]);
+    await post("JPB", [100, 2700], 0);
+    const next = await post("JPB", [2710], 2);
+    expect(next.alerts.opened).toBe(0);
+    expect(await faultsOf("JPB")).toEqual([0, FAULT_BITS.jump, FAULT_BITS["after-jump"]]);
+    const [jump] = await alertsOf("JPB");
+    expect(jump).toMatchObject({ kind: "sensor", code: "jump", openedAt: new Date(at(1)), clearedAt: null });
+    expect(await apiFlags("JPB")).toEqual([[], ["outside-linear-range", "jump"], ["outside-linear-range", "after-jump"]]);
+  });
+});
+
 describe("stored evaluation state", () => {
   it("of an unknown version is rebuilt from the stored readings instead of breaking ingestion", async () => {
     await newGauge("SV", [{ quantity: "strain", level: "watch", upper: 100 }]);
@@ -213,7 +325,7 @@ describe("stored evaluation state", () => {
     expect(back.alerts).toEqual({ opened: 0, escalated: 0, cleared: 1 });
     expect((await alertsOf("SV")).map((alert) => alert.clearedAt !== null)).toEqual([true]);
     const [row] = await getDb().select().from(evaluationStates).where(eq(evaluationStates.gaugeId, id));
-    expect((row!.state as { current: { version: number } }).current.version).toBe(2);
+    expect((row!.state as { current: { version: number } }).current.version).toBe(EVALUATION_STATE_VERSION);
   });
 });
 

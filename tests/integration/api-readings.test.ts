@@ -105,8 +105,8 @@ describe("per-reading validation", () => {
     expect(body.alerts).toEqual({ opened: 0, escalated: 0, cleared: 0 });
     const codes = Object.fromEntries(body.rejected.map((r: { index: number; code: string }) => [r.index, r.code]));
     expect(codes).toEqual({
-      1: "non-finite-value",
-      2: "non-finite-value",
+      1: "not-finite",
+      2: "not-finite",
       3: "missing-gauge",
       4: "invalid-time",
       5: "invalid-time",
@@ -117,7 +117,7 @@ describe("per-reading validation", () => {
       10: "temperature-required",
       11: "non-positive-frequency",
       13: "invalid-reading",
-      14: "non-finite-temperature",
+      14: "not-finite",
       15: "missing-time",
       16: "missing-value",
       18: "invalid-time",
@@ -169,8 +169,8 @@ describe("CSV", () => {
     expect(body.accepted).toBe(3);
     expect(body.rejected.map((r: { index: number; code: string }) => [r.index, r.code])).toEqual([
       [2, "wrong-column-count"],
-      [3, "non-finite-value"],
-      [4, "non-finite-value"],
+      [3, "not-finite"],
+      [4, "not-finite"],
     ]);
     expect(body.rejected[0].message).toMatch(/decimal comma/);
     expect(body.rejected[1].message).toMatch(/point/);
@@ -248,6 +248,9 @@ describe("OpenAPI document", () => {
     const post = (await openapi().json()).paths["/structures/{code}/readings"].post;
     expect(Object.keys(post.requestBody.content)).toEqual(["application/json", "text/csv"]);
     for (const code of Object.keys(REJECTION_CODES)) expect(post.description).toContain(`\`${code}\``);
+    // The machine API contract names these codes, spelt so: one code for any number that is not finite.
+    expect(Object.keys(REJECTION_CODES)).toEqual(expect.arrayContaining(["not-finite", "before-zero", "temperature-out-of-range"]));
+    expect(Object.keys(REJECTION_CODES).filter((code) => code.startsWith("non-finite"))).toEqual([]);
     expect(Object.keys(post.responses)).toEqual(expect.arrayContaining(["200", "400", "413", "415"]));
   });
 });

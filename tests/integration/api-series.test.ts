@@ -185,7 +185,7 @@ describe("logger-file upload", () => {
     expect(done).toMatchObject({ type: "done", rows: 12_000, accepted: 11_998, duplicates: 0, rejected: 2, rejectionsTruncated: false });
     // The header is line 1, so row index 99 sits on line 101.
     expect(done.rejections.map((r: { line: number; code: string }) => [r.line, r.code])).toEqual([
-      [101, "non-finite-value"],
+      [101, "not-finite"],
       [7002, "unknown-gauge"],
     ]);
     // Per gauge: S1's 11 998 stored readings, one a minute from 1 June 2025 00:00 to 11 999 minutes later

@@ -37,17 +37,19 @@ const fatigueOf = async (tag: string) =>
 beforeAll(async () => {
   engineer = await makeUser("engineer");
   await makeStructure("FT", [engineer]);
-  for (const tag of ["RZ", "SP", "GAP"]) await createGauge(engineer, "FT", microstrainGauge(tag, { detailCategory: 71, expectedInterval: 600 }));
+  for (const tag of ["RZ", "SP", "SK", "GAP"]) await createGauge(engineer, "FT", microstrainGauge(tag, { detailCategory: 71, expectedInterval: 600 }));
 
   // RZ: the example, a re-zero that moves later strains up by 500 µε (100 MPa), the example again.
   await ingest(series("RZ", T0, ASTM_EXAMPLE));
   await recordZero(engineer, "FT", "RZ", { value: -500, temperature: 10, time: new Date(T0 + 9 * STEP).toISOString(), reason: "re-bonded after repair" });
   await ingest(series("RZ", T0 + 9 * STEP, ASTM_EXAMPLE));
 
-  // SP: the start of the example, then a step of 3 000 µε (600 MPa), more than the 1 500 µε a
-  // structure moves between readings: a jump. The readings after it are each plausible, but they
-  // are held as faulty until an engineer says whether the step was real.
-  await ingest(series("SP", T0, [-2, 1, -3, 5, -1, 60, -1, 3, -4, 4, -2]));
+  // SP: the start of the example, then a step of 3 050 µε (610 MPa), more than the 1 500 µε a
+  // structure moves between readings, and the strain stays up there: a jump. The readings after it
+  // are each plausible, but they are held as faulty until an engineer says whether the step was real.
+  await ingest(series("SP", T0, [-2, 1, -3, 5, -1, 60, 59, 63, 56, 64, 58]));
+  // SK: the example with one spike of 3 050 µε put in, straight back the next reading: that reading alone is left out.
+  await ingest(series("SK", T0, [-2, 1, -3, 5, -1, 60, 3, -4, 4, -2]));
 
   // GAP: the example, five days of logger outage, the example again.
   await ingest([...series("GAP", T0, ASTM_EXAMPLE), ...series("GAP", T0 + 5 * DAY, ASTM_EXAMPLE)]);
@@ -74,6 +76,14 @@ describe("fatigue counts only what happened", () => {
       { range: 80, count: 0.5 },
     ]);
     expect(fatigue.cyclesCounted).toBe(2);
+  });
+
+  it("leaves out a lone spike only: the readings after it count, and the example's own cycles come out", async () => {
+    const fatigue = await fatigueOf("SK");
+    expect(fatigue.readingsSkipped).toBe(1);
+    expect(fatigue.readingsUsed).toBe(9);
+    // ASTM E1049-85 (2017) worked example: ranges 3 ×0.5, 4 ×1.5, 6 ×0.5, 8 ×1.0, 9 ×0.5 (units of 10 MPa).
+    expect(fatigue.cycles).toEqual(EXAMPLE_BINS);
   });
 
   it("divides the damage by the time covered by readings, not by a span that includes an outage", async () => {

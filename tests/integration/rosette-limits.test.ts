@@ -230,3 +230,23 @@ describe("rosette limits backtest", () => {
     ]);
   });
 });
+
+// After the backtest, which compares live evaluation with the stored data for every rosette above.
+describe("changing a rosette's limits", () => {
+  it("closes its open alert when its limits are removed, and tells the people told it opened why and by whom", async () => {
+    await rosetteWithLimit("GONE", ["ga", "gb", "gc"], { upper: 100 });
+    const opened = await ingestJson(engineer, "WEB", instant(0, ABOVE, ["ga", "gb", "gc"]));
+    expect(opened.alerts.opened).toBe(1);
+    await getDb().delete(mailOutbox);
+    expect((await put(tokens.engineer!, { limits: [] }, "GONE")).status).toBe(200);
+    const [alert] = await alertsOfRosette("GONE");
+    expect(alert!.clearedAt).not.toBeNull();
+    const mails = (await getDb().select().from(mailOutbox)).filter((mail) => mail.toAddress === engineer.email);
+    // The peak is the von Mises stress worked out by hand above (101.81 MPa, shown to a tenth).
+    expect(mails.map((mail) => mail.subject)).toEqual(["Closed: WEB rosette GONE von Mises stress alert at the watch limit closed (peak 101.8 MPa)"]);
+    expect(mails[0]!.text).toContain(`Closed because the limits of this quantity were removed by ${engineer.email}.`);
+    // Its machine starts again: the same values open a new alert.
+    expect((await put(tokens.engineer!, { limits: [{ quantity: "vonMises", level: "watch", upper: 100 }] }, "GONE")).status).toBe(200);
+    expect((await ingestJson(engineer, "WEB", instant(1, ABOVE, ["ga", "gb", "gc"]))).alerts.opened).toBe(1);
+  });
+});

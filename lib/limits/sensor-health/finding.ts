@@ -3,9 +3,11 @@ export type SensorFaultCode = "stale" | "flat-line" | "jump" | "out-of-range";
 /**
  * A reading's sensor-health verdict as bits, stored with the reading (0: healthy). `after-jump`
  * marks the readings that follow an unresolved jump: their reference may have moved, so they are
- * quarantined until an engineer accepts the step or records a new zero.
+ * quarantined until an engineer accepts the step or records a new zero. `spike` marks a lone
+ * reading far from its neighbours (and a step not yet judged by the next reading): set aside on
+ * its own, holding nothing after it.
  */
-export const FAULT_BITS = { jump: 1, "flat-line": 2, "out-of-range": 4, "after-jump": 8 } as const;
+export const FAULT_BITS = { jump: 1, "flat-line": 2, "out-of-range": 4, "after-jump": 8, spike: 16 } as const;
 export type FaultName = keyof typeof FAULT_BITS;
 
 /** The names of a verdict's bits, in a fixed order. */

@@ -16,9 +16,16 @@ import {
 // Reference: the detectors' own single-step definitions (stepSensorRange, stepJump, stepFlatLine),
 // folded one sample at a time as inspectReadings documents: only a sample strictly after the last
 // one taken in counts, a raw value outside the sensor's range is not fed to the other detectors,
-// and a detector without thresholds does not run. Whatever way the batch computes, it must agree.
+// and a detector without thresholds does not run; a reading the jump detector holds as a suspect is a
+// spike until its jump finding names it. Whatever way the batch computes, it must agree.
 
 type Fold = { state: SensorHealthState; findings: SensorFinding[]; readings: CheckedReading[] };
+
+/** The suspect reading at `time`, if taken in here, is a jump after all. */
+function markJump(readings: CheckedReading[], time: number) {
+  const index = readings.findIndex((reading) => reading.time === time);
+  if (index >= 0) readings[index] = { ...readings[index]!, faultBits: (readings[index]!.faultBits & ~FAULT_BITS.spike) | FAULT_BITS.jump };
+}
 
 function foldSingleSteps(thresholds: SensorHealthThresholds, state: SensorHealthState, samples: readonly Sample[]): Fold {
   let current = state;
@@ -40,7 +47,8 @@ function foldSingleSteps(thresholds: SensorHealthThresholds, state: SensorHealth
     if (jump) current = { ...current, jump: jump.state };
     if (flatLine) current = { ...current, flatLine: flatLine.state };
     for (const step of [jump, flatLine]) if (step?.finding) findings.push(step.finding);
-    const faultBits = (jump?.fault ? FAULT_BITS.jump : 0) | (flatLine?.fault ? FAULT_BITS["flat-line"] : 0);
+    if (jump?.finding) markJump(readings, jump.finding.time);
+    const faultBits = (jump?.fault ? FAULT_BITS.spike : 0) | (flatLine?.fault ? FAULT_BITS["flat-line"] : 0);
     readings.push({ time: sample.time, value: sample.value, fault: faultBits !== 0, faultBits });
   }
   return { state: current, findings, readings };
@@ -56,6 +64,7 @@ function inspectInParts(thresholds: SensorHealthThresholds, state: SensorHealthS
     const inspection = inspectReadings(thresholds, current, samples.slice(bounds[part], bounds[part + 1]));
     current = inspection.state;
     findings.push(...inspection.findings);
+    for (const time of inspection.earlierJumps) markJump(readings, time);
     readings.push(...inspection.readings);
   }
   return { state: current, findings, readings };
@@ -87,7 +96,10 @@ const rawArb = fc.oneof(fc.integer({ min: -1200, max: 1200 }), fc.constantFrom(N
 const stateArb: fc.Arbitrary<SensorHealthState> = fc.record({
   lastTime: fc.option(fc.integer({ min: -3, max: 3 }), { nil: null }),
   flatLine: fc.record({ active: fc.boolean(), recent: fc.array(rawArb, { maxLength: 9 }) }),
-  jump: fc.record({ previous: fc.option(rawArb, { nil: null }) }),
+  jump: fc.record({
+    previous: fc.option(rawArb, { nil: null }),
+    suspect: fc.option(fc.record({ time: fc.integer({ min: -3, max: 3 }), change: fc.integer({ min: -500, max: 500 }) }), { nil: null }),
+  }),
   range: fc.record({ active: fc.boolean() }),
 });
 

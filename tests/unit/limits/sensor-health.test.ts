@@ -2,6 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   checkStale,
+  FAULT_BITS,
   evaluateReadings,
   initialEpisodeState,
   initialSensorHealthState,
@@ -36,7 +37,8 @@ function scan<State>(step: (state: State, sample: Sample) => DetectorStep<State>
     const result = step(state, sample);
     state = result.state;
     faults.push(result.fault);
-    if (result.finding) findings.push(`${result.finding.code} ${result.finding.event} @${sample.time / MINUTE}`);
+    // At the reading it is about: a jump is found at its suspect, one reading before the reading that shows it.
+    if (result.finding) findings.push(`${result.finding.code} ${result.finding.event} @${result.finding.time / MINUTE}`);
   }
   return { findings, faults };
 }
@@ -106,16 +108,20 @@ describe("flat line", () => {
 
 describe("jump", () => {
   const jump = (state: JumpState, sample: Sample) => stepJump({ maxStep: 100 }, state, sample);
-  const initial: JumpState = { previous: null };
+  const initial: JumpState = { previous: null, suspect: null };
 
-  it("flags a change larger than the plausible maximum, not one equal to it", () => {
-    const { findings, faults } = scan(jump, initial, [0, 100, 201]);
+  it("holds a change larger than the plausible maximum as a suspect, not one equal to it, and finds the jump when the next reading stays", () => {
+    const { findings, faults } = scan(jump, initial, [0, 100, 201, 205]);
     expect(findings).toEqual(["jump raised @2"]);
-    expect(faults).toEqual([false, false, true]);
+    expect(faults).toEqual([false, false, true, false]);
   });
 
-  it("shows a single spike as a jump out and a jump back", () => {
-    expect(scan(jump, initial, [0, 500, 0, 10]).findings).toEqual(["jump raised @1", "jump raised @2"]);
+  // Common practice: a lone value far from both neighbours is a spike (noise on the channel), a
+  // fault of that reading alone; a change of level that stays is a step (a jump of the sensor or the structure).
+  it("takes a lone spike, out and straight back, for a fault of that reading alone, with no jump", () => {
+    const { findings, faults } = scan(jump, initial, [0, 500, 0, 10]);
+    expect(findings).toEqual([]);
+    expect(faults).toEqual([false, true, false, false]);
   });
 
   it("after a lasting offset the new level becomes the reference", () => {
@@ -123,8 +129,10 @@ describe("jump", () => {
   });
 
   it("states the change and the threshold in its message, rounded and in µε", () => {
-    const { finding } = stepJump({ maxStep: 100 }, { previous: 20 }, { time: 0, raw: 0, value: -230.2770717615213 });
-    expect(finding!.message).toContain("changed by -250 µε from one reading to the next, more than the 100 µε");
+    const suspect = stepJump({ maxStep: 100 }, { previous: 20, suspect: null }, { time: 0, raw: 0, value: -230.2770717615213 });
+    const { finding } = stepJump({ maxStep: 100 }, suspect.state, { time: 1, raw: 0, value: -231 });
+    expect(finding).toMatchObject({ time: 0 });
+    expect(finding!.message).toContain("changed by -250 µε from one reading to the next and stayed there, more than the 100 µε");
   });
 
   it("gives a raw value outside the sensor's range its unit", () => {
@@ -172,7 +180,7 @@ describe("inspecting a batch", () => {
   it("ignores repeated and late samples, as limit evaluation does", () => {
     const first = inspectReadings(thresholds, initialSensorHealthState(), samples([0, 10]));
     const again = inspectReadings(thresholds, first.state, [...samples([0, 10]), { time: 30_000, raw: 500, value: 500 }]);
-    expect(again).toEqual({ state: first.state, findings: [], readings: [] });
+    expect(again).toEqual({ state: first.state, findings: [], readings: [], earlierJumps: [] });
   });
 
   it("finds the same faults whatever the batch sizes, with the state stored as JSON between batches", () => {
@@ -193,10 +201,22 @@ describe("inspecting a batch", () => {
     );
   });
 
-  it("keeps a spike no structure can make from opening a structural alert", () => {
+  it("keeps a spike no structure can make from opening a structural alert, and holds nothing after it", () => {
     const health = inspectReadings(thresholds, initialSensorHealthState(), samples([20, 30, 800, 25, 30]));
     const limits = limitSet({ level: "watch", upper: 150 });
-    expect(codes(health.findings)).toEqual(["jump raised @2", "jump raised @3"]);
+    expect(codes(health.findings)).toEqual([]);
+    expect(health.readings.map((reading) => reading.faultBits)).toEqual([0, 0, FAULT_BITS.spike, 0, 0]);
     expect(evaluateReadings(limits, initialEpisodeState(), health.readings).events).toEqual([]);
+  });
+
+  it("marks a suspect a jump once the next reading stays away, in the same batch or a later one", () => {
+    const whole = inspectReadings(thresholds, initialSensorHealthState(), samples([20, 800, 810]));
+    expect(whole.readings.map((reading) => reading.faultBits)).toEqual([0, FAULT_BITS.jump, 0]);
+    expect(codes(whole.findings)).toEqual(["jump raised @1"]);
+    const first = inspectReadings(thresholds, initialSensorHealthState(), samples([20, 800]));
+    expect(first.readings.map((reading) => reading.faultBits)).toEqual([0, FAULT_BITS.spike]);
+    const next = inspectReadings(thresholds, first.state, samples([810], 2 * MINUTE));
+    expect(next.earlierJumps).toEqual([MINUTE]);
+    expect(codes(next.findings)).toEqual(["jump raised @1"]);
   });
 });

@@ -47,7 +47,7 @@ describe("every input kind", () => {
 
   it.each([Number.NaN, Infinity, -Infinity])("refuses a reading of %d", (value) => {
     for (const config of EVERY_INPUT) {
-      expect(prepared(config).convert(value, 18)).toMatchObject({ ok: false, code: "non-finite-value" });
+      expect(prepared(config).convert(value, 18)).toMatchObject({ ok: false, code: "not-finite" });
     }
   });
 });

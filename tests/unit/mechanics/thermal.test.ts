@@ -152,7 +152,7 @@ describe("temperature that compensation needs", () => {
   it("refuses a non-finite temperature", () => {
     expect(prepared(foilOnHost(CHECK_STEEL, 11)).convert(100, Number.NaN)).toMatchObject({
       ok: false,
-      code: "non-finite-temperature",
+      code: "not-finite",
     });
   });
 
