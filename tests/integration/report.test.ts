@@ -21,7 +21,8 @@ import { storeReadings, type StoredReading } from "../fixtures/readings";
 
 const HOUR = 3_600_000;
 const TEN_MINUTES = 600_000;
-const OCTOBER = monthPeriod({ year: 2026, month: 10 });
+const OCTOBER_REQUEST = { month: { year: 2026, month: 10 } };
+const OCTOBER = monthPeriod(OCTOBER_REQUEST.month, "UTC");
 const START = OCTOBER.from.getTime();
 /** Made on 2 November: October is over, so every hour of it was expected. */
 const NOW = new Date(Date.UTC(2026, 10, 2, 9));
@@ -124,7 +125,7 @@ beforeAll(async () => {
 
 describe("the structure report", () => {
   it("gives each gauge's extremes from the daily roll-ups, the readings either side of the month left out", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     expect(report.period).toMatchObject({ name: "October 2026", key: "2026-10", lastDay: "2026-10-31", from: "2026-10-01T00:00:00.000Z" });
     const g1 = report.gauges.find((gauge) => gauge.tag === "G1")!;
     expect(g1.stress).toEqual({ min: TROUGH.stress, max: PEAK.stress, unit: "MPa" });
@@ -135,7 +136,7 @@ describe("the structure report", () => {
   });
 
   it("measures completeness and finds the planted gap (by hand: 31 × 144 = 4464 expected, 72 missing)", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const [g1, g2, g3] = report.gauges;
     expect(g1!.readings).toEqual({ received: 4392, expected: 4464, completeness: 4392 / 4464, surplus: 0 });
     expect(g1!.gaps).toEqual({ list: [{ start: "2026-10-10T06:00:00.000Z", end: "2026-10-10T18:00:00.000Z", hours: 12 }], more: 0, totalHours: 12 });
@@ -149,7 +150,7 @@ describe("the structure report", () => {
   });
 
   it("takes fatigue damage from the fatigue service where a category is set, and says 'not assessed' elsewhere", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const history = october(g2History).slice(2).map((row) => row.stress);
     expect(report.gauges[0]!.fatigue).toEqual({ status: "not-assessed" });
     const g2 = report.gauges[1]!.fatigue;
@@ -162,7 +163,7 @@ describe("the structure report", () => {
   });
 
   it("lists the alerts open in the period with how they were handled, and takes the worst level", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     expect(report.summary.level).toBe("warning");
     expect(report.summary.alerts).toEqual({ watch: 0, warning: 1, critical: 0, sensor: 1 });
     expect(report.alerts.map((alert) => [alert.kind, alert.openedBeforePeriod])).toEqual([
@@ -177,14 +178,14 @@ describe("the structure report", () => {
   });
 
   it("calls a period without readings 'no data', never all clear", async () => {
-    const report = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 9 }), NOW);
+    const report = await structureReport(owners[0]!, "RPT", { month: { year: 2026, month: 9 } }, NOW);
     expect(report.summary.level).toBe("critical");
-    const august = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW);
+    const august = await structureReport(owners[0]!, "RPT", { month: { year: 2026, month: 8 } }, NOW);
     // No gauge was installed yet: none in the report, and nothing to call all clear.
     expect(august.gauges).toEqual([]);
     expect(august.summary.level).toBe("no-data");
     // 3 November: the gauges are installed and nothing came in.
-    const silentDay = await structureReport(owners[0]!, "RPT", { from: new Date(Date.UTC(2026, 10, 3)), to: new Date(Date.UTC(2026, 10, 4)) }, new Date(Date.UTC(2026, 10, 5)));
+    const silentDay = await structureReport(owners[0]!, "RPT", { firstDay: "2026-11-03", lastDay: "2026-11-03" }, new Date(Date.UTC(2026, 10, 5)));
     expect(silentDay.gauges.map((gauge) => gauge.readings)).toEqual(Array(3).fill({ received: 0, expected: 144, completeness: 0, surplus: 0 }));
     expect(silentDay.summary.level).toBe("no-data");
   });
@@ -243,7 +244,7 @@ describe("GET /structures/{code}/report", () => {
 
 describe("the report PDF", () => {
   it("carries the structure, the gauges, the alert handling and the cautions in SI units", async () => {
-    const { text, pages } = await pdfText(await renderReportPdf(await structureReport(owners[0]!, "RPT", OCTOBER, NOW)));
+    const { text, pages } = await pdfText(await renderReportPdf(await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW)));
     expect(pages).toBeGreaterThanOrEqual(1);
     expect(text).toContain("Structure RPT (RPT)");
     expect(text).toContain("October 2026");
@@ -264,8 +265,8 @@ describe("the report PDF", () => {
   it("grows by pages with the number of gauges", async () => {
     await makeStructure("MANY", [engineer]);
     for (let i = 1; i <= 14; i++) await createGauge(engineer, "MANY", gaugeInput(`M${String(i).padStart(2, "0")}`));
-    const none = await pdfText(await renderReportPdf(await structureReport(engineer, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW)));
-    const many = await pdfText(await renderReportPdf(await structureReport(engineer, "MANY", OCTOBER, NOW)));
+    const none = await pdfText(await renderReportPdf(await structureReport(engineer, "RPT", { month: { year: 2026, month: 8 } }, NOW)));
+    const many = await pdfText(await renderReportPdf(await structureReport(engineer, "MANY", OCTOBER_REQUEST, NOW)));
     expect(many.pages).toBeGreaterThan(1);
     expect(many.pages).toBeGreaterThan(none.pages);
     expect(many.text).toContain("Gauge M14");
