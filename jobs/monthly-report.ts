@@ -8,7 +8,7 @@ import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
 import { renderReportPdf } from "@/lib/report/pdf";
 import { monthKey, monthsBefore } from "@/lib/report/period";
-import { atWallClock, dayOf, monthOf } from "@/lib/time-format";
+import { atWallClock, monthOf } from "@/lib/time-format";
 import { structureReport } from "@/lib/services/report";
 
 const dedupeKey = (code: string, month: string, userId: number) => `report:${code}:${month}:${userId}`;
@@ -38,14 +38,18 @@ async function alreadyQueued(keys: string[]): Promise<Set<string>> {
 /** The hour of the 1st, on the site's clocks, from which its report is sent: late logger uploads of the month's last hours have had the night to arrive. */
 export const MONTHLY_REPORT_HOUR = 7;
 
-/** Whether the structure's clocks read the 1st of a month, at or after 07:00. */
+/**
+ * Whether the previous month's report is due on the structure's clocks: from 07:00 on the 1st
+ * (later in the month too, so a day the jobs did not run delays the report instead of losing it;
+ * the outbox's dedupe key still sends each one once).
+ */
 export function monthlyReportDue(now: number, timeZone: string): boolean {
   const first = `${monthKey(monthOf(now, timeZone))}-01`;
-  return dayOf(now, timeZone) === first && now >= atWallClock(first, MONTHLY_REPORT_HOUR, 0, timeZone).getTime();
+  return now >= atWallClock(first, MONTHLY_REPORT_HOUR, 0, timeZone).getTime();
 }
 
 /**
- * On the first of the month from 07:00 on the structure's clocks, every active owner of the
+ * From 07:00 on the 1st of the month on the structure's clocks, every active owner of the
  * structure gets the previous month (of those clocks) as a report with the PDF attached, through
  * the outbox. The job runs every half hour so each zone's 07:00 is met within 30 minutes; the
  * dedupe key makes a later run, or a second instance, queue nothing new, and a structure whose
