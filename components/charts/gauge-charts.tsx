@@ -142,7 +142,7 @@ export function GaugeCharts({
     });
     const link = document.createElement("a");
     link.href = titledPng(chart.ctx.canvas, title);
-    link.download = chartExportFileName(structureCode, tag, "stress", range.from, range.to);
+    link.download = chartExportFileName(structureCode, tag, "stress", range.from, range.to, timeZone);
     link.click();
   }
 

@@ -256,7 +256,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         </section>
       </div>
       <div className="mt-6">
-        <GaugePhotos structureCode={code} tag={tag} canUpload={active && canEdit} initialPhotos={photos} />
+        <GaugePhotos structureCode={code} tag={tag} timeZone={structure.timezone} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
       {canAudit && (
         <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
