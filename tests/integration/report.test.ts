@@ -14,6 +14,7 @@ import { handleAlert } from "@/lib/services/alerts";
 import { addMember } from "@/lib/services/memberships";
 import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
+import { createStructure } from "@/lib/services/structures";
 import { structureReport } from "@/lib/services/report";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
 import { microstrainGauge } from "../fixtures/gauges";
@@ -271,6 +272,26 @@ describe("the report PDF", () => {
     expect(many.pages).toBeGreaterThan(none.pages);
     expect(many.text).toContain("Gauge M14");
     expect(many.text).toContain(`page ${many.pages} of ${many.pages}`);
+  });
+});
+
+describe("a report on a site's own clock", () => {
+  it("covers October in Berlin from local midnight to local midnight, 745 hours with the autumn change (EU rule: last Sunday of October, CEST to CET; from memory)", async () => {
+    await createStructure(null, { code: "BER", name: "Structure BER", timezone: "Europe/Berlin" });
+    await addMember(null, engineer.email, "BER");
+    await createGauge(engineer, "BER", gaugeInput("B1"));
+    // 1 October 00:00 CEST is 30 September 22:00 UTC; 1 November 00:00 CET is 31 October 23:00 UTC.
+    const from = Date.UTC(2026, 8, 30, 22);
+    const to = Date.UTC(2026, 9, 31, 23);
+    const rows: StoredReading[] = [reading(from - TEN_MINUTES, 999), reading(to, -999)];
+    for (let time = from; time < to; time += TEN_MINUTES) rows.push(reading(time, 50));
+    await storeReadings(getClient(), await gaugeId("BER", "B1"), rows);
+    const report = await structureReport(engineer, "BER", { month: { year: 2026, month: 10 } }, NOW);
+    expect(report.period).toMatchObject({ from: "2026-09-30T22:00:00.000Z", to: "2026-10-31T23:00:00.000Z", firstDay: "2026-10-01", lastDay: "2026-10-31", key: "2026-10" });
+    const b1 = report.gauges.find((gauge) => gauge.tag === "B1")!;
+    // By hand: 745 hours × 6 readings an hour; the readings just outside the local month stay out of the extremes.
+    expect(b1.readings).toMatchObject({ received: 745 * 6, expected: 745 * 6, completeness: 1 });
+    expect(b1.stress).toMatchObject({ min: expect.closeTo(50, 9), max: expect.closeTo(50, 9) });
   });
 });
 

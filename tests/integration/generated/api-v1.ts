@@ -537,7 +537,7 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions */
+        /** The structure's report for a period of whole days in the structure's time zone: status over the period and now, per gauge the stress and strain extremes, utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions */
         get: operations["getStructuresByCodeReport"];
         put?: never;
         post?: never;

@@ -66,6 +66,7 @@ export default async function StructureReportPage({ params, searchParams }: Prop
         selectedMonth={wholeMonthKey(report.period)}
         fromDay={report.period.firstDay}
         toDay={report.period.lastDay}
+        timeZone={zone}
         error={parsed.success ? null : parsed.error.issues[0]!.message}
       />
       <ReportView report={report} />
