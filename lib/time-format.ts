@@ -141,6 +141,16 @@ export function atWallClock(day: string, hour: number, minute: number, timeZone:
   return new Date(new TZDate(year, month - 1, date, hour, minute, timeZone).getTime());
 }
 
+const WALL_CLOCK_INPUT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/;
+
+/** A date-and-time field's value ("2026-03-10T09:00", as `<input type="datetime-local">` gives it) read on the zone's clock, as ISO UTC; "" while unset or unreadable. */
+export function wallClockInputToIso(value: string, timeZone: string): string {
+  const match = WALL_CLOCK_INPUT.exec(value);
+  if (!match) return "";
+  const [year, month, date, hour, minute, second = 0] = match.slice(1).map((part) => (part === undefined ? undefined : Number(part))) as number[];
+  return new Date(new TZDate(year!, month! - 1, date!, hour!, minute!, second, timeZone).getTime()).toISOString();
+}
+
 const dayStarts = new Map<string, number>();
 /** The start of the zone's day holding a moment (remembered per day: grouping thousands of rows by day asks for few). */
 export function startOfZoneDay(at: Moment, timeZone: string): Date {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { atWallClock, axisText, dayEnd, dayOf, dayStart, formatInTimeZone, isTimeZone, monthBounds, monthOf, startOfZoneDay, zoneName, zoneWallClock } from "@/lib/time-format";
+import { atWallClock, axisText, wallClockInputToIso, dayEnd, dayOf, dayStart, formatInTimeZone, isTimeZone, monthBounds, monthOf, startOfZoneDay, zoneName, zoneWallClock } from "@/lib/time-format";
 
 const HOUR = 3_600_000;
 const at = (iso: string) => new Date(iso);
@@ -72,6 +72,16 @@ describe("days of a zone", () => {
     expect(atWallClock("2026-11-01", 7, 0, "America/Chicago")).toEqual(at("2026-11-01T13:00:00Z"));
     expect(atWallClock("2026-10-01", 7, 0, "America/Chicago")).toEqual(at("2026-10-01T12:00:00Z"));
     expect(atWallClock("2026-12-01", 7, 0, "Asia/Tokyo")).toEqual(at("2026-11-30T22:00:00Z"));
+  });
+});
+
+describe("times typed on the structure's clock", () => {
+  it("read a date-and-time field in the zone, not the device's (IANA offsets, from memory)", () => {
+    expect(wallClockInputToIso("2026-03-10T09:00", "Europe/London")).toBe("2026-03-10T09:00:00.000Z");
+    expect(wallClockInputToIso("2026-07-10T09:00", "Europe/London")).toBe("2026-07-10T08:00:00.000Z");
+    expect(wallClockInputToIso("2026-07-10T09:00:30", "Asia/Kolkata")).toBe("2026-07-10T03:30:30.000Z");
+    expect(wallClockInputToIso("", "UTC")).toBe("");
+    expect(wallClockInputToIso("10/07/2026 09:00", "UTC")).toBe("");
   });
 });
 

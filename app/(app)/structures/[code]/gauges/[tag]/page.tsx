@@ -221,7 +221,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!, structure.timezone)}. Strain is measured from this state;
             stress already present then is the initial stress above.
           </p>
-          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={inputUnit(gauge.input)} recordZero={recordZeroAction} />}
+          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={inputUnit(gauge.input)} timeZone={structure.timezone} recordZero={recordZeroAction} />}
           <div className="overflow-x-auto">
             <table className={tableClass} aria-label="Zero history">
               <thead>
