@@ -1576,6 +1576,30 @@ export interface components {
                      */
                     status: "not-assessed";
                 };
+                /** @description Stress over the period in MPa, min, max and mean per interval, as GET …/gauges/{tag}/series answers it; null when nothing was stored */
+                stressSeries: {
+                    /** @description Start of each interval, epoch ms; intervals without readings are left out */
+                    t: number[];
+                    min: number[];
+                    max: number[];
+                    mean: number[];
+                    /** @description Width of the intervals, ms */
+                    bucketWidth: number;
+                } | null;
+                /** @description The gauge's stress bounds, and its utilisation bounds at bound × yield stress, as lines across the stress chart */
+                stressLimitLines: {
+                    /** @description MPa */
+                    value: number;
+                    /** @enum {string} */
+                    level: "watch" | "warning" | "critical";
+                    text: string;
+                }[];
+                /** @description Where the gauge sits on one of the structure's drawings: x across and y down, as fractions of the drawing's width and height */
+                placement: {
+                    drawing: number;
+                    x: number;
+                    y: number;
+                } | null;
             }[];
             /** @description Alerts open at any time in the period, newest first */
             alerts: {
@@ -1610,6 +1634,18 @@ export interface components {
                     by: string | null;
                     text: string | null;
                 }[];
+            }[];
+            /** @description The structure's drawings, oldest first; the gauges' placements point into them */
+            drawings: {
+                id: number;
+                title: string;
+                contentType: string;
+                /** @description Pixels */
+                width: number | null;
+                /** @description Pixels */
+                height: number | null;
+                /** @description Where the image's bytes are served */
+                url: string;
             }[];
             /** @description Load tests whose window overlaps the period, oldest first, with their results */
             loadTests: components["schemas"]["LoadTestResults"][];
