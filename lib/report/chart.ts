@@ -1,3 +1,4 @@
+import { STATE_LOOK, type ShownState } from "@/lib/alerting/condition-display";
 import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { offScaleLines, valueAxisRange, type LimitLine, type OffScaleLine } from "@/lib/limits";
 import { chartColumns, gapThreshold, type SeriesAnswer } from "@/lib/series/chart-data";
@@ -15,6 +16,12 @@ import { alertTitle } from "./format";
  */
 
 export type Point = { x: number; y: number };
+
+/** The colours of the gauge page's charts, for the report's page and paper alike. */
+export const CHART_INK = { band: "#1f6f78", mean: "#17565d", axis: "#475569", grid: "#e2e8f0", text: "#0f172a" } as const;
+
+/** A limit's or an alert's level in the condition code's ink. */
+export const levelInk = (level: string) => STATE_LOOK[level as ShownState]?.ink ?? CHART_INK.axis;
 
 /** An alert of the period on the chart: shaded from opening to clearing (or to the period's end), numbered at its opening. */
 export type ChartMark = { from: number; to: number | null; level: string };
@@ -67,7 +74,9 @@ export function niceTicks(low: number, high: number, wanted = 6): number[] {
   if (!(high > low)) return [low];
   const rough = (high - low) / Math.max(1, wanted - 1);
   const power = 10 ** Math.floor(Math.log10(rough));
-  const step = ([1, 2, 5, 10].find((factor) => factor * power >= rough) ?? 10) * power;
+  // Heckbert's rounding: the nice factor nearest the rough step.
+  const fraction = rough / power;
+  const step = (fraction < 1.5 ? 1 : fraction < 3 ? 2 : fraction < 7 ? 5 : 10) * power;
   const ticks: number[] = [];
   for (let value = Math.ceil(low / step) * step; value <= high + step * 1e-9; value += step) ticks.push(Math.abs(value) < step * 1e-9 ? 0 : value);
   return ticks;

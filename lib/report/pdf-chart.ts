@@ -1,10 +1,4 @@
-import { STATE_LOOK, type ShownState } from "@/lib/alerting/condition-display";
-import type { ChartGeometry, Point } from "./chart";
-
-/** The chart colours of the page's charts, on paper. */
-export const CHART_INK = { band: "#1f6f78", mean: "#17565d", axis: "#475569", grid: "#e2e8f0", text: "#0f172a" } as const;
-
-export const levelInk = (level: string) => STATE_LOOK[level as ShownState]?.ink ?? CHART_INK.axis;
+import { CHART_INK, levelInk, type ChartGeometry, type Point } from "./chart";
 
 type Doc = PDFKit.PDFDocument;
 

@@ -20,7 +20,7 @@ import { addMember } from "@/lib/services/memberships";
 import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
 import { structureReport, structureReportPdf } from "@/lib/services/report";
-import { CHART_INK } from "@/lib/report/pdf-chart";
+import { CHART_INK } from "@/lib/report/chart";
 import { STATE_LOOK } from "@/lib/alerting/condition-display";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
 import { microstrainGauge } from "../fixtures/gauges";
