@@ -80,7 +80,7 @@ describe("the structure report page", () => {
     await page.goto("/structures/MILL-FB");
     await page.getByRole("link", { name: "Report", exact: true }).click();
     await page.getByRole("heading", { name: "Report: Millrace Footbridge" }).waitFor();
-    for (const heading of ["Summary", "Gauges", "Alerts and how they were handled"]) await page.getByRole("heading", { name: heading }).waitFor();
+    for (const heading of ["Summary", "Where the gauges are", "Gauges", "Alerts and how they were handled"]) await page.getByRole("heading", { name: heading, exact: true }).waitFor();
 
     const report = new ReportPage(page);
     await expect(report.gaugeRow(TAG).textContent()).resolves.toContain(`${PEAK_MPA.toFixed(1)} MPa`);
