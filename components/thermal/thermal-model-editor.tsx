@@ -91,6 +91,8 @@ export function ThermalModelEditor({
       if (action === "fit") setPreview((await callApi(`${api}/fit`, "POST", made.body)) as ThermalFitPreview);
       if (action === "save") {
         await callApi(api, "PUT", made.body);
+        // The model in force (refreshed from the server) is shown from now on, not the preview.
+        setPreview(null);
         setMessage("Saved. The residual of every stored reading was recomputed with this model.");
         router.refresh();
       }
