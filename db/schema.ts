@@ -139,8 +139,8 @@ export type AuditEntry = typeof auditLog.$inferSelect;
 export const GAUGE_STATUSES = ["active", "retired"] as const;
 export type GaugeStatus = (typeof GAUGE_STATUSES)[number];
 
-/** Host material as stored with a gauge (E and yield MPa, alpha µε/°C). */
-export type StoredMaterial = { name?: string; E: number; nu: number; alpha: number; yield?: number | null };
+/** Host material as stored with a gauge (E, yield and concrete's compressive strength MPa, alpha µε/°C); gauges stored before compressive strength was asked for have none. */
+export type StoredMaterial = { name?: string; E: number; nu: number; alpha: number; yield?: number | null; compressiveStrength?: number | null };
 export type StoredThermal =
   | { method: "none" }
   | { method: "polynomial"; coefficients: number[] }

@@ -11,6 +11,7 @@ import { SUMMARY_MINUTES } from "@/lib/dynamic";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName, inputUnit } from "@/lib/gauges/labels";
 import { BRIDGES, FOIL_INPUTS, MATERIALS, STEEL_WIRE_CTE, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
+import { formatStressRating } from "@/lib/units";
 
 export type GaugeFormMode = "register" | "edit" | "replace";
 
@@ -67,6 +68,7 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
       "material.nu": String(material.nu),
       "material.alpha": String(material.alpha),
       "material.yield": "yield" in material ? String(material.yield) : "",
+      "material.compressiveStrength": "compressiveStrength" in material ? String(material.compressiveStrength) : "",
     }));
   }
 
@@ -292,6 +294,10 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {input("material.nu", "Poisson's ratio ν", { required: true })}
               {input("material.alpha", "Expansion coefficient α", { unit: "µε/°C", required: true })}
               {input("material.yield", "Yield / proportional limit", { unit: "MPa", hint: "Stresses beyond it are flagged; empty for concrete." })}
+              {input("material.compressiveStrength", "Concrete compressive strength f_ck", {
+                unit: "MPa",
+                hint: "Concrete only, empty for metals: utilisation is then compressive stress ÷ f_ck; tension is not rated.",
+              })}
               {input("initialStress", "Initial (dead-load) stress", { unit: "MPa", hint: "Present when the gauge was zeroed; added to computed stress." })}
               {select(
                 "detailCategory",
@@ -371,10 +377,10 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               )}
               <dt>Stress</dt>
               <dd className="text-right font-mono" data-testid="preview-stress">{format(preview.stress, 2)} MPa</dd>
-              {preview.utilisation !== null && (
+              {preview.rating !== null && (
                 <>
-                  <dt>Of yield</dt>
-                  <dd className="text-right font-mono">{format(preview.utilisation * 100, 1)} %</dd>
+                  <dt>Utilisation</dt>
+                  <dd className="text-right font-mono">{formatStressRating(preview.rating)}</dd>
                 </>
               )}
               {preview.flags.length > 0 && <dd className="col-span-2 text-xs font-medium text-warning">Flagged: {preview.flags.join(", ")}</dd>}

@@ -98,6 +98,7 @@ const FIELDS: Record<string, FieldWording> = {
   "material.nu": { name: "Poisson's ratio ν" },
   "material.alpha": { name: "Expansion coefficient α", show: withUnit("µε/°C") },
   "material.yield": { name: "Yield", show: withUnit("MPa") },
+  "material.compressiveStrength": { name: "Compressive strength f_ck", show: withUnit("MPa") },
   initialStress: { name: "Initial stress", show: withUnit("MPa") },
   "zero.value": { name: "Zero reading", show: rawValue },
   "zero.temperature": { name: "Temperature at zero", show: withUnit("°C") },

@@ -33,6 +33,7 @@ export function formValuesOf(gauge: Partial<GaugeFields>): GaugeFormValues {
     "material.nu": text(gauge.material?.nu),
     "material.alpha": text(gauge.material?.alpha),
     "material.yield": text(gauge.material?.yield),
+    "material.compressiveStrength": text(gauge.material?.compressiveStrength),
     initialStress: text(gauge.initialStress ?? 0),
     "zero.value": text(gauge.zero?.value),
     "zero.temperature": text(gauge.zero?.temperature),
@@ -143,6 +144,7 @@ export function gaugePayloadOf(values: GaugeFormValues) {
       nu: numberOrText(values["material.nu"]),
       alpha: numberOrText(values["material.alpha"]),
       yield: numberOrText(values["material.yield"]) ?? null,
+      compressiveStrength: numberOrText(values["material.compressiveStrength"]) ?? null,
     },
     initialStress: numberOrText(values.initialStress) ?? 0,
     zero: {

@@ -29,6 +29,8 @@ export const PLAUSIBLE = {
   poisson: { min: 0.05, max: 0.49 },
   /** MPa: up to prestressing strand, about 1 860. */
   yield: { min: 1, max: 2_500 },
+  /** MPa: EN 1992-1-1 classes run from C12/15 to C90/105; 150 leaves room for ultra-high-performance mixes. */
+  compressiveStrength: { min: 5, max: 150 },
   /** Metallic foil and wire gauges: about 2.0 (constantan, Karma) to 3.6 (isoelastic alloy). */
   foilGaugeFactor: { min: 1, max: 5 },
   /** Vibrating-wire gauge constants are a fraction of a µε to a few µε per digit. */
@@ -56,6 +58,13 @@ export const materialInput = z.object({
   nu: within(PLAUSIBLE.poisson, "Poisson's ratio of structural materials"),
   alpha: number.refine((v) => Math.abs(v) < 100, "Expansion coefficient in µε/°C; structural materials lie well under 100."),
   yield: optional(within(PLAUSIBLE.yield, "The yield in MPa")).meta({ description: "Yield or proportional limit, MPa" }),
+  // Optional in the output too: gauges stored before it was asked for, and every metal, have none.
+  compressiveStrength: within(PLAUSIBLE.compressiveStrength, "The concrete's compressive strength in MPa").nullish().meta({
+    description: "Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated",
+  }),
+}).refine((material) => material.yield === null || material.compressiveStrength == null, {
+  message: "Give a yield (steel, aluminium) or a compressive strength (concrete), not both.",
+  path: ["compressiveStrength"],
 });
 
 export const thermalInput = z.discriminatedUnion(

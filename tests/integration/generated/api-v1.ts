@@ -952,6 +952,8 @@ export interface components {
                 alpha: number;
                 /** @description Yield or proportional limit, MPa */
                 yield?: number | null;
+                /** @description Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated */
+                compressiveStrength?: number | null;
             };
             /**
              * @description MPa
@@ -1057,6 +1059,8 @@ export interface components {
                 alpha: number;
                 /** @description Yield or proportional limit, MPa */
                 yield?: number | null;
+                /** @description Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated */
+                compressiveStrength?: number | null;
             };
             /**
              * @description MPa
@@ -1540,13 +1544,22 @@ export interface components {
                     /** @constant */
                     unit: "°C";
                 } | null;
-                /** @description null when the gauge's material has no yield stress or there were no readings */
-                utilisationPeak: {
+                /** @description null when the gauge's material has neither a yield nor a compressive strength, or there were no readings */
+                utilisationPeak: ({
+                    /** @constant */
+                    basis: "yield";
                     /** @description max |σ| ÷ yield over the period (1 = at yield) */
                     ratio: number;
                     /** @description Yield stress, MPa */
                     yield: number;
-                } | null;
+                } | {
+                    /** @constant */
+                    basis: "compressive-strength";
+                    /** @description Concrete: largest compressive stress ÷ f_ck over the period (1 = at f_ck); null when it was only in tension, which is not rated */
+                    ratio: number | null;
+                    /** @description Characteristic compressive strength f_ck, MPa */
+                    compressiveStrength: number;
+                }) | null;
                 gaps: {
                     /** @description Runs of whole hours without readings (longer than the expected interval), oldest first, at most 10; start and end UTC */
                     list: {

@@ -9,7 +9,7 @@ import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ZeroForm } from "@/components/gauges/zero-form";
 import { recordZeroAction } from "../actions";
 import { ActionForm } from "@/components/ui/action-form";
-import { MonitoringCaution } from "@/components/ui/caution";
+import { ConcreteCaution, MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
@@ -19,6 +19,7 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { actionInWords, describeChange } from "@/lib/audit/describe-change";
 import { inputUnit } from "@/lib/gauges/labels";
+import { formatStressRating } from "@/lib/units";
 import { listGaugePhotos } from "@/lib/services/files";
 import { listAlerts, listGaugeEpisodes } from "@/lib/services/alerts";
 import { AlertFilters } from "@/components/alerts/alert-filters";
@@ -134,6 +135,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
         <span className={`rounded-full px-2.5 py-0.5 font-medium ${active ? "bg-emerald-100 text-emerald-900 dark:bg-emerald-950 dark:text-emerald-200" : "bg-slate-200 text-slate-700 dark:bg-slate-800 dark:text-slate-300"}`}>
           {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt) : ""}`}
         </span>
+        {latest?.rating && (
+          <span data-testid="gauge-utilisation">
+            Utilisation at the latest reading: <span className="font-medium">{formatStressRating(latest.rating)}</span>
+          </span>
+        )}
         {gauge.replaces && (
           <span>
             Replaced gauge{" "}
@@ -317,7 +323,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         </section>
       )}
       <div className="mt-6">
-        <MonitoringCaution />
+        <MonitoringCaution>{gauge.material.compressiveStrength ? <ConcreteCaution /> : null}</MonitoringCaution>
       </div>
     </>
   );
