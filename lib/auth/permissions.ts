@@ -6,6 +6,7 @@ export const ACTIONS = {
   "structure:create": "Create a structure",
   "gauge:register": "Register and edit gauges, photos and drawings",
   "zero:record": "Record a zero (reference) reading",
+  "shunt-check:record": "Record shunt-calibration checks of a gauge's bridge",
   "readings:ingest": "Send or upload readings",
   "limits:edit": "Change limits",
   "alert:acknowledge": "Acknowledge and clear alerts",
@@ -24,6 +25,7 @@ const STRUCTURE_SCOPED: ReadonlySet<Action> = new Set<Action>([
   "structure:view",
   "gauge:register",
   "zero:record",
+  "shunt-check:record",
   "readings:ingest",
   "limits:edit",
   "alert:acknowledge",
@@ -42,6 +44,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "structure:create",
     "gauge:register",
     "zero:record",
+    "shunt-check:record",
     "readings:ingest",
     "limits:edit",
     "alert:acknowledge",
@@ -49,7 +52,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "token:manage",
     "audit:view",
   ]),
-  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "readings:ingest"]),
+  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "shunt-check:record", "readings:ingest"]),
   owner: new Set<Action>(["structure:view"]),
 };
 

@@ -41,6 +41,8 @@ export const PLAUSIBLE = {
   leadResistance: { min: 0, max: 200 },
   /** V: bridge excitation of strain-gauge loggers is about 0.5 to 10 V (common practice); 25 V leaves room for unusual units. */
   excitationVoltage: { min: 0.1, max: 25 },
+  /** Ω: calibration shunts are about 10 kΩ to 1 MΩ (common practice); a shunt near the gauge's own resistance would simulate tens of thousands of µε. */
+  shuntResistance: { min: 1_000, max: 100_000_000 },
 } as const;
 
 const within = (range: { min: number; max: number }, what: string) =>
@@ -258,6 +260,26 @@ export const zeroRequest = z.union([
   zeroInput.extend({ reason: optionalText(500) }),
 ]).meta({ id: "ZeroInput" });
 export type ZeroRequest = z.output<typeof zeroRequest>;
+
+/** 1 % of the expected output is the usual acceptance band of a shunt check (common practice). */
+export const DEFAULT_SHUNT_TOLERANCE_PERCENT = 1;
+
+export const shuntCheckInput = z
+  .object({
+    shuntResistance: within(PLAUSIBLE.shuntResistance, "The shunt resistance in Ω").meta({ description: "Ω of the resistor placed across the gauge" }),
+    // A dead channel reading 0 is a real, failed check; beyond 100 000 (µε or mV/V) is a typing error.
+    measuredOutput: number.refine((v) => Math.abs(v) <= 100_000, "The measured output change lies within ±100,000 of the gauge's input unit.").meta({
+      description: "Change of the logger's reading when the shunt was applied, in the gauge's input unit (mV/V, or µε for a logger that reports microstrain)",
+    }),
+    tolerancePercent: number
+      .refine((v) => v > 0 && v <= 50, "A tolerance above 0 and at most 50 % of the expected output.")
+      .default(DEFAULT_SHUNT_TOLERANCE_PERCENT)
+      .meta({ description: "Pass band, % of the expected output (default 1, common practice)" }),
+    time: isoTime.optional().meta({ description: "When the shunt was applied; default now" }),
+    note: optionalText(500),
+  })
+  .meta({ id: "ShuntCheckInput" });
+export type ShuntCheckInput = z.output<typeof shuntCheckInput>;
 
 export const rosetteInput = z.object({
   tag: gaugeTag,
