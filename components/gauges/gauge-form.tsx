@@ -215,9 +215,9 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
                   {values.wiring
                     ? input("leadResistance", "Resistance of one lead", { unit: "Ω", hint: "Measured or from cable length; empty for no correction." })
                     : input("leadResistance", "Lead resistance in the gauge's arm", { unit: "Ω", hint: "Both leads for 2-wire, one for 3-wire; empty for no correction." })}
-                  {input("gaugeResistance", "Gauge resistance", { unit: "Ω", hint: "e.g. 120 or 350." })}
                 </>
               )}
+              {applies.gaugeResistance && input("gaugeResistance", "Gauge resistance", { unit: "Ω", hint: "e.g. 120 or 350; a shunt check needs it." })}
               {applies.excitationVoltage && input("excitationVoltage", "Bridge excitation", { unit: "V", hint: "As set in the logger, e.g. 2.5 or 5; empty if not known." })}
               {input("ratedRange", "Rated range", { unit: "µε", hint: "Either side of zero; readings beyond are flagged." })}
               {input("expectedInterval", "Expected interval between readings", { unit: "s", hint: "Used to tell when data stop arriving." })}

@@ -90,6 +90,8 @@ export function applicableFields(values: GaugeFormValues) {
     loggerGaugeFactor: foil && values.input === "microstrain",
     calibrationFactor: !foil,
     leadResistances: bridged && values.bridge === "quarter",
+    // Any bridge: a shunt check needs the resistance of the gauge it shunts.
+    gaugeResistance: bridged,
     excitationVoltage: foil,
     coefficients: values["thermal.method"] === "polynomial",
     gaugeCte: values["thermal.method"] === "cte",
@@ -135,7 +137,7 @@ export function gaugePayloadOf(values: GaugeFormValues) {
     polarity: numberOrText(values.polarity),
     wiring: applies.leadResistances ? values.wiring || null : null,
     leadResistance: applies.leadResistances ? (numberOrText(values.leadResistance) ?? null) : null,
-    gaugeResistance: applies.leadResistances ? (numberOrText(values.gaugeResistance) ?? null) : null,
+    gaugeResistance: applies.gaugeResistance ? (numberOrText(values.gaugeResistance) ?? null) : null,
     excitationVoltage: applies.excitationVoltage ? (numberOrText(values.excitationVoltage) ?? null) : null,
     thermal: thermalOf(values),
     material: {
