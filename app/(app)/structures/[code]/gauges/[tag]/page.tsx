@@ -34,6 +34,7 @@ import { Pager } from "@/components/ui/pager";
 import { ALERTS_PER_PAGE, alertListParamsOf, pageOffset } from "@/lib/alerting/filters";
 import { formatInTimeZone } from "@/lib/time-format";
 import { getLimits } from "@/lib/services/limits";
+import { findThermalModel } from "@/lib/services/thermal";
 import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
@@ -82,7 +83,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     may(user, "audit:view", structure),
     may(user, "alert:acknowledge", structure),
   ]);
-  const [zeros, shuntChecks, audit, photos, limits, alerts, episodes, statuses, units] = await Promise.all([
+  const [zeros, shuntChecks, audit, photos, limits, alerts, episodes, statuses, units, thermalModel] = await Promise.all([
     zeroHistory(user, code, tag),
     listShuntChecks(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
@@ -92,6 +93,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     listGaugeEpisodes(user, code, tag),
     gaugeStatuses(structure),
     unitsOf(user.id),
+    findThermalModel(user, code, tag),
   ]);
   const status = statuses.find((candidate) => candidate.tag === gauge.tag)!;
   const latest = status.latest;
@@ -118,6 +120,9 @@ export default async function GaugePage({ params, searchParams }: Props) {
           <>
             <Link href={`${base}/${encodeURIComponent(tag)}/limits`} className={buttonClass("secondary")}>
               Limits
+            </Link>
+            <Link href={`${base}/${encodeURIComponent(tag)}/thermal`} className={buttonClass("secondary")}>
+              Thermal model
             </Link>
             {active && canEdit && (
             <>
@@ -202,6 +207,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             events={chartEvents}
             end={latest.time}
             expectedIntervalS={gauge.expectedInterval}
+            residualStd={thermalModel?.residualStd ?? null}
           />
         ) : (
           <EmptyState title="No readings yet">
