@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
 import { blob, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
-import { ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
+import { QUANTITIES, ROSETTE_LIMIT_QUANTITIES } from "../lib/limits/limit";
 
 import { ROLES } from "../lib/auth/roles";
 
@@ -301,6 +301,11 @@ export const readings = sqliteTable(
      * kept but left out of limit evaluation and roll-ups; `fault <> 0` finds them in SQL.
      */
     fault: integer("fault").notNull().default(0),
+    /**
+     * Measured − thermal model, µε (lib/thermal): null while the gauge has no thermal model, or
+     * where the temperature the model's lag reaches back to is unknown.
+     */
+    residual: real("residual"),
   },
   (t) => [primaryKey({ columns: [t.gaugeId, t.time] })],
 );
@@ -324,9 +329,50 @@ export const rollups = sqliteTable(
     temperatureMin: real("temperature_min"),
     temperatureMax: real("temperature_max"),
     temperatureSum: real("temperature_sum"),
+    /** Thermal residual, µε: its own count, like temperature, since readings before a model (or without a lagged temperature) have none. */
+    residualCount: integer("residual_count").notNull().default(0),
+    residualMin: real("residual_min"),
+    residualMax: real("residual_max"),
+    residualSum: real("residual_sum"),
   },
   (t) => [primaryKey({ columns: [t.gaugeId, t.resolution, t.bucket] })],
 );
+
+/**
+ * The thermal model in force for a gauge (one per gauge; the audit trail keeps the ones it
+ * replaced): stress-producing strain = intercept + slope·T(t − lag) (+ drift·days since
+ * drift_origin), fitted by least squares over [period_from, period_to].
+ */
+export const thermalModels = sqliteTable("thermal_models", {
+  gaugeId: integer("gauge_id")
+    .primaryKey()
+    .references(() => gauges.id, { onDelete: "cascade" }),
+  periodFrom: integer("period_from", { mode: "timestamp_ms" }).notNull(),
+  periodTo: integer("period_to", { mode: "timestamp_ms" }).notNull(),
+  /** What the engineer asked for: a fixed lag, or the best fit searched up to max_lag_minutes. */
+  lagSearch: text("lag_search", { enum: ["fixed", "auto"] }).notNull(),
+  maxLagMinutes: integer("max_lag_minutes"),
+  /** µε */
+  intercept: real("intercept").notNull(),
+  /** µε/°C */
+  slope: real("slope").notNull(),
+  lagMinutes: integer("lag_minutes").notNull(),
+  /** µε/day; null without a drift term. */
+  drift: real("drift"),
+  driftOrigin: integer("drift_origin", { mode: "timestamp_ms" }).notNull(),
+  r2: real("r2").notNull(),
+  /** µε */
+  residualStd: real("residual_std").notNull(),
+  readings: integer("readings").notNull(),
+  /** °C: the temperature range the fit saw, inside which the model holds. */
+  temperatureMin: real("temperature_min").notNull(),
+  temperatureMax: real("temperature_max").notNull(),
+  fittedById: integer("fitted_by_id").references(() => users.id, { onDelete: "set null" }),
+  fittedByLabel: text("fitted_by_label").notNull(),
+  fittedAt: writtenAt("fitted_at"),
+});
+
+export type ThermalModelRow = typeof thermalModels.$inferSelect;
 
 /**
  * One row per burst a dynamic gauge sent, identified by (gauge, start) as the contract says: the
@@ -471,7 +517,8 @@ export type ZeroReadingRow = typeof zeroReadings.$inferSelect;
 export type Rosette = typeof rosettes.$inferSelect;
 export type StoredFile = typeof files.$inferSelect;
 
-export const LIMIT_QUANTITIES = ["stress", "strain", "utilisation"] as const;
+/** What a gauge limit bounds; `residual` is the thermal residual (µε) of a gauge with a thermal model. */
+export const LIMIT_QUANTITIES = QUANTITIES;
 export const ALERT_LEVELS = ["watch", "warning", "critical"] as const;
 export type AlertLevel = (typeof ALERT_LEVELS)[number];
 

@@ -6,9 +6,8 @@ import type { UserActor } from "@/lib/auth/actor";
 import { buildReportMail } from "@/lib/mail/report";
 import { appUrl } from "@/lib/mail/message";
 import { queueMail } from "@/lib/mail/outbox";
-import { renderReportPdf } from "@/lib/report/pdf";
 import { periodKey, previousMonthPeriod } from "@/lib/report/period";
-import { structureReport } from "@/lib/services/report";
+import { structureReport, structureReportPdf } from "@/lib/services/report";
 
 const dedupeKey = (code: string, month: string, userId: number) => `report:${code}:${month}:${userId}`;
 
@@ -58,7 +57,7 @@ export async function runMonthlyReport(now = Date.now(), signal?: AbortSignal): 
     const attachment = {
       filename: `${structure.code}-report-${month}.pdf`,
       contentType: "application/pdf",
-      contentBase64: (await renderReportPdf(report)).toString("base64"),
+      contentBase64: (await structureReportPdf(reader, report)).toString("base64"),
     };
     reports += 1;
     queued += await writeTransaction(async (tx) => {

@@ -7,9 +7,9 @@ const DAY_MS = ROLLUP_RESOLUTIONS.daily;
 /** Aggregates one resolution's buckets of [from, to) straight from the readings table. */
 function rebuildSql(resolution: number) {
   return `INSERT INTO rollups (gauge_id, resolution, bucket, count, strain_min, strain_max, strain_sum, stress_min, stress_max, stress_sum,
-      temperature_count, temperature_min, temperature_max, temperature_sum)
+      temperature_count, temperature_min, temperature_max, temperature_sum, residual_count, residual_min, residual_max, residual_sum)
     SELECT gauge_id, ${resolution}, (t / ${resolution}) * ${resolution}, count(*), min(strain), max(strain), sum(strain), min(stress), max(stress), sum(stress),
-      count(temperature), min(temperature), max(temperature), sum(temperature)
+      count(temperature), min(temperature), max(temperature), sum(temperature), count(residual), min(residual), max(residual), sum(residual)
     FROM readings WHERE t >= :from AND t < :to AND fault = 0 GROUP BY gauge_id, t / ${resolution}`;
 }
 

@@ -33,7 +33,7 @@ export function ApiReference({ document }: { document: object }) {
   }, [document]);
 
   return (
-    <div className="rounded-lg border border-slate-200 bg-white dark:border-slate-700">
+    <div className="rounded-lg border border-slate-200 bg-white dark:border-slate-700" data-state={state}>
       {state === "loading" && <p className="p-4 text-sm text-slate-600">Loading the reference…</p>}
       {state === "failed" && (
         <p role="alert" className="p-4 text-sm text-red-700">

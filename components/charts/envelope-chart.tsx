@@ -15,6 +15,24 @@ const NONE: readonly never[] = [];
 export type ChartEvent = { time: number; label: string };
 export type ChartEpisode = { openedAt: number; clearedAt: number | null; level: string };
 export type TimeRange = { from: number; to: number };
+/** A horizontal band of expected values in display units, e.g. a thermal residual's ±2σ. */
+export type ValueBand = { low: number; high: number; label: string };
+
+/** The band shaded across the plot, listed in `data-band` so tests can tell it is drawn. */
+function drawBand(chart: uPlot, band: ValueBand) {
+  const { ctx, bbox } = chart;
+  const top = Math.max(bbox.top, chart.valToPos(band.high, "y", true));
+  const bottom = Math.min(bbox.top + bbox.height, chart.valToPos(band.low, "y", true));
+  chart.root.dataset.band = JSON.stringify({ ...band, drawn: bottom > top });
+  if (bottom <= top) return;
+  ctx.save();
+  ctx.fillStyle = "rgba(100,116,139,0.14)";
+  ctx.fillRect(bbox.left, top, bbox.width, bottom - top);
+  ctx.fillStyle = "#475569";
+  ctx.font = `${11 * devicePixelRatio}px sans-serif`;
+  ctx.fillText(band.label, bbox.left + 4, top + 12 * devicePixelRatio);
+  ctx.restore();
+}
 
 /**
  * Limit lines, alert episodes and events, drawn on the canvas after the series. The lines actually
@@ -139,6 +157,7 @@ export function EnvelopeChart({
   showAllLimits = false,
   onCreate,
   expectedIntervalS,
+  band,
 }: {
   title: string;
   answer: SeriesAnswer | undefined;
@@ -160,6 +179,7 @@ export function EnvelopeChart({
   onCreate?: (chart: uPlot) => void;
   /** The gauge's interval between readings, s: silences longer than it break the line. */
   expectedIntervalS?: number | null;
+  band?: ValueBand;
 }) {
   const data = useMemo(
     () => (answer ? chartColumns(answer, toDisplay, gapThreshold(expectedIntervalS ?? DEFAULT_EXPECTED_INTERVAL_S, answer.bucketWidth)) : null),
@@ -170,7 +190,7 @@ export function EnvelopeChart({
       timeChartOptions(timeZone, unit, {
         cursor: { drag: { x: true, y: false } },
         legend: { show: true },
-        scales: { y: { range: (_chart, min, max) => valueAxisRange(min, max, lines, showAllLimits) } },
+        scales: { y: { range: (_chart, min, max) => valueAxisRange(Math.min(min, band?.low ?? min), Math.max(max, band?.high ?? max), lines, showAllLimits) } },
         valueAxis: { label: `${title} (${unit})`, size: 70 },
         series: [
           { label: "min", stroke: "#7aa7ad", width: 1, points: { show: false } },
@@ -179,7 +199,7 @@ export function EnvelopeChart({
         ],
         bands: [{ series: [2, 1], fill: "rgba(31,111,120,0.15)" }],
         hooks: {
-          draw: [(chart) => drawOverlays(chart, lines, episodes, events, unit), markBreaks],
+          draw: [...(band ? [(chart: uPlot) => drawBand(chart, band)] : []), (chart) => drawOverlays(chart, lines, episodes, events, unit), markBreaks],
           ready: onZoomOut ? [(chart) => chart.over.addEventListener("dblclick", onZoomOut)] : [],
           setSelect: onZoom
             ? [
@@ -194,7 +214,7 @@ export function EnvelopeChart({
             : [],
         },
       }),
-    [title, lines, episodes, events, unit, timeZone, onZoom, onZoomOut, showAllLimits],
+    [title, lines, episodes, events, unit, timeZone, onZoom, onZoomOut, showAllLimits, band],
   );
   return (
     <section className={`${cardClass} p-3`} aria-label={`${title} chart`}>

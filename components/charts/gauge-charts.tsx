@@ -29,7 +29,7 @@ const POINTS = 1000;
 /** "2026-11-01" → "2026-11-02", by the calendar, whatever the clocks do that night. */
 const nextDay = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) + DAY).toISOString().slice(0, 10);
 
-type Quantity = "stress" | "strain" | "temperature";
+type Quantity = "stress" | "strain" | "temperature" | "residual";
 
 const seriesUrl = (base: string, quantity: Quantity, range: TimeRange) =>
   `${base}/series?quantity=${quantity}&points=${POINTS}&from=${new Date(range.from).toISOString()}&to=${new Date(range.to).toISOString()}`;
@@ -52,6 +52,7 @@ export function GaugeCharts({
   compact = false,
   expectedIntervalS,
   structureName,
+  residualStd,
 }: {
   structureCode: string;
   /** Named in the title of an exported chart. */
@@ -70,6 +71,8 @@ export function GaugeCharts({
   compact?: boolean;
   /** Seconds between the gauge's readings: a longer silence breaks the lines. */
   expectedIntervalS?: number | null;
+  /** σ of the thermal model's residual, µε, when the gauge has a model: its residual is charted with a ±2σ band. */
+  residualStd?: number | null;
 }) {
   const units = useUnits();
   const base = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}`;
@@ -103,16 +106,20 @@ export function GaugeCharts({
   const after = stress.data !== undefined || stress.error !== undefined;
   const strain = useSWR<SeriesAnswer>(after ? seriesUrl(base, "strain", range) : null, fetchJson, swr);
   const temperature = useSWR<SeriesAnswer>(after && !compact ? seriesUrl(base, "temperature", range) : null, fetchJson, swr);
+  const withResidual = !compact && residualStd != null;
+  const residual = useSWR<SeriesAnswer>(after && withResidual ? seriesUrl(base, "residual", range) : null, fetchJson, swr);
 
   const display = useMemo(() => {
-    const shown = (quantity: Quantity) => ({ toDisplay: (value: number) => inDisplayUnits(units, quantity, value).value, unit: inDisplayUnits(units, quantity, 0).unit });
-    return { stress: shown("stress"), strain: shown("strain"), temperature: shown("temperature") };
+    const shown = (quantity: Exclude<Quantity, "residual">) => ({ toDisplay: (value: number) => inDisplayUnits(units, quantity, value).value, unit: inDisplayUnits(units, quantity, 0).unit });
+    // The residual is a strain: µε in every unit system.
+    return { stress: shown("stress"), strain: shown("strain"), temperature: shown("temperature"), residual: shown("strain") };
   }, [units]);
   const lines = useMemo(
     () => ({
       stress: limitLines(limits, "stress", display.stress.toDisplay, yieldStress),
       strain: limitLines(limits, "strain", display.strain.toDisplay, yieldStress),
       temperature: [],
+      residual: limitLines(limits, "residual", display.strain.toDisplay),
     }),
     [limits, yieldStress, display],
   );
@@ -154,7 +161,12 @@ export function GaugeCharts({
     ["stress", "Stress", stress],
     ["strain", "Stress-producing strain", strain],
     ...(compact ? [] : ([["temperature", "Temperature", temperature]] as const)),
+    ...(withResidual ? ([["residual", "Thermal residual", residual]] as const) : []),
   ] as const;
+  const residualBand = useMemo(
+    () => (residualStd != null ? { low: -2 * residualStd, high: 2 * residualStd, label: `±2σ of the thermal fit (σ = ${residualStd.toFixed(2)} µε)` } : undefined),
+    [residualStd],
+  );
 
   return (
     <div className="space-y-3" data-testid="gauge-charts">
@@ -206,6 +218,7 @@ export function GaugeCharts({
           showAllLimits={showAllLimits}
           onCreate={(chart) => charts.set(quantity, chart)}
           expectedIntervalS={expectedIntervalS}
+          band={quantity === "residual" ? residualBand : undefined}
         />
       ))}
       {!compact && <ThermalScatter strain={strain.data} temperature={temperature.data} temperatureUnit={display.temperature.unit} toDisplayTemperature={display.temperature.toDisplay} />}

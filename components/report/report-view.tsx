@@ -1,19 +1,18 @@
 "use client";
 
 import { ConditionBadge } from "@/components/alerts/state-badge";
+import { DrawingBoard, type BoardGauge } from "@/components/drawings/drawing-board";
 import { ReportLoadTests } from "@/components/load-tests/report-load-tests";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { useUnits } from "@/components/units/units-context";
-import type { ConditionState } from "@/lib/alerting/condition";
+import { shownState } from "@/lib/alerting/condition-display";
 import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/time-format";
-import { alertEventLine, alertHandling, alertTitle, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
-import type { PeriodLevel } from "@/lib/report/status";
+import { alertEventLine, alertHandling, alertTitle, formatCondition, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
+import { periodState } from "@/lib/report/status";
 import type { UnitSystem } from "@/lib/units";
-
-/** The period's level as the condition badge shows it: "all clear" reads as within limits. */
-const BADGE_OF: Record<PeriodLevel, ConditionState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "within-limits", "no-data": "no-data" };
+import { ReportStressChart } from "./report-chart";
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -47,7 +46,7 @@ export function ReportView({ report }: { report: StructureReport }) {
       <Section id="summary-heading" title="Summary">
         <div className={`${cardClass} space-y-3 p-4`}>
           <p className="flex flex-wrap items-center gap-2 font-medium" data-testid="report-level">
-            <ConditionBadge condition={{ state: BADGE_OF[summary.level], faults: [], stale: false }} />
+            <ConditionBadge condition={{ state: periodState(summary.level), faults: [], stale: false }} />
             {summary.headline}
           </p>
           <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
@@ -59,6 +58,10 @@ export function ReportView({ report }: { report: StructureReport }) {
             ))}
           </dl>
         </div>
+      </Section>
+
+      <Section id="drawings-heading" title="Where the gauges are">
+        <ReportDrawings report={report} />
       </Section>
 
       <Section id="gauges-heading" title="Gauges">
@@ -76,6 +79,17 @@ export function ReportView({ report }: { report: StructureReport }) {
             )}
             <GaugeTable gauges={report.gauges} units={units} timeZone={zone} />
             <GapLists gauges={report.gauges} timeZone={zone} />
+            <div className="space-y-4">
+              {report.gauges.map((gauge) => (
+                <div key={gauge.tag} className={`${cardClass} break-inside-avoid space-y-2 p-4`}>
+                  <h3 className="font-semibold">
+                    Stress of <span className="font-mono">{gauge.tag}</span>
+                    {gauge.label && <span className="font-normal text-slate-600 dark:text-slate-400"> · {gauge.label}</span>}
+                  </h3>
+                  <ReportStressChart report={report} gauge={gauge} units={units} />
+                </div>
+              ))}
+            </div>
           </>
         )}
       </Section>
@@ -106,6 +120,32 @@ export function ReportView({ report }: { report: StructureReport }) {
           </ul>
         )}
       </Section>
+    </div>
+  );
+}
+
+/** The structure's drawings with the report's gauges on them, as the structure's drawing pages show them. */
+function ReportDrawings({ report }: { report: StructureReport }) {
+  if (report.drawings.length === 0) {
+    return <p className="text-sm text-slate-600 dark:text-slate-400">No drawing of the structure is stored: an engineer can upload one on the structure&apos;s drawings page.</p>;
+  }
+  const zone = report.structure.timezone;
+  const gauges: BoardGauge[] = report.gauges.map((gauge) => ({
+    tag: gauge.tag,
+    label: gauge.label,
+    state: shownState(gauge.condition, gauge.status === "retired"),
+    stateText: formatCondition(gauge.condition, gauge.status, zone),
+    placement: gauge.placement && { id: gauge.placement.drawing, x: gauge.placement.x, y: gauge.placement.y },
+  }));
+  return (
+    <div className="space-y-4">
+      {report.drawings.map((drawing) => (
+        <div key={drawing.id} className="break-inside-avoid space-y-1">
+          <h3 className="font-semibold">{drawing.title}</h3>
+          <DrawingBoard structureCode={report.structure.code} drawing={drawing} gauges={gauges} canPlace={false} />
+        </div>
+      ))}
+      <p className="text-xs text-slate-600 dark:text-slate-400">Markers show each gauge&apos;s condition when the report was made.</p>
     </div>
   );
 }

@@ -23,8 +23,11 @@ export { initialGaugeEvaluationState, type GaugeEvaluationState } from "./evalua
  * ingestion and the limits editor's backtest both run exactly this.
  */
 
-/** A stored reading: raw value in the gauge's input unit, strain µε, stress MPa, mechanics flags. */
-export type EvaluatedReading = { time: number; raw: number; strain: number; stress: number; flags: number };
+/**
+ * A stored reading: raw value in the gauge's input unit, strain µε, stress MPa, mechanics flags,
+ * and the thermal residual in µε (null without a thermal model or a lagged temperature).
+ */
+export type EvaluatedReading = { time: number; raw: number; strain: number; stress: number; flags: number; residual: number | null };
 
 export type QuantityEvent = EpisodeEvent & { quantity: Quantity };
 
@@ -43,6 +46,9 @@ export function quantityValue(reading: EvaluatedReading, quantity: Quantity, yie
       return reading.strain;
     case "utilisation":
       return yieldStress ? Math.abs(reading.stress) / yieldStress : Number.NaN;
+    case "residual":
+      // Not a number: the machine passes over it, as it does utilisation without a yield.
+      return reading.residual ?? Number.NaN;
   }
 }
 

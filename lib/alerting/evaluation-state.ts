@@ -45,7 +45,7 @@ const healthSchema = z.object({
 
 const gaugeStateSchema = z.object({
   version: z.literal(EVALUATION_STATE_VERSION),
-  episodes: z.object({ stress: episodeStateSchema.optional(), strain: episodeStateSchema.optional(), utilisation: episodeStateSchema.optional() }),
+  episodes: z.object({ stress: episodeStateSchema.optional(), strain: episodeStateSchema.optional(), utilisation: episodeStateSchema.optional(), residual: episodeStateSchema.optional() }),
   health: healthSchema,
   hold: z.object({ since: time }).nullable(),
 });

@@ -35,6 +35,8 @@ import { structureReportSchema } from "./report-schema";
 import { loadTestListSchema, loadTestResultsSchema } from "./load-test-schemas";
 import { loadTestInput } from "@/lib/load-tests";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
+import { thermalFitPreviewSchema, thermalModelSchema } from "./thermal-schemas";
+import { thermalModelInput } from "@/lib/thermal/schema";
 import { acknowledgeBody, backtestBody, limitsBody, resolveFaultBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 
 /** Form fields of a multipart/form-data upload, described by hand (zod does not model files). */
@@ -204,6 +206,44 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       parameters: [codeParameter, tagParameter],
       request: backtestBody,
       response: { status: 200, schema: backtestSchema, description: "The alert episodes the limits would have raised" },
+      errors: [400, 401, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/thermal-model": {
+    get: {
+      summary: "The gauge's thermal model in force",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: thermalModelSchema, description: "The model; 404 when the gauge has none" },
+      errors: [401, 404],
+    },
+    put: {
+      summary:
+        "Fit stress-producing strain = a + b·T(t − lag) (+ c·days with drift) by ordinary least squares over the reference period's healthy readings, and store it as the gauge's model",
+      notes:
+        "Replaces the model in force (the audit trail keeps the old one). The residual, measured − model in µε, is then stored for every reading: recomputed at once for the readings already stored (before the period too), and computed on ingest for new ones; " +
+        "read it as `quantity=residual` in the series, and bound it with `residual` limits. Open residual alerts close, since they were measured against the old model. " +
+        'Refused (400, saying what is needed): fewer than 24 readings with a temperature in the period, less than 3 °C of temperature range, a fixed lag or an "auto" search bound longer than the period. ' +
+        "A thermal model is a statistical fit, valid inside the reference period's temperature range; what its residual means is for engineering judgement.",
+      roles: "admin, engineer",
+      parameters: [codeParameter, tagParameter],
+      request: thermalModelInput,
+      response: { status: 200, schema: thermalModelSchema, description: "The model now in force" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+    delete: {
+      summary: "Remove the thermal model; stored residuals go back to null. Refused (409) while residual limits stand",
+      roles: "admin, engineer",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 204, description: "Removed" },
+      errors: [401, 403, 404, 409],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/thermal-model/fit": {
+    post: {
+      summary: "The same fit as PUT, with its scatter of strain against lagged temperature, without storing anything: a preview before saving",
+      parameters: [codeParameter, tagParameter],
+      request: thermalModelInput,
+      response: { status: 200, schema: thermalFitPreviewSchema, description: "The fitted coefficients and the points fitted" },
       errors: [400, 401, 404, 413, 415],
     },
   },

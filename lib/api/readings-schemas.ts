@@ -69,7 +69,7 @@ export const timeRange = z
   .refine(({ from, to }) => from < to, { message: "`from` must come before `to`.", path: ["from"] })
   .refine(({ from }) => from >= 0, { message: "`from` must not be before 1970.", path: ["from"] });
 
-export const SERIES_QUANTITIES = ["strain", "stress", "temperature"] as const;
+export const SERIES_QUANTITIES = ["strain", "stress", "temperature", "residual"] as const;
 export type SeriesQuantity = (typeof SERIES_QUANTITIES)[number];
 
 export const seriesQuerySchema = z
@@ -78,7 +78,10 @@ export const seriesQuerySchema = z
     quantity: z
       .enum(SERIES_QUANTITIES, { error: `Choose quantity ${SERIES_QUANTITIES.join(", ")}.` })
       .default("strain")
-      .meta({ description: "strain (µε, stress-producing), stress (MPa) or temperature (°C); default strain" }),
+      .meta({
+        description:
+          "strain (µε, stress-producing), stress (MPa), temperature (°C) or residual (µε: measured − the gauge's thermal model; readings before a model have none); default strain",
+      }),
   })
   .and(timeRange);
 

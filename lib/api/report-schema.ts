@@ -75,6 +75,32 @@ export const reportGaugeSchema = z.object({
       z.object({ status: z.literal("not-assessed").meta({ description: "The gauge has no detail category" }) }),
     ])
     .meta({ description: "Fatigue damage of the period, as GET …/gauges/{tag}/fatigue computes it with the gauge's category" }),
+  stressSeries: z
+    .object({
+      t: z.array(z.number()).meta({ description: "Start of each interval, epoch ms; intervals without readings are left out" }),
+      min: z.array(z.number()),
+      max: z.array(z.number()),
+      mean: z.array(z.number()),
+      bucketWidth: z.number().meta({ description: "Width of the intervals, ms" }),
+    })
+    .nullable()
+    .meta({ description: "Stress over the period in MPa, min, max and mean per interval, as GET …/gauges/{tag}/series answers it; null when nothing was stored" }),
+  stressLimitLines: z
+    .array(z.object({ value: z.number().meta({ description: "MPa" }), level: z.enum(ALERT_LEVELS), text: z.string() }))
+    .meta({ description: "The gauge's stress bounds, and its utilisation bounds at bound × yield stress, as lines across the stress chart" }),
+  placement: z
+    .object({ drawing: count, x: z.number(), y: z.number() })
+    .nullable()
+    .meta({ description: "Where the gauge sits on one of the structure's drawings: x across and y down, as fractions of the drawing's width and height" }),
+});
+
+export const reportDrawingSchema = z.object({
+  id: count,
+  title: z.string(),
+  contentType: z.string(),
+  width: z.number().nullable().meta({ description: "Pixels" }),
+  height: z.number().nullable().meta({ description: "Pixels" }),
+  url: z.string().meta({ description: "Where the image's bytes are served" }),
 });
 
 export const reportAlertSchema = z.object({
@@ -133,6 +159,7 @@ export const structureReportSchema = z
     }),
     gauges: z.array(reportGaugeSchema).meta({ description: "Gauges installed at some time in the period, by tag" }),
     alerts: z.array(reportAlertSchema).meta({ description: "Alerts open at any time in the period, newest first" }),
+    drawings: z.array(reportDrawingSchema).meta({ description: "The structure's drawings, oldest first; the gauges' placements point into them" }),
     loadTests: z.array(loadTestResultsSchema).meta({ description: "Load tests whose window overlaps the period, oldest first, with their results" }),
     cautions: z.array(z.string()),
   })
@@ -141,3 +168,4 @@ export const structureReportSchema = z
 export type StructureReport = z.output<typeof structureReportSchema>;
 export type ReportGauge = z.output<typeof reportGaugeSchema>;
 export type ReportAlert = z.output<typeof reportAlertSchema>;
+export type ReportDrawing = z.output<typeof reportDrawingSchema>;

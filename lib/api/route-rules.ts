@@ -26,6 +26,8 @@ export const ROUTE_RULES = {
   "/structures/{code}/gauges/{tag}/readings": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/series": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/summaries": { GET: "structure:view" },
+  "/structures/{code}/gauges/{tag}/thermal-model": { GET: "structure:view", PUT: "thermal-model:edit", DELETE: "thermal-model:edit" },
+  "/structures/{code}/gauges/{tag}/thermal-model/fit": { POST: "structure:view" },
   "/structures/{code}/gauges/{tag}/zero": { POST: "zero:record" },
   "/structures/{code}/load-tests": { GET: "structure:view", POST: "load-test:record" },
   "/structures/{code}/load-tests/{id}": { GET: "structure:view" },

@@ -38,6 +38,8 @@ export interface GaugeRows {
   stress: number[];
   /** Bitmask of lib/mechanics Flag. */
   flags: number[];
+  /** Measured − thermal model, µε; null until ingestion applies the gauge's thermal model, or where it cannot. */
+  residual: (number | null)[];
 }
 
 export interface PreparedBatch {
@@ -49,7 +51,7 @@ export interface PreparedBatch {
 }
 
 export function emptyRows(gaugeId: number, tag: string): GaugeRows {
-  return { gaugeId, tag, time: [], value: [], temperature: [], strain: [], stress: [], flags: [] };
+  return { gaugeId, tag, time: [], value: [], temperature: [], strain: [], stress: [], flags: [], residual: [] };
 }
 
 export function rowCount(gauges: readonly GaugeRows[]): number {
@@ -105,6 +107,7 @@ export function createBatch(gauges: ReadonlyMap<string, GaugeEntry>, now: number
     rows.strain.push(result.strain);
     rows.stress.push(result.stress);
     rows.flags.push(result.flags);
+    rows.residual.push(null);
   }
 
   function finish(): PreparedBatch {
@@ -142,6 +145,7 @@ export function selectRows(rows: GaugeRows, positions: readonly number[]): Gauge
     out.strain.push(rows.strain[i]!);
     out.stress.push(rows.stress[i]!);
     out.flags.push(rows.flags[i]!);
+    out.residual.push(rows.residual[i]!);
   }
   return out;
 }

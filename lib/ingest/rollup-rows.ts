@@ -17,6 +17,10 @@ export const ROLLUP_COLUMNS = [
   "temperature_min",
   "temperature_max",
   "temperature_sum",
+  "residual_count",
+  "residual_min",
+  "residual_max",
+  "residual_sum",
 ] as const;
 
 const ROLLUPS = Object.keys(ROLLUP_RESOLUTIONS) as Rollup[];
@@ -31,7 +35,7 @@ const ROLLUPS = Object.keys(ROLLUP_RESOLUTIONS) as Rollup[];
  */
 export function appendRollupValues(rows: GaugeRows, out: (number | null)[]): number {
   const finite = finiteRows(rows);
-  const { time, strain, stress, temperature } = finite;
+  const { time, strain, stress, temperature, residual } = finite;
   let appended = 0;
   for (const rollup of ROLLUPS) {
     for (let start = 0; start < time.length; ) {
@@ -41,7 +45,8 @@ export function appendRollupValues(rows: GaugeRows, out: (number | null)[]): num
       out.push(finite.gaugeId, ROLLUP_RESOLUTIONS[rollup], bucket, end - start);
       pushRange(out, strain, start, end);
       pushRange(out, stress, start, end);
-      pushTemperatures(out, temperature, start, end);
+      pushOptional(out, temperature, start, end);
+      pushOptional(out, residual, start, end);
       appended++;
       start = end;
     }
@@ -70,8 +75,8 @@ function pushRange(out: (number | null)[], values: readonly number[], start: num
   out.push(min, max, sum);
 }
 
-/** Temperature is optional per reading: its own count, and nulls when no reading had one. */
-function pushTemperatures(out: (number | null)[], values: readonly (number | null)[], start: number, end: number) {
+/** Temperature and residual are optional per reading: each has its own count, and nulls when no reading had one. */
+function pushOptional(out: (number | null)[], values: readonly (number | null)[], start: number, end: number) {
   let count = 0;
   let min = Infinity;
   let max = -Infinity;

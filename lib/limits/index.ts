@@ -11,7 +11,7 @@
  * Late readings: see `replay`.
  */
 export { LEVELS, QUANTITIES, ROSETTE_LIMIT_QUANTITIES, levelRank, type Level, type Limit, type LimitInput, type Quantity, type RosetteLimitQuantity } from "./limit";
-export { limitLines, offScaleLines, rangeWithLines, valueAxisRange, type LimitLine } from "./limit-lines";
+export { limitLines, offScaleLines, rangeWithLines, valueAxisRange, type LimitLine, type OffScaleLine } from "./limit-lines";
 export { validateLimits, type LimitField, type LimitProblem, type LimitProblemCode, type LimitSetValidation } from "./validate-limits";
 export { clearBand, type ClearBand } from "./bounds";
 export {

@@ -1,5 +1,8 @@
-/** What a limit bounds, as named by the API contract; `utilisation` is |stress| / yield. */
-export const QUANTITIES = ["stress", "strain", "utilisation"] as const;
+/**
+ * What a limit bounds, as named by the API contract; `utilisation` is |stress| / yield, `residual`
+ * the thermal residual (measured − thermal model, µε) of a gauge with a thermal model.
+ */
+export const QUANTITIES = ["stress", "strain", "utilisation", "residual"] as const;
 export type Quantity = (typeof QUANTITIES)[number];
 
 /** What a rosette limit bounds: stresses derived from its three gauges, all in MPa. */

@@ -42,6 +42,7 @@ const QUANTITY_NAME: Record<AlertEventFacts["quantity"], string> = {
   stress: "stress",
   strain: "strain",
   utilisation: "utilisation",
+  residual: "thermal residual",
   sigma1: "σ₁",
   sigma2: "σ₂",
   vonMises: "von Mises stress",

@@ -1,6 +1,7 @@
 import type { StructureReport } from "@/lib/api/report-schema";
 import { summaryFacts } from "@/lib/report/format";
 import { periodQuery } from "@/lib/report/period";
+import { periodLevelText } from "@/lib/report/status";
 import { ALERT_CAUTION } from "./alert";
 import { escapeHtml, htmlButton, htmlFrame, htmlParagraph, type BuiltMail } from "./message";
 
@@ -16,7 +17,7 @@ export function reportPageLink(appUrl: string, report: Pick<StructureReport, "st
 export function buildReportMail(input: { recipientName: string; report: StructureReport }, appUrl: string): BuiltMail {
   const { report } = input;
   const { structure, period, summary } = report;
-  const subject = `Hookeline report ${period.name}: ${structure.name} (${structure.code}), ${summary.level.replace("-", " ")}`;
+  const subject = `Hookeline report ${period.name}: ${structure.name} (${structure.code}), ${periodLevelText(summary.level).toLowerCase()}`;
   const opening = `Hello ${input.recipientName}, the report of ${structure.name} for ${period.name} is attached as a PDF.`;
   const lines = [summary.headline, ...summaryFacts(summary).map(([label, value]) => `${label}: ${value}.`), `Gauges in the report: ${report.gauges.length}.`];
   const link = reportPageLink(appUrl, report);

@@ -2,7 +2,7 @@ import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/time-format";
 import { formatForDisplay, formatMicrostrain, formatShareOfYield, type UnitSystem } from "@/lib/units";
-import { conditionText } from "@/lib/alerting/condition-display";
+import { STATE_LOOK, conditionText, faultWord } from "@/lib/alerting/condition-display";
 import { formatHours } from "./gaps";
 import { formatPercent } from "./status";
 
@@ -90,10 +90,11 @@ export function formatAlertValue(alert: Pick<ReportAlert, "unit">, value: number
   return String(value);
 }
 
-/** "G1: warning, stress limit, peak 250.0 MPa against 200.0 MPa" or "G2: sensor alert (stale)". */
+/** "G1: Warning, stress limit, peak 250.0 MPa against 200.0 MPa" or "G2: Watch, sensor alert (no data arriving)", levels and codes in the condition code's words. */
 export function alertTitle(alert: ReportAlert, units: UnitSystem): string {
-  if (alert.kind === "sensor") return `${alert.gauge}: ${alert.level} sensor alert (${alert.code ?? "sensor"})`;
-  return `${alert.gauge}: ${alert.level}, ${alert.quantity} limit, peak ${formatAlertValue(alert, alert.peak, units)} against ${formatAlertValue(alert, alert.bound, units)}`;
+  const level = STATE_LOOK[alert.level].word;
+  if (alert.kind === "sensor") return `${alert.gauge}: ${level}, sensor alert (${faultWord(alert.code ?? "sensor")})`;
+  return `${alert.gauge}: ${level}, ${alert.quantity} limit, peak ${formatAlertValue(alert, alert.peak, units)} against ${formatAlertValue(alert, alert.bound, units)}`;
 }
 
 /** How the alert was dealt with, in one line a reader can file. */

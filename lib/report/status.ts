@@ -1,8 +1,19 @@
+import type { ConditionState } from "@/lib/alerting/condition";
+import { STATE_LOOK } from "@/lib/alerting/condition-display";
+
 /** How the period went, worst first: a structural alert level reached, all clear, or nothing to judge by. */
 export const PERIOD_LEVELS = ["critical", "warning", "watch", "all-clear", "no-data"] as const;
 export type PeriodLevel = (typeof PERIOD_LEVELS)[number];
 
 const ALERT_LEVELS = ["critical", "warning", "watch"] as const;
+
+/** The period's level in the condition code of badges and markers: an all clear reads as within limits. */
+const STATE_OF_LEVEL: Record<PeriodLevel, ConditionState> = { critical: "critical", warning: "warning", watch: "watch", "all-clear": "within-limits", "no-data": "no-data" };
+
+export const periodState = (level: PeriodLevel): ConditionState => STATE_OF_LEVEL[level];
+
+/** "Within limits", "Warning", "No current data": the period's level in the words of the condition code. */
+export const periodLevelText = (level: PeriodLevel): string => STATE_LOOK[periodState(level)].word;
 
 /**
  * The worst structural level of the limit alerts open at any time in the period. Sensor alerts

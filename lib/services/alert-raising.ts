@@ -281,7 +281,7 @@ async function applySensorFinding(tx: WriteTx, gauge: Gauge, finding: SensorFind
 
 /** A replay reads back up to three days of a gauge's readings, with their stored verdicts: as plain rows, not mapped objects. */
 export async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: number): Promise<(EvaluatedReading & { faultBits: number })[]> {
-  const rows = await bulkSql(tx).rows("SELECT t, value, strain, stress, flags, fault FROM readings WHERE gauge_id = ? AND t > ? ORDER BY t", [gaugeId, after]);
+  const rows = await bulkSql(tx).rows("SELECT t, value, strain, stress, flags, fault, residual FROM readings WHERE gauge_id = ? AND t > ? ORDER BY t", [gaugeId, after]);
   return rows.map((row) => ({
     time: row[0] as number,
     raw: row[1] as number,
@@ -289,6 +289,7 @@ export async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: n
     stress: row[3] as number,
     flags: row[4] as number,
     faultBits: row[5] as number,
+    residual: row[6] as number | null,
   }));
 }
 

@@ -417,6 +417,7 @@ function extremeRows(gauge: GaugeEntry, readings: { time: number; index: number;
     rows.strain.push(result.strain);
     rows.stress.push(result.stress);
     rows.flags.push(result.flags);
+    rows.residual.push(null);
   }
   return rows;
 }

@@ -78,13 +78,18 @@ async function closeJumpAlert(tx: WriteTx, gauge: Gauge, byLabel: string) {
 export type EvaluationChange =
   | { kind: "limits"; removed: readonly Quantity[]; changed: readonly Quantity[] }
   | { kind: "material" }
-  | { kind: "zero" };
+  | { kind: "zero" }
+  | { kind: "thermal-model" };
 
 const CLOSINGS = {
   removed: { because: "the limits of this quantity were removed", next: "Its readings are no longer checked against limits." },
   changed: { because: "the limits were changed", next: "Evaluation starts again against the new limits, and a crossing of them opens a new alert." },
   material: { because: "the gauge's material was changed", next: "Evaluation starts again with it, and a crossing opens a new alert." },
   zero: { because: "a new zero was recorded", next: "Evaluation starts again from it, and a crossing opens a new alert." },
+  "thermal-model": {
+    because: "the gauge's thermal model was changed",
+    next: "The residual is measured against the model now in force, and a crossing of its limits opens a new alert.",
+  },
 } as const satisfies Record<string, Closing>;
 
 const ZERO_AFTER_JUMP = "Readings from the jump to the new zero stay set aside; limits are checked again from the new zero on.";
@@ -104,7 +109,7 @@ export async function restartGaugeEvaluation(tx: WriteTx, gauge: Gauge, change: 
     if (loaded) await saveGaugeState(tx, gauge.id, restartQuantities(loaded.stored.current, [...change.removed, ...change.changed]));
     return;
   }
-  const quantities: Quantity[] = change.kind === "zero" ? [...QUANTITIES] : ["stress", "utilisation"];
+  const quantities: Quantity[] = change.kind === "zero" ? [...QUANTITIES] : change.kind === "thermal-model" ? ["residual"] : ["stress", "utilisation"];
   await closeLimitAlerts(tx, subject, quantities, CLOSINGS[change.kind], byLabel);
   if (change.kind === "zero") await closeJumpAlert(tx, gauge, byLabel);
   if (!loaded) return;

@@ -18,6 +18,7 @@ import { gaugeRowsOf } from "./gauges";
 import { getVisibleStructure } from "./structures";
 import { evaluateInsertedReadings, type FaultTimesByGauge } from "./alert-raising";
 import { evaluateRosetteLimits } from "./rosette-alert-raising";
+import { withResiduals } from "./thermal";
 
 /** Per request, as the API documents them; bigger logger files go through /uploads. */
 export const MAX_READINGS_PER_REQUEST = 50_000;
@@ -161,7 +162,7 @@ async function storeBatch(target: IngestTarget, batch: PreparedBatch, onStored?:
  * their extremes, which limits take as readings at their own instants.
  */
 export async function storeConvertedReadings(tx: WriteTx, target: IngestTarget, gauges: readonly GaugeRows[]): Promise<{ inserted: readonly GaugeRows[]; accepted: number; alerts: AlertCounts }> {
-  const inserted = await insertReadings(tx, gauges);
+  const inserted = await insertReadings(tx, await withResiduals(tx, gauges));
   const evaluation = await evaluateLimits(tx, target, inserted);
   await mergeRollups(tx, withoutQuarantined(inserted, evaluation.quarantined));
   return { inserted, accepted: rowCount(inserted), alerts: evaluation.counts };
@@ -183,7 +184,7 @@ async function evaluateLimits(tx: WriteTx, target: IngestTarget, inserted: reado
     tx,
     inserted.map((rows) => ({
       gauge: target.gauges.get(rows.tag)!.row,
-      readings: rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]! })),
+      readings: rows.time.map((time, i) => ({ time, raw: rows.value[i]!, strain: rows.strain[i]!, stress: rows.stress[i]!, flags: rows.flags[i]!, residual: rows.residual[i]! })),
     })),
   );
   add(gauges.counts);
@@ -207,7 +208,7 @@ function withoutQuarantined(inserted: readonly GaugeRows[], quarantined: FaultTi
   });
 }
 
-const READING_COLUMNS = 7;
+const READING_COLUMNS = 8;
 
 /** Statement texts by row count: a batch reuses one text per chunk size instead of rebuilding it. */
 const statementCache = new Map<string, string>();
@@ -228,7 +229,7 @@ const placeholders = (rows: number, columns: number) => {
 };
 
 function insertReadingsSql(rows: number): string {
-  return `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags) VALUES ${placeholders(rows, READING_COLUMNS)}`;
+  return `INSERT INTO readings (gauge_id, t, value, temperature, strain, stress, flags, residual) VALUES ${placeholders(rows, READING_COLUMNS)}`;
 }
 
 /**
@@ -252,6 +253,10 @@ function mergeRollupsSql(rows: number): string {
       nullable("temperature_min", "min(temperature_min, excluded.temperature_min)"),
       nullable("temperature_max", "max(temperature_max, excluded.temperature_max)"),
       nullable("temperature_sum", "temperature_sum + excluded.temperature_sum"),
+      "residual_count = residual_count + excluded.residual_count",
+      nullable("residual_min", "min(residual_min, excluded.residual_min)"),
+      nullable("residual_max", "max(residual_max, excluded.residual_max)"),
+      nullable("residual_sum", "residual_sum + excluded.residual_sum"),
     ].join(", ")
   );
 }
@@ -286,7 +291,7 @@ async function insertReadings(tx: WriteTx, gauges: readonly GaugeRows[]): Promis
   const values: (number | null)[] = [];
   for (const rows of fresh) {
     for (let i = 0; i < rows.time.length; i++) {
-      values.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!);
+      values.push(rows.gaugeId, rows.time[i]!, rows.value[i]!, rows.temperature[i]!, rows.strain[i]!, rows.stress[i]!, rows.flags[i]!, rows.residual[i]!);
     }
   }
   await raw.insertRows((count) => statement("readings", count), READING_COLUMNS, values);

@@ -12,6 +12,7 @@ import { validateLimits, type Limit, type LimitInput as ProposedLimit, type Limi
 import { recordAudit } from "./audit";
 import { restartGaugeEvaluation } from "./evaluation-control";
 import { resolveGauge } from "./gauges";
+import { hasThermalModel } from "./thermal";
 
 type LimitInput = z.output<typeof limitsBody>["limits"][number];
 
@@ -46,13 +47,19 @@ export function validLimitsOrRefuse<Q extends string>(inputs: readonly ProposedL
   return checked.limits;
 }
 
-/** A gauge's limits also need a yield when one bounds utilisation. */
-function checkedLimits(gauge: Gauge, inputs: LimitInput[]): Limit[] {
+/** A gauge's limits also need a yield when one bounds utilisation, and a thermal model when one bounds the residual. */
+async function checkedLimits(gauge: Gauge, inputs: LimitInput[]): Promise<Limit[]> {
   const limits = validLimitsOrRefuse(inputs);
   const utilisationIndex = limits.findIndex((limit) => limit.quantity === "utilisation");
   if (utilisationIndex >= 0 && !gauge.material.yield) {
     throw new AppError("validation_failed", "Utilisation limits need the material's yield; give the gauge's material a yield first.", {
       issues: [{ path: `limits.${utilisationIndex}.quantity`, message: "This gauge's material has no yield." }],
+    });
+  }
+  const residualIndex = limits.findIndex((limit) => limit.quantity === "residual");
+  if (residualIndex >= 0 && !(await hasThermalModel(gauge))) {
+    throw new AppError("validation_failed", "Residual limits need the gauge's thermal model; fit and save one over a reference period first.", {
+      issues: [{ path: `limits.${residualIndex}.quantity`, message: "This gauge has no thermal model." }],
     });
   }
   return limits;
@@ -87,7 +94,7 @@ export function limitChanges<Q extends string>(before: readonly Limit<Q>[], afte
  */
 export async function replaceLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[]): Promise<Limit[]> {
   const { structure, gauge } = await resolveGauge(actor, code, tag, "limits:edit");
-  const limits = checkedLimits(gauge, inputs);
+  const limits = await checkedLimits(gauge, inputs);
   const before = await limitsOfGauge(gauge.id);
   await writeTransaction(async (tx) => {
     await restartGaugeEvaluation(tx, gauge, { kind: "limits", ...limitChanges(before, limits) }, actorLabel(actor));
@@ -114,7 +121,7 @@ export type BacktestResult<Q extends string = Quantity> = { from: number; to: nu
 /** A gauge's stored readings in [from, to), in time order, as its evaluation takes them. */
 export function storedReadingsBetween(gaugeId: number, from: number, to: number): Promise<EvaluatedReading[]> {
   return getDb()
-    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags })
+    .select({ time: readings.time, raw: readings.value, strain: readings.strain, stress: readings.stress, flags: readings.flags, residual: readings.residual })
     .from(readings)
     .where(and(eq(readings.gaugeId, gaugeId), gte(readings.time, from), lt(readings.time, to)))
     .orderBy(asc(readings.time));
@@ -123,7 +130,7 @@ export function storedReadingsBetween(gaugeId: number, from: number, to: number)
 /** What the proposed limits would have raised over a past period, by the same code as live ingestion. */
 export async function backtestLimits(actor: Actor, code: string, tag: string, inputs: LimitInput[], from: number, to: number): Promise<BacktestResult> {
   const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
-  const limits = checkedLimits(gauge, inputs);
+  const limits = await checkedLimits(gauge, inputs);
   const history = await storedReadingsBetween(gauge.id, from, to);
   const { events } = evaluateGauge(gaugeAlertSetup(gauge, limits), initialGaugeEvaluationState(), history);
   return { from, to, readingsChecked: history.length, episodes: episodesOf(events) };

@@ -9,7 +9,10 @@ import { bucketGrid, chooseSource, createBucketAccumulator, ROLLUP_RESOLUTIONS, 
 import type { SeriesQuantity } from "@/lib/api/readings-schemas";
 import { resolveGauge } from "./gauges";
 
-const UNITS: Record<SeriesQuantity, string> = { strain: "µε", stress: "MPa", temperature: "°C" };
+const UNITS: Record<SeriesQuantity, string> = { strain: "µε", stress: "MPa", temperature: "°C", residual: "µε" };
+
+/** Temperature and residual may be absent from a reading, so each has a count of its own in the roll-ups. */
+const ROLLUP_COUNT: Record<SeriesQuantity, string> = { strain: "count", stress: "count", temperature: "temperature_count", residual: "residual_count" };
 
 export type SeriesQuery = { from: number; to: number; points: number; quantity: SeriesQuantity };
 
@@ -27,9 +30,8 @@ function bucketQuery(source: SeriesSource, quantity: SeriesQuantity): string {
       "FROM readings WHERE gauge_id = :gauge AND t >= :start AND t < :end GROUP BY b ORDER BY b"
     );
   }
-  const count = quantity === "temperature" ? "temperature_count" : "count";
   return (
-    `SELECT (bucket - :start) / :width AS b, min(${quantity}_min), max(${quantity}_max), sum(${quantity}_sum), sum(${count}) ` +
+    `SELECT (bucket - :start) / :width AS b, min(${quantity}_min), max(${quantity}_max), sum(${quantity}_sum), sum(${ROLLUP_COUNT[quantity]}) ` +
     "FROM rollups WHERE gauge_id = :gauge AND resolution = :resolution AND bucket >= :start AND bucket < :end GROUP BY b ORDER BY b"
   );
 }

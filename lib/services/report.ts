@@ -4,7 +4,7 @@ import { getDb } from "@/db/client";
 import { alertEvents, alerts, readings, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
 import { Flag } from "@/lib/mechanics/validity";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
-import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
+import type { ReportAlert, ReportDrawing, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { REPORT_CAUTIONS } from "@/lib/report/cautions";
@@ -12,8 +12,13 @@ import { activeSpan, completeness, expectedReadings, type Span } from "@/lib/rep
 import { firstOf, missingHourRuns } from "@/lib/report/gaps";
 import { dayText, lastDay, periodKey, periodName, previousMonthPeriod, type ReportPeriod } from "@/lib/report/period";
 import { periodHeadline, periodLevel, type CheckedGauges } from "@/lib/report/status";
+import { PDF_IMAGE_TYPES, renderReportPdf } from "@/lib/report/pdf";
+import { limitLines } from "@/lib/limits";
 import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
+import { listDrawings, openFile } from "./files";
+import { limitsOfGauge } from "./limits";
+import { getSeries } from "./readings";
 import { gaugeRowsOf } from "./gauges";
 import { loadTestsOfPeriod } from "./load-tests";
 import { conditionView, gaugeStatuses, structureSummary, type ConditionView } from "./status";
@@ -21,6 +26,9 @@ import { getVisibleStructure } from "./structures";
 
 /** Gap runs listed per gauge; a dead logger for a month would otherwise fill pages. */
 const GAPS_LISTED = 10;
+
+/** Intervals of a report chart: three hours each over a month, finer than a printed line can show. */
+const CHART_POINTS = 250;
 
 const iso = (ms: number) => new Date(ms).toISOString();
 const HOUR_MS = 3_600_000;
@@ -114,6 +122,7 @@ async function believedExtremes(gaugeIds: number[], period: Span) {
 type Totals = Awaited<ReturnType<typeof dailyTotals>> extends Map<number, infer T> ? T : never;
 
 type GaugeFacts = {
+  chart: Pick<ReportGauge, "stressSeries" | "stressLimitLines">;
   totals: Totals | undefined;
   /** Set when some readings were not believed: the extremes of the others. */
   believed: (Totals & { leftOut: number }) | undefined;
@@ -125,7 +134,7 @@ type GaugeFacts = {
 
 const LEFT_OUT_REASON = "found faulty by the sensor checks (jump, flat line, beyond the sensor's range, or held after a jump until an engineer resolves it), or beyond the gauge's rated range";
 
-function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, condition, fatigue }: GaugeFacts): ReportGauge {
+function gaugeSection(gauge: Gauge, { chart, totals: allTotals, believed, span, hours, condition, fatigue }: GaugeFacts): ReportGauge {
   const intervalS = gauge.expectedInterval ?? DEFAULT_EXPECTED_INTERVAL_S;
   const inSpan = span ? hours.filter((hour) => hour.bucket + HOUR_MS > span.start && hour.bucket < span.end) : [];
   const received = inSpan.reduce((sum, hour) => sum + hour.count, 0);
@@ -163,7 +172,34 @@ function gaugeSection(gauge: Gauge, { totals: allTotals, believed, span, hours, 
       totalHours: gaps.reduce((sum, gap) => sum + gap.hours, 0),
     },
     fatigue,
+    ...chart,
+    placement: gauge.drawingId != null && gauge.drawingX != null && gauge.drawingY != null ? { drawing: gauge.drawingId, x: gauge.drawingX, y: gauge.drawingY } : null,
   };
+}
+
+/** The stress chart of a gauge: the envelope the gauge page's chart shows over the period, and its stress and utilisation bounds. */
+async function gaugeChart(actor: Actor, code: string, gauge: Gauge, period: ReportPeriod, stored: boolean): Promise<GaugeFacts["chart"]> {
+  const lines = limitLines(await limitsOfGauge(gauge.id), "stress", (value) => value, gauge.material.yield ?? null);
+  if (!stored) return { stressSeries: null, stressLimitLines: lines };
+  const series = await getSeries(actor, code, gauge.tag, { from: period.from.getTime(), to: period.to.getTime(), points: CHART_POINTS, quantity: "stress" });
+  const { t, min, max, mean, bucketWidth } = series;
+  return { stressSeries: t.length ? { t, min, max, mean, bucketWidth } : null, stressLimitLines: lines };
+}
+
+const drawingOf = ({ id, title, contentType, width, height, url }: ReportDrawing): ReportDrawing => ({ id, title, contentType, width, height, url });
+
+/**
+ * The report as a PDF, with the images of its drawings read from the file store. A drawing the
+ * PDF cannot hold (a WebP image) or whose bytes are gone is named there without its image.
+ */
+export async function structureReportPdf(actor: Actor, report: StructureReport): Promise<Buffer> {
+  const images = new Map<number, Uint8Array>();
+  for (const drawing of report.drawings) {
+    if (!PDF_IMAGE_TYPES.includes(drawing.contentType)) continue;
+    const file = await openFile(actor, drawing.id).catch(() => null);
+    if (file) images.set(drawing.id, new Uint8Array(await new Response(file.stream).arrayBuffer()));
+  }
+  return renderReportPdf(report, images);
 }
 
 /** Which of the report's gauges an all clear covers; faulty readings are not in `received`, so a gauge that sent only those is faulty, not silent. */
@@ -288,6 +324,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
           }));
     gauges.push(
       gaugeSection(gauge, {
+        chart: await gaugeChart(actor, code, gauge, period, totals.has(gauge.id) || believed.has(gauge.id)),
         totals: totals.get(gauge.id),
         believed: believed.get(gauge.id),
         span: activeSpan(lifeOf(gauge), span, now.getTime()),
@@ -295,7 +332,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
         condition: conditionOf.get(gauge.tag)!,
         fatigue,
       }),
-    )
+    );
   }
 
   const reportAlerts = await alertsOf(structure.id, span, new Map(allGauges.map((gauge) => [gauge.id, gauge.tag])));
@@ -324,6 +361,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
     },
     gauges,
     alerts: reportAlerts,
+    drawings: (await listDrawings(actor, code)).map(drawingOf),
     loadTests: await loadTestsOfPeriod(structure, span),
     cautions: REPORT_CAUTIONS,
   };

@@ -28,6 +28,8 @@ export type ThermalFitRequest = {
   /** Epoch ms, inclusive. */
   to: number;
   lagMinutes: number | "auto";
+  /** How far back the automatic search looks, minutes; default the lesser of a day and half the period. */
+  maxLagMinutes?: number;
   drift: boolean;
 };
 
@@ -110,6 +112,12 @@ export function fitThermalModel(samples: readonly ThermalSample[], request: Ther
   if (request.lagMinutes !== "auto" && request.lagMinutes > periodMinutes) {
     throw fitError("lagMinutes", `A lag of ${request.lagMinutes} min is longer than the reference period (${Math.floor(periodMinutes)} min); choose a shorter lag or a longer period.`);
   }
+  if (request.lagMinutes === "auto" && request.maxLagMinutes !== undefined && request.maxLagMinutes > periodMinutes) {
+    throw fitError(
+      "maxLagMinutes",
+      `A lag search up to ${request.maxLagMinutes} min is longer than the reference period (${Math.floor(periodMinutes)} min); search a shorter lag or choose a longer period.`,
+    );
+  }
   const history = temperatureHistory(samples);
   const inPeriod = samples
     .filter((sample) => sample.time >= from && sample.time <= to && Number.isFinite(sample.strain))
@@ -124,7 +132,7 @@ export function fitThermalModel(samples: readonly ThermalSample[], request: Ther
     throw fitError("from", `The temperature in the reference period spans only ${range.toFixed(1)} °C; a thermal fit needs at least ${MIN_TEMPERATURE_RANGE_C} °C of range. Choose a period with a larger swing.`);
   }
 
-  const lags = request.lagMinutes === "auto" ? lagGrid(periodMinutes, inPeriod) : [request.lagMinutes];
+  const lags = request.lagMinutes === "auto" ? lagGrid(periodMinutes, inPeriod, request.maxLagMinutes) : [request.lagMinutes];
   let best: ThermalModel | null = null;
   let bestResidualSum = Infinity;
   for (const lag of lags) {
@@ -140,9 +148,9 @@ export function fitThermalModel(samples: readonly ThermalSample[], request: Ther
   return best;
 }
 
-/** 0, step, 2·step, … up to the lesser of a day and half the period, at least the sampling interval apart. */
-export function lagGrid(periodMinutes: number, inPeriod: readonly ThermalSample[]): number[] {
-  const bound = Math.min(MAX_AUTO_LAG_MINUTES, Math.floor(periodMinutes / 2));
+/** 0, step, 2·step, … up to `maxLagMinutes` (default the lesser of a day and half the period), at least the sampling interval apart. */
+export function lagGrid(periodMinutes: number, inPeriod: readonly ThermalSample[], maxLagMinutes?: number): number[] {
+  const bound = maxLagMinutes ?? Math.min(MAX_AUTO_LAG_MINUTES, Math.floor(periodMinutes / 2));
   const intervals = inPeriod.slice(1).map((sample, i) => sample.time - (inPeriod[i]?.time ?? sample.time)).filter((gap) => gap > 0).sort((a, b) => a - b);
   const typicalMinutes = (intervals[intervals.length >> 1] ?? MINUTE_MS) / MINUTE_MS;
   const step = Math.max(1, Math.round(typicalMinutes), Math.ceil(bound / MAX_LAG_STEPS));

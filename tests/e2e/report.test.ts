@@ -3,9 +3,9 @@ import { createClient } from "@libsql/client";
 import { PDFParse } from "pdf-parse";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { previousMonthPeriod } from "@/lib/report/period";
+import { monthIn, monthName, previousMonthPeriod } from "@/lib/report/period";
 import { storeReadings } from "../fixtures/readings";
-import { SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
+import { PHONE, SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -45,6 +45,31 @@ class ReportPage {
   downloadLink() {
     return this.page.getByRole("link", { name: "Download PDF" });
   }
+  stressChart(tag: string) {
+    return this.page.getByTestId("report-chart").and(this.page.locator(`[data-gauge="${tag}"]`));
+  }
+  drawings() {
+    return this.page.getByRole("region", { name: "Where the gauges are" });
+  }
+}
+
+/** The name of the demo's previous month at the footbridge, as the report titles it. */
+const previousMonthName = () => monthName(monthIn(previousMonthPeriod(new Date(), "Europe/London").from, "UTC"));
+
+/** That the chart draws the envelope and its mean, and the drawing's image has loaded with markers on it. */
+async function expectChartAndDrawing(report: ReportPage, page: Page) {
+  const chart = report.stressChart(TAG);
+  await chart.getByRole("img", { name: `Stress of ${TAG} over ${previousMonthName()}` }).waitFor();
+  // A band and a mean per run of readings, and the axis's ticks labelled in MPa.
+  await expect(chart.locator("path[fill-opacity]").count()).resolves.toBeGreaterThan(0);
+  await expect(chart.locator("svg text").allTextContents()).resolves.toContain("Stress (MPa)");
+  const image = report.drawings().locator("img").first();
+  await expect(image.evaluate((img: HTMLImageElement) => img.decode().then(() => img.naturalWidth))).resolves.toBeGreaterThan(0);
+  await expect(report.drawings().getByTestId("gauge-marker").filter({ hasText: TAG }).count()).resolves.toBe(1);
+  const box = (await chart.locator("svg").boundingBox())!;
+  const viewport = page.viewportSize()!;
+  expect(box.width).toBeGreaterThan(200);
+  expect(box.x + box.width).toBeLessThanOrEqual(viewport.width);
 }
 
 describe("the structure report page", () => {
@@ -55,7 +80,7 @@ describe("the structure report page", () => {
     await page.goto("/structures/MILL-FB");
     await page.getByRole("link", { name: "Report", exact: true }).click();
     await page.getByRole("heading", { name: "Report: Millrace Footbridge" }).waitFor();
-    for (const heading of ["Summary", "Gauges", "Alerts and how they were handled"]) await page.getByRole("heading", { name: heading }).waitFor();
+    for (const heading of ["Summary", "Where the gauges are", "Gauges", "Alerts and how they were handled"]) await page.getByRole("heading", { name: heading, exact: true }).waitFor();
 
     const report = new ReportPage(page);
     await expect(report.gaugeRow(TAG).textContent()).resolves.toContain(`${PEAK_MPA.toFixed(1)} MPa`);
@@ -64,6 +89,7 @@ describe("the structure report page", () => {
     await expect(page.getByTestId("report-level").textContent()).resolves.toContain(json.summary.headline);
     await page.getByText("Monitoring supplements inspection; it never replaces it.").waitFor();
     await page.getByText(/depends on the detail category chosen by the engineer/).waitFor();
+    await expectChartAndDrawing(report, page);
     await saveScreenshot(page, "report-desktop");
 
     const [download] = await Promise.all([page.waitForEvent("download"), report.downloadLink().click()]);
@@ -79,6 +105,9 @@ describe("the structure report page", () => {
     await expect(page.getByRole("navigation", { name: "Main" }).isVisible()).resolves.toBe(false);
     await expect(page.getByRole("region", { name: "Report period" }).isVisible()).resolves.toBe(false);
     await expect(report.gaugeRow(TAG).isVisible()).resolves.toBe(true);
+    // The chart and the drawing are on paper too.
+    await expect(report.stressChart(TAG).isVisible()).resolves.toBe(true);
+    await expect(report.drawings().locator("img").first().isVisible()).resolves.toBe(true);
     await saveScreenshot(page, "report-print");
 
     // The PDF of the demo data read back.
@@ -89,6 +118,19 @@ describe("the structure report page", () => {
     expect(text).toContain(`Gauge ${TAG}`);
     expect(text).toContain(`${PEAK_MPA.toFixed(1)} MPa`);
     expect(text).toContain("Monitoring supplements inspection and never replaces it.");
+    expect(text).toContain(`Stress, MPa: band from min to max`);
+    // The footbridge's drawing is in the PDF as an image.
+    const images = await new PDFParse({ data: new Uint8Array(bytes) }).getImage({ imageBuffer: false, imageDataUrl: false });
+    expect(images.pages.flatMap((pdfPage) => pdfPage.images).length).toBeGreaterThanOrEqual(1);
+  });
+
+  it("fits the chart and the drawing to a phone's width", async () => {
+    const page = await (await newContext(browser, PHONE)).newPage();
+    await new SignInPage(page).signInAs("owner");
+    await page.goto("/structures/MILL-FB/report");
+    await page.getByRole("heading", { name: "Report: Millrace Footbridge" }).waitFor();
+    await expectChartAndDrawing(new ReportPage(page), page);
+    await saveScreenshot(page, "report-phone");
   });
 
   it("says so when a period has no readings, instead of an all clear", async () => {

@@ -1,3 +1,4 @@
+import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as fatigueRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/fatigue/route";
 import * as item from "@/app/api/v1/structures/[code]/gauges/[tag]/route";
@@ -166,7 +167,8 @@ describe("rainflow matrix as CSV", () => {
     expect(response.status).toBe(200);
     expect(response.headers.get("content-type")).toBe("text/csv; charset=utf-8");
     expect(response.headers.get("content-disposition")).toBe('attachment; filename="FB-G1-rainflow-2026-01-01-to-2026-01-08.csv"');
-    return (await response.text()).trimEnd().split("\r\n").map((line) => line.split(","));
+    // Read by csv-parse, as a spreadsheet or script would read it, not by splitting on commas.
+    return parse(await response.text(), { record_delimiter: "\r\n" }) as string[][];
   }
 
   it("has a row per range bin and a column per mean bin, with every counted cycle in it", async () => {

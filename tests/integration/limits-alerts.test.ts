@@ -51,6 +51,7 @@ async function ingest(stresses: number[], startIndex: number) {
     strain: stress * 5,
     stress,
     flags: 0,
+    residual: null,
   }));
   return writeTransaction(async (tx) => {
     await tx.insert(readings).values(rows.map((r) => ({ gaugeId: gauge.id, time: r.time, value: r.raw, temperature: 10, strain: r.strain, stress: r.stress, flags: 0 })));

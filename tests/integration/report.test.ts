@@ -1,6 +1,9 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { eq, like } from "drizzle-orm";
 import { PDFParse } from "pdf-parse";
-import { beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as reportRoute from "@/app/api/v1/structures/[code]/report/route";
 import { getClient, getDb } from "@/db/client";
 import { alertEvents, alerts, mailOutbox } from "@/db/schema";
@@ -11,13 +14,23 @@ import type { GaugeInput } from "@/lib/gauges/schema";
 import { renderReportPdf } from "@/lib/report/pdf";
 import { monthPeriod } from "@/lib/report/period";
 import { handleAlert } from "@/lib/services/alerts";
+import { placeGauge, uploadDrawing } from "@/lib/services/files";
+import { replaceLimits } from "@/lib/services/limits";
 import { addMember } from "@/lib/services/memberships";
 import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
-import { structureReport } from "@/lib/services/report";
+import { structureReport, structureReportPdf } from "@/lib/services/report";
+import { CHART_INK } from "@/lib/report/chart";
+import { STATE_LOOK } from "@/lib/alerting/condition-display";
 import { apiRequest, makeStructure, makeUser, params, userToken } from "./helpers";
 import { microstrainGauge } from "../fixtures/gauges";
 import { storeReadings, type StoredReading } from "../fixtures/readings";
+import { pngImage } from "../fixtures/images";
+import { countColour, hexRgb, pageWith, renderPdfPage, widestRow } from "../fixtures/pdf-pages";
+
+const storage = fs.mkdtempSync(path.join(os.tmpdir(), "hookeline-report-files-"));
+process.env.FILE_STORAGE_DIR = storage;
+afterAll(() => fs.rmSync(storage, { recursive: true, force: true }));
 
 const HOUR = 3_600_000;
 const TEN_MINUTES = 600_000;
@@ -26,6 +39,7 @@ const START = OCTOBER.from.getTime();
 /** Made on 2 November: October is over, so every hour of it was expected. */
 const NOW = new Date(Date.UTC(2026, 10, 2, 9));
 const E_STEEL = 210_000;
+const DRAWING = { width: 400, height: 200 };
 
 const GAP = { start: Date.UTC(2026, 9, 10, 6), end: Date.UTC(2026, 9, 10, 18) };
 const PEAK = { at: Date.UTC(2026, 9, 20, 12), stress: 250 };
@@ -66,7 +80,8 @@ async function gaugeId(code: string, tag: string) {
 }
 
 async function pdfText(pdf: Buffer) {
-  const parsed = await new PDFParse({ data: new Uint8Array(pdf) }).getText();
+  // pdf.js folds compatibility characters by default (the micro sign µ into Greek mu μ): read them as written.
+  const parsed = await new PDFParse({ data: new Uint8Array(pdf) }).getText({ disableNormalization: true });
   // Lines wrap wherever the page ends them: compare words, not line breaks.
   return { text: parsed.text.replace(/\s+/g, " "), pages: parsed.total };
 }
@@ -82,10 +97,15 @@ beforeAll(async () => {
   for (const user of [engineer, owners[0]!, outsider]) tokens[user.email] = await userToken(user.email);
 
   await createGauge(engineer, "RPT", gaugeInput("G1"));
+  await replaceLimits(engineer, "RPT", "G1", [{ quantity: "stress", level: "warning", upper: 200 }]);
   await createGauge(engineer, "RPT", gaugeInput("G2", { detailCategory: 71 }));
   // Installed half-way through the month and silent since.
   await createGauge(engineer, "RPT", gaugeInput("G3", { zero: { value: 0, temperature: 10, time: "2026-10-16T00:00:00Z" } }));
   await storeReadings(getClient(), await gaugeId("RPT", "G1"), october(g1Stress, GAP));
+  // An elevation, pale grey like a scanned sheet, with G1 and G2 placed on it.
+  const drawing = await uploadDrawing(engineer, "RPT", { bytes: pngImage(DRAWING.width, DRAWING.height, () => [236, 238, 240]), fields: { title: "South elevation" } });
+  await placeGauge(engineer, "RPT", "G1", { drawingId: drawing.id, x: 0.25, y: 0.5 });
+  await placeGauge(engineer, "RPT", "G2", { drawingId: drawing.id, x: 0.75, y: 0.5 });
   await storeReadings(getClient(), await gaugeId("RPT", "G2"), october(g2History));
 
   const g1 = await gaugeId("RPT", "G1");
@@ -249,7 +269,8 @@ describe("the report PDF", () => {
     expect(text).toContain("October 2026");
     expect(text).toContain("Gauge G1");
     expect(text).toContain("-40.0 MPa to 250.0 MPa");
-    expect(text).toContain("1,190 microstrain");
+    expect(text).toContain("-190 µε to 1,190 µε");
+    expect(text).toContain("10.0 °C to 16.0 °C");
     expect(text).toContain("4,392 readings received, 4,464 expected (98.4 % complete)");
     expect(text).toContain("2026-10-10 06:00 UTC to 2026-10-10 18:00 UTC, 12 h without readings");
     expect(text).toContain("acknowledged by Test engineer");
@@ -257,8 +278,58 @@ describe("the report PDF", () => {
     expect(text).toContain("Monitoring supplements inspection and never replaces it.");
     expect(text).toContain("Fatigue damage is an estimate that depends on the detail category chosen by the engineer");
     expect(text).toContain(`page 1 of ${pages}`);
-    // Nothing the standard font cannot print slipped through as a stray letter.
-    expect(text).not.toMatch(/[εσΔ≥]/);
+    // Levels and codes in words: no internal code reaches the owner.
+    expect(text).toContain("Status over the period Warning");
+    expect(text).toContain("G3: Watch, sensor alert (flat line)");
+    expect(text).not.toMatch(/all-clear|within-limits|flat-line|no-data/);
+  });
+
+  it("sets its text in the embedded IBM Plex Sans, so µε, σ, ≥, °C and ü read back as written", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const location = "Mühlgraben crossing; design σ ≥ 180 MPa, 850 µε at 20 °C";
+    const pdf = await renderReportPdf({ ...report, structure: { ...report.structure, location } });
+    expect((await pdfText(pdf)).text).toContain(`Location: ${location}`);
+    // The font is in the file, not a standard font a viewer must supply.
+    expect(pdf.toString("latin1")).toMatch(/\/FontFile2/);
+    expect(pdf.toString("latin1")).not.toMatch(/\/BaseFont \/Helvetica/);
+  });
+
+  it("draws each gauge's stress chart with its limit and alert, and the drawing with the gauges' markers (checked on the rendered pages)", async () => {
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const pdf = await structureReportPdf(owners[0]!, report);
+    const scale = 2;
+
+    // The drawing: embedded once, at its own size, and painted over the area its aspect ratio gives
+    // across the content width (A4 is 595.28 pt wide, margins 50 pt: 495.28 pt × 247.64 pt).
+    const drawingPage = await pageWith(pdf, "South elevation");
+    const images = await new PDFParse({ data: new Uint8Array(pdf) }).getImage({ partial: [drawingPage], imageBuffer: false, imageDataUrl: false });
+    expect(images.pages[0]!.images.map((image) => [image.width, image.height])).toEqual([[DRAWING.width, DRAWING.height]]);
+    const drawn = await renderPdfPage(pdf, drawingPage, scale);
+    const area = 495.28 * 247.64 * scale ** 2;
+    const grey = countColour(drawn, [236, 238, 240], 3);
+    console.log(`drawing page ${drawingPage}: ${grey} px of the drawing's grey, ${Math.round(area)} px expected less the markers`);
+    expect(grey).toBeGreaterThan(area * 0.95);
+    expect(grey).toBeLessThan(area * 1.02);
+    // Markers in the condition code's ink of each gauge's state, at 25 % and 75 % across.
+    const ink = hexRgb(STATE_LOOK[report.gauges[0]!.condition.state].ink);
+    const leftHalf = countColour(drawn, ink, 30, { left: 0, top: 0, right: drawn.width / 2, bottom: drawn.height });
+    const rightHalf = countColour(drawn, ink, 30, { left: drawn.width / 2, top: 0, right: drawn.width, bottom: drawn.height });
+    console.log(`markers: ${leftHalf} px left, ${rightHalf} px right in ${STATE_LOOK[report.gauges[0]!.condition.state].ink}`);
+    expect(leftHalf).toBeGreaterThan(20);
+    expect(rightHalf).toBeGreaterThan(20);
+
+    // G1's chart: the mean line and the envelope band in the chart's colours, the warning limit
+    // at 200 MPa and the alert's shading in the warning ink.
+    const chartPage = await renderPdfPage(pdf, await pageWith(pdf, "Gauge G1"), scale);
+    const mean = countColour(chartPage, hexRgb(CHART_INK.mean), 40);
+    const limitRow = widestRow(chartPage, hexRgb(STATE_LOOK.warning.ink), 40);
+    console.log(`G1 chart: ${mean} px of the mean line; the widest row of warning ink covers ${(limitRow * 100).toFixed(1)} % of the page width`);
+    // The mean wanders over the whole 427 pt plot: it covers more than its length at 2 px per point.
+    expect(mean).toBeGreaterThan(427 * scale);
+    // The dashed limit line across the plot, 4 on 3 off: 427/595.28 × 4/7 = 41 % of a row of the page.
+    expect(limitRow).toBeGreaterThan(0.3);
+    // G3 stored nothing: the sentence saying so stands where its chart would.
+    expect((await pdfText(pdf)).text).toContain("No stress chart: the gauge stored no reading in this period.");
   });
 
   it("grows by pages with the number of gauges", async () => {

@@ -67,6 +67,28 @@ function corpus(): Case[] {
   for (const from of far) add({ label: `backtest from ${from}`, method: "POST", path: `${G}/LC-M1/limits/backtest`, body: json({ limits: [], from, to: "2026-01-01T00:00:00Z" }) });
   add({ label: "backtest backwards", method: "POST", path: `${G}/LC-M1/limits/backtest`, body: json({ limits: [], from: "2026-02-01T00:00:00Z", to: "2026-01-01T00:00:00Z" }) });
 
+  // Thermal models, fitted and previewed: bad lags, periods, and periods a fit cannot use.
+  const period = { from: "2026-01-01T00:00:00Z", to: "2026-01-08T00:00:00Z" };
+  for (const model of [
+    { ...period, lagMinutes: -60 },
+    { ...period, lagMinutes: 1.5 },
+    { ...period, lagMinutes: "soon" },
+    { ...period, lagMinutes: 1e308 },
+    { ...period, lagMinutes: 60, maxLagMinutes: 120 },
+    { ...period, lagMinutes: "auto", maxLagMinutes: 20_000 },
+    { ...period, drift: "yes" },
+    { from: period.to, to: period.from },
+    { from: far[0], to: far[1] },
+    { from: "yesterday", to: period.to },
+    { from: "2026-01-01T00:00:00Z", to: "2026-01-01T01:00:00Z" },
+    { from: "2026-01-01T00:00:00Z", to: "2026-01-01T01:00:00Z", lagMinutes: 600 },
+    { from: "2026-01-01T00:00:00Z", to: "2026-01-01T01:00:00Z", lagMinutes: "auto", maxLagMinutes: 600 },
+    {},
+  ]) {
+    add({ label: `thermal model ${json(model).slice(0, 60)}`, method: "PUT", path: `${G}/LC-M1/thermal-model`, body: json(model) });
+    add({ label: `thermal fit ${json(model).slice(0, 60)}`, method: "POST", path: `${G}/LC-M1/thermal-model/fit`, body: json(model) });
+  }
+
   // Zero readings.
   for (const zero of [{ value: "NaN", temperature: 10, time: "2026-01-01T00:00:00Z" }, { value: 1, temperature: 10, time: far[0] }, { value: 1, temperature: "warm", time: "2026-01-01T00:00:00Z" }, { fromReadings: 0 }, { fromReadings: -3 }, { fromReadings: 1.5 }, { fromReadings: 1e308 }, {}])
     add({ label: `zero ${json(zero)}`, method: "POST", path: `${G}/LC-M1/zero`, body: json(zero) });

@@ -14,6 +14,7 @@ const EXPECTED: Record<Action, Record<Role, boolean>> = {
   "zero:record": { admin: true, engineer: true, technician: true, owner: false },
   "readings:ingest": { admin: true, engineer: true, technician: true, owner: false },
   "limits:edit": { admin: true, engineer: true, technician: false, owner: false },
+  "thermal-model:edit": { admin: true, engineer: true, technician: false, owner: false },
   "alert:acknowledge": { admin: true, engineer: true, technician: false, owner: false },
   "load-test:record": { admin: true, engineer: true, technician: false, owner: false },
   "token:manage": { admin: true, engineer: true, technician: false, owner: false },

@@ -141,6 +141,50 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/gauges/{tag}/thermal-model": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The gauge's thermal model in force */
+        get: operations["getStructuresByCodeGaugesByTagThermalModel"];
+        /**
+         * Fit stress-producing strain = a + b·T(t − lag) (+ c·days with drift) by ordinary least squares over the reference period's healthy readings, and store it as the gauge's model
+         * @description Roles: admin, engineer.
+         *
+         *     Replaces the model in force (the audit trail keeps the old one). The residual, measured − model in µε, is then stored for every reading: recomputed at once for the readings already stored (before the period too), and computed on ingest for new ones; read it as `quantity=residual` in the series, and bound it with `residual` limits. Open residual alerts close, since they were measured against the old model. Refused (400, saying what is needed): fewer than 24 readings with a temperature in the period, less than 3 °C of temperature range, a fixed lag or an "auto" search bound longer than the period. A thermal model is a statistical fit, valid inside the reference period's temperature range; what its residual means is for engineering judgement.
+         */
+        put: operations["putStructuresByCodeGaugesByTagThermalModel"];
+        post?: never;
+        /**
+         * Remove the thermal model; stored residuals go back to null. Refused (409) while residual limits stand
+         * @description Roles: admin, engineer.
+         */
+        delete: operations["deleteStructuresByCodeGaugesByTagThermalModel"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/gauges/{tag}/thermal-model/fit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** The same fit as PUT, with its scatter of strain against lagged temperature, without storing anything: a preview before saving */
+        post: operations["postStructuresByCodeGaugesByTagThermalModelFit"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/structures/{code}/rosettes": {
         parameters: {
             query?: never;
@@ -686,7 +730,7 @@ export interface components {
         BacktestInput: {
             limits: {
                 /** @enum {string} */
-                quantity: "stress" | "strain" | "utilisation";
+                quantity: "stress" | "strain" | "utilisation" | "residual";
                 /** @enum {string} */
                 level: "watch" | "warning" | "critical";
                 /** @description MPa for stress, µε for strain, a fraction of yield for utilisation */
@@ -1136,7 +1180,7 @@ export interface components {
         Limits: {
             limits: {
                 /** @enum {string} */
-                quantity: "stress" | "strain" | "utilisation";
+                quantity: "stress" | "strain" | "utilisation" | "residual";
                 /** @enum {string} */
                 level: "watch" | "warning" | "critical";
                 upper?: number;
@@ -1148,7 +1192,7 @@ export interface components {
         LimitsInput: {
             limits: {
                 /** @enum {string} */
-                quantity: "stress" | "strain" | "utilisation";
+                quantity: "stress" | "strain" | "utilisation" | "residual";
                 /** @enum {string} */
                 level: "watch" | "warning" | "critical";
                 /** @description MPa for stress, µε for strain, a fraction of yield for utilisation */
@@ -1372,7 +1416,7 @@ export interface components {
         };
         Series: {
             /** @enum {string} */
-            quantity: "strain" | "stress" | "temperature";
+            quantity: "strain" | "stress" | "temperature" | "residual";
             unit: string;
             from: string;
             to: string;
@@ -1576,6 +1620,30 @@ export interface components {
                      */
                     status: "not-assessed";
                 };
+                /** @description Stress over the period in MPa, min, max and mean per interval, as GET …/gauges/{tag}/series answers it; null when nothing was stored */
+                stressSeries: {
+                    /** @description Start of each interval, epoch ms; intervals without readings are left out */
+                    t: number[];
+                    min: number[];
+                    max: number[];
+                    mean: number[];
+                    /** @description Width of the intervals, ms */
+                    bucketWidth: number;
+                } | null;
+                /** @description The gauge's stress bounds, and its utilisation bounds at bound × yield stress, as lines across the stress chart */
+                stressLimitLines: {
+                    /** @description MPa */
+                    value: number;
+                    /** @enum {string} */
+                    level: "watch" | "warning" | "critical";
+                    text: string;
+                }[];
+                /** @description Where the gauge sits on one of the structure's drawings: x across and y down, as fractions of the drawing's width and height */
+                placement: {
+                    drawing: number;
+                    x: number;
+                    y: number;
+                } | null;
             }[];
             /** @description Alerts open at any time in the period, newest first */
             alerts: {
@@ -1611,9 +1679,108 @@ export interface components {
                     text: string | null;
                 }[];
             }[];
+            /** @description The structure's drawings, oldest first; the gauges' placements point into them */
+            drawings: {
+                id: number;
+                title: string;
+                contentType: string;
+                /** @description Pixels */
+                width: number | null;
+                /** @description Pixels */
+                height: number | null;
+                /** @description Where the image's bytes are served */
+                url: string;
+            }[];
             /** @description Load tests whose window overlaps the period, oldest first, with their results */
             loadTests: components["schemas"]["LoadTestResults"][];
             cautions: string[];
+        };
+        ThermalFitPreview: {
+            /** @description a, µε: the model strain at 0 °C (and the drift origin) */
+            intercept: number;
+            /** @description b, µε/°C: stress-producing strain per degree of the lagged temperature */
+            slope: number;
+            /** @description The lag used, minutes: the model reads the temperature that long before each reading */
+            lagMinutes: number;
+            /** @description c, µε/day from the start of the reference period; present only when drift was fitted */
+            drift?: number;
+            /** @description Coefficient of determination of the fit, 0–1 */
+            r2: number;
+            /** @description σ of the residual over the reference period, µε: √(SSres / (n − p)) */
+            residualStd: number;
+            /** @description Readings the fit used (healthy, with a known lagged temperature) */
+            readings: number;
+            /** @description Lagged temperature range of the reference period, °C: the model is a statistical fit valid inside it */
+            temperatureRange: {
+                min: number;
+                max: number;
+            };
+            /** @description The fitted readings (at most 2 000, evenly thinned) for a scatter against the fitted line */
+            scatter: {
+                /** @description Lagged temperature, °C */
+                temperature: number;
+                /** @description Stress-producing strain, µε */
+                strain: number;
+            }[];
+        };
+        ThermalModel: {
+            /** @description a, µε: the model strain at 0 °C (and the drift origin) */
+            intercept: number;
+            /** @description b, µε/°C: stress-producing strain per degree of the lagged temperature */
+            slope: number;
+            /** @description The lag used, minutes: the model reads the temperature that long before each reading */
+            lagMinutes: number;
+            /** @description c, µε/day from the start of the reference period; present only when drift was fitted */
+            drift?: number;
+            /** @description Coefficient of determination of the fit, 0–1 */
+            r2: number;
+            /** @description σ of the residual over the reference period, µε: √(SSres / (n − p)) */
+            residualStd: number;
+            /** @description Readings the fit used (healthy, with a known lagged temperature) */
+            readings: number;
+            /** @description Lagged temperature range of the reference period, °C: the model is a statistical fit valid inside it */
+            temperatureRange: {
+                min: number;
+                max: number;
+            };
+            /** @description Start of the reference period */
+            from: string;
+            /** @description End of the reference period (included) */
+            to: string;
+            /**
+             * @description Whether the lag was given or searched for by best fit
+             * @enum {string}
+             */
+            lagSearch: "fixed" | "auto";
+            /** @description The search bound asked for with lagSearch auto */
+            maxLagMinutes?: number;
+            /** @description Who saved the model */
+            fittedBy: string;
+            fittedAt: string;
+        };
+        ThermalModelInput: {
+            /**
+             * Format: date-time
+             * @description Start of the reference period, ISO-8601 with Z or an offset
+             */
+            from: string;
+            /**
+             * Format: date-time
+             * @description End of the reference period (included)
+             */
+            to: string;
+            /**
+             * @description Minutes the member's temperature lags the measured one (default 0), or "auto": the lag that fits best
+             * @default 0
+             */
+            lagMinutes?: number | "auto";
+            /** @description With "auto": how far back to search, minutes; default the lesser of 1440 and half the period. Longer than the period is refused. */
+            maxLagMinutes?: number;
+            /**
+             * @description Fit a linear drift term in µε/day as well
+             * @default false
+             */
+            drift?: boolean;
         };
         ZeroInput: {
             fromReadings: number;
@@ -2345,6 +2512,265 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["Backtest"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagThermalModel: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The model; 404 when the gauge has none */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ThermalModel"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    putStructuresByCodeGaugesByTagThermalModel: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ThermalModelInput"];
+            };
+        };
+        responses: {
+            /** @description The model now in force */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ThermalModel"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    deleteStructuresByCodeGaugesByTagThermalModel: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Removed */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGaugesByTagThermalModelFit: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ThermalModelInput"];
+            };
+        };
+        responses: {
+            /** @description The fitted coefficients and the points fitted */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ThermalFitPreview"];
                 };
             };
             /** @description Malformed or invalid request */

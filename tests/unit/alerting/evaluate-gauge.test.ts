@@ -10,7 +10,7 @@ const stressLimits: Limit[] = [
   { quantity: "stress", level: "critical", upper: 200, hysteresis: 5, persistence: 1 },
 ];
 // A raw value that changes with stress, as a healthy gauge's does (a flat raw line is a sensor fault).
-const reading = (i: number, stress: number, flags = 0): EvaluatedReading => ({ time: i * 10 * MINUTE, raw: 0.001 * i, strain: stress * 5, stress, flags });
+const reading = (i: number, stress: number, flags = 0): EvaluatedReading => ({ time: i * 10 * MINUTE, raw: 0.001 * i, strain: stress * 5, stress, flags, residual: null });
 const setup = { limits: stressLimits, yieldStress: 355, health: defaultHealthThresholds("mV/V") };
 
 describe("one gauge's alert evaluation", () => {

@@ -7,7 +7,7 @@ const MINUTE = 60_000;
 const strainLimits: Limit[] = [{ quantity: "strain", level: "watch", upper: 500, hysteresis: 0, persistence: 1 }];
 const setup = { limits: strainLimits, yieldStress: 355, health: defaultHealthThresholds("microstrain") };
 // Steel, E = 200 GPa: σ = E·ε (Hooke's law).
-const reading = (i: number, strain: number): EvaluatedReading => ({ time: i * 10 * MINUTE, raw: strain + 0.01 * i, strain, stress: strain * 0.2, flags: 0 });
+const reading = (i: number, strain: number): EvaluatedReading => ({ time: i * 10 * MINUTE, raw: strain + 0.01 * i, strain, stress: strain * 0.2, flags: 0, residual: null });
 
 describe("stored evaluation state", () => {
   it("is read back only in the shape and version this build writes", () => {

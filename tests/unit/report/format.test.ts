@@ -22,8 +22,14 @@ const alert: ReportAlert = {
 
 describe("report wording", () => {
   it("puts stress in the reader's units (NIST SP 811: 1 ksi = 6.894757 MPa)", () => {
-    expect(alertTitle(alert, "si")).toBe("G1: warning, stress limit, peak 250.0 MPa against 200.0 MPa");
-    expect(alertTitle(alert, "us")).toBe("G1: warning, stress limit, peak 36.26 ksi against 29.01 ksi");
+    expect(alertTitle(alert, "si")).toBe("G1: Warning, stress limit, peak 250.0 MPa against 200.0 MPa");
+    expect(alertTitle(alert, "us")).toBe("G1: Warning, stress limit, peak 36.26 ksi against 29.01 ksi");
+  });
+
+  it("names a sensor alert's fault in words, not its code", () => {
+    const sensor: ReportAlert = { ...alert, kind: "sensor", level: "watch", quantity: null, unit: null, code: "stale", bound: null, peak: null };
+    expect(alertTitle(sensor, "si")).toBe("G1: Watch, sensor alert (no data arriving)");
+    expect(alertTitle({ ...sensor, code: "flat-line" }, "si")).toBe("G1: Watch, sensor alert (flat line)");
   });
 
   it("tells a missing yield stress from missing readings", () => {

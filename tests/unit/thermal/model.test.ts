@@ -50,6 +50,13 @@ describe("thermal model fit", () => {
     expect(model.residualStd).toBeLessThan(0.33);
   });
 
+  it("searches only as far back as asked: a bound short of the true lag stops at the bound", () => {
+    const samples = synthetic(10);
+    const period = { from: START + DAY_MS, to: START + 10 * DAY_MS, drift: false, lagMinutes: "auto" as const };
+    expect(fitThermalModel(samples, { ...period, maxLagMinutes: 6 * 60 }).lagMinutes).toBe(LAG_MINUTES);
+    expect(fitThermalModel(samples, { ...period, maxLagMinutes: 60 }).lagMinutes).toBe(60);
+  });
+
   it("fits worse at a wrong fixed lag than at the true one", () => {
     const samples = synthetic(10);
     const period = { from: START + DAY_MS, to: START + 10 * DAY_MS, drift: false };
@@ -92,6 +99,7 @@ describe("thermal model fit", () => {
     const flat = samples.map((sample) => ({ ...sample, temperature: 20 + (sample.temperature! - 18) / 10 }));
     expect(fit({}, flat)).toThrow(/spans only 1\.[0-9] °C; a thermal fit needs at least 3 °C/);
     expect(fit({ lagMinutes: 5000 })).toThrow(/lag of 5000 min is longer than the reference period \(4320 min\)/);
+    expect(fit({ lagMinutes: "auto", maxLagMinutes: 4321 })).toThrow(/lag search up to 4321 min is longer than the reference period \(4320 min\)/);
     expect(fit({ to: START - 1 })).toThrow(AppError);
   });
 });

@@ -28,6 +28,7 @@ import { Pager } from "@/components/ui/pager";
 import { ALERTS_PER_PAGE, alertListParamsOf, pageOffset } from "@/lib/alerting/filters";
 import { formatInTimeZone } from "@/lib/time-format";
 import { getLimits } from "@/lib/services/limits";
+import { findThermalModel } from "@/lib/services/thermal";
 import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
@@ -75,7 +76,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     may(user, "audit:view", structure),
     may(user, "alert:acknowledge", structure),
   ]);
-  const [zeros, audit, photos, limits, alerts, episodes, statuses, units] = await Promise.all([
+  const [zeros, audit, photos, limits, alerts, episodes, statuses, units, thermalModel] = await Promise.all([
     zeroHistory(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
@@ -84,6 +85,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     listGaugeEpisodes(user, code, tag),
     gaugeStatuses(structure),
     unitsOf(user.id),
+    findThermalModel(user, code, tag),
   ]);
   const status = statuses.find((candidate) => candidate.tag === gauge.tag)!;
   const latest = status.latest;
@@ -109,6 +111,9 @@ export default async function GaugePage({ params, searchParams }: Props) {
           <>
             <Link href={`${base}/${encodeURIComponent(tag)}/limits`} className={buttonClass("secondary")}>
               Limits
+            </Link>
+            <Link href={`${base}/${encodeURIComponent(tag)}/thermal`} className={buttonClass("secondary")}>
+              Thermal model
             </Link>
             {active && canEdit && (
             <>
@@ -188,6 +193,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             events={chartEvents}
             end={latest.time}
             expectedIntervalS={gauge.expectedInterval}
+            residualStd={thermalModel?.residualStd ?? null}
           />
         ) : (
           <EmptyState title="No readings yet">

@@ -1,8 +1,7 @@
 import { apiRoute, json } from "@/lib/api/http";
 import { parseWith } from "@/lib/validation";
 import { reportQuery } from "@/lib/api/report-query";
-import { renderReportPdf } from "@/lib/report/pdf";
-import { structureReport } from "@/lib/services/report";
+import { structureReport, structureReportPdf } from "@/lib/services/report";
 
 type Params = { code: string };
 
@@ -12,7 +11,7 @@ export const GET = apiRoute<Params>(async ({ request, actor, params }) => {
   const report = await structureReport(actor, params.code, query.period);
   const pdf = query.format === "pdf" || (!query.format && request.headers.get("accept")?.includes("application/pdf"));
   if (!pdf) return json(report);
-  return new Response(new Uint8Array(await renderReportPdf(report)), {
+  return new Response(new Uint8Array(await structureReportPdf(actor, report)), {
     headers: {
       "content-type": "application/pdf",
       "content-disposition": `attachment; filename="${report.structure.code}-report-${report.period.key}.pdf"`,
