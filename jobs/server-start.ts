@@ -1,6 +1,6 @@
 import "server-only";
 import { migrateDatabase } from "@/db/migrate";
-import { MailPortTaken, startMailCatcher } from "@/lib/mail/local-smtp-server";
+import { startMailCatcherOrStop } from "@/lib/mail/local-smtp-server";
 import { sweepFileStore } from "@/lib/services/files";
 import { startJobs } from "./registry";
 
@@ -13,12 +13,7 @@ async function start() {
     (summary) => console.log(`File store: ${summary}.`),
     (error: unknown) => console.error("Sweeping the file store:", error),
   );
-  await startMailCatcher().catch((error: unknown) => {
-    if (!(error instanceof MailPortTaken)) throw error;
-    // A server that answers while its mail goes astray is worse than one that does not start.
-    console.error(`Hookeline does not start: ${error.message}`);
-    process.exit(1);
-  });
+  await startMailCatcherOrStop();
   startJobs();
 }
 

@@ -3,6 +3,7 @@ import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import { buildDecision, currentBuildId, readStamp, writeStamp, type BuildStamp } from "./build-stamp";
 import { sourceFingerprint } from "./source-fingerprint";
 
 /**
@@ -13,7 +14,7 @@ import { sourceFingerprint } from "./source-fingerprint";
  */
 const port = process.env.PORT ?? "3000";
 const secretFile = path.join("data", "demo-auth-secret");
-const buildStamp = path.join(".next", "hookeline-build.json");
+const buildFolder = ".next";
 
 function demoSecret(): string {
   if (process.env.NEXTAUTH_SECRET) return process.env.NEXTAUTH_SECRET;
@@ -45,19 +46,8 @@ function step(label: string, command: string, args: string[]) {
   return took;
 }
 
-type Stamp = { fingerprint: string; seconds: number };
-
-function readStamp(): Stamp | null {
-  if (!fs.existsSync(path.join(".next", "BUILD_ID")) || !fs.existsSync(buildStamp)) return null;
-  try {
-    return JSON.parse(fs.readFileSync(buildStamp, "utf8")) as Stamp;
-  } catch {
-    return null;
-  }
-}
-
 /** How long a build may take here, from the last one or from what a 2-core machine takes, and the load now. */
-function buildEstimate(last: Stamp | null): string {
+function buildEstimate(last: BuildStamp | null): string {
   const [load] = os.loadavg();
   const cores = os.availableParallelism();
   const busy = load! > cores ? `; the machine is busy now (load ${load!.toFixed(1)} on ${cores} cores), so expect longer` : "";
@@ -67,14 +57,14 @@ function buildEstimate(last: Stamp | null): string {
 
 function ensureBuild() {
   const fingerprint = sourceFingerprint();
-  const stamp = readStamp();
-  if (fingerprint && stamp?.fingerprint === fingerprint) {
+  const stamp = readStamp(buildFolder);
+  const decision = buildDecision(fingerprint, stamp, currentBuildId(buildFolder));
+  if (!decision.build) {
     console.log("\n▸ Production build: reusing the one in .next (no source changed since it was made)");
     return;
   }
-  const why = !stamp ? "none yet" : !fingerprint ? "cannot tell what changed outside a git checkout" : "sources changed since the last one";
-  const took = step(`Production build (${why}): ${buildEstimate(stamp)}`, "npx", ["next", "build"]);
-  if (fingerprint) fs.writeFileSync(buildStamp, JSON.stringify({ fingerprint, seconds: took } satisfies Stamp));
+  const took = step(`Production build (${decision.why}): ${buildEstimate(stamp)}`, "npx", ["next", "build"]);
+  if (fingerprint) writeStamp(buildFolder, fingerprint, took);
 }
 
 step("Database and demo data (the first run stores the demo readings)", "npx", ["tsx", "--conditions=react-server", "scripts/seed.ts"]);

@@ -1,7 +1,7 @@
 import { closeDb } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { JOBS, runJob, startJobs } from "@/jobs/registry";
-import { startMailCatcher } from "@/lib/mail/local-smtp-server";
+import { startMailCatcherOrStop } from "@/lib/mail/local-smtp-server";
 
 /**
  * `npm run jobs`: the background jobs in a process of their own, for installations whose web
@@ -23,7 +23,7 @@ if (args[0] === "--once") {
   }
   closeDb();
 } else {
-  await startMailCatcher();
+  await startMailCatcherOrStop();
   if (!startJobs()) {
     console.error("JOBS=off: no jobs to run in this process.");
     process.exit(1);

@@ -122,3 +122,16 @@ export function startMailCatcher(): Promise<LocalSmtpServer | null> {
   globalForCatcher.hookelineMailCatcher ??= process.env.SMTP_URL ? Promise.resolve(null) : openMailCatcher(localSmtpPort());
   return globalForCatcher.hookelineMailCatcher;
 }
+
+/**
+ * The catcher for a process that serves or sends mail (the server, `npm run jobs`): a port held by
+ * another database's catcher or another program stops the process, saying which port to use
+ * instead, since a process that runs while its mail goes astray is worse than one that does not start.
+ */
+export function startMailCatcherOrStop(): Promise<LocalSmtpServer | null> {
+  return startMailCatcher().catch((error: unknown) => {
+    if (!(error instanceof MailPortTaken)) throw error;
+    console.error(`Hookeline does not start: ${error.message}`);
+    process.exit(1);
+  });
+}

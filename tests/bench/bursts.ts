@@ -12,10 +12,10 @@ import type { BenchResult } from "./mechanics";
 const LOGGERS = 8;
 const RATE_HZ = 1000;
 const BURST_SECONDS = 60;
-const SAMPLES_PER_BURST = RATE_HZ * BURST_SECONDS;
+export const SAMPLES_PER_BURST = RATE_HZ * BURST_SECONDS;
 const TOTAL_SAMPLES = Number(process.env.BENCH_BURST_SAMPLES ?? 100_000_000);
 /** Bodies each logger cycles through; one in ten carries a vehicle passage over the trigger. */
-const VARIANTS = 10;
+export const VARIANTS = 10;
 const START = Date.UTC(2025, 6, 1);
 /** 0.2 MPa per µε on steel (E = 200 000 MPa). */
 const GAUGE = {
@@ -26,9 +26,10 @@ const GAUGE = {
   zero: { value: 0, temperature: 15, time: "2025-06-01T00:00:00Z" },
   sampling: { mode: "dynamic", rateHz: RATE_HZ, summaryMinutes: 10, rangeBin: 1, trigger: { above: 40, preSeconds: 2, postSeconds: 5 } },
 };
+export const BURST_SAMPLING = GAUGE.sampling;
 
 /** A footbridge-like signal in µε: 2 Hz footfall, broadband noise, and in some bursts a 0.5 s passage. */
-function burstBody(variant: number): Uint8Array {
+export function burstBody(variant: number): Uint8Array {
   const values = new Float32Array(SAMPLES_PER_BURST);
   let seed = 1234 + variant;
   const noise = () => ((seed = (seed * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648 - 0.5) * 6;

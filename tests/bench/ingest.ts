@@ -128,6 +128,28 @@ export function memoryOf(pid: number): { rss: number; hwm: number } {
   return { rss, hwm };
 }
 
+/** Clock ticks per second of /proc/<pid>/stat's times: USER_HZ, 100 on every Linux architecture Node runs on. */
+const USER_HZ = 100;
+
+/**
+ * CPU time the process and its children have used, ms (user + system). A cost per request from it
+ * holds still when other work shares the machine, where latencies stretch with the load.
+ */
+export function cpuMsOf(pid: number): number {
+  let ticks = 0;
+  const visit = (id: number) => {
+    // The command name (field 2) is in parentheses and may hold spaces: count fields after it.
+    const fields = fs.readFileSync(`/proc/${id}/stat`, "utf8").split(") ")[1]!.split(" ");
+    ticks += Number(fields[11]) + Number(fields[12]);
+    for (const task of fs.readdirSync(`/proc/${id}/task`)) {
+      const children = fs.readFileSync(`/proc/${id}/task/${task}/children`, "utf8").trim();
+      for (const child of children ? children.split(" ") : []) visit(Number(child));
+    }
+  };
+  visit(pid);
+  return (ticks * 1000) / USER_HZ;
+}
+
 /** Posts the bodies in order, `clients` requests in flight; answers the readings accepted. */
 export async function postAll(baseUrl: string, token: string, bodies: (() => string)[], clients: number, structureCode = "BENCH") {
   let next = 0;

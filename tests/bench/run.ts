@@ -1,3 +1,4 @@
+import { benchBurstSummary } from "./burst-summary";
 import { benchBursts } from "./bursts";
 import { benchGaugePage } from "./gauge-page";
 import { benchHomePage } from "./home-page";
@@ -7,7 +8,7 @@ import { benchMechanics, type BenchResult } from "./mechanics";
 // `npm run bench -- --only=benchGaugePage` runs the benchmarks whose function name contains the word
 // (or one of several words separated by commas: --only=Ingestion,Bursts).
 const only = process.argv.find((arg) => arg.startsWith("--only="))?.slice("--only=".length).split(",");
-const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchIngestion, benchBursts, benchGaugePage, benchHomePage].filter(
+const benchmarks: (() => Promise<BenchResult[]>)[] = [benchMechanics, benchBurstSummary, benchIngestion, benchBursts, benchGaugePage, benchHomePage].filter(
   (bench) => !only || only.some((word) => bench.name.includes(word)),
 );
 
@@ -18,7 +19,9 @@ function printTable(rows: BenchResult[]): void {
   rows.forEach((row, i) => console.log(`${row.label.padEnd(labelWidth)}  ${values[i]!.padStart(valueWidth)} ${row.unit}`));
 }
 
-buildUnlessAsked();
+// The in-process benchmarks need no production build; the others start `next start` on it.
+const IN_PROCESS: readonly (() => Promise<BenchResult[]>)[] = [benchMechanics, benchBurstSummary];
+if (benchmarks.some((bench) => !IN_PROCESS.includes(bench))) buildUnlessAsked();
 const rows: BenchResult[] = [];
 for (const bench of benchmarks) rows.push(...(await bench()));
 printTable(rows);
