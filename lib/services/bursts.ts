@@ -104,16 +104,11 @@ const notFinite = (index: number, i: number, value: unknown) =>
 
 function convertFloats(index: number, converter: GaugeConverter, values: Float32Array, temperature: number | null): Float64Array | BurstRejection {
   const stress = new Float64Array(values.length);
-  for (let i = 0; i < values.length; i++) {
-    const value = values[i]!;
-    if (!Number.isFinite(value)) return notFinite(index, i, value);
-    const result = converter.convert(value, temperature);
-    if (!result.ok) return reject(index, result.code, `Sample ${i}: ${result.message}`);
-    const converted = result.stress;
-    if (!Number.isFinite(converted)) return reject(index, "not-finite", `Sample ${i} converts to a stress that is not finite; check the gauge's configuration.`);
-    stress[i] = converted;
-  }
-  return stress;
+  const failed = converter.convertStresses(values, temperature, stress);
+  if (failed === null) return stress;
+  const value = values[failed.index]!;
+  if (!Number.isFinite(value)) return notFinite(index, failed.index, value);
+  return reject(index, failed.failure.code, `Sample ${failed.index}: ${failed.failure.message}`);
 }
 
 function prepareBurst(index: number, burst: DecodedBurst, gauges: ReadonlyMap<string, GaugeEntry>, now: number): PreparedBurst | BurstRejection {

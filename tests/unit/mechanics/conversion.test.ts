@@ -115,3 +115,35 @@ describe("configuration errors", () => {
     expect(result.ok ? "" : result.message).toMatch(/\w+ \w+/);
   });
 });
+
+describe("a burst's stresses at one temperature", () => {
+  it("gives Hooke's σ = E·ε for a microstrain logger: 100 µε on 200 GPa steel is 20 MPa, −50 µε −10 MPa", () => {
+    // Hooke's law, uniaxial: 100 × 10⁻⁶ × 200 000 MPa = 20 MPa (any mechanics textbook).
+    const gauge = prepared(foilGauge({ input: "microstrain", bridge: null, material: CHECK_STEEL }));
+    const out = new Float64Array(3);
+    expect(gauge.convertStresses(new Float32Array([0, 100, -50]), 20, out)).toBeNull();
+    [0, 20, -10].forEach((expected, i) => expectClose(out[i]!, expected, 1e-12, 1e-12));
+  });
+
+  it("agrees exactly with converting each reading on its own, for every input kind", () => {
+    fc.assert(
+      fc.property(fc.constantFrom(...EVERY_INPUT), fc.double({ min: 0.95, max: 1.05, noNaN: true }), fc.double({ min: -10, max: 40, noNaN: true }), (config, factor, temperature) => {
+        const gauge = prepared(config);
+        const base = config.zero.value === 0 ? 0.01 : config.zero.value;
+        const values = Float32Array.from({ length: 16 }, (_, i) => base * (factor + (i - 8) * 1e-3));
+        const out = new Float64Array(values.length);
+        expect(gauge.convertStresses(values, temperature, out)).toBeNull();
+        values.forEach((value, i) => expect(out[i]).toBe(converted(gauge.convert(value, temperature)).stress));
+      }),
+    );
+  });
+
+  it("names the first sample that does not convert, with the reason a single reading gets", () => {
+    const gauge = prepared(foilGauge({ input: "microstrain", bridge: null }));
+    const out = new Float64Array(4);
+    expect(gauge.convertStresses(new Float32Array([1, 2, Number.NaN, Infinity]), 20, out)).toMatchObject({ index: 2, failure: { code: "not-finite" } });
+    const compensated = prepared(foilGauge({ input: "microstrain", bridge: null, thermal: { method: "cte", gaugeCte: 10.8 } }));
+    expect(compensated.convertStresses(new Float32Array([1, 2]), null, out)).toMatchObject({ index: 0, failure: compensated.convert(1, null) });
+    expect(compensated.convertStresses(new Float32Array(0), null, out)).toBeNull();
+  });
+});
