@@ -9,7 +9,7 @@
  * The success object of `convert` is reused by the next call on the same gauge.
  */
 export * from "./gauge-config";
-export { prepareGauge, type Conversion, type ConversionResult, type GaugeConverter, type PrepareOptions, type StressesFailure } from "./convert";
+export { prepareGauge, type Conversion, type ConversionResult, type GaugeConverter, type PrepareOptions } from "./convert";
 export type { GaugeConfigErrorCode, ReadingErrorCode } from "./errors";
 export type { Failure, Result } from "./result";
 export { Flag, flagWords, isOutOfRange, type FlagWord } from "./validity";
