@@ -41,12 +41,17 @@ export function burstBody(variant: number): Uint8Array {
   return new Uint8Array(values.buffer);
 }
 
+/** Gauge of the short bursts that measure what a request costs whatever its size. */
+const SHORT_TAG = "SHORT";
+const SHORT_SAMPLES = 100;
+const SHORT_REQUESTS = 500;
+
 async function createGauges(baseUrl: string, token: string) {
-  for (let logger = 0; logger < LOGGERS; logger++) {
+  for (const tag of [...Array.from({ length: LOGGERS }, (_, logger) => `DYN${logger}`), SHORT_TAG]) {
     const response = await fetch(`${baseUrl}/api/v1/structures/BENCH/gauges`, {
       method: "POST",
       headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
-      body: JSON.stringify({ ...GAUGE, tag: `DYN${logger}` }),
+      body: JSON.stringify({ ...GAUGE, tag }),
     });
     if (response.status !== 201) throw new Error(`gauge creation answered ${response.status}: ${await response.text()}`);
   }
@@ -68,21 +73,21 @@ export async function benchBursts(): Promise<BenchResult[]> {
     const burstsPerLogger = Math.max(2, Math.ceil(TOTAL_SAMPLES / LOGGERS / SAMPLES_PER_BURST));
     const file = url.slice("file:".length);
     let events = 0;
-    const post = async (logger: number, k: number) => {
-      const query = `gauge=DYN${logger}&start=${new Date(START + k * BURST_SECONDS * 1000).toISOString()}&rateHz=${RATE_HZ}&temperature=15`;
+    const post = async (tag: string, k: number, body: Uint8Array, expected = SAMPLES_PER_BURST) => {
+      const query = `gauge=${tag}&start=${new Date(START + k * BURST_SECONDS * 1000).toISOString()}&rateHz=${RATE_HZ}&temperature=15`;
       const response = await fetch(`${baseUrl}/api/v1/structures/BENCH/bursts?${query}`, {
         method: "POST",
         headers: { authorization: `Bearer ${token}`, "content-type": "application/octet-stream" },
-        body: bodies[k % VARIANTS] as unknown as BodyInit,
+        body: body as unknown as BodyInit,
       });
       if (!response.ok) throw new Error(`bursts answered ${response.status}: ${await response.text()}`);
       const result = await response.json();
-      if (result.rejected.length > 0 || result.accepted !== SAMPLES_PER_BURST) throw new Error(`a bench burst was not taken: ${JSON.stringify(result)}`);
+      if (result.rejected.length > 0 || result.accepted !== expected) throw new Error(`a bench burst was not taken: ${JSON.stringify(result)}`);
       events += result.events;
       return result.accepted as number;
     };
     // Warm-up: the first burst of every logger compiles the route and its code.
-    for (let logger = 0; logger < LOGGERS; logger++) await post(logger, 0);
+    for (let logger = 0; logger < LOGGERS; logger++) await post(`DYN${logger}`, 0, bodies[0]!);
     const bytesBefore = storedBytes(file);
     let peakRss = 0;
     const sampler = setInterval(() => (peakRss = Math.max(peakRss, memoryOf(server.pid!).rss)), 200);
@@ -91,7 +96,7 @@ export async function benchBursts(): Promise<BenchResult[]> {
     const accepted = await Promise.all(
       Array.from({ length: LOGGERS }, async (_, logger) => {
         let total = 0;
-        for (let k = 1; k < burstsPerLogger; k++) total += await post(logger, k);
+        for (let k = 1; k < burstsPerLogger; k++) total += await post(`DYN${logger}`, k, bodies[k % VARIANTS]!);
         return total;
       }),
     );
@@ -102,6 +107,13 @@ export async function benchBursts(): Promise<BenchResult[]> {
     const rate = samples / seconds;
     const channelDays = samples / RATE_HZ / 86_400;
     const bytesPerChannelDay = (storedBytes(file) - bytesBefore) / channelDays;
+    // What a request costs besides its samples (routing, authentication, queries, the transaction,
+    // the answer): short bursts one after another, with a few first to warm the gauge's path up.
+    const short = burstBody(0).subarray(0, SHORT_SAMPLES * 4);
+    for (let k = 0; k < 20; k++) await post(SHORT_TAG, k, short, SHORT_SAMPLES);
+    const shortCpuBefore = cpuMsOf(server.pid!);
+    for (let k = 20; k < 20 + SHORT_REQUESTS; k++) await post(SHORT_TAG, k, short, SHORT_SAMPLES);
+    const perRequestMs = (cpuMsOf(server.pid!) - shortCpuBefore) / SHORT_REQUESTS;
     const hwm = memoryOf(server.pid!).hwm / 1024;
     const peakMb = Math.max(peakRss / 1024, hwm);
     const ratio = staticReadingsPerSecond === null ? null : rate / staticReadingsPerSecond;
@@ -110,6 +122,11 @@ export async function benchBursts(): Promise<BenchResult[]> {
       { label: `bursts: binary over HTTP, ${LOGGERS} loggers at ${RATE_HZ} Hz, ${BURST_SECONDS}-s bursts, ${samples.toLocaleString("en-US")} samples (target ≥ 5 M/s)`, value: Math.round(rate), unit: `samples/s ${verdict(rate >= 5_000_000)}` },
       // Wall-clock samples/s stretch with whatever else shares the machine; the server's CPU time per sample does not.
       { label: "bursts: server CPU time per million samples (user + system, load-independent)", value: Number(((cpuMs / samples) * 1e6).toFixed(1)), unit: "ms" },
+      {
+        label: `bursts: server CPU time per request of ${SHORT_SAMPLES} samples (what any request costs; ${SAMPLES_PER_BURST.toLocaleString("en-US")}-sample bursts pay it once)`,
+        value: Number(perRequestMs.toFixed(2)),
+        unit: `ms (${((perRequestMs / SAMPLES_PER_BURST) * 1e6).toFixed(0)} ms per million samples of the figure above)`,
+      },
       ratio === null
         ? { label: "bursts: samples/s ÷ static readings/s (run with benchIngestion for it)", value: 0, unit: "n/a" }
         : { label: "bursts: samples/s ÷ static HTTP readings/s (target ≥ 20)", value: Number(ratio.toFixed(1)), unit: verdict(ratio >= 20) },
