@@ -65,7 +65,7 @@ async function postBinary(query: Record<string, string | number>, body: Uint8Arr
     body: body as unknown as BodyInit,
   });
   const response = await burstsRoute.POST(request, params({ code }));
-  return { status: response.status, body: await response.json() };
+  return { status: response.status, cacheControl: response.headers.get("cache-control"), body: await response.json() };
 }
 
 const floats = (values: readonly number[]) => new Uint8Array(new Float32Array(values).buffer);
@@ -91,6 +91,8 @@ describe("POST /bursts", () => {
     const binary = await postBinary({ gauge: "D2", start: iso(T0), rateHz: RATE }, floats(values));
     expect(binary.status).toBe(200);
     expect(binary.body).toMatchObject({ accepted: 6000, bursts: 1, duplicates: 0, rejected: [] });
+    // The short answer asks not to be transformed (RFC 9111, 5.2.2.6 no-transform), so no gzip is set up for 200 bytes.
+    expect(binary.cacheControl).toBe("no-transform");
     const fromJson = await summaries("D1");
     expect(await summaries("D2")).toEqual(fromJson);
     const [interval] = fromJson.intervals;

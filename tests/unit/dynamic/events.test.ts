@@ -50,6 +50,38 @@ describe("event capture", () => {
     expect(gapped.events[0]!.stress.length).toBe(200 + 100);
   });
 
+  // A pre-trigger window (common practice in transient recorders) holds what the signal gave before
+  // the crossing: less than preSeconds near the start, none when it is zero, a full one after an
+  // earlier event closed.
+  it("keeps only the samples there are before a crossing 0.5 s into the signal", () => {
+    const signal = new Float64Array(10 * RATE).fill(1);
+    signal.fill(25, 50, 60);
+    const [event] = captureEvents(signal, T0, trigger).events;
+    expect(event!.start).toBe(T0);
+    expect(event!.stress.length).toBe(50 + 10 + 500);
+    expect(event!.stress[49]).toBe(1);
+    expect(event!.stress[50]).toBe(25);
+  });
+
+  it("keeps no samples before the crossing with preSeconds 0", () => {
+    const [event] = captureEvents(pulseSignal(), T0, { ...trigger, preSeconds: 0 }).events;
+    expect(event!.start).toBe(T0 + 20_000);
+    expect(event!.stress.length).toBe(30 + 500);
+  });
+
+  it("gives a second event in the same block its own full pre-trigger window", () => {
+    const signal = pulseSignal();
+    signal.fill(-15, 40 * RATE, 40 * RATE + 20);
+    signal[40 * RATE - 1] = 3;
+    const { events } = captureEvents(signal, T0, trigger);
+    expect(events).toHaveLength(2);
+    expect(events[1]!.trigger).toBe("below");
+    expect(events[1]!.start).toBe(T0 + 38_000);
+    expect(events[1]!.stress.length).toBe(200 + 20 + 500);
+    expect(events[1]!.stress[199]).toBe(3);
+    expect(events[1]!.peak).toBe(-15);
+  });
+
   it("caps an event that never ends", () => {
     const { events } = captureEvents(new Float64Array(RATE * 120).fill(50), T0, trigger);
     expect(events[0]!.truncated).toBe(true);
