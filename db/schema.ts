@@ -253,10 +253,11 @@ export const rosettes = sqliteTable(
   (t) => [uniqueIndex("rosettes_structure_tag").on(t.structureId, t.tag)],
 );
 
-export const FILE_KINDS = ["photo", "drawing"] as const;
+/** A gauge's installation photo, a drawing, a calibration certificate (PDF or image), a photo taken on a site visit. */
+export const FILE_KINDS = ["photo", "drawing", "certificate", "visit-photo"] as const;
 export type FileKind = (typeof FILE_KINDS)[number];
 
-/** Uploaded images; the bytes live in the storage folder under a key the server made. */
+/** Uploaded images and documents; the bytes live in the storage folder under a key the server made. */
 export const files = sqliteTable(
   "files",
   {
@@ -510,6 +511,55 @@ export const loadTestPredictions = sqliteTable(
 
 export type LoadTest = typeof loadTests.$inferSelect;
 
+/**
+ * A calibration certificate of a gauge or of a logger. Loggers are known to Hookeline only through
+ * their tokens, which are revoked and made anew when one leaks, so a logger's certificate names it
+ * (its token's name or its serial number) rather than pointing at a token. Dates are calendar days
+ * on the structure's clock, "YYYY-MM-DD", as the certificate prints them; it is valid through its
+ * expiry day.
+ */
+export const calibrationCertificates = sqliteTable(
+  "calibration_certificates",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    /** Exactly one of gauge_id and logger_name is set. */
+    gaugeId: integer("gauge_id").references(() => gauges.id, { onDelete: "cascade" }),
+    loggerName: text("logger_name"),
+    certificateNumber: text("certificate_number").notNull(),
+    issuedBy: text("issued_by").notNull(),
+    issuedOn: text("issued_on").notNull(),
+    expiresOn: text("expires_on").notNull(),
+    fileId: integer("file_id")
+      .notNull()
+      .references(() => files.id),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdByLabel: text("created_by_label").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("calibration_certificates_structure").on(t.structureId, t.expiresOn), index("calibration_certificates_gauge").on(t.gaugeId)],
+);
+
+/** Reminders queued for a certificate, one per threshold (days before expiry), so each goes out once. */
+export const certificateReminders = sqliteTable(
+  "certificate_reminders",
+  {
+    certificateId: integer("certificate_id")
+      .notNull()
+      .references(() => calibrationCertificates.id, { onDelete: "cascade" }),
+    thresholdDays: integer("threshold_days").notNull(),
+    /** Days left when it was queued: a threshold passed while no job ran is reminded late, with the true count. */
+    daysLeft: integer("days_left").notNull(),
+    recipients: integer("recipients").notNull(),
+    queuedAt: writtenAt("queued_at"),
+  },
+  (t) => [primaryKey({ columns: [t.certificateId, t.thresholdDays] })],
+);
+
+export type CalibrationCertificate = typeof calibrationCertificates.$inferSelect;
+
 export type Gauge = typeof gauges.$inferSelect;
 export type BurstSummaryRow = typeof burstSummaries.$inferSelect;
 export type DynamicEventRow = typeof dynamicEvents.$inferSelect;
@@ -665,7 +715,7 @@ export type RosetteLimit = typeof rosetteLimits.$inferSelect;
 export type Alert = typeof alerts.$inferSelect;
 export type AlertEvent = typeof alertEvents.$inferSelect;
 
-export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report", "sign-in-lock"] as const;
+export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report", "sign-in-lock", "certificate-reminder"] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 export const MAIL_STATES = ["queued", "sending", "sent", "failed"] as const;

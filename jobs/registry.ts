@@ -8,6 +8,7 @@ import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
 import { sweepFileStore } from "@/lib/services/files";
 import { runFlappingSettle } from "./flapping-settle";
+import { runCertificateReminders } from "./certificate-reminders";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -35,6 +36,8 @@ export const JOBS: Job[] = [
   { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
   { name: "file-store-sweep", schedule: "0 45 2 * * *", leaseMs: 15 * 60_000, run: () => sweepFileStore() },
+  // Daily at 06:30 UTC, named so every instance agrees on the slot; each certificate's days are counted on its structure's clock.
+  { name: "certificate-reminders", schedule: "0 30 6 * * *", timezone: "UTC", leaseMs: 15 * 60_000, run: () => runCertificateReminders() },
   // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.
   { name: "monthly-report", schedule: "0 0 7 1 * *", timezone: "UTC", leaseMs: 30 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
   // Loaded only when enabled: it carries the whole demo scenario.

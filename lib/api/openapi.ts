@@ -33,6 +33,8 @@ import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { loadTestListSchema, loadTestResultsSchema } from "./load-test-schemas";
+import { certificateListSchema, certificateSchema } from "./field-record-schemas";
+import { PDF_TYPE } from "@/lib/storage/pdf-type";
 import { loadTestInput } from "@/lib/load-tests";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
 import { thermalFitPreviewSchema, thermalModelSchema } from "./thermal-schemas";
@@ -111,6 +113,20 @@ const imageUpload = (kind: FileKind, title: { description: string; required: boo
   },
   required: title.required ? ["file", "title"] : ["file"],
 });
+
+const certificateUpload: MultipartRequest = {
+  fields: {
+    file: { description: `The certificate: ${uploadRule("certificate")} The type is read from the content, not the name; a PDF must be whole (end with %%EOF).`, binary: true },
+    gauge: { description: "Tag of the structure's gauge the certificate is for; give this or `logger`" },
+    logger: { description: "Name of the logger the certificate is for (its token's name or serial number); give this or `gauge`" },
+    number: { description: "Certificate number as printed" },
+    issuedBy: { description: "The calibration laboratory" },
+    issuedOn: { description: "YYYY-MM-DD" },
+    expiresOn: { description: "YYYY-MM-DD, after issuedOn: the last day the certificate is valid, on the structure's clock" },
+  },
+  required: ["file", "number", "issuedBy", "issuedOn", "expiresOn"],
+};
+const certificateParameter = { name: "id", in: "path" as const, description: "Certificate id" };
 
 const OPERATIONS: Record<string, Record<string, Operation>> = {
   "/structures": {
@@ -578,6 +594,34 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 404],
     },
   },
+  "/structures/{code}/certificates": {
+    get: {
+      summary: "Calibration certificates of the structure's gauges and loggers, soonest expiry first, each with where it stands today on the structure's clock",
+      parameters: [codeParameter],
+      response: { status: 200, schema: certificateListSchema, description: "The certificates" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Record a calibration certificate of a gauge or a logger, with its file. Audited",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      notes:
+        "The expiry must fall after the issue date; an unknown gauge tag is a 400 naming it; a file that is not a whole PDF or a PNG, JPEG or WebP image is refused (415, or 400 for a damaged one). " +
+        "Nothing is stored unless all of it is. Reminders: once a day, each certificate that has come within a threshold of its expiry (CERTIFICATE_REMINDER_DAYS, default 30 days) is e-mailed once per threshold to the structure's technicians and engineers, " +
+        "unless a later certificate of the same instrument expires after it.",
+      multipart: certificateUpload,
+      response: { status: 201, schema: certificateSchema, description: "The stored certificate" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/certificates/{id}/file": {
+    get: {
+      summary: "The certificate's file as the type detected at upload (a PDF as an attachment)",
+      parameters: [codeParameter, certificateParameter],
+      response: { status: 200, description: "The file", binary: [PDF_TYPE, ...Object.keys(IMAGE_TYPES)] },
+      errors: [400, 401, 404],
+    },
+  },
   "/files/{id}": {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
@@ -705,6 +749,7 @@ const TAGS: Record<string, string> = {
   uploads: "Sending a logger file of any size, streamed",
   report: "The periodic structure report",
   "load-tests": "Diagnostic load tests: measured against predicted strain per gauge",
+  certificates: "Calibration certificates of gauges and loggers, with their expiry and reminders",
   files: "Stored photos and drawings",
 };
 

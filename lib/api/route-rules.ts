@@ -13,6 +13,8 @@ export const ROUTE_RULES = {
   "/structures/{code}": { GET: "structure:view" },
   "/structures/{code}/alerts": { GET: "structure:view" },
   "/structures/{code}/bursts": { POST: "readings:ingest" },
+  "/structures/{code}/certificates": { GET: "structure:view", POST: "field-record:add" },
+  "/structures/{code}/certificates/{id}/file": { GET: "structure:view" },
   "/structures/{code}/events/{id}": { GET: "structure:view", PATCH: "alert:acknowledge" },
   "/structures/{code}/drawings": { GET: "structure:view", POST: "gauge:register" },
   "/structures/{code}/gauges": { GET: "structure:view", POST: "gauge:register" },

@@ -13,7 +13,7 @@ export async function readUpload(request: Request, kind: FileKind): Promise<Uplo
   const form = await readFormData(request, UPLOAD_LIMIT_BYTES[kind] + MULTIPART_ALLOWANCE_BYTES);
   const file = form.get("file");
   if (!(file instanceof Blob)) {
-    throw new AppError("bad_request", 'Attach the image as the form field "file".', { field: "file" });
+    throw new AppError("bad_request", `Attach the ${kind === "certificate" ? "certificate (PDF or image)" : "image"} as the form field "file".`, { field: "file" });
   }
   const fields = Object.fromEntries([...form.entries()].filter((entry): entry is [string, string] => typeof entry[1] === "string"));
   return { bytes: new Uint8Array(await file.arrayBuffer()), fields };

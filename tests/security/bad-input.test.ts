@@ -156,6 +156,25 @@ function corpus(): Case[] {
     add({ label: `load test CSV numbered ${id}`, method: "GET", path: `${L}/${id}/results.csv` });
   }
 
+  // Calibration certificates: dates out of order or not dates, an unknown gauge, files that are no PDF or image.
+  const C = `${S}/MILL-FB/certificates`;
+  const certificate = (fields: Record<string, string>, part: Uint8Array<ArrayBuffer> | string | null = "%PDF-1.7\n1 0 obj\n<<>>\nendobj\n%%EOF\n") => {
+    const form = new FormData();
+    for (const [name, value] of Object.entries({ gauge: "LC-M1", number: "PROBE-C", issuedBy: "Probe lab", issuedOn: "2026-01-10", expiresOn: "2027-01-10", ...fields })) form.set(name, value);
+    if (part !== null) form.set("file", new Blob([typeof part === "string" ? new TextEncoder().encode(part) : part], { type: "application/pdf" }), "certificate.pdf");
+    return form;
+  };
+  for (const dates of [{ expiresOn: "2026-01-09" }, { expiresOn: "2026-01-10" }, { issuedOn: "2026-02-30" }, { expiresOn: "tomorrow" }, { issuedOn: "99999-01-01" }, { expiresOn: "" }])
+    add({ label: `certificate dates ${json(dates)}`, method: "POST", path: C, body: certificate(dates) });
+  for (const subject of [{ gauge: "NO-SUCH" }, { gauge: "<script>" }, { gauge: "", logger: "" }, { logger: "Probe logger" }, { gauge: "", logger: "x".repeat(500) }])
+    add({ label: `certificate for ${json(subject).slice(0, 40)}`, method: "POST", path: C, body: certificate(subject) });
+  for (const [label, part] of [["text named .pdf", "just text, not a PDF"], ["PDF cut short", "%PDF-1.7\n1 0 obj\n<<"], ["HTML", "<html><script>alert(1)</script></html>"], ["empty", new Uint8Array()]] as const)
+    add({ label: `certificate file ${label}`, method: "POST", path: C, body: certificate({}, part) });
+  add({ label: "certificate without a file", method: "POST", path: C, body: certificate({}, null) });
+  add({ label: "certificate without a number", method: "POST", path: C, body: certificate({ number: "" }) });
+  add({ label: "certificate as JSON", method: "POST", path: C, body: json({ gauge: "LC-M1" }) });
+  for (const id of ["NaN", "0", "-1", "1.5", "1e308", "999999"]) add({ label: `certificate file numbered ${id}`, method: "GET", path: `${C}/${id}/file` });
+
   // Names in the path and the query.
   const pathNames = ["%3Cscript%3E", "'%20OR%201%3D1--", "%00", "..%2F..%2Fetc%2Fpasswd", "x".repeat(3000), "MILL-FB%E2%80%AE", "%F0%9F%92%A5", "1e308"];
   for (const name of pathNames) {

@@ -648,6 +648,46 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/certificates": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Calibration certificates of the structure's gauges and loggers, soonest expiry first, each with where it stands today on the structure's clock */
+        get: operations["getStructuresByCodeCertificates"];
+        put?: never;
+        /**
+         * Record a calibration certificate of a gauge or a logger, with its file. Audited
+         * @description Roles: admin, engineer, technician.
+         *
+         *     The expiry must fall after the issue date; an unknown gauge tag is a 400 naming it; a file that is not a whole PDF or a PNG, JPEG or WebP image is refused (415, or 400 for a damaged one). Nothing is stored unless all of it is. Reminders: once a day, each certificate that has come within a threshold of its expiry (CERTIFICATE_REMINDER_DAYS, default 30 days) is e-mailed once per threshold to the structure's technicians and engineers, unless a later certificate of the same instrument expires after it.
+         */
+        post: operations["postStructuresByCodeCertificates"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/certificates/{id}/file": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The certificate's file as the type detected at upload (a PDF as an attachment) */
+        get: operations["getStructuresByCodeCertificatesByIdFile"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/files/{id}": {
         parameters: {
             query?: never;
@@ -789,6 +829,49 @@ export interface components {
                 cycles: number;
             }[];
         };
+        CalibrationCertificate: {
+            id: number;
+            /** @description Tag of the gauge the certificate is for; null for a logger's */
+            gauge: string | null;
+            /** @description Name of the logger the certificate is for; null for a gauge's */
+            logger: string | null;
+            /** @description Certificate number as printed */
+            number: string;
+            /** @description The calibration laboratory */
+            issuedBy: string;
+            /** @description YYYY-MM-DD */
+            issuedOn: string;
+            /** @description YYYY-MM-DD, the last day it is valid on the structure's clock */
+            expiresOn: string;
+            /**
+             * @description `expired` after the expiry day; `expiring` within the longest reminder threshold; else `valid`
+             * @enum {string}
+             */
+            state: "expired" | "expiring" | "valid";
+            /** @description Days from the structure's today to the expiry day (negative once expired) */
+            daysLeft: number;
+            /** @description The state in words with the date, e.g. "Expires in 12 days, on 2026-07-01" */
+            standing: string;
+            /** @description Number of a later certificate of the same instrument that expires later, which takes this one's place (no reminders then) */
+            replacedBy: string | null;
+            file: {
+                url: string;
+                /** @description application/pdf or an image type, detected from the content */
+                contentType: string;
+                bytes: number;
+            };
+            createdBy: string;
+            /** @description UTC, ISO-8601 with milliseconds */
+            createdAt: string;
+        };
+        CertificateList: {
+            /** @description The structure's date now, YYYY-MM-DD: what `daysLeft` counts from */
+            today: string;
+            /** @description Days before expiry a reminder goes to the structure's technicians and engineers (CERTIFICATE_REMINDER_DAYS) */
+            reminderDays: number[];
+            /** @description Soonest expiry first */
+            certificates: components["schemas"]["CalibrationCertificate"][];
+        };
         DrawingList: {
             drawings: components["schemas"]["File"][];
         };
@@ -853,7 +936,7 @@ export interface components {
         File: {
             id: number;
             /** @enum {string} */
-            kind: "photo" | "drawing";
+            kind: "photo" | "drawing" | "certificate" | "visit-photo";
             title: string;
             /**
              * @description Detected from the content, not the name
@@ -4733,6 +4816,201 @@ export interface operations {
                 };
                 content: {
                     "text/csv": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeCertificates: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The certificates */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CertificateList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeCertificates: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The certificate: PDF, PNG, JPEG or WebP file, at most 20 MB. The type is read from the content, not the name; a PDF must be whole (end with %%EOF).
+                     */
+                    file: string;
+                    /** @description Tag of the structure's gauge the certificate is for; give this or `logger` */
+                    gauge?: string;
+                    /** @description Name of the logger the certificate is for (its token's name or serial number); give this or `gauge` */
+                    logger?: string;
+                    /** @description Certificate number as printed */
+                    number: string;
+                    /** @description The calibration laboratory */
+                    issuedBy: string;
+                    /** @description YYYY-MM-DD */
+                    issuedOn: string;
+                    /** @description YYYY-MM-DD, after issuedOn: the last day the certificate is valid, on the structure's clock */
+                    expiresOn: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The stored certificate */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CalibrationCertificate"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeCertificatesByIdFile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Certificate id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The file */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/pdf": string;
+                    "image/png": string;
+                    "image/jpeg": string;
+                    "image/webp": string;
                 };
             };
             /** @description Malformed or invalid request */

@@ -5,6 +5,7 @@ import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { DynamicChannel } from "@/components/dynamic/dynamic-channel";
 import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
+import { GaugeFieldRecords } from "@/components/field-records/gauge-field-records";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ZeroForm } from "@/components/gauges/zero-form";
 import { recordZeroAction } from "../actions";
@@ -265,6 +266,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
       <div className="mt-6">
         <GaugePhotos structureCode={code} tag={tag} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
+      <GaugeFieldRecords user={user} code={code} tag={gauge.tag} />
       {canAudit && (
         <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
           <h2 id="audit" className="mb-3 font-semibold">
