@@ -558,7 +558,57 @@ export const certificateReminders = sqliteTable(
   (t) => [primaryKey({ columns: [t.certificateId, t.thresholdDays] })],
 );
 
+/** A technician's visit to the structure: who, when, what was done. */
+export const siteVisits = sqliteTable(
+  "site_visits",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    /** Epoch ms of the visit. */
+    visitedAt: integer("visited_at", { mode: "timestamp_ms" }).notNull(),
+    /** Who went: the signed-in person by default, or the names of a crew. */
+    visitor: text("visitor").notNull(),
+    workDone: text("work_done").notNull(),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdByLabel: text("created_by_label").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("site_visits_structure").on(t.structureId, t.visitedAt)],
+);
+
+/** The gauges a visit names (checked, replaced, re-zeroed …). */
+export const siteVisitGauges = sqliteTable(
+  "site_visit_gauges",
+  {
+    visitId: integer("visit_id")
+      .notNull()
+      .references(() => siteVisits.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+  },
+  (t) => [primaryKey({ columns: [t.visitId, t.gaugeId] }), index("site_visit_gauges_gauge").on(t.gaugeId)],
+);
+
+/** Photos taken on a visit, stored as files of kind visit-photo. */
+export const siteVisitPhotos = sqliteTable(
+  "site_visit_photos",
+  {
+    visitId: integer("visit_id")
+      .notNull()
+      .references(() => siteVisits.id, { onDelete: "cascade" }),
+    fileId: integer("file_id")
+      .notNull()
+      .unique()
+      .references(() => files.id),
+  },
+  (t) => [primaryKey({ columns: [t.visitId, t.fileId] })],
+);
+
 export type CalibrationCertificate = typeof calibrationCertificates.$inferSelect;
+export type SiteVisit = typeof siteVisits.$inferSelect;
 
 export type Gauge = typeof gauges.$inferSelect;
 export type BurstSummaryRow = typeof burstSummaries.$inferSelect;

@@ -4,17 +4,10 @@ import { useId, useState, useTransition } from "react";
 import type { ActionState } from "@/lib/actions/action-state";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass, stackedTable, thClass } from "@/components/ui/styles";
-import { wallClockToEpoch } from "@/lib/ingest/reading-time";
+import { isoFromClockInput } from "@/lib/time-format";
 import { parsePredictedTable } from "@/lib/load-tests/predicted-csv";
 
 export type FormGauge = { tag: string; label: string | null; member: string | null };
-
-/** A datetime-local value read on the structure's clock, as ISO UTC; "" while unset. */
-function isoOnClock(value: string, zone: string): string {
-  if (!value) return "";
-  const wall = Date.parse(`${value}:00Z`);
-  return Number.isNaN(wall) ? "" : new Date(wallClockToEpoch(wall, zone)).toISOString();
-}
 
 function FieldErrors({ id, errors }: { id: string; errors: string[] | undefined }) {
   if (!errors?.length) return null;
@@ -71,7 +64,7 @@ export function LoadTestForm({
     const rows = Object.entries(predicted)
       .filter(([, value]) => value.trim() !== "")
       .map(([gauge, value]) => ({ gauge, predicted: Number(value) }));
-    const payload = { title, load, start: isoOnClock(start, timeZone), end: isoOnClock(end, timeZone), predicted: rows };
+    const payload = { title, load, start: isoFromClockInput(start, timeZone), end: isoFromClockInput(end, timeZone), predicted: rows };
     startTransition(async () => setState(await action(code, payload)));
   }
 

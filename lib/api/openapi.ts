@@ -33,7 +33,8 @@ import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { loadTestListSchema, loadTestResultsSchema } from "./load-test-schemas";
-import { certificateListSchema, certificateSchema } from "./field-record-schemas";
+import { certificateListSchema, certificateSchema, siteVisitPageSchema, siteVisitSchema } from "./field-record-schemas";
+import { MAX_VISIT_PHOTOS, siteVisitInput, siteVisitQuery } from "@/lib/field-records/site-visits";
 import { PDF_TYPE } from "@/lib/storage/pdf-type";
 import { loadTestInput } from "@/lib/load-tests";
 import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
@@ -125,6 +126,16 @@ const certificateUpload: MultipartRequest = {
     expiresOn: { description: "YYYY-MM-DD, after issuedOn: the last day the certificate is valid, on the structure's clock" },
   },
   required: ["file", "number", "issuedBy", "issuedOn", "expiresOn"],
+};
+const siteVisitUpload: MultipartRequest = {
+  fields: {
+    visitedAt: { description: "When the visit began, ISO-8601 with Z or an offset; not in the future" },
+    visitor: { description: "Who went; default the sender" },
+    work: { description: "What was done" },
+    gauges: { description: "A gauge tag the visit touched; repeat the field for each" },
+    photos: { description: `A photo taken on the visit: ${uploadRule("visit-photo")} Repeat the field for each, at most ${MAX_VISIT_PHOTOS}.`, binary: true },
+  },
+  required: ["visitedAt", "work"],
 };
 const certificateParameter = { name: "id", in: "path" as const, description: "Certificate id" };
 
@@ -622,6 +633,26 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 404],
     },
   },
+  "/structures/{code}/site-visits": {
+    get: {
+      summary: "The structure's site visits, newest first, a page at a time; `?gauge=` keeps those naming one gauge",
+      parameters: [codeParameter, ...queryParameters(siteVisitQuery)],
+      response: { status: 200, schema: siteVisitPageSchema, description: "A page of visits" },
+      errors: [400, 401, 404],
+    },
+    post: {
+      summary: "Record a site visit: when, who, what was done, the gauges it touched and its photos. Audited",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      notes:
+        "Send JSON (no photos) or multipart/form-data with the photos. Every gauge named must be the structure's (unknown tags are all named in one 400, `details.unknownGauges`); " +
+        "every photo must be a PNG, JPEG or WebP image (415 otherwise). Nothing is stored unless all of it is.",
+      request: siteVisitInput,
+      multipart: siteVisitUpload,
+      response: { status: 201, schema: siteVisitSchema, description: "The stored visit" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
   "/files/{id}": {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
@@ -707,8 +738,8 @@ function reachable(roots: Iterable<string>, schemas: Record<string, JsonSchema>)
 }
 
 function requestBodyOf(operation: Operation, components: Components, where: string) {
-  if (operation.multipart) return { required: true, content: { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } };
   const content = {
+    ...(operation.multipart ? { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } : {}),
     ...(operation.request ? { "application/json": { schema: components.ref(operation.request, "input", where) } } : {}),
     ...(operation.csvRequest ? { "text/csv": { schema: { type: "string", description: operation.csvRequest } } } : {}),
     ...(operation.binaryRequest ? { "application/octet-stream": { schema: { type: "string", format: "binary", description: operation.binaryRequest } } } : {}),
@@ -750,6 +781,7 @@ const TAGS: Record<string, string> = {
   report: "The periodic structure report",
   "load-tests": "Diagnostic load tests: measured against predicted strain per gauge",
   certificates: "Calibration certificates of gauges and loggers, with their expiry and reminders",
+  "site-visits": "The log of visits to the structure: who, when, what was done, gauges touched, photos",
   files: "Stored photos and drawings",
 };
 

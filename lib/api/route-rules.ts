@@ -36,6 +36,7 @@ export const ROUTE_RULES = {
   "/structures/{code}/load-tests/{id}/results.csv": { GET: "structure:view" },
   "/structures/{code}/readings": { POST: "readings:ingest" },
   "/structures/{code}/report": { GET: "structure:view" },
+  "/structures/{code}/site-visits": { GET: "structure:view", POST: "field-record:add" },
   "/structures/{code}/rosettes": { GET: "structure:view", POST: "gauge:register" },
   "/structures/{code}/rosettes/{tag}/limits": { GET: "structure:view", PUT: "limits:edit" },
   "/structures/{code}/rosettes/{tag}/limits/backtest": { POST: "structure:view" },

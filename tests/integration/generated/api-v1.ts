@@ -688,6 +688,29 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/site-visits": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The structure's site visits, newest first, a page at a time; `?gauge=` keeps those naming one gauge */
+        get: operations["getStructuresByCodeSiteVisits"];
+        put?: never;
+        /**
+         * Record a site visit: when, who, what was done, the gauges it touched and its photos. Audited
+         * @description Roles: admin, engineer, technician.
+         *
+         *     Send JSON (no photos) or multipart/form-data with the photos. Every gauge named must be the structure's (unknown tags are all named in one 400, `details.unknownGauges`); every photo must be a PNG, JPEG or WebP image (415 otherwise). Nothing is stored unless all of it is.
+         */
+        post: operations["postStructuresByCodeSiteVisits"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/files/{id}": {
         parameters: {
             query?: never;
@@ -1516,6 +1539,43 @@ export interface components {
             max: number[];
             mean: number[];
             count: number[];
+        };
+        SiteVisit: {
+            id: number;
+            /** @description UTC, ISO-8601 with milliseconds */
+            visitedAt: string;
+            /** @description Who went */
+            visitor: string;
+            /** @description What was done */
+            work: string;
+            /** @description Tags of the gauges the visit touched */
+            gauges: string[];
+            photos: components["schemas"]["File"][];
+            createdBy: string;
+            createdAt: string;
+        };
+        SiteVisitInput: {
+            /**
+             * Format: date-time
+             * @description When the visit began, ISO-8601 with Z or an offset; not in the future
+             */
+            visitedAt: string;
+            /** @description Who went (names of the crew); default the person whose token or session sends it */
+            visitor?: string;
+            work: string;
+            /**
+             * @description Tags of the structure's gauges the visit touched
+             * @default []
+             */
+            gauges?: string[];
+        };
+        SiteVisitPage: {
+            /** @description Newest visit first */
+            visits: components["schemas"]["SiteVisit"][];
+            /** @description Visits that match in all */
+            total: number;
+            page: number;
+            perPage: number;
         };
         Structure: {
             code: string;
@@ -5033,6 +5093,157 @@ export interface operations {
             };
             /** @description Unknown, or not visible to the caller */
             404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeSiteVisits: {
+        parameters: {
+            query?: {
+                /** @description Page of 20 visits, newest first (default 1) */
+                page?: string;
+                /** @description Only the visits that name this gauge */
+                gauge?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of visits */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SiteVisitPage"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeSiteVisits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /** @description When the visit began, ISO-8601 with Z or an offset; not in the future */
+                    visitedAt: string;
+                    /** @description Who went; default the sender */
+                    visitor?: string;
+                    /** @description What was done */
+                    work: string;
+                    /** @description A gauge tag the visit touched; repeat the field for each */
+                    gauges?: string;
+                    /**
+                     * Format: binary
+                     * @description A photo taken on the visit: PNG, JPEG or WebP image, at most 10 MB. Repeat the field for each, at most 8.
+                     */
+                    photos?: string;
+                };
+                "application/json": components["schemas"]["SiteVisitInput"];
+            };
+        };
+        responses: {
+            /** @description The stored visit */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SiteVisit"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -107,6 +107,9 @@ export default async function StructurePage({ params }: Props) {
             <Link href={`/structures/${code}/certificates`} className={buttonClass("secondary")}>
               Certificates
             </Link>
+            <Link href={`/structures/${code}/site-visits`} className={buttonClass("secondary")}>
+              Site visits
+            </Link>
             {canIngest && (
               <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
                 Upload logger file

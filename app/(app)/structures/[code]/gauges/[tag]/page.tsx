@@ -266,7 +266,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
       <div className="mt-6">
         <GaugePhotos structureCode={code} tag={tag} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
-      <GaugeFieldRecords user={user} code={code} tag={gauge.tag} />
+      <GaugeFieldRecords user={user} code={code} tag={gauge.tag} timeZone={structure.timezone} />
       {canAudit && (
         <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
           <h2 id="audit" className="mb-3 font-semibold">
