@@ -12,8 +12,8 @@ import { queueMail } from "@/lib/mail/outbox";
 import { sensorMailOf } from "@/lib/services/alert-mail";
 import { EVALUATION_LABEL } from "@/lib/services/alert-raising";
 import { receivesAlertMail } from "@/lib/auth/permissions";
-
-const DAY_MS = 86_400_000;
+import { dayOf, dayStart, startOfZoneDay } from "@/lib/time-format";
+import { digestTimeZone } from "@/lib/time-zone-config";
 
 /** The day's events: those that happened in it, and those recorded in it about older readings (deferred from immediate mail). */
 async function eventsOfDay(from: Date, to: Date) {
@@ -71,14 +71,20 @@ function carries(member: Member, row: EventRow): boolean {
   return row.alert.kind === "sensor" && sensorMailOf(member) === "digest";
 }
 
+/** The day a digest sent at `now` covers: the zone's day before the one `now` is in, from its midnight to the next. */
+export function digestDay(now: number, timeZone: string): { day: string; from: Date; to: Date } {
+  const to = startOfZoneDay(now, timeZone);
+  const day = dayOf(to.getTime() - 1, timeZone);
+  return { day, from: dayStart(day, timeZone), to };
+}
+
 /**
- * Once a day, a member gets the alert events of the last 24 hours on the structures they follow
- * that they were not mailed one by one, in one e-mail (none when there are none).
+ * Once a day, a member gets the alert events of the day before (a day of DIGEST_TIMEZONE, 23 or 25
+ * hours across a clock change) on the structures they follow that they were not mailed one by
+ * one, in one e-mail (none when there are none).
  */
-export async function runDailyDigest(now = Date.now()): Promise<string> {
-  const to = new Date(Math.floor(now / DAY_MS) * DAY_MS);
-  const from = new Date(to.getTime() - DAY_MS);
-  const period = from.toISOString().slice(0, 10);
+export async function runDailyDigest(now = Date.now(), timeZone = digestTimeZone()): Promise<string> {
+  const { day: period, from, to } = digestDay(now, timeZone);
   const [events, memberships] = await Promise.all([
     eventsOfDay(from, to),
     getDb()
@@ -106,7 +112,7 @@ export async function runDailyDigest(now = Date.now()): Promise<string> {
   let queued = 0;
   for (const { user, sections: carried } of byUser.values()) {
     const sections = await Promise.all(carried.map(async (section) => ({ ...section, conditions: await conditionsOf(section.structure) })));
-    const mail = buildDigestMail({ recipientName: user.name, period, structures: sections }, appUrl());
+    const mail = buildDigestMail({ recipientName: user.name, period: `${period} (${timeZone})`, structures: sections }, appUrl());
     const added = await writeTransaction((tx) => queueMail(tx, { ...mail, to: user.email, toUserId: user.id, kind: "digest", dedupeKey: `digest:${period}:${user.id}` }));
     if (added) queued += 1;
   }

@@ -9,6 +9,7 @@ import { runStaleWatch } from "./stale-watch";
 import { sweepFileStore } from "@/lib/services/files";
 import { runFlappingSettle } from "./flapping-settle";
 import { runCertificateReminders } from "./certificate-reminders";
+import { digestTimeZone } from "@/lib/time-zone-config";
 
 /**
  * A background job: its node-cron schedule (seconds field first), how long its database lease
@@ -19,8 +20,8 @@ export type Job = {
   name: string;
   schedule: string;
   leaseMs: number;
-  /** IANA zone the schedule is read in; the process's own zone when absent. */
-  timezone?: string;
+  /** IANA zone the schedule is read in: named for every job, so no schedule follows the server's own zone. */
+  timezone: string;
   run: (signal: AbortSignal) => Promise<string>;
 };
 
@@ -28,21 +29,23 @@ export const JOBS: Job[] = [
   {
     name: "mail-outbox",
     schedule: "*/5 * * * * *",
+    timezone: "UTC",
     leaseMs: 60_000,
     run: async (signal) => describeSenderResult(await runOutboxSender({ holder: PROCESS_HOLDER, signal })),
   },
-  { name: "stale-watch", schedule: "0 * * * * *", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
-  { name: "flapping-settle", schedule: "30 * * * * *", leaseMs: 5 * 60_000, run: () => runFlappingSettle() },
-  { name: "daily-digest", schedule: "0 0 6 * * *", leaseMs: 15 * 60_000, run: () => runDailyDigest() },
-  { name: "rollup-maintenance", schedule: "0 30 2 * * *", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
-  { name: "file-store-sweep", schedule: "0 45 2 * * *", leaseMs: 15 * 60_000, run: () => sweepFileStore() },
-  // Daily at 06:30 UTC, named so every instance agrees on the slot; each certificate's days are counted on its structure's clock.
+  { name: "stale-watch", schedule: "0 * * * * *", timezone: "UTC", leaseMs: 5 * 60_000, run: () => runStaleWatch() },
+  { name: "flapping-settle", schedule: "30 * * * * *", timezone: "UTC", leaseMs: 5 * 60_000, run: () => runFlappingSettle() },
+  // 06:00 in DIGEST_TIMEZONE (UTC by default); the digest covers the day before in that zone.
+  { name: "daily-digest", schedule: "0 0 6 * * *", timezone: digestTimeZone(), leaseMs: 15 * 60_000, run: () => runDailyDigest() },
+  { name: "rollup-maintenance", schedule: "0 30 2 * * *", timezone: "UTC", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
+  { name: "file-store-sweep", schedule: "0 45 2 * * *", timezone: "UTC", leaseMs: 15 * 60_000, run: () => sweepFileStore() },
+  // Daily at 06:30 UTC; each certificate's days are counted on its structure's clock.
   { name: "certificate-reminders", schedule: "0 30 6 * * *", timezone: "UTC", leaseMs: 15 * 60_000, run: () => runCertificateReminders() },
-  // 07:00 UTC on the 1st: the month's last UTC day is over, and late logger uploads of its last hours have had a few hours to arrive.
-  { name: "monthly-report", schedule: "0 0 7 1 * *", timezone: "UTC", leaseMs: 30 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
+  // Every half hour: each structure's report leaves at 07:00 on the 1st of its own clocks (runMonthlyReport decides which are due).
+  { name: "monthly-report", schedule: "0 */30 * * * *", timezone: "UTC", leaseMs: 25 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
   // Loaded only when enabled: it carries the whole demo scenario.
   ...(demoLoggerEnabled()
-    ? [{ name: "demo-logger", schedule: "15 * * * * *", leaseMs: 5 * 60_000, run: async (signal: AbortSignal) => (await import("./demo-logger")).runDemoLogger(Date.now(), signal) }]
+    ? [{ name: "demo-logger", schedule: "15 * * * * *", timezone: "UTC", leaseMs: 5 * 60_000, run: async (signal: AbortSignal) => (await import("./demo-logger")).runDemoLogger(Date.now(), signal) }]
     : []),
 ];
 

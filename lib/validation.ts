@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { MIN_PASSWORD_LENGTH, ROLES } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
+import { isTimeZone } from "@/lib/time-format";
 
 /** Zod's issues as the per-field list the API and forms report. */
 export function issuesOf(error: z.ZodError) {
@@ -30,14 +31,7 @@ z.config({
   },
 });
 
-export function isTimeZone(name: string): boolean {
-  try {
-    new Intl.DateTimeFormat("en", { timeZone: name });
-    return true;
-  } catch {
-    return false;
-  }
-}
+export { isTimeZone };
 
 /**
  * Line breaks and tabs (become a space), other C0 and C1 control characters, and the bidirectional

@@ -28,5 +28,5 @@ if (args[0] === "--once") {
     console.error("JOBS=off: no jobs to run in this process.");
     process.exit(1);
   }
-  console.log(`Running jobs: ${JOBS.map((job) => `${job.name} (${job.schedule})`).join(", ")}.`);
+  console.log(`Running jobs: ${JOBS.map((job) => `${job.name} (${job.schedule} ${job.timezone})`).join(", ")}.`);
 }

@@ -4,9 +4,9 @@ import { EmptyState } from "@/components/ui/empty-state";
 import type { AlertView } from "@/lib/services/alerts";
 import type { UnitSystem } from "@/lib/units";
 import { LevelBadge, StateBadge, alertPlaceLabel, alertSummary } from "./alert-badges";
+import { formatInTimeZone } from "@/lib/time-format";
 
-const when = (iso: string, timeZone: string) =>
-  new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
+const when = (iso: string, timeZone: string) => formatInTimeZone(new Date(iso), timeZone);
 
 export function AlertTable({ alerts, timeZones, units = "si" }: { alerts: AlertView[]; timeZones: Record<string, string>; units?: UnitSystem }) {
   if (alerts.length === 0) {

@@ -4,10 +4,11 @@ import { formatShareOfYield } from "@/lib/units";
 import { CONDITION_STATES } from "@/lib/alerting/condition";
 import { STATE_LOOK } from "@/lib/alerting/condition-display";
 import { ConditionBadge } from "./state-badge";
+import { formatInTimeZone } from "@/lib/time-format";
 
 /** What an owner needs at a glance: the worst state, what is open, how hard it worked, how fresh the data are. */
 export function StructureGlance({ summary, timeZone }: { summary: StructureSummary; timeZone: string }) {
-  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
+  const local = (ms: number) => formatInTimeZone(ms, timeZone);
   const open = summary.openAlerts;
   return (
     <div className="mt-3 space-y-2 text-sm" data-testid="structure-glance">

@@ -9,7 +9,7 @@ import { downloadFile, fetchJson } from "@/lib/api/fetcher";
 import { limitLines, type Limit } from "@/lib/limits";
 import type { SeriesAnswer } from "@/lib/series/chart-data";
 import { inDisplayUnits } from "@/lib/units";
-import { startOfDayIn } from "@/lib/ingest/reading-time";
+import { dayEnd, dayStart, formatInTimeZone } from "@/lib/time-format";
 import { chartExportFileName, chartExportTitleLines } from "@/lib/series/chart-export";
 import { EnvelopeChart, type ChartEpisode, type ChartEvent, type TimeRange } from "./envelope-chart";
 import { ShowAllLimitsSwitch } from "./show-all-limits";
@@ -25,9 +25,6 @@ const PRESETS = [
   ["1 year", 365 * DAY],
 ] as const;
 const POINTS = 1000;
-
-/** "2026-11-01" → "2026-11-02", by the calendar, whatever the clocks do that night. */
-const nextDay = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) + DAY).toISOString().slice(0, 10);
 
 type Quantity = "stress" | "strain" | "temperature" | "residual";
 
@@ -123,13 +120,12 @@ export function GaugeCharts({
     }),
     [limits, yieldStress, display],
   );
-  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
+  const local = (ms: number) => formatInTimeZone(ms, timeZone);
 
   /** Custom days are the structure's days: from its midnight to the midnight ending the last day. */
   function setDay(end: "from" | "to", day: string) {
-    const midnight = day ? startOfDayIn(day, timeZone) : null;
-    if (midnight === null) return;
-    setRange((current) => (end === "from" ? { ...current, from: midnight } : { ...current, to: startOfDayIn(nextDay(day), timeZone) ?? midnight + DAY }));
+    if (!/^\d{4}-\d{2}-\d{2}$/.test(day)) return;
+    setRange((current) => (end === "from" ? { ...current, from: dayStart(day, timeZone).getTime() } : { ...current, to: dayEnd(day, timeZone).getTime() }));
   }
 
   async function exportCsv() {
@@ -153,7 +149,7 @@ export function GaugeCharts({
     });
     const link = document.createElement("a");
     link.href = titledPng(chart.ctx.canvas, title);
-    link.download = chartExportFileName(structureCode, tag, "stress", range.from, range.to);
+    link.download = chartExportFileName(structureCode, tag, "stress", range.from, range.to, timeZone);
     link.click();
   }
 

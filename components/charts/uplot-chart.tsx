@@ -3,7 +3,8 @@
 import { useEffect, useEffectEvent, useRef } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
-import { legendTime, timeTickLabels, zoneWallClock } from "@/lib/series/time-labels";
+import { legendTime, timeTickLabels } from "@/lib/series/time-labels";
+import { zoneWallClock } from "@/lib/time-format";
 import { formatInUnit, type DisplayUnit } from "@/lib/units";
 
 /**
@@ -67,7 +68,7 @@ export function timeChartOptions(
 ): ChartOptions {
   return {
     ...rest,
-    tzDate: (seconds) => zoneWallClock(seconds, timeZone),
+    tzDate: (seconds) => zoneWallClock(seconds * 1000, timeZone),
     axes: [{ values: (_chart, splits, _axis, _space, increment) => timeTickLabels(splits, increment, timeZone) }, valueAxis],
     series: [
       { label: "Time", value: (_chart, seconds) => legendTime(seconds, timeZone) },

@@ -26,7 +26,7 @@ export function useStressDisplay(): StressDisplay {
 }
 
 /** "2026-07-01 13:00:05.120 BST": an event's instant on the structure's clock, to the millisecond. */
-export const instantText = (iso: string, timeZone: string) => formatInTimeZone(new Date(iso), timeZone, { milliseconds: true });
+export const instantText = (iso: string, timeZone: string) => formatInTimeZone(new Date(iso), timeZone, { precision: "millisecond" });
 
 /**
  * Trigger level and peak drawn over the waveform. What was drawn is listed in `data-overlays`

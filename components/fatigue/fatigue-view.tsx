@@ -1,12 +1,12 @@
 "use client";
 
-import { format } from "date-fns";
 import { useState } from "react";
 import useSWR from "swr";
 import { EmptyState } from "@/components/ui/empty-state";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { DETAIL_CATEGORY_VALUES, formatScientific, snCurveLimits } from "@/lib/fatigue";
 import type { GaugeFatigue } from "@/lib/services/fatigue";
+import { dayEnd, dayOf, dayStart, formatInTimeZone } from "@/lib/time-format";
 import { RainflowHistogram } from "./rainflow-histogram";
 
 const DAY_MS = 86_400_000;
@@ -18,15 +18,12 @@ const PRESETS = [
 ] as const;
 type Preset = (typeof PRESETS)[number][0];
 
-const dayText = (ms: number) => format(ms, "yyyy-MM-dd");
-const when = (iso: string) => format(new Date(iso), "yyyy-MM-dd HH:mm");
 const count = (value: number) => value.toLocaleString("en-US", { maximumFractionDigits: 1 });
 
-/** Days picked in the device's time zone: from the first day's midnight to the midnight after the last day. */
-function customPeriod(fromDay: string, toDay: string) {
+/** Days of the structure's time zone: from the first day's midnight to the midnight after the last day. */
+function customPeriod(fromDay: string, toDay: string, timeZone: string) {
   if (!fromDay || !toDay || fromDay > toDay) return null;
-  const [y, m, d] = toDay.split("-").map(Number) as [number, number, number];
-  return { from: new Date(`${fromDay}T00:00`), to: new Date(y, m - 1, d + 1) };
+  return { from: dayStart(fromDay, timeZone), to: dayEnd(toDay, timeZone) };
 }
 
 async function fetchFatigue(url: string): Promise<GaugeFatigue> {
@@ -52,10 +49,10 @@ function lifeText(fatigue: GaugeFatigue): string {
   return `${fatigue.yearsToDamageOne.toLocaleString("en-US", { maximumSignificantDigits: 3 })} years`;
 }
 
-type Props = { apiPath: string; gaugeCategory: number | null };
+type Props = { apiPath: string; gaugeCategory: number | null; timeZone: string };
 
 /** Period and category controls, then the fatigue figures and histogram the API computes for them. */
-export function FatigueView({ apiPath, gaugeCategory }: Props) {
+export function FatigueView({ apiPath, gaugeCategory, timeZone }: Props) {
   // Presets end at the moment they were chosen, so the request (and SWR's cache key) stays put.
   const [now, setNow] = useState(() => Date.now());
   const [preset, setPreset] = useState<Preset>("30");
@@ -65,14 +62,14 @@ export function FatigueView({ apiPath, gaugeCategory }: Props) {
 
   function choosePreset(value: Preset) {
     if (value === "custom" && preset !== "custom") {
-      setFromDay(dayText(now - Number(preset) * DAY_MS));
-      setToDay(dayText(now));
+      setFromDay(dayOf(now - Number(preset) * DAY_MS, timeZone));
+      setToDay(dayOf(now, timeZone));
     }
     setNow(Date.now());
     setPreset(value);
   }
 
-  const period = preset === "custom" ? customPeriod(fromDay, toDay) : { from: new Date(now - Number(preset) * DAY_MS), to: new Date(now) };
+  const period = preset === "custom" ? customPeriod(fromDay, toDay, timeZone) : { from: new Date(now - Number(preset) * DAY_MS), to: new Date(now) };
   const query = period && category ? new URLSearchParams({ from: period.from.toISOString(), to: period.to.toISOString(), category }) : null;
   const { data, error, isLoading, isValidating } = useSWR(query ? `${apiPath}?${query}` : null, fetchFatigue, {
     revalidateOnFocus: false,
@@ -112,7 +109,7 @@ export function FatigueView({ apiPath, gaugeCategory }: Props) {
             <DayInput id="fatigue-from" label="First day" value={fromDay} onChange={setFromDay} />
             <DayInput id="fatigue-to" label="Last day" value={toDay} onChange={setToDay} />
             <p className="col-span-2 text-xs text-slate-500 dark:text-slate-400">
-              Whole days in your device&apos;s time, the last day included.
+              Whole days in the structure&apos;s time ({timeZone}), the last day included.
               {!period && <span className="ml-1 font-medium text-critical">Choose both days, the first not after the last.</span>}
             </p>
           </div>
@@ -136,7 +133,7 @@ export function FatigueView({ apiPath, gaugeCategory }: Props) {
         )
       ) : (
         <div className={isValidating ? "opacity-60 transition-opacity" : undefined} aria-busy={isValidating}>
-          <FatigueResults fatigue={data} csvUrl={`${apiPath}?${new URLSearchParams({ from: data.from, to: data.to, category: String(data.category), format: "csv" })}`} />
+          <FatigueResults fatigue={data} timeZone={timeZone} csvUrl={`${apiPath}?${new URLSearchParams({ from: data.from, to: data.to, category: String(data.category), format: "csv" })}`} />
         </div>
       )}
     </div>
@@ -154,15 +151,15 @@ function DayInput({ id, label, value, onChange }: { id: string; label: string; v
   );
 }
 
-/** Damage per UTC day as bars, with the figures in a table for reading them exactly. */
-function DamagePerDay({ days }: { days: GaugeFatigue["damagePerDay"] }) {
+/** Damage per day of the structure's zone as bars, with the figures in a table for reading them exactly. */
+function DamagePerDay({ days, timeZone }: { days: GaugeFatigue["damagePerDay"]; timeZone: string }) {
   const highest = Math.max(...days.map((d) => d.damage), Number.MIN_VALUE);
   const width = 600;
   const bar = width / days.length;
   return (
     <figure className={`${cardClass} space-y-2 p-4`} data-testid="damage-per-day">
       <figcaption className="font-semibold">
-        Damage per day <span className="text-xs font-normal text-slate-500">(Miner sum of each UTC day&apos;s histograms; tallest bar {formatScientific(highest)})</span>
+        Damage per day <span className="text-xs font-normal text-slate-500">(Miner sum of each day&apos;s histograms, days in {timeZone}; tallest bar {formatScientific(highest)})</span>
       </figcaption>
       <svg viewBox={`0 0 ${width} 120`} className="h-32 w-full" role="img" aria-label="Damage per day">
         {days.map((d, i) => {
@@ -188,7 +185,8 @@ function DamagePerDay({ days }: { days: GaugeFatigue["damagePerDay"] }) {
   );
 }
 
-function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: string }) {
+function FatigueResults({ fatigue, csvUrl, timeZone }: { fatigue: GaugeFatigue; csvUrl: string; timeZone: string }) {
+  const when = (iso: string) => formatInTimeZone(new Date(iso), timeZone);
   const fromBursts = fatigue.source === "bursts";
   if (fromBursts ? !fatigue.samplesCounted : fatigue.readingsUsed === 0) {
     return (
@@ -251,7 +249,7 @@ function FatigueResults({ fatigue, csvUrl }: { fatigue: GaugeFatigue; csvUrl: st
           )}
         </ul>
       )}
-      {fromBursts && fatigue.damagePerDay.length > 0 && <DamagePerDay days={fatigue.damagePerDay} />}
+      {fromBursts && fatigue.damagePerDay.length > 0 && <DamagePerDay days={fatigue.damagePerDay} timeZone={timeZone} />}
       <figure className={`${cardClass} space-y-3 p-4`}>
         <figcaption className="flex flex-wrap items-baseline justify-between gap-2">
           <span className="font-semibold">Rainflow histogram</span>

@@ -6,7 +6,7 @@ import type { SiteVisitView } from "@/lib/api/field-record-schemas";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import { MAX_VISIT_PHOTOS } from "@/lib/field-records/site-visits";
 import { acceptAttribute, UPLOAD_LIMIT_BYTES, megabytes, uploadRule } from "@/lib/storage/upload-rules";
-import { isoFromClockInput } from "@/lib/time-format";
+import { wallClockInputToIso } from "@/lib/time-format";
 import { postForm } from "@/components/files/post-form";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
@@ -30,7 +30,7 @@ export function SiteVisitForm({ code, timeZone, gauges, visitor, now }: { code: 
   async function submit(event: React.FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
-    const visitedAt = isoFromClockInput(String(data.get("visitedAtClock") ?? ""), timeZone);
+    const visitedAt = wallClockInputToIso(String(data.get("visitedAtClock") ?? ""), timeZone);
     if (!visitedAt) return fail("Give the date and time of the visit.", "visitedAt");
     data.delete("visitedAtClock");
     data.set("visitedAt", visitedAt);

@@ -11,6 +11,7 @@ import { SUMMARY_MINUTES } from "@/lib/dynamic";
 import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName, inputUnit } from "@/lib/gauges/labels";
 import { BRIDGES, FOIL_INPUTS, MATERIALS, STEEL_WIRE_CTE, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
+import { wallClockInputToIso } from "@/lib/time-format";
 
 export type GaugeFormMode = "register" | "edit" | "replace";
 
@@ -26,13 +27,15 @@ const BRIDGE_NAMES: Record<string, string> = {
 type Props = {
   mode: GaugeFormMode;
   structureCode: string;
+  /** The structure's zone: the zero reading's time is typed on its clock. */
+  timeZone: string;
   initial: GaugeFormValues;
   submit: (payload: Record<string, unknown>) => Promise<ActionState>;
 };
 
 const format = (value: number, digits: number) => value.toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: digits });
 
-export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
+export function GaugeForm({ mode, structureCode, timeZone, initial, submit }: Props) {
   const router = useRouter();
   const [values, setValues] = useState<GaugeFormValues>(initial);
   const [reason, setReason] = useState("");
@@ -310,14 +313,14 @@ export function GaugeForm({ mode, structureCode, initial, submit }: Props) {
               {input("zero.temperature", "Temperature at zero", { unit: "°C" })}
               <div className="space-y-1">
                 <label htmlFor="gauge-zero-time" className="block text-sm font-medium">
-                  Time of the zero reading <span className="font-normal text-slate-500">(your device&apos;s time)</span>
+                  Time of the zero reading <span className="font-normal text-slate-500">({timeZone} time)</span>
                 </label>
                 <input
                   id="gauge-zero-time"
                   type="datetime-local"
                   className={inputClass}
                   onChange={(event) =>
-                    setValues((previous) => ({ ...previous, "zero.time": event.target.value ? new Date(event.target.value).toISOString() : "" }))
+                    setValues((previous) => ({ ...previous, "zero.time": wallClockInputToIso(event.target.value, timeZone) }))
                   }
                 />
                 <p className="text-xs text-slate-500 dark:text-slate-400">Empty for now.</p>

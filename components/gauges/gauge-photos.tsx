@@ -10,13 +10,14 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass } from "@/components/ui/styles";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
+import { formatInTimeZone } from "@/lib/time-format";
 
 /**
  * A gauge's installation photos with, for those allowed, an upload form and a delete button.
  * Hand it `initialPhotos` from `listGaugePhotos` (lib/services/files) to render without a round
  * trip; without them it fetches the list from the API itself.
  */
-export function GaugePhotos({ structureCode, tag, canUpload, initialPhotos }: { structureCode: string; tag: string; canUpload: boolean; initialPhotos?: FileView[] }) {
+export function GaugePhotos({ structureCode, tag, timeZone, canUpload, initialPhotos }: { structureCode: string; tag: string; timeZone: string; canUpload: boolean; initialPhotos?: FileView[] }) {
   const listUrl = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}/photos`;
   const { data, error, mutate } = useSWR<{ photos: FileView[] }>(listUrl, fetchJson, {
     fallbackData: initialPhotos && { photos: initialPhotos },
@@ -58,7 +59,7 @@ export function GaugePhotos({ structureCode, tag, canUpload, initialPhotos }: { 
                   <figcaption className="flex items-start justify-between gap-2 px-3 py-2 text-sm">
                     <span>
                       <span className="block font-medium">{photo.title}</span>
-                      <span className="block text-xs text-slate-500 dark:text-slate-400">{photo.createdAt.slice(0, 16).replace("T", " ")} UTC</span>
+                      <span className="block text-xs text-slate-500 dark:text-slate-400">{formatInTimeZone(new Date(photo.createdAt), timeZone)}</span>
                     </span>
                     {canUpload && (
                       <button type="button" className={buttonClass("danger")} onClick={() => void remove(photo)} aria-label={`Delete photo "${photo.title}"`}>

@@ -17,6 +17,7 @@ import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/component
 import { bySeverity, type GaugeCondition } from "@/lib/alerting/condition";
 import { conditionText } from "@/lib/alerting/condition-display";
 import { inDisplayUnits } from "@/lib/units";
+import { formatInTimeZone } from "@/lib/time-format";
 
 /** One row: the gauge, how it is read, and its latest converted reading (SI, as stored). */
 export type GaugeTableRow = {
@@ -52,7 +53,7 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
   const columns = useMemo(() => {
     const stressUnit = inDisplayUnits(units, "stress", 0).unit;
     const temperatureUnit = inDisplayUnits(units, "temperature", 0).unit;
-    const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "short", timeStyle: "short" }).format(ms);
+    const local = (ms: number) => formatInTimeZone(ms, timeZone);
     return [
       column.accessor("tag", {
         header: "Gauge",

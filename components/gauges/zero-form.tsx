@@ -8,7 +8,7 @@ import { SubmitButton } from "@/components/ui/submit-button";
 
 /** Record a new reference reading: typed on site, or the average of the last stored readings. */
 /** `recordZero` is the page's server action, passed in so that components stay below app/. */
-export function ZeroForm({ structureCode, tag, rawUnit, recordZero }: { structureCode: string; tag: string; rawUnit: string; recordZero: FormActionFn }) {
+export function ZeroForm({ structureCode, tag, rawUnit, timeZone, recordZero }: { structureCode: string; tag: string; rawUnit: string; timeZone: string; recordZero: FormActionFn }) {
   const [source, setSource] = useState<"typed" | "readings">("typed");
   return (
     <ActionForm action={recordZero} className="space-y-3" label="Record a new zero">
@@ -27,7 +27,7 @@ export function ZeroForm({ structureCode, tag, rawUnit, recordZero }: { structur
         <div className="grid gap-3 sm:grid-cols-3">
           <Field name="value" label={`Raw value (${rawUnit})`} inputMode="decimal" required />
           <Field name="temperature" label="Temperature (°C)" inputMode="decimal" />
-          <LocalTimeInput name="time" id="zero-time" label="Read at (your device's time)" hint="Empty for now." />
+          <LocalTimeInput name="time" id="zero-time" label="Read at" timeZone={timeZone} hint="Empty for now." />
         </div>
       ) : (
         <Field name="fromReadings" label="Number of readings to average" inputMode="numeric" defaultValue="6" hint="e.g. 6 readings = one hour at 10-minute intervals." />

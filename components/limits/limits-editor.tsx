@@ -11,6 +11,7 @@ import type { UnitSystem } from "@/lib/units";
 import { useUnits } from "@/components/units/units-context";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { RosetteLimitChart } from "@/components/charts/rosette-charts";
+import { formatInTimeZone } from "@/lib/time-format";
 
 /** A gauge's quantities and their units; a rosette passes its own. */
 export const GAUGE_QUANTITY_UNITS: Readonly<Record<string, string>> = { stress: "MPa", strain: "µε", utilisation: "fraction of yield" };
@@ -154,7 +155,7 @@ function UnitsLimitsEditor({
   // Kept while the rows are unchanged, so a chart is not built again on every other state change.
   const drawn = useMemo(() => proposedLimits(rows, scaleOf), [rows, scaleOf]);
   const errors = state.fieldErrors ?? {};
-  const local = (ms: number) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms);
+  const local = (ms: number) => formatInTimeZone(ms, timeZone);
 
   const update = (index: number, field: keyof Row, value: string) => setRows((all) => all.map((row, i) => (i === index ? { ...row, [field]: value } : row)));
 

@@ -4,7 +4,7 @@ import { useId, useState, useTransition } from "react";
 import type { ActionState } from "@/lib/actions/action-state";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass, stackedTable, thClass } from "@/components/ui/styles";
-import { isoFromClockInput } from "@/lib/time-format";
+import { wallClockInputToIso } from "@/lib/time-format";
 import { parsePredictedTable } from "@/lib/load-tests/predicted-csv";
 
 export type FormGauge = { tag: string; label: string | null; member: string | null };
@@ -64,7 +64,7 @@ export function LoadTestForm({
     const rows = Object.entries(predicted)
       .filter(([, value]) => value.trim() !== "")
       .map(([gauge, value]) => ({ gauge, predicted: Number(value) }));
-    const payload = { title, load, start: isoFromClockInput(start, timeZone), end: isoFromClockInput(end, timeZone), predicted: rows };
+    const payload = { title, load, start: wallClockInputToIso(start, timeZone), end: wallClockInputToIso(end, timeZone), predicted: rows };
     startTransition(async () => setState(await action(code, payload)));
   }
 

@@ -1,13 +1,13 @@
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import { monthKey, monthName, type Month } from "@/lib/report/period";
 
-type Props = { months: Month[]; selectedMonth: string | null; fromDay: string; toDay: string; error: string | null };
+type Props = { months: Month[]; selectedMonth: string | null; fromDay: string; toDay: string; timeZone: string; error: string | null };
 
 /**
  * Two plain GET forms, so the period lives in the address (bookmarkable, shareable) and the
  * picker works before any script has loaded.
  */
-export function ReportPeriodPicker({ months, selectedMonth, fromDay, toDay, error }: Props) {
+export function ReportPeriodPicker({ months, selectedMonth, fromDay, toDay, timeZone, error }: Props) {
   return (
     <section aria-label="Report period" className={`${cardClass} grid gap-4 p-4 sm:grid-cols-2 print:hidden`}>
       <form method="get" className="flex flex-wrap items-end gap-2">
@@ -36,7 +36,7 @@ export function ReportPeriodPicker({ months, selectedMonth, fromDay, toDay, erro
         </button>
       </form>
       <p className="text-xs text-slate-500 sm:col-span-2 dark:text-slate-400">
-        Whole UTC days, the last day included.
+        Whole days in the structure&apos;s time zone ({timeZone}), the last day included.
         {error && (
           <span role="alert" className="ml-1 font-medium text-critical">
             {error} Showing the previous month instead.

@@ -6,19 +6,17 @@ import type uPlot from "uplot";
 import { UplotChart } from "@/components/charts/uplot-chart";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
 import type { ThermalFitPreview, ThermalModelAnswer } from "@/lib/api/thermal-schemas";
-import { startOfDayIn } from "@/lib/ingest/reading-time";
+import { dayEnd, dayOf, dayStart } from "@/lib/time-format";
 
 const DAY = 86_400_000;
-const nextDay = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) + DAY).toISOString().slice(0, 10);
-/** The structure's calendar day a time falls on, as a date input takes it. */
-const dayIn = (time: number, timeZone: string) => new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(time);
 
 type Fit = ThermalFitPreview | ThermalModelAnswer;
 
 /** The body PUT and the preview take, or the reason the form cannot make one. */
 function requestBody(form: { fromDay: string; toDay: string; lagMode: "fixed" | "auto"; lagHours: string; maxLagHours: string; drift: boolean }, timeZone: string) {
-  const from = form.fromDay ? startOfDayIn(form.fromDay, timeZone) : null;
-  const end = form.toDay ? startOfDayIn(nextDay(form.toDay), timeZone) : null;
+  // The structure's days: from the first day's midnight to the midnight ending the last.
+  const from = form.fromDay ? dayStart(form.fromDay, timeZone).getTime() : null;
+  const end = form.toDay ? dayEnd(form.toDay, timeZone).getTime() : null;
   if (from === null || end === null) return { problem: "Choose the first and last day of the reference period." };
   const hours = (text: string) => (text.trim() === "" ? undefined : Number(text));
   const lag = hours(form.lagHours);
@@ -68,8 +66,8 @@ export function ThermalModelEditor({
   const router = useRouter();
   const api = `/api/v1/structures/${encodeURIComponent(structureCode)}/gauges/${encodeURIComponent(tag)}/thermal-model`;
   const [form, setForm] = useState({
-    fromDay: current ? dayIn(Date.parse(current.from), timeZone) : dayIn(end - 14 * DAY, timeZone),
-    toDay: current ? dayIn(Date.parse(current.to), timeZone) : dayIn(end, timeZone),
+    fromDay: current ? dayOf(Date.parse(current.from), timeZone) : dayOf(end - 14 * DAY, timeZone),
+    toDay: current ? dayOf(Date.parse(current.to), timeZone) : dayOf(end, timeZone),
     lagMode: (current?.lagSearch ?? "auto") as "fixed" | "auto",
     lagHours: current?.lagSearch === "fixed" ? String(current.lagMinutes / 60) : "0",
     maxLagHours: current?.maxLagMinutes !== undefined ? String(current.maxLagMinutes / 60) : "",

@@ -3,6 +3,7 @@
 import { useMemo, useState } from "react";
 import { buttonClass, cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { csvField, previewRows } from "@/lib/ingest/csv-preview";
+import { formatInTimeZone } from "@/lib/time-format";
 
 /** Enough of the file to show its header and first rows without reading it all. */
 const PREVIEW_BYTES = 8 * 1024;
@@ -180,7 +181,7 @@ export function UploadForm({ code, structureTimezone }: { code: string; structur
           </div>
           {running && (
             <p className="text-sm" aria-live="polite">
-              Sent {Math.floor((100 * phase.progress.sentBytes) / Math.max(1, file?.size ?? 1))}% · {phase.progress.rows.toLocaleString()}{" "}
+              Sent {Math.floor((100 * phase.progress.sentBytes) / Math.max(1, file?.size ?? 1))}% · {phase.progress.rows.toLocaleString("en-US")}{" "}
               rows stored or checked
             </p>
           )}
@@ -197,12 +198,12 @@ export function UploadForm({ code, structureTimezone }: { code: string; structur
 }
 
 function UploadReport({ report, timeZone, onDownload }: { report: Report; timeZone: string; onDownload: () => void }) {
-  const local = (iso: string) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(new Date(iso));
+  const local = (iso: string) => formatInTimeZone(new Date(iso), timeZone);
   return (
     <div className="space-y-3">
       <p className="text-sm" aria-live="polite">
-        Import finished: {report.rows.toLocaleString()} rows, <strong>{report.accepted.toLocaleString()} stored</strong>,{" "}
-        {report.duplicates.toLocaleString()} duplicates (already stored), {report.rejected.toLocaleString()} rejected.
+        Import finished: {report.rows.toLocaleString("en-US")} rows, <strong>{report.accepted.toLocaleString("en-US")} stored</strong>,{" "}
+        {report.duplicates.toLocaleString("en-US")} duplicates (already stored), {report.rejected.toLocaleString("en-US")} rejected.
       </p>
       {report.gauges.length === 0 ? (
         <p className="text-sm text-slate-600 dark:text-slate-400">No new reading was stored for any gauge.</p>

@@ -556,7 +556,7 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
   "/structures/{code}/report": {
     get: {
       summary:
-        "The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, " +
+        "The structure's report for a period of whole days in the structure's time zone: status over the period and now, per gauge the stress and strain extremes, " +
         "utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions",
       parameters: [codeParameter, ...queryParameters(reportQuery.in)],
       response: { status: 200, schema: structureReportSchema, description: "The report" },

@@ -107,7 +107,7 @@ export const readingsQuerySchema = z
     header: z
       .enum(["names", "units"], { error: 'header is "names" or "units".' })
       .default("names")
-      .meta({ description: "CSV only: `names` (default) for the contract's column names, `units` for the same columns named with their units, e.g. `strain (µε)`, for spreadsheets" }),
+      .meta({ description: "CSV only: `names` (default) for the contract's column names, `units` for spreadsheets: the same columns named with their units, e.g. `strain (µε)`, and after `time (UTC)` a `local time (<zone>)` column on the structure's clock" }),
   })
   .and(timeRange);
 

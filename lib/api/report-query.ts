@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { monthPeriod, type ReportPeriod } from "@/lib/report/period";
+import type { PeriodRequest } from "@/lib/report/period";
 
 const DAY_MS = 86_400_000;
 /** A year and a day: enough for an annual report, short enough that the fatigue counts stay quick. */
@@ -12,8 +12,8 @@ const day = (name: string) =>
     .refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), `${name} is not a calendar day.`);
 
 /**
- * Query string of GET …/report and of the report page: a month, or a first and last day (UTC
- * days, both included), or nothing for the previous calendar month at the structure.
+ * Query string of GET …/report and of the report page: a month, or a first and last day (days of
+ * the structure's time zone, both included), or nothing for the previous calendar month at the structure.
  */
 export const reportQuery = z
   .object({
@@ -21,9 +21,9 @@ export const reportQuery = z
       .string()
       .regex(/^\d{4}-(0[1-9]|1[0-2])$/, "month is YYYY-MM, e.g. 2026-11.")
       .optional()
-      .meta({ description: "A calendar month, YYYY-MM; its UTC days. Default (no month, from or to): the previous month in the structure's time zone" }),
-    from: day("from").optional().meta({ description: "First day included, YYYY-MM-DD (UTC day); with `to`, instead of `month`" }),
-    to: day("to").optional().meta({ description: "Last day included, YYYY-MM-DD (UTC day)" }),
+      .meta({ description: "A calendar month, YYYY-MM; its days in the structure's time zone. Default (no month, from or to): the previous month in the structure's time zone" }),
+    from: day("from").optional().meta({ description: "First day included, YYYY-MM-DD (a day in the structure's time zone); with `to`, instead of `month`" }),
+    to: day("to").optional().meta({ description: "Last day included, YYYY-MM-DD (a day in the structure's time zone)" }),
     format: z
       .enum(["json", "pdf"], { error: 'format is "json" or "pdf" (or send Accept: application/pdf).' })
       .optional()
@@ -41,9 +41,9 @@ export const reportQuery = z
     }
   })
   .transform(({ month, from, to, format }) => {
-    let period: ReportPeriod | undefined;
-    if (month) period = monthPeriod({ year: Number(month.slice(0, 4)), month: Number(month.slice(5)) });
-    else if (from && to) period = { from: new Date(`${from}T00:00:00Z`), to: new Date(Date.parse(`${to}T00:00:00Z`) + DAY_MS) };
+    let period: PeriodRequest | undefined;
+    if (month) period = { month: { year: Number(month.slice(0, 4)), month: Number(month.slice(5)) } };
+    else if (from && to) period = { firstDay: from, lastDay: to };
     return { period, format };
   });
 

@@ -135,9 +135,10 @@ export const structureReportSchema = z
   .object({
     structure: z.object({ code: z.string(), name: z.string(), location: z.string().nullable(), timezone: z.string() }),
     period: z.object({
-      from: z.string().meta({ description: "Start, included: a UTC midnight" }),
-      to: z.string().meta({ description: "End, excluded: a UTC midnight" }),
-      lastDay: z.string().meta({ description: "Last day included, YYYY-MM-DD" }),
+      from: z.string().meta({ description: "Start, included: the structure's local midnight beginning the first day, as a UTC instant" }),
+      to: z.string().meta({ description: "End, excluded: the structure's local midnight after the last day, as a UTC instant" }),
+      firstDay: z.string().meta({ description: "First day included, YYYY-MM-DD in the structure's time zone" }),
+      lastDay: z.string().meta({ description: "Last day included, YYYY-MM-DD in the structure's time zone" }),
       name: z.string().meta({ description: 'e.g. "November 2026"' }),
       key: z.string().meta({ description: '"2026-11" for a month, else "<first day>_<last day>"' }),
     }),

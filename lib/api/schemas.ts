@@ -89,8 +89,8 @@ export const gaugeFatigueSchema = z
       description: "Damage-equivalent constant range Δσ_E = (Σ nᵢ·Δσᵢ³ / 2×10⁶)^(1/3), MPa: compare it with the detail category Δσ_C",
     }),
     damagePerDay: z
-      .array(z.object({ day: z.string().meta({ description: "UTC date, YYYY-MM-DD" }), damage: z.number() }))
-      .meta({ description: "Miner damage per UTC day with data (bursts source; empty for readings)" }),
+      .array(z.object({ day: z.string().meta({ description: "Day in the structure's time zone, YYYY-MM-DD" }), damage: z.number() }))
+      .meta({ description: "Miner damage per day of the structure's time zone with data (bursts source; empty for readings)" }),
     samplesCounted: z.number().int().optional().meta({ description: "Bursts source: samples summarised over the period" }),
     from: z.string().meta({ description: "Start of the period, included (UTC)" }),
     to: z.string().meta({ description: "End of the period, excluded (UTC)" }),

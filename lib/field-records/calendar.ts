@@ -1,8 +1,9 @@
 import { z } from "zod";
 
 /**
- * Calendar days as certificates print them ("YYYY-MM-DD"), read on the structure's clock: a
- * certificate is valid through its expiry day wherever the structure stands. Pure functions.
+ * Calendar days as certificates print them ("YYYY-MM-DD"), read on the structure's clock (its
+ * today from lib/time-format's dayOf): a certificate is valid through its expiry day wherever the
+ * structure stands. Pure functions.
  */
 
 const DAY_MS = 86_400_000;
@@ -30,10 +31,4 @@ export const calendarDate = z
 /** Whole days from `from` to `to` (negative when `to` is earlier). Both must be valid dates. */
 export function daysBetween(from: string, to: string): number {
   return dayNumber(to)! - dayNumber(from)!;
-}
-
-/** The calendar date on the clock of `timeZone` at `now` (epoch ms). */
-export function dateIn(timeZone: string, now: number): string {
-  // en-CA writes dates as YYYY-MM-DD.
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
 }

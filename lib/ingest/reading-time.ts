@@ -1,3 +1,4 @@
+import { tzOffset } from "@date-fns/tz";
 import { failure, type Failure } from "@/lib/mechanics/result";
 import { DAY, MINUTE } from "@/lib/series";
 
@@ -100,34 +101,9 @@ function parseOffset(offset: string): number | null {
   return sign * (hours * 60 + minutes) * MINUTE;
 }
 
-const formatters = new Map<string, Intl.DateTimeFormat>();
-
-function formatterFor(zone: string): Intl.DateTimeFormat {
-  let formatter = formatters.get(zone);
-  if (!formatter) {
-    formatter = new Intl.DateTimeFormat("en-US", {
-      timeZone: zone,
-      hourCycle: "h23",
-      year: "numeric",
-      month: "numeric",
-      day: "numeric",
-      hour: "numeric",
-      minute: "numeric",
-      second: "numeric",
-    });
-    formatters.set(zone, formatter);
-  }
-  return formatter;
-}
-
-/** Offset of `zone` from UTC at an instant, ms (positive east of Greenwich). */
+/** Offset of `zone` from UTC at an instant, ms (positive east of Greenwich), from the IANA data the runtime carries. */
 export function zoneOffset(zone: string, instant: number): number {
-  const fields: Record<string, number> = {};
-  for (const part of formatterFor(zone).formatToParts(instant)) {
-    if (part.type !== "literal") fields[part.type] = Number(part.value);
-  }
-  const asUtc = Date.UTC(fields.year!, fields.month! - 1, fields.day!, fields.hour!, fields.minute!, fields.second!);
-  return asUtc - (instant - (((instant % 1000) + 1000) % 1000));
+  return tzOffset(zone, new Date(instant)) * MINUTE;
 }
 
 /**
@@ -165,10 +141,4 @@ function offsetForWallClock(wall: number, zone: string): number {
   if (earlierFits && laterFits) return Math.max(before, after);
   if (laterFits) return after;
   return before;
-}
-
-/** Midnight starting a calendar day ("2026-11-01") in a time zone, as epoch ms; null for a malformed day. */
-export function startOfDayIn(day: string, zone: string): number | null {
-  const time = parseReadingTime(`${day}T00:00:00`, zone);
-  return typeof time === "number" ? time : null;
 }

@@ -4,7 +4,7 @@ import { escapeHtml, htmlFrame, htmlParagraph, type BuiltMail } from "./message"
 
 export type DigestMailInput = {
   recipientName: string;
-  /** The period the digest covers, as the reader should see it ("2026-07-01"). */
+  /** The day the digest covers, with the zone of its midnights, as the reader should see it ("2026-07-01 (UTC)"). */
   period: string;
   structures: { structure: AlertStructure; events: DigestEvent[]; conditions?: GaugeConditionLine[] }[];
 };

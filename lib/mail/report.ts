@@ -9,8 +9,7 @@ const REPORT_MAIL_CAUTION = `${ALERT_CAUTION} Fatigue damage is an estimate that
 
 /** The report page of the same period, so the link shows what the attachment shows. */
 export function reportPageLink(appUrl: string, report: Pick<StructureReport, "structure" | "period">): string {
-  const query = periodQuery({ from: new Date(report.period.from), to: new Date(report.period.to) });
-  return `${appUrl}/structures/${encodeURIComponent(report.structure.code)}/report?${query}`;
+  return `${appUrl}/structures/${encodeURIComponent(report.structure.code)}/report?${periodQuery(report.period)}`;
 }
 
 /** The monthly report to an owner: the summary in a few lines, the PDF attached by the caller. */

@@ -1,7 +1,7 @@
 /** What the report itself adds to the trade's cautions: how to read its fatigue figures and its period. */
 export const REPORT_NOTES = [
   "Fatigue damage is an estimate that depends on the detail category chosen by the engineer, and assumes the gauge measures the nominal stress range at the detail.",
-  "The period is made of whole UTC days, the days the stored summaries are kept in; on a site away from UTC it starts and ends a few hours off local midnight.",
+  "The period is made of whole days on the structure's clock, midnight to midnight in its time zone; a day with a clock change has 23 or 25 hours.",
 ];
 
 /** The cautions every report carries, in the PDF and the JSON: what the figures assume and who decides. */

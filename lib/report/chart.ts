@@ -1,9 +1,8 @@
 import { STATE_LOOK, type ShownState } from "@/lib/alerting/condition-display";
-import { startOfDayIn } from "@/lib/ingest/reading-time";
 import { offScaleLines, valueAxisRange, type LimitLine, type OffScaleLine } from "@/lib/limits";
 import { chartColumns, gapThreshold, type SeriesAnswer } from "@/lib/series/chart-data";
 import { timeTickLabels } from "@/lib/series/time-labels";
-import { formatInTimeZone } from "@/lib/time-format";
+import { dayEnd, dayOf, formatInTimeZone, startOfZoneDay } from "@/lib/time-format";
 import { inDisplayUnits, type UnitSystem } from "@/lib/units";
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { alertTitle } from "./format";
@@ -97,7 +96,6 @@ const HOUR_MS = 3_600_000;
 const MAX_TIME_TICKS = 8;
 
 /** "2026-11-01" → "2026-11-02", by the calendar. */
-const nextDay = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) + DAY_MS).toISOString().slice(0, 10);
 
 /**
  * Time ticks on the structure's clock: midnights every 1, 2, 7 or 14 days over a long period,
@@ -108,16 +106,14 @@ export function timeTicks(from: number, to: number, timeZone: string): { times: 
   if (days >= 3) {
     const every = [1, 2, 7, 14, 28].find((step) => days / step <= MAX_TIME_TICKS) ?? 28;
     const midnights: number[] = [];
-    for (let day = formatInTimeZone(new Date(from), timeZone).slice(0, 10); ; day = nextDay(day)) {
-      const midnight = startOfDayIn(day, timeZone);
-      if (midnight === null || midnight >= to) break;
+    for (let midnight = startOfZoneDay(from, timeZone).getTime(); midnight < to; midnight = dayEnd(dayOf(midnight, timeZone), timeZone).getTime()) {
       if (midnight >= from) midnights.push(midnight);
     }
     return { times: midnights.filter((_, i) => i % every === 0), stepS: (every * DAY_MS) / 1000 };
   }
   const hours = (to - from) / HOUR_MS;
   const every = [1, 2, 3, 6, 12, 24].find((step) => hours / step <= MAX_TIME_TICKS) ?? 24;
-  const first = startOfDayIn(formatInTimeZone(new Date(from), timeZone).slice(0, 10), timeZone) ?? from;
+  const first = startOfZoneDay(from, timeZone).getTime();
   const times: number[] = [];
   for (let time = first; time < to; time += every * HOUR_MS) if (time >= from) times.push(time);
   return { times, stepS: every * 3600 };

@@ -94,7 +94,7 @@ function titleBlock(doc: Doc, report: StructureReport) {
   doc.font("body").fontSize(13).text(inFont(period.name));
   doc.moveDown(0.3);
   const zone = structure.timezone;
-  paragraph(doc, `Period: ${period.from.slice(0, 10)} 00:00 UTC to ${period.lastDay} 24:00 UTC. Times below are in ${zone}.`, { color: MUTED });
+  paragraph(doc, `Period: ${formatInTimeZone(new Date(period.from), zone)} to ${formatInTimeZone(new Date(period.to), zone)}. Days and times below are in ${zone}.`, { color: MUTED });
   if (structure.location) paragraph(doc, `Location: ${structure.location}`, { color: MUTED });
   paragraph(doc, `Generated at ${formatInTimeZone(new Date(report.generatedAt), zone)} by Hookeline.`, { color: MUTED });
 }

@@ -1,26 +1,23 @@
+import { dayEnd, dayOf, dayStart, monthBounds, monthOf, type Month } from "@/lib/time-format";
+
 /**
- * Report periods. A period is whole UTC days [from, to): the daily roll-ups are UTC days, so their
- * min, max and counts cover such a period exactly. A month is picked in the structure's time zone
- * (on 1 December in Europe/London the previous month is November) and then covers the UTC days of
- * that month, so on a site east or west of UTC the report starts and ends a few hours off local
- * midnight; the page and the PDF say so.
+ * Report periods. A period is whole days of the structure's time zone [from, to): a November
+ * report of a site in Europe/Berlin runs from 1 November 00:00 CET to 1 December 00:00 CET, and
+ * a day across a daylight-saving change has 23 or 25 hours. The instants stay UTC; the days are
+ * the site's.
  */
 
-const DAY_MS = 86_400_000;
+export type { Month };
 
-export type ReportPeriod = { from: Date; to: Date };
+export type ReportPeriod = { from: Date; to: Date; timeZone: string };
 
-/** A calendar month, `month` 1–12. */
-export type Month = { year: number; month: number };
+/** What a reader asks for before the structure's zone is known: a month, or a first and last day (both included). */
+export type PeriodRequest = { month: Month } | { firstDay: string; lastDay: string };
+
+/** How a built report names its period: enough to ask for the same period again. */
+export type PeriodDays = { key: string; firstDay: string; lastDay: string };
 
 const MONTH_NAMES = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
-
-/** The calendar month `at` falls in on the clocks of `timeZone`. */
-export function monthIn(at: Date, timeZone: string): Month {
-  const parts = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "numeric" }).formatToParts(at);
-  const value = (type: "year" | "month") => Number(parts.find((part) => part.type === type)!.value);
-  return { year: value("year"), month: value("month") };
-}
 
 /** `count` months before `month`, the nearest first. */
 export function monthsBefore(month: Month, count: number): Month[] {
@@ -30,13 +27,23 @@ export function monthsBefore(month: Month, count: number): Month[] {
   });
 }
 
-export function monthPeriod({ year, month }: Month): ReportPeriod {
-  return { from: new Date(Date.UTC(year, month - 1, 1)), to: new Date(Date.UTC(year, month, 1)) };
+/** The month as days of the zone: from its first local midnight to the next month's. */
+export function monthPeriod(month: Month, timeZone: string): ReportPeriod {
+  return { ...monthBounds(month, timeZone), timeZone };
+}
+
+/** The zone's days from `firstDay` to `lastDay`, both included. */
+export function daysPeriod(firstDay: string, lastDay: string, timeZone: string): ReportPeriod {
+  return { from: dayStart(firstDay, timeZone), to: dayEnd(lastDay, timeZone), timeZone };
+}
+
+export function resolvePeriod(request: PeriodRequest, timeZone: string): ReportPeriod {
+  return "month" in request ? monthPeriod(request.month, timeZone) : daysPeriod(request.firstDay, request.lastDay, timeZone);
 }
 
 /** The report period of the calendar month before the one `now` falls in at the structure. */
 export function previousMonthPeriod(now: Date, timeZone: string): ReportPeriod {
-  return monthPeriod(monthsBefore(monthIn(now, timeZone), 1)[0]!);
+  return monthPeriod(monthsBefore(monthOf(now, timeZone), 1)[0]!, timeZone);
 }
 
 /** "2026-11". */
@@ -48,49 +55,54 @@ export function monthName({ year, month }: Month): string {
   return `${MONTH_NAMES[month - 1]} ${year}`;
 }
 
-/** "2026-11-30": the UTC day of a moment. */
-export function dayText(at: Date): string {
-  return at.toISOString().slice(0, 10);
+/** The first day a period includes, on the zone's calendar. */
+export function firstDay(period: ReportPeriod): string {
+  return dayOf(period.from, period.timeZone);
 }
 
-/** The last day a period includes (its end is excluded). */
-export function lastDay(period: ReportPeriod): Date {
-  return new Date(period.to.getTime() - DAY_MS);
+/** The last day a period includes (its end, a local midnight, is excluded). */
+export function lastDay(period: ReportPeriod): string {
+  return dayOf(period.to.getTime() - 1, period.timeZone);
 }
 
 /** The month a period is exactly, or null for any other run of days. */
 export function wholeMonthOf(period: ReportPeriod): Month | null {
-  const from = period.from;
-  const month = { year: from.getUTCFullYear(), month: from.getUTCMonth() + 1 };
-  const exact = monthPeriod(month);
-  return exact.from.getTime() === from.getTime() && exact.to.getTime() === period.to.getTime() ? month : null;
+  const month = monthOf(period.from, period.timeZone);
+  const exact = monthBounds(month, period.timeZone);
+  return exact.from.getTime() === period.from.getTime() && exact.to.getTime() === period.to.getTime() ? month : null;
 }
 
-function dayName(at: Date): string {
-  return `${at.getUTCDate()} ${MONTH_NAMES[at.getUTCMonth()]} ${at.getUTCFullYear()}`;
+function dayName(day: string): string {
+  const [year, month, date] = day.split("-").map(Number) as [number, number, number];
+  return `${date} ${MONTH_NAMES[month - 1]} ${year}`;
 }
 
 /** "November 2026", "3 November 2026", or "3 November 2026 to 15 November 2026" (both days included). */
 export function periodName(period: ReportPeriod): string {
   const month = wholeMonthOf(period);
   if (month) return monthName(month);
-  const last = lastDay(period);
-  return last.getTime() === period.from.getTime() ? dayName(last) : `${dayName(period.from)} to ${dayName(last)}`;
+  const [first, last] = [firstDay(period), lastDay(period)];
+  return first === last ? dayName(first) : `${dayName(first)} to ${dayName(last)}`;
 }
 
 /** For file names and de-duplication: "2026-11" for a month, else "2026-11-03_2026-11-15" (first and last day). */
 export function periodKey(period: ReportPeriod): string {
   const month = wholeMonthOf(period);
-  return month ? monthKey(month) : `${dayText(period.from)}_${dayText(lastDay(period))}`;
+  return month ? monthKey(month) : `${firstDay(period)}_${lastDay(period)}`;
 }
 
-/** Whether a moment is a UTC midnight, the only place a report period may start or end. */
-export function isUtcMidnight(at: Date): boolean {
-  return at.getTime() % DAY_MS === 0;
+/** The days and key of a period, as the report carries them. */
+export function periodDays(period: ReportPeriod): PeriodDays {
+  return { key: periodKey(period), firstDay: firstDay(period), lastDay: lastDay(period) };
+}
+
+/** "2026-11" when the period is that whole month, else null. */
+export function wholeMonthKey({ key }: PeriodDays): string | null {
+  return /^\d{4}-\d{2}$/.test(key) ? key : null;
 }
 
 /** The query string naming the period for the report page and API: "month=2026-11", or "from=…&to=…" (last day included). */
-export function periodQuery(period: ReportPeriod): string {
-  const month = wholeMonthOf(period);
-  return month ? `month=${monthKey(month)}` : `from=${dayText(period.from)}&to=${dayText(lastDay(period))}`;
+export function periodQuery(days: PeriodDays): string {
+  const month = wholeMonthKey(days);
+  return month ? `month=${month}` : `from=${days.firstDay}&to=${days.lastDay}`;
 }

@@ -1,3 +1,5 @@
+import { dayOf } from "@/lib/time-format";
+
 /** What an exported chart says above itself: where, which gauge and quantity in which unit, and when. */
 export type ChartExportTitle = {
   structure: string;
@@ -17,8 +19,7 @@ export function chartExportTitleLines(title: ChartExportTitle): [string, string]
   ];
 }
 
-/** A file name that keeps what the title says: `MILL-FB-LC-Q1-stress-2026-11-01-to-2026-11-08.png`. */
-export function chartExportFileName(structureCode: string, gauge: string, quantity: string, from: number, to: number): string {
-  const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
-  return `${structureCode}-${gauge}-${quantity}-${day(from)}-to-${day(to)}.png`;
+/** A file name that keeps what the title says, days on the structure's calendar: `MILL-FB-LC-Q1-stress-2026-11-01-to-2026-11-08.png`. */
+export function chartExportFileName(structureCode: string, gauge: string, quantity: string, from: number, to: number, timeZone: string): string {
+  return `${structureCode}-${gauge}-${quantity}-${dayOf(from, timeZone)}-to-${dayOf(to, timeZone)}.png`;
 }

@@ -7,7 +7,8 @@ import { actorLabel, type Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { CERTIFICATE_REMINDER_ROLES } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
-import { dateIn, daysBetween } from "@/lib/field-records/calendar";
+import { daysBetween } from "@/lib/field-records/calendar";
+import { dayOf } from "@/lib/time-format";
 import { certificateFields, certificateStanding, parseReminderDays, thresholdsDue } from "@/lib/field-records/certificates";
 import { buildCertificateReminderMail } from "@/lib/mail/certificate-reminder";
 import { appUrl } from "@/lib/mail/message";
@@ -81,7 +82,7 @@ export async function listCertificates(actor: Actor, code: string, { gauge, now 
   await requirePermission(actor, "structure:view", structure);
   const rows = await certificateRows(structure.id);
   const replaced = replacements(rows.map((row) => row.certificate));
-  const today = dateIn(structure.timezone, now);
+  const today = dayOf(now, structure.timezone);
   const days = reminderDays();
   return {
     today,
@@ -176,8 +177,8 @@ export async function queueCertificateReminders(now = Date.now()): Promise<{ cer
   const thresholds = reminderDays();
   if (thresholds.length === 0) return { certificates: 0, mails: 0 };
   // Dates on every clock lie within a day of UTC's: a wide window, then each structure's own date.
-  const from = dateIn("UTC", now - DAY_MS);
-  const to = dateIn("UTC", now + (thresholds[0]! + 1) * DAY_MS);
+  const from = dayOf(now - DAY_MS, "UTC");
+  const to = dayOf(now + (thresholds[0]! + 1) * DAY_MS, "UTC");
   const candidates = await getDb()
     .select({ certificate: calibrationCertificates, structure: structures, gaugeTag: gauges.tag, gaugeStatus: gauges.status })
     .from(calibrationCertificates)
@@ -198,7 +199,7 @@ export async function queueCertificateReminders(now = Date.now()): Promise<{ cer
   let mails = 0;
   for (const { certificate, structure, gaugeTag, gaugeStatus } of candidates) {
     if (replaced.has(certificate.id) || gaugeStatus === "retired") continue;
-    const daysLeft = daysBetween(dateIn(structure.timezone, now), certificate.expiresOn);
+    const daysLeft = daysBetween(dayOf(now, structure.timezone), certificate.expiresOn);
     const due = thresholdsDue(daysLeft, thresholds, remindedOf(certificate.id));
     if (due.length === 0) continue;
     const queued = await writeTransaction(async (tx) => {

@@ -8,6 +8,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { decodeHistogram, mergeHistograms, readFloat32LE, rmsOf, type RangeHistogram } from "@/lib/dynamic";
 import { AppError } from "@/lib/errors";
+import { startOfZoneDay } from "@/lib/time-format";
 import { recordAudit } from "./audit";
 import { resolveGauge } from "./gauges";
 import { getVisibleStructure } from "./structures";
@@ -48,9 +49,7 @@ export async function gaugeSummaries(actor: Actor, code: string, tag: string, ra
   };
 }
 
-const DAY_MS = 86_400_000;
-
-/** A gauge's stored rainflow histograms over a period, summed per UTC day. */
+/** A gauge's stored rainflow histograms over a period, summed per day of the structure's zone. */
 export interface DailyHistograms {
   /** Day start (epoch ms) → ranges counted that day, ascending by day. */
   days: Map<number, RangeHistogram>;
@@ -60,8 +59,8 @@ export interface DailyHistograms {
   samples: number;
 }
 
-/** Histograms of the gauge's intervals starting in [from, to), summed per UTC day; null when there are none. */
-export async function dailyHistograms(gaugeId: number, range: Range): Promise<DailyHistograms | null> {
+/** Histograms of the gauge's intervals starting in [from, to), summed per day of `timeZone` (where each interval starts); null when there are none. */
+export async function dailyHistograms(gaugeId: number, range: Range, timeZone: string): Promise<DailyHistograms | null> {
   const rows = await getDb()
     .select({ start: burstSummaries.start, length: burstSummaries.length, samples: burstSummaries.samples, histogram: burstSummaries.histogram })
     .from(burstSummaries)
@@ -81,7 +80,7 @@ export async function dailyHistograms(gaugeId: number, range: Range): Promise<Da
       );
     }
     samples += row.samples;
-    const day = Math.floor(row.start / DAY_MS) * DAY_MS;
+    const day = startOfZoneDay(row.start, timeZone).getTime();
     const earlier = days.get(day);
     days.set(day, earlier ? mergeHistograms(earlier, histogram) : histogram);
   }

@@ -22,6 +22,7 @@ import { histogramCells, mergeHistograms, occupiedBins, type RangeHistogram } fr
 import { dailyHistograms } from "./dynamic-data";
 import { Flag, isOutOfRange } from "@/lib/mechanics";
 import { resolveGauge } from "./gauges";
+import { dayOf } from "@/lib/time-format";
 
 /** Range bins of 1 MPa: fine beside the usual categories' cut-offs of about 15 to 65 MPa. */
 const FATIGUE_RANGE_BIN_MPA = 1;
@@ -93,7 +94,7 @@ export async function gaugeFatigue(
   query: { from: Date; to: Date; category?: number },
   options: { pageSize?: number } = {},
 ): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
-  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  const { structure, gauge } = await resolveGauge(actor, code, tag, "structure:view");
   const category = query.category ?? gauge.detailCategory;
   if (category == null) {
     throw new AppError(
@@ -103,7 +104,7 @@ export async function gaugeFatigue(
     );
   }
 
-  if (gauge.sampling.mode === "dynamic") return burstFatigue(gauge, category, query);
+  if (gauge.sampling.mode === "dynamic") return burstFatigue(gauge, category, query, structure.timezone);
   return readingFatigue(gauge, category, query, options.pageSize ?? PAGE_SIZE);
 }
 
@@ -179,8 +180,8 @@ function burstMatrix(total: RangeHistogram | null, binWidth: number): RainflowMa
  * intervals stored before means were kept go to its "mean not recorded" column. Bursts are the
  * covered time: the rate divides by the seconds of samples, not the span between them.
  */
-async function burstFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
-  const stored = await dailyHistograms(gauge.id, { from: query.from.getTime(), to: query.to.getTime() });
+async function burstFatigue(gauge: Gauge, category: number, query: { from: Date; to: Date }, timeZone: string): Promise<{ fatigue: GaugeFatigue; matrix: RainflowMatrix }> {
+  const stored = await dailyHistograms(gauge.id, { from: query.from.getTime(), to: query.to.getTime() }, timeZone);
   const days = stored ? [...stored.days] : [];
   const total = days.length === 0 ? null : days.slice(1).reduce((sum, [, histogram]) => mergeHistograms(sum, histogram), days[0]![1]);
   const cycles = total ? occupiedBins(total) : [];
@@ -198,7 +199,7 @@ async function burstFatigue(gauge: Gauge, category: number, query: { from: Date;
       cyclesCounted: totalCycleCount(cycles),
       source: "bursts",
       equivalentRange: equivalentRange(cycles),
-      damagePerDay: days.map(([day, histogram]) => ({ day: new Date(day).toISOString().slice(0, 10), damage: minerDamage(occupiedBins(histogram), category) })),
+      damagePerDay: days.map(([day, histogram]) => ({ day: dayOf(day, timeZone), damage: minerDamage(occupiedBins(histogram), category) })),
       from: query.from.toISOString(),
       to: query.to.toISOString(),
       periodSeconds: (query.to.getTime() - query.from.getTime()) / 1000,

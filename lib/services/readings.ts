@@ -117,9 +117,9 @@ const toView = (row: StoredReading): ReadingView => ({
 
 /** Where a listing starts: just after the cursor's reading, or at `from`. */
 async function listingStart(actor: Actor, code: string, tag: string, query: ReadingsQuery) {
-  const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
+  const { structure, gauge } = await resolveGauge(actor, code, tag, "structure:view");
   const after = query.cursor === undefined ? query.from - 1 : Math.max(decodeCursor(query.cursor), query.from - 1);
-  return { gauge, after };
+  return { structure, gauge, after };
 }
 
 /** One page of stored readings, oldest first, with a cursor while more remain in the range. */
@@ -145,18 +145,20 @@ export async function exportReadingsCsv(actor: Actor, code: string, tag: string,
   const encoder = new TextEncoder();
   let headerSent = false;
   let decimals: ReturnType<typeof derivedDecimals> | undefined;
+  const header = query.header ?? "names";
+  const localTimeZone = header === "units" ? start.structure.timezone : null;
   return new ReadableStream<Uint8Array>({
     async pull(controller) {
       if (!headerSent) {
         headerSent = true;
-        controller.enqueue(encoder.encode(readingsCsvHeader(query.header ?? "names", start.gauge.input)));
+        controller.enqueue(encoder.encode(readingsCsvHeader(header, start.gauge.input, start.structure.timezone)));
         return;
       }
       const rows = await readingsAfter(start.gauge.id, after, query.to, EXPORT_PAGE);
       if (rows.length === 0) return controller.close();
       after = rows[rows.length - 1]!.t;
       decimals ??= derivedDecimals(gaugeConfigOf(start.gauge), rawStep([start.gauge.zeroValue, ...rows.map((r) => r.value)]));
-      controller.enqueue(encoder.encode(rows.map((row) => readingsCsvLine(row, decimals!)).join("")));
+      controller.enqueue(encoder.encode(rows.map((row) => readingsCsvLine(row, decimals!, localTimeZone)).join("")));
     },
   });
 }

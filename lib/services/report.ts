@@ -10,11 +10,11 @@ import { requirePermission } from "@/lib/auth/authorize";
 import { REPORT_CAUTIONS } from "@/lib/report/cautions";
 import { activeSpan, completeness, expectedReadings, type Span } from "@/lib/report/completeness";
 import { firstOf, missingHourRuns } from "@/lib/report/gaps";
-import { dayText, lastDay, periodKey, periodName, previousMonthPeriod, type ReportPeriod } from "@/lib/report/period";
+import { periodDays, periodName, previousMonthPeriod, resolvePeriod, type PeriodRequest, type ReportPeriod } from "@/lib/report/period";
 import { periodHeadline, periodLevel, type CheckedGauges } from "@/lib/report/status";
 import { PDF_IMAGE_TYPES, renderReportPdf } from "@/lib/report/pdf";
 import { limitLines } from "@/lib/limits";
-import { ROLLUP_RESOLUTIONS, type Rollup } from "@/lib/series";
+import { ROLLUP_RESOLUTIONS } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
 import { listDrawings, openFile } from "./files";
 import { limitsOfGauge } from "./limits";
@@ -44,18 +44,22 @@ async function installedAt(gaugeRows: Gauge[]): Promise<Map<number, number>> {
   return new Map(gaugeRows.map((gauge) => [gauge.id, Math.min(gauge.createdAt.getTime(), zeroOf.get(gauge.id) ?? Infinity)]));
 }
 
-/** The gauges' roll-up rows of one resolution whose bucket starts inside the period. */
-function rollupsWithin(gaugeIds: number[], resolution: Rollup, period: Span) {
+/** The gauges' hourly roll-up rows whose hour starts inside the period. */
+function hoursWithin(gaugeIds: number[], period: Span) {
   return and(
     inArray(rollups.gaugeId, gaugeIds),
-    eq(rollups.resolution, ROLLUP_RESOLUTIONS[resolution]),
+    eq(rollups.resolution, ROLLUP_RESOLUTIONS.hourly),
     gte(rollups.bucket, period.start),
     lt(rollups.bucket, period.end),
   );
 }
 
-/** Per gauge, the period's totals from the daily roll-ups: exact, since the period is whole UTC days. */
-async function dailyTotals(gaugeIds: number[], period: Span) {
+/**
+ * Per gauge, the period's totals from the hourly roll-ups: the period is days of the structure's
+ * zone, whose midnights are whole UTC hours wherever the offset is whole hours (for a zone such as
+ * Asia/Kolkata, +05:30, the first and last half hour are read by the hour they fall in).
+ */
+async function periodTotals(gaugeIds: number[], period: Span) {
   const rows = await getDb()
     .select({
       gaugeId: rollups.gaugeId,
@@ -68,7 +72,7 @@ async function dailyTotals(gaugeIds: number[], period: Span) {
       temperatureMax: sql<number | null>`max(${rollups.temperatureMax})`,
     })
     .from(rollups)
-    .where(rollupsWithin(gaugeIds, "daily", period))
+    .where(hoursWithin(gaugeIds, period))
     .groupBy(rollups.gaugeId);
   return new Map(rows.map((row) => [row.gaugeId, row]));
 }
@@ -80,7 +84,7 @@ async function hoursWithReadings(gaugeIds: number[], period: Span): Promise<Map<
   const rows = await getDb()
     .select({ gaugeId: rollups.gaugeId, bucket: rollups.bucket, count: rollups.count })
     .from(rollups)
-    .where(and(rollupsWithin(gaugeIds, "hourly", period), gt(rollups.count, 0)))
+    .where(and(hoursWithin(gaugeIds, period), gt(rollups.count, 0)))
     .orderBy(asc(rollups.gaugeId), asc(rollups.bucket));
   const byGauge = new Map<number, HourCount[]>();
   for (const row of rows) {
@@ -119,7 +123,7 @@ async function believedExtremes(gaugeIds: number[], period: Span) {
   return new Map(rows.map((row) => [row.gaugeId, { ...row, count: Number(row.count), leftOut: Number(row.all) - Number(row.count) }]));
 }
 
-type Totals = Awaited<ReturnType<typeof dailyTotals>> extends Map<number, infer T> ? T : never;
+type Totals = Awaited<ReturnType<typeof periodTotals>> extends Map<number, infer T> ? T : never;
 
 type GaugeFacts = {
   chart: Pick<ReportGauge, "stressSeries" | "stressLimitLines">;
@@ -279,22 +283,22 @@ function alertSection(alert: Alert, acknowledgedBy: string | null, events: Alert
 /**
  * The periodic report of a structure: how the period went, per gauge the extremes, utilisation,
  * completeness and gaps, the alerts and how they were handled, and the fatigue damage of the
- * period. Minima, maxima and counts come from the daily roll-ups and gaps from the hourly ones,
- * so a month costs a few hundred rows per gauge; only the fatigue count reads the raw stresses,
+ * period. Minima, maxima, counts and gaps come from the hourly roll-ups, so a month costs some
+ * 750 rows per gauge; only the fatigue count reads the raw stresses,
  * as rainflow counting needs the history itself. Default period: the previous calendar month at
  * the structure (see lib/report/period.ts).
  */
-export async function structureReport(actor: Actor, code: string, requested?: ReportPeriod, now = new Date()): Promise<StructureReport> {
+export async function structureReport(actor: Actor, code: string, requested?: PeriodRequest, now = new Date()): Promise<StructureReport> {
   const structure = await getVisibleStructure(actor, code);
   await requirePermission(actor, "structure:view", structure);
-  const period = requested ?? previousMonthPeriod(now, structure.timezone);
+  const period = requested ? resolvePeriod(requested, structure.timezone) : previousMonthPeriod(now, structure.timezone);
   const span: Span = { start: period.from.getTime(), end: period.to.getTime() };
 
   const allGauges = await gaugeRowsOf(structure.id);
   const allIds = allGauges.map((gauge) => gauge.id);
   const [installed, totals, hours, believed, statuses, current] = await Promise.all([
     allIds.length ? installedAt(allGauges) : new Map<number, number>(),
-    allIds.length ? dailyTotals(allIds, span) : new Map<number, Totals>(),
+    allIds.length ? periodTotals(allIds, span) : new Map<number, Totals>(),
     allIds.length ? hoursWithReadings(allIds, span) : new Map<number, HourCount[]>(),
     allIds.length ? believedExtremes(allIds, span) : new Map<number, Totals & { leftOut: number }>(),
     gaugeStatuses(structure, now.getTime()),
@@ -345,7 +349,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Re
   const share = completeness(onSchedule, expected);
   return {
     structure: { code: structure.code, name: structure.name, location: structure.location, timezone: structure.timezone },
-    period: { from: period.from.toISOString(), to: period.to.toISOString(), lastDay: dayText(lastDay(period)), name: periodName(period), key: periodKey(period) },
+    period: { from: period.from.toISOString(), to: period.to.toISOString(), ...periodDays(period), name: periodName(period) },
     generatedAt: now.toISOString(),
     summary: {
       level,

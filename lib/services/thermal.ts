@@ -272,7 +272,8 @@ async function recomputeResiduals(tx: WriteTx, gaugeId: number, model: ThermalMo
         "SELECT (t / ?) * ? AS bucket, count(residual) AS c, min(residual) AS mn, max(residual) AS mx, sum(residual) AS s " +
         "FROM readings WHERE gauge_id = ? AND fault = 0 AND residual IS NOT NULL GROUP BY t / ?) AS x " +
         "WHERE rollups.gauge_id = ? AND rollups.resolution = ? AND rollups.bucket = x.bucket RETURNING 1",
-      [resolution, resolution, gaugeId, resolution, gaugeId, resolution],
+      // As BigInt, or SQLite divides t by a REAL and every reading is a bucket of its own.
+      [BigInt(resolution), BigInt(resolution), gaugeId, BigInt(resolution), gaugeId, resolution],
     );
   }
 }

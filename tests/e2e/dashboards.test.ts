@@ -3,6 +3,7 @@ import { createClient } from "@libsql/client";
 import { parse } from "csv-parse/sync";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Locator, Page, Response } from "playwright-core";
+import { dayOf, formatInTimeZone } from "@/lib/time-format";
 import { MPA_PER_KSI } from "@/lib/units";
 import { SignInPage, dragAcrossChart, launchBrowser, newContext, saveScreenshot } from "./browser";
 import { foilGaugeBody } from "../fixtures/gauges";
@@ -264,9 +265,9 @@ describe("the gauge page", () => {
     const { timezone } = await (await page.request.get("/api/v1/structures/MILL-FB")).json();
     await gaugePage.canvas("Stress").waitFor();
 
-    /** The bucket mean the legend's time names, found by writing every bucket's time the way the app's other dates read (en-GB, medium date, short time). */
+    /** The bucket mean the legend's time names, found by writing every bucket's time the way the app's other times read. */
     const meanAt = async (legendTime: string) => {
-      const times = await page.evaluate(([t, timeZone]) => t.map((ms) => new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }).format(ms)), [stress.t, timezone] as const);
+      const times = stress.t.map((ms) => formatInTimeZone(ms, timezone));
       const index = times.indexOf(legendTime);
       expect(index, `a bucket at ${legendTime}`).toBeGreaterThanOrEqual(0);
       return stress.mean[index]!;
@@ -281,22 +282,15 @@ describe("the gauge page", () => {
 
     try {
       const si = await legendIn("MPa");
-      // Day first, as "1 Mar 2026, 14:30"; uPlot's own default would read "2026-03-01 2:30pm".
-      expect(si.time).toMatch(/^\d{1,2} [A-Z][a-z]{2,3} \d{4}, \d{2}:\d{2}$/);
+      // The app's one format with the structure's zone named, as "2026-03-01 14:30 GMT"; uPlot's own default would read "2026-03-01 2:30pm".
+      expect(si.time).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2} (GMT|BST)$/);
       expect(si.mean).toBe(`${(await meanAt(si.time)).toFixed(1)} MPa`);
 
-      // Day-first date labels on the time axis, for days of the range on the structure's clock.
+      // Date labels on the time axis ("2026-03-01", or "03-01" for day ticks), for days of the range on the structure's clock.
       const drawn = await gaugePage.canvas("Stress").evaluate((canvas) => (canvas as HTMLCanvasElement & { drawnText?: string[] }).drawnText ?? []);
-      const days = await page.evaluate(
-        ([from, to, timeZone]) => {
-          const day = new Intl.DateTimeFormat("en-GB", { timeZone, day: "numeric", month: "short" });
-          const names: string[] = [];
-          for (let t = Date.parse(from); t <= Date.parse(to); t += 3_600_000) names.push(day.format(t));
-          return names;
-        },
-        [range.get("from")!, range.get("to")!, timezone] as const,
-      );
-      const dateLabels = drawn.filter((text) => /^\d{1,2} [A-Z][a-z]{2,3}$/.test(text));
+      const days: string[] = [];
+      for (let t = Date.parse(range.get("from")!); t <= Date.parse(range.get("to")!); t += 3_600_000) days.push(dayOf(t, timezone), dayOf(t, timezone).slice(5));
+      const dateLabels = drawn.filter((text) => /^(\d{4}-)?\d{2}-\d{2}$/.test(text));
       expect(dateLabels.length, `date labels among ${JSON.stringify(drawn)}`).toBeGreaterThan(0);
       for (const label of dateLabels) expect(days).toContain(label);
       // Nothing month-first ("Mar 1", "3/1") or on a 12-hour clock ("2pm"), as uPlot's defaults draw.
@@ -324,7 +318,7 @@ describe("the gauge page", () => {
     const url = new URL((await request).url());
     const file = await (await download).path();
     const rows = parse(fs.readFileSync(file), { columns: true, bom: true }) as Record<string, string>[];
-    expect(Object.keys(rows[0]!)).toEqual(["time (UTC)", expect.stringMatching(/^value \(.+\)$/), "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"]);
+    expect(Object.keys(rows[0]!)).toEqual(["time (UTC)", "local time (Europe/London)", expect.stringMatching(/^value \(.+\)$/), "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"]);
 
     const api = await readingsOf(engineer, "/api/v1/structures/MILL-FB/gauges/LC-Q1", url.searchParams.get("from")!, url.searchParams.get("to")!);
     // The default week of 10-minute readings: a thousand or so rows, not an empty file that would match an empty listing.
@@ -333,7 +327,9 @@ describe("the gauge page", () => {
     const decimals = (text: string) => text.split(".")[1]?.length ?? 0;
     rows.forEach((row, i) => {
       const reading = api[i]!;
-      const [value, temperature, strain, stress, flags] = Object.values(row).slice(1);
+      const [value, temperature, strain, stress, flags] = Object.values(row).slice(2);
+      // The local column is the same instant on the footbridge's clock (GMT, or BST in summer).
+      expect(row["local time (Europe/London)"]).toBe(formatInTimeZone(Date.parse(reading.time), "Europe/London", { precision: "millisecond" }));
       expect({ time: row["time (UTC)"], value: Number(value), temperature: temperature === "" ? null : Number(temperature), flags: flags ? flags.split(" ") : [] }).toEqual({
         time: reading.time,
         value: reading.value,

@@ -3,7 +3,8 @@ import { createClient } from "@libsql/client";
 import { PDFParse } from "pdf-parse";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { monthIn, monthName, previousMonthPeriod } from "@/lib/report/period";
+import { monthName, previousMonthPeriod } from "@/lib/report/period";
+import { monthOf } from "@/lib/time-format";
 import { storeReadings } from "../fixtures/readings";
 import { PHONE, SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
 
@@ -54,7 +55,7 @@ class ReportPage {
 }
 
 /** The name of the demo's previous month at the footbridge, as the report titles it. */
-const previousMonthName = () => monthName(monthIn(previousMonthPeriod(new Date(), "Europe/London").from, "UTC"));
+const previousMonthName = () => monthName(monthOf(previousMonthPeriod(new Date(), "Europe/London").from, "Europe/London"));
 
 /** That the chart draws the envelope and its mean, and the drawing's image has loaded with markers on it. */
 async function expectChartAndDrawing(report: ReportPage, page: Page) {

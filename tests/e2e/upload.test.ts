@@ -3,6 +3,7 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
+import { formatInTimeZone, zoneName } from "@/lib/time-format";
 import { SignInPage, launchBrowser, newContext, saveScreenshot } from "./browser";
 
 /** Page object of the logger-file upload page. */
@@ -95,7 +96,8 @@ describe("logger-file upload", () => {
     await expect(upload.rejectedRows().count()).resolves.toBe(3);
     // Per gauge: LC-M1's 2 997 readings span the file's first and last rows (i = 0 and 2 999; the bad
     // rows lie inside), shown on the structure's clock, the clock the file was written in.
-    const wallClock = (i: number) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", dateStyle: "medium", timeStyle: "short" }).format(fileStart() + i * 60_000);
+    // The file's wall clock, named as London names it at that time (GMT or BST).
+    const wallClock = (i: number) => `${formatInTimeZone(fileStart() + i * 60_000, "UTC").replace(/ UTC$/, "")} ${zoneName(fileStart() + i * 60_000, "Europe/London")}`;
     await expect(page.getByTestId("arrival-row").allTextContents()).resolves.toEqual([`LC-M12,997${wallClock(0)}${wallClock(2999)}`]);
     const rows = await upload.rejectedRows().allTextContents();
     expect(rows[0]).toMatch(/^12not-finite.*not a finite number/);

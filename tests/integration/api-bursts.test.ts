@@ -13,6 +13,8 @@ import { getClient, getDb } from "@/db/client";
 import { eq } from "drizzle-orm";
 import { alerts, auditLog, burstSummaries, gauges, mailOutbox } from "@/db/schema";
 import { createGauge } from "@/lib/services/gauges";
+import { addMember } from "@/lib/services/memberships";
+import { createStructure } from "@/lib/services/structures";
 import type { UserActor } from "@/lib/auth/actor";
 import { microstrainGauge } from "../fixtures/gauges";
 import { apiRequest, loggerToken, makeStructure, makeUser, params, userToken } from "./helpers";
@@ -362,6 +364,23 @@ describe("fatigue from the stored histograms", () => {
     expect(result.damagePerDay.map((d: { day: string }) => d.day)).toEqual([day(START), day(START + DAY)]);
     expect(result.damagePerDay[0].damage).toBeCloseTo(59 / endurance, 12);
     expect(result.damagePerDay[1].damage).toBeCloseTo(60 / endurance, 12);
+  });
+
+  it("gives damage per day of the structure's zone: two bursts of one UTC day fall on two days in Tokyo (UTC+9 all year, IANA data from memory)", async () => {
+    await createStructure(null, { code: "TKY", name: "Structure TKY", timezone: "Asia/Tokyo" });
+    await addMember(null, engineer.email, "TKY");
+    await createGauge(engineer, "TKY", { ...microstrainGauge("D1"), material: { E: 200000, nu: 0.3, alpha: 12, yield: 355 }, sampling: dynamic });
+    const logger = await loggerToken("TKY");
+    // 14:30 UTC is 23:30 in Tokyo; 15:30 UTC is 00:30 the next day there.
+    const evening = Date.UTC(2026, 5, 20, 14, 30);
+    const afterMidnight = Date.UTC(2026, 5, 20, 15, 30);
+    for (const start of [evening, afterMidnight]) expect((await postBinary({ gauge: "D1", start: iso(start), rateHz: RATE }, floats(signal(60, swing)), logger, "TKY")).status).toBe(200);
+    const response = await fatigueRoute.GET(
+      apiRequest(`/structures/TKY/gauges/D1/fatigue?from=${iso(evening - DAY)}&to=${iso(afterMidnight + DAY)}&category=71`, { token: tokens.engineer }),
+      params({ code: "TKY", tag: "D1" }),
+    );
+    expect(response.status).toBe(200);
+    expect((await response.json()).damagePerDay.map((d: { day: string }) => d.day)).toEqual(["2026-06-20", "2026-06-21"]);
   });
 
   async function rainflowCsv(tag: string, from: number, to: number): Promise<string[][]> {

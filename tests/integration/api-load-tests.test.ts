@@ -137,7 +137,7 @@ describe("load tests through the API", () => {
   });
 
   it("carries the test in the owner's report of the period", async () => {
-    const period = { from: new Date(Date.UTC(2026, 5, 1)), to: new Date(Date.UTC(2026, 6, 1)) };
+    const period = { month: { year: 2026, month: 6 } };
     const report = await structureReport(team.users.owner, "LT", period, new Date(Date.UTC(2026, 6, 2)));
     expect(report.loadTests.map((test) => test.id)).toContain(id);
     const pdf = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText();
@@ -145,7 +145,7 @@ describe("load tests through the API", () => {
     expect(text).toContain("Load test: Static test, truck at midspan");
     expect(text).toContain("S1: measured 120.0 microstrain from a baseline of 40.0 microstrain, predicted 100.0 microstrain, ratio 1.20.");
     expect(text).toContain("S3: predicted 50.0 microstrain. No data in window");
-    const july = await structureReport(team.users.owner, "LT", { from: period.to, to: new Date(Date.UTC(2026, 7, 1)) }, new Date(Date.UTC(2026, 7, 2)));
+    const july = await structureReport(team.users.owner, "LT", { month: { year: 2026, month: 7 } }, new Date(Date.UTC(2026, 7, 2)));
     expect(july.loadTests).toEqual([]);
   });
 

@@ -20,6 +20,8 @@ import { apiRequest, makeStructure, makeUser, params, userToken } from "./helper
 const MINUTE = 60_000;
 const HOUR = 60 * MINUTE;
 const DAY = 24 * HOUR;
+/** The UTC day (the test structures' zone) holding a moment, as the report asks for days. */
+const utcDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
 const now = Date.now();
 const iso = (ms: number) => new Date(ms).toISOString();
 /** Zeroed a day ago, so every reading below comes after the zero reading. */
@@ -111,7 +113,7 @@ describe("a gauge's condition", () => {
 
   it("is in the report, whose extremes leave out the readings taken under the sensor fault and say so", async () => {
     const today = Math.floor(now / DAY) * DAY;
-    const report = await structureReport(engineer, "CND", { from: new Date(today - DAY), to: new Date(today + DAY) }, new Date(now));
+    const report = await structureReport(engineer, "CND", { firstDay: utcDay(today - DAY), lastDay: utcDay(today) }, new Date(now));
     const j1 = report.gauges.find((gauge) => gauge.tag === "J1")!;
     expect(j1.condition).toMatchObject({ state: "sensor-fault", faults: ["jump"] });
     expect(j1.leftOut?.readings).toBe(2);
@@ -142,7 +144,7 @@ describe("the report after an engineer accepts a jump as a real step", () => {
       .from(alerts)
       .where(and(eq(alerts.gaugeId, (await resolveGauge(engineer, "STP", "J2", "structure:view")).gauge.id), eq(alerts.code, "jump")));
     const today = Math.floor(now / DAY) * DAY;
-    const period = { from: new Date(today - DAY), to: new Date(today + DAY) };
+    const period = { firstDay: utcDay(today - DAY), lastDay: utcDay(today) };
     const held = (await structureReport(engineer, "STP", period, new Date(now))).gauges[0]!;
     expect(held.leftOut?.readings).toBe(2);
 
@@ -155,6 +157,7 @@ describe("the report after an engineer accepts a jump as a real step", () => {
 });
 
 describe("the report's completeness over a 12-day logger gap", () => {
+  const OCTOBER_REQUEST = { month: { year: 2026, month: 10 } };
   const OCTOBER = { from: new Date(Date.UTC(2026, 9, 1)), to: new Date(Date.UTC(2026, 10, 1)) };
   const GAP = { start: Date.UTC(2026, 9, 10), end: Date.UTC(2026, 9, 22) };
 
@@ -172,7 +175,7 @@ describe("the report's completeness over a 12-day logger gap", () => {
   });
 
   it("counts received over expected for the month, at most 100 %, and lists the gap with its start, end and length", async () => {
-    const report = await structureReport(engineer, "GAP", OCTOBER, new Date(Date.UTC(2026, 10, 2, 9)));
+    const report = await structureReport(engineer, "GAP", OCTOBER_REQUEST, new Date(Date.UTC(2026, 10, 2, 9)));
     const l1 = report.gauges.find((gauge) => gauge.tag === "L1")!;
     // By hand: 31 days × 144 a day = 4 464 expected at 10 minutes; 12 days × 144 = 1 728 missing.
     expect(l1.readings).toEqual({ received: 4_464 - 1_728, expected: 4_464, completeness: (4_464 - 1_728) / 4_464, surplus: 0 });
@@ -186,7 +189,7 @@ describe("the report's completeness over a 12-day logger gap", () => {
     const rows: StoredReading[] = [];
     for (let time = OCTOBER.from.getTime(); time < OCTOBER.to.getTime(); time += 10 * MINUTE) rows.push({ time, strain: 100, stress: 20, temperature: 12 });
     await storeReadings(getClient(), (await resolveGauge(engineer, "GAP", "L2", "structure:view")).gauge.id, rows);
-    const report = await structureReport(engineer, "GAP", OCTOBER, new Date(Date.UTC(2026, 10, 2, 9)));
+    const report = await structureReport(engineer, "GAP", OCTOBER_REQUEST, new Date(Date.UTC(2026, 10, 2, 9)));
     // By hand: 744 hours expect 744 readings at one an hour; 4 464 arrived, 3 720 of them extra.
     expect(report.gauges.find((gauge) => gauge.tag === "L2")!.readings).toEqual({ received: 4_464, expected: 744, completeness: 1, surplus: 3_720 });
   });

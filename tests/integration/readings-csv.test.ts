@@ -44,8 +44,10 @@ describe("readings exported as CSV", () => {
     const bytes = await exportCsv("&header=units");
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
     const rows = parse(Buffer.from(bytes), { columns: true, bom: true }) as Record<string, string>[];
-    expect(Object.keys(rows[0]!)).toEqual(["time (UTC)", "value (µε)", "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"]);
+    expect(Object.keys(rows[0]!)).toEqual(["time (UTC)", "local time (UTC)", "value (µε)", "temperature (°C)", "strain (µε)", "stress (MPa)", "flags"]);
     expect(rows.map((row) => Number(row["stress (MPa)"]))).toEqual([24.1, -8.1, 50]);
+    // The structure keeps UTC: the local column is the same instant, read as a person would.
+    expect(rows.map((row) => row["local time (UTC)"])).toEqual(TIMES.map((time) => `${time.slice(0, 10)} ${time.slice(11, 23)} UTC`));
   });
 
   it("refuses an unknown header choice with a 400 naming it", async () => {

@@ -19,6 +19,7 @@ import { replaceLimits } from "@/lib/services/limits";
 import { addMember } from "@/lib/services/memberships";
 import { updateUser } from "@/lib/services/users";
 import { createGauge, resolveGauge } from "@/lib/services/gauges";
+import { createStructure } from "@/lib/services/structures";
 import { structureReport, structureReportPdf } from "@/lib/services/report";
 import { CHART_INK } from "@/lib/report/chart";
 import { STATE_LOOK } from "@/lib/alerting/condition-display";
@@ -34,7 +35,8 @@ afterAll(() => fs.rmSync(storage, { recursive: true, force: true }));
 
 const HOUR = 3_600_000;
 const TEN_MINUTES = 600_000;
-const OCTOBER = monthPeriod({ year: 2026, month: 10 });
+const OCTOBER_REQUEST = { month: { year: 2026, month: 10 } };
+const OCTOBER = monthPeriod(OCTOBER_REQUEST.month, "UTC");
 const START = OCTOBER.from.getTime();
 /** Made on 2 November: October is over, so every hour of it was expected. */
 const NOW = new Date(Date.UTC(2026, 10, 2, 9));
@@ -144,7 +146,7 @@ beforeAll(async () => {
 
 describe("the structure report", () => {
   it("gives each gauge's extremes from the daily roll-ups, the readings either side of the month left out", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     expect(report.period).toMatchObject({ name: "October 2026", key: "2026-10", lastDay: "2026-10-31", from: "2026-10-01T00:00:00.000Z" });
     const g1 = report.gauges.find((gauge) => gauge.tag === "G1")!;
     expect(g1.stress).toEqual({ min: TROUGH.stress, max: PEAK.stress, unit: "MPa" });
@@ -155,7 +157,7 @@ describe("the structure report", () => {
   });
 
   it("measures completeness and finds the planted gap (by hand: 31 × 144 = 4464 expected, 72 missing)", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const [g1, g2, g3] = report.gauges;
     expect(g1!.readings).toEqual({ received: 4392, expected: 4464, completeness: 4392 / 4464, surplus: 0 });
     expect(g1!.gaps).toEqual({ list: [{ start: "2026-10-10T06:00:00.000Z", end: "2026-10-10T18:00:00.000Z", hours: 12 }], more: 0, totalHours: 12 });
@@ -169,7 +171,7 @@ describe("the structure report", () => {
   });
 
   it("takes fatigue damage from the fatigue service where a category is set, and says 'not assessed' elsewhere", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const history = october(g2History).slice(2).map((row) => row.stress);
     expect(report.gauges[0]!.fatigue).toEqual({ status: "not-assessed" });
     const g2 = report.gauges[1]!.fatigue;
@@ -182,7 +184,7 @@ describe("the structure report", () => {
   });
 
   it("lists the alerts open in the period with how they were handled, and takes the worst level", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     expect(report.summary.level).toBe("warning");
     expect(report.summary.alerts).toEqual({ watch: 0, warning: 1, critical: 0, sensor: 1 });
     expect(report.alerts.map((alert) => [alert.kind, alert.openedBeforePeriod])).toEqual([
@@ -197,14 +199,14 @@ describe("the structure report", () => {
   });
 
   it("calls a period without readings 'no data', never all clear", async () => {
-    const report = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 9 }), NOW);
+    const report = await structureReport(owners[0]!, "RPT", { month: { year: 2026, month: 9 } }, NOW);
     expect(report.summary.level).toBe("critical");
-    const august = await structureReport(owners[0]!, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW);
+    const august = await structureReport(owners[0]!, "RPT", { month: { year: 2026, month: 8 } }, NOW);
     // No gauge was installed yet: none in the report, and nothing to call all clear.
     expect(august.gauges).toEqual([]);
     expect(august.summary.level).toBe("no-data");
     // 3 November: the gauges are installed and nothing came in.
-    const silentDay = await structureReport(owners[0]!, "RPT", { from: new Date(Date.UTC(2026, 10, 3)), to: new Date(Date.UTC(2026, 10, 4)) }, new Date(Date.UTC(2026, 10, 5)));
+    const silentDay = await structureReport(owners[0]!, "RPT", { firstDay: "2026-11-03", lastDay: "2026-11-03" }, new Date(Date.UTC(2026, 10, 5)));
     expect(silentDay.gauges.map((gauge) => gauge.readings)).toEqual(Array(3).fill({ received: 0, expected: 144, completeness: 0, surplus: 0 }));
     expect(silentDay.summary.level).toBe("no-data");
   });
@@ -263,7 +265,7 @@ describe("GET /structures/{code}/report", () => {
 
 describe("the report PDF", () => {
   it("carries the structure, the gauges, the alert handling and the cautions in SI units", async () => {
-    const { text, pages } = await pdfText(await renderReportPdf(await structureReport(owners[0]!, "RPT", OCTOBER, NOW)));
+    const { text, pages } = await pdfText(await renderReportPdf(await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW)));
     expect(pages).toBeGreaterThanOrEqual(1);
     expect(text).toContain("Structure RPT (RPT)");
     expect(text).toContain("October 2026");
@@ -285,7 +287,7 @@ describe("the report PDF", () => {
   });
 
   it("sets its text in the embedded IBM Plex Sans, so µε, σ, ≥, °C and ü read back as written", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const location = "Mühlgraben crossing; design σ ≥ 180 MPa, 850 µε at 20 °C";
     const pdf = await renderReportPdf({ ...report, structure: { ...report.structure, location } });
     expect((await pdfText(pdf)).text).toContain(`Location: ${location}`);
@@ -295,7 +297,7 @@ describe("the report PDF", () => {
   });
 
   it("draws each gauge's stress chart with its limit and alert, and the drawing with the gauges' markers (checked on the rendered pages)", async () => {
-    const report = await structureReport(owners[0]!, "RPT", OCTOBER, NOW);
+    const report = await structureReport(owners[0]!, "RPT", OCTOBER_REQUEST, NOW);
     const pdf = await structureReportPdf(owners[0]!, report);
     const scale = 2;
 
@@ -335,12 +337,32 @@ describe("the report PDF", () => {
   it("grows by pages with the number of gauges", async () => {
     await makeStructure("MANY", [engineer]);
     for (let i = 1; i <= 14; i++) await createGauge(engineer, "MANY", gaugeInput(`M${String(i).padStart(2, "0")}`));
-    const none = await pdfText(await renderReportPdf(await structureReport(engineer, "RPT", monthPeriod({ year: 2026, month: 8 }), NOW)));
-    const many = await pdfText(await renderReportPdf(await structureReport(engineer, "MANY", OCTOBER, NOW)));
+    const none = await pdfText(await renderReportPdf(await structureReport(engineer, "RPT", { month: { year: 2026, month: 8 } }, NOW)));
+    const many = await pdfText(await renderReportPdf(await structureReport(engineer, "MANY", OCTOBER_REQUEST, NOW)));
     expect(many.pages).toBeGreaterThan(1);
     expect(many.pages).toBeGreaterThan(none.pages);
     expect(many.text).toContain("Gauge M14");
     expect(many.text).toContain(`page ${many.pages} of ${many.pages}`);
+  });
+});
+
+describe("a report on a site's own clock", () => {
+  it("covers October in Berlin from local midnight to local midnight, 745 hours with the autumn change (EU rule: last Sunday of October, CEST to CET; from memory)", async () => {
+    await createStructure(null, { code: "BER", name: "Structure BER", timezone: "Europe/Berlin" });
+    await addMember(null, engineer.email, "BER");
+    await createGauge(engineer, "BER", gaugeInput("B1"));
+    // 1 October 00:00 CEST is 30 September 22:00 UTC; 1 November 00:00 CET is 31 October 23:00 UTC.
+    const from = Date.UTC(2026, 8, 30, 22);
+    const to = Date.UTC(2026, 9, 31, 23);
+    const rows: StoredReading[] = [reading(from - TEN_MINUTES, 999), reading(to, -999)];
+    for (let time = from; time < to; time += TEN_MINUTES) rows.push(reading(time, 50));
+    await storeReadings(getClient(), await gaugeId("BER", "B1"), rows);
+    const report = await structureReport(engineer, "BER", { month: { year: 2026, month: 10 } }, NOW);
+    expect(report.period).toMatchObject({ from: "2026-09-30T22:00:00.000Z", to: "2026-10-31T23:00:00.000Z", firstDay: "2026-10-01", lastDay: "2026-10-31", key: "2026-10" });
+    const b1 = report.gauges.find((gauge) => gauge.tag === "B1")!;
+    // By hand: 745 hours × 6 readings an hour; the readings just outside the local month stay out of the extremes.
+    expect(b1.readings).toMatchObject({ received: 745 * 6, expected: 745 * 6, completeness: 1 });
+    expect(b1.stress).toMatchObject({ min: expect.closeTo(50, 9), max: expect.closeTo(50, 9) });
   });
 });
 

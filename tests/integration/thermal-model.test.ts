@@ -7,6 +7,7 @@ import * as seriesRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/series
 import * as alertsRoute from "@/app/api/v1/structures/[code]/alerts/route";
 import { getClient } from "@/db/client";
 import { createGauge } from "@/lib/services/gauges";
+import { ROLLUP_RESOLUTIONS } from "@/lib/series/rollup";
 import { microstrainGauge } from "../fixtures/gauges";
 import { apiRequest, makeTeam, params } from "./helpers";
 
@@ -127,6 +128,11 @@ describe("thermal model through the API", () => {
     // Residuals of readings already stored (19 days of 5-minute readings: more than one recomputation chunk).
     const stored = await storedCount("SELECT count(*) FROM readings WHERE residual IS NOT NULL");
     expect(stored).toBeGreaterThan(5000);
+    // Every healthy reading's residual is in its hour's and its day's roll-up (sums of counts agree).
+    const healthy = await storedCount("SELECT count(*) FROM readings WHERE residual IS NOT NULL AND fault = 0");
+    for (const resolution of Object.values(ROLLUP_RESOLUTIONS)) {
+      expect(await storedCount(`SELECT sum(residual_count) FROM rollups WHERE resolution = ${resolution}`), `resolution ${resolution}`).toBe(healthy);
+    }
     const worst = await storedCount(`SELECT max(abs(residual)) FROM readings WHERE t >= ${START + DAY}`);
     expect(worst).toBeLessThan(1);
     const got = (await (await modelRoute.GET(apiRequest("/structures/TH/gauges/T1/thermal-model", { token: tokens.owner }), at)).json()) as { slope: number; lagSearch: string };

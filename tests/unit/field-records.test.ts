@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { dateIn, daysBetween } from "@/lib/field-records/calendar";
+import { daysBetween } from "@/lib/field-records/calendar";
+import { dayOf } from "@/lib/time-format";
 import { certificateFields, certificateStanding, parseReminderDays, thresholdsDue } from "@/lib/field-records/certificates";
 
 describe("calendar days on the structure's clock", () => {
@@ -11,8 +12,8 @@ describe("calendar days on the structure's clock", () => {
 
   it("reads today's date in the structure's zone (IANA tz: New Zealand is UTC+12 in June, from memory)", () => {
     const instant = Date.UTC(2026, 5, 30, 13, 0);
-    expect(dateIn("UTC", instant)).toBe("2026-06-30");
-    expect(dateIn("Pacific/Auckland", instant)).toBe("2026-07-01");
+    expect(dayOf(instant, "UTC")).toBe("2026-06-30");
+    expect(dayOf(instant, "Pacific/Auckland")).toBe("2026-07-01");
   });
 });
 

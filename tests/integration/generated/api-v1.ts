@@ -581,7 +581,7 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** The structure's report for a period of whole UTC days: status over the period and now, per gauge the stress and strain extremes, utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions */
+        /** The structure's report for a period of whole days in the structure's time zone: status over the period and now, per gauge the stress and strain extremes, utilisation peak, data completeness and gaps, fatigue damage; the alerts open in the period and how they were handled; the cautions */
         get: operations["getStructuresByCodeReport"];
         put?: never;
         post?: never;
@@ -1015,9 +1015,9 @@ export interface components {
             source: "readings" | "bursts";
             /** @description Damage-equivalent constant range Δσ_E = (Σ nᵢ·Δσᵢ³ / 2×10⁶)^(1/3), MPa: compare it with the detail category Δσ_C */
             equivalentRange: number;
-            /** @description Miner damage per UTC day with data (bursts source; empty for readings) */
+            /** @description Miner damage per day of the structure's time zone with data (bursts source; empty for readings) */
             damagePerDay: {
-                /** @description UTC date, YYYY-MM-DD */
+                /** @description Day in the structure's time zone, YYYY-MM-DD */
                 day: string;
                 damage: number;
             }[];
@@ -1630,11 +1630,13 @@ export interface components {
                 timezone: string;
             };
             period: {
-                /** @description Start, included: a UTC midnight */
+                /** @description Start, included: the structure's local midnight beginning the first day, as a UTC instant */
                 from: string;
-                /** @description End, excluded: a UTC midnight */
+                /** @description End, excluded: the structure's local midnight after the last day, as a UTC instant */
                 to: string;
-                /** @description Last day included, YYYY-MM-DD */
+                /** @description First day included, YYYY-MM-DD in the structure's time zone */
+                firstDay: string;
+                /** @description Last day included, YYYY-MM-DD in the structure's time zone */
                 lastDay: string;
                 /** @description e.g. "November 2026" */
                 name: string;
@@ -4624,11 +4626,11 @@ export interface operations {
     getStructuresByCodeReport: {
         parameters: {
             query?: {
-                /** @description A calendar month, YYYY-MM; its UTC days. Default (no month, from or to): the previous month in the structure's time zone */
+                /** @description A calendar month, YYYY-MM; its days in the structure's time zone. Default (no month, from or to): the previous month in the structure's time zone */
                 month?: string;
-                /** @description First day included, YYYY-MM-DD (UTC day); with `to`, instead of `month` */
+                /** @description First day included, YYYY-MM-DD (a day in the structure's time zone); with `to`, instead of `month` */
                 from?: string;
-                /** @description Last day included, YYYY-MM-DD (UTC day) */
+                /** @description Last day included, YYYY-MM-DD (a day in the structure's time zone) */
                 to?: string;
                 /** @description json (default), or pdf for the printable report as an attachment; Accept: application/pdf does the same */
                 format?: string;

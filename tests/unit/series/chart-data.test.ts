@@ -23,16 +23,6 @@ describe("chart data", () => {
   });
 });
 
-describe("a structure's days", () => {
-  // IANA time zone data (common practice): London is on GMT+1 (BST) on 1 July, Chicago on CDT (UTC−5).
-  it("start at the structure's own midnight", async () => {
-    const { startOfDayIn } = await import("@/lib/ingest/reading-time");
-    expect(startOfDayIn("2026-07-01", "Europe/London")).toBe(Date.UTC(2026, 5, 30, 23));
-    expect(startOfDayIn("2026-07-01", "America/Chicago")).toBe(Date.UTC(2026, 6, 1, 5));
-    expect(startOfDayIn("not a day", "UTC")).toBeNull();
-  });
-});
-
 // A line drawn across a span without readings shows data nobody measured (common practice in
 // plotting measured series: leave gaps as gaps).
 describe("gaps in chart data", () => {

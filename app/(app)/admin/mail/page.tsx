@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { attemptLines } from "@/lib/mail/attempt-log";
 import Link from "next/link";
-import { format } from "date-fns";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { cardClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
@@ -11,10 +10,12 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { mailRoute } from "@/lib/mail/transport";
 import { getCaughtMail, listCaughtMail, listOutbox, type CaughtMailSummary, type OutboxSummary } from "@/lib/services/mail";
+import { formatInTimeZone } from "@/lib/time-format";
+import { defaultTimeZone } from "@/lib/time-zone-config";
 
 export const metadata: Metadata = { title: "Mail" };
 
-const when = (date: Date) => format(date, "yyyy-MM-dd HH:mm:ss");
+const when = (date: Date) => formatInTimeZone(date, defaultTimeZone(), { precision: "second" });
 
 function RouteNotice() {
   const route = mailRoute();

@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import { format } from "date-fns";
 import Link from "next/link";
 import { ActionForm } from "@/components/ui/action-form";
 import { Field } from "@/components/ui/field";
@@ -14,6 +13,8 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { listUsers } from "@/lib/services/users";
 import { addUserAction, changeRoleAction, setActiveAction } from "../actions";
+import { dayOf } from "@/lib/time-format";
+import { defaultTimeZone } from "@/lib/time-zone-config";
 
 export const metadata: Metadata = { title: "Users" };
 
@@ -36,7 +37,7 @@ export default async function UsersPage() {
                 <th className={thClass}>Name</th>
                 <th className={thClass}>Role</th>
                 <th className={thClass}>Status</th>
-                <th className={thClass}>Since</th>
+                <th className={thClass}>Since ({defaultTimeZone()})</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-slate-100 dark:divide-slate-800">
@@ -85,7 +86,7 @@ export default async function UsersPage() {
                       </ActionForm>
                     )}
                   </td>
-                  <td className={`${tdClass} whitespace-nowrap text-slate-500`}>{format(user.createdAt, "yyyy-MM-dd")}</td>
+                  <td className={`${tdClass} whitespace-nowrap text-slate-500`}>{dayOf(user.createdAt, defaultTimeZone())}</td>
                 </tr>
               ))}
             </tbody>

@@ -20,6 +20,7 @@ import { getRosetteLimits } from "@/lib/services/rosette-limits";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { handleAlertAction, resolveFaultAction } from "../actions";
+import { formatInTimeZone } from "@/lib/time-format";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -46,8 +47,7 @@ export default async function AlertPage({ params }: Props) {
   // A day either side of the episode, or up to now while it lasts.
   // eslint-disable-next-line react-hooks/purity -- a server component renders once per request: now is that request's time
   const around = { from: openedAt - DAY_MS, to: Math.min(Date.now(), (clearedAt ?? Date.now()) + DAY_MS) };
-  const local = (date: Date | string) =>
-    new Intl.DateTimeFormat("en-GB", { timeZone: structure.timezone, dateStyle: "medium", timeStyle: "medium" }).format(new Date(date));
+  const local = (date: Date | string) => formatInTimeZone(new Date(date), structure.timezone, { precision: "second" });
   return (
     <>
       <PageHeader

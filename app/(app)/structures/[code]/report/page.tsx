@@ -9,9 +9,9 @@ import { buttonClass } from "@/components/ui/styles";
 import { reportQuery } from "@/lib/api/report-query";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
-import { formatInTimeZone } from "@/lib/time-format";
+import { formatInTimeZone, monthOf } from "@/lib/time-format";
 import { REPORT_NOTES } from "@/lib/report/cautions";
-import { monthIn, monthKey, monthsBefore, periodQuery, wholeMonthOf } from "@/lib/report/period";
+import { monthsBefore, periodQuery, wholeMonthKey } from "@/lib/report/period";
 import { structureReport } from "@/lib/services/report";
 
 type Props = { params: Promise<{ code: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
@@ -37,8 +37,6 @@ export default async function StructureReportPage({ params, searchParams }: Prop
   const user = await requireUser();
   const parsed = reportQuery.safeParse(periodFields(await searchParams));
   const report = await pageGuard(structureReport(user, code, parsed.success ? parsed.data.period : undefined));
-  const period = { from: new Date(report.period.from), to: new Date(report.period.to) };
-  const month = wholeMonthOf(period);
   const zone = report.structure.timezone;
   const structurePath = `/structures/${encodeURIComponent(report.structure.code)}`;
   return (
@@ -47,8 +45,8 @@ export default async function StructureReportPage({ params, searchParams }: Prop
         title={`Report: ${report.structure.name}`}
         subtitle={
           <>
-            <span className="font-semibold text-ink dark:text-slate-100">{report.period.name}</span> · {report.period.from.slice(0, 10)} 00:00 UTC to{" "}
-            {report.period.lastDay} 24:00 UTC · times in {zone} · generated {formatInTimeZone(new Date(report.generatedAt), zone)}
+            <span className="font-semibold text-ink dark:text-slate-100">{report.period.name}</span> · {formatInTimeZone(new Date(report.period.from), zone)} to{" "}
+            {formatInTimeZone(new Date(report.period.to), zone)} · days and times in {zone} · generated {formatInTimeZone(new Date(report.generatedAt), zone)}
             <Link href={structurePath} className="ml-2 text-accent underline print:hidden">
               Structure page
             </Link>
@@ -56,7 +54,7 @@ export default async function StructureReportPage({ params, searchParams }: Prop
         }
         actions={
           <div className="flex gap-2 print:hidden">
-            <a href={`/api/v1${structurePath}/report?${periodQuery(period)}&format=pdf`} download className={buttonClass()}>
+            <a href={`/api/v1${structurePath}/report?${periodQuery(report.period)}&format=pdf`} download className={buttonClass()}>
               Download PDF
             </a>
             <PrintButton />
@@ -64,10 +62,11 @@ export default async function StructureReportPage({ params, searchParams }: Prop
         }
       />
       <ReportPeriodPicker
-        months={monthsBefore(monthIn(new Date(), zone), 12)}
-        selectedMonth={month ? monthKey(month) : null}
-        fromDay={report.period.from.slice(0, 10)}
+        months={monthsBefore(monthOf(new Date(), zone), 12)}
+        selectedMonth={wholeMonthKey(report.period)}
+        fromDay={report.period.firstDay}
         toDay={report.period.lastDay}
+        timeZone={zone}
         error={parsed.success ? null : parsed.error.issues[0]!.message}
       />
       <ReportView report={report} />

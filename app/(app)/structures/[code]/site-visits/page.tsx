@@ -11,7 +11,7 @@ import { requireUser } from "@/lib/auth/session";
 import { listGauges } from "@/lib/services/gauges";
 import { listSiteVisits } from "@/lib/services/site-visits";
 import { getVisibleStructure } from "@/lib/services/structures";
-import { clockInputValue } from "@/lib/time-format";
+import { axisText, dayOf } from "@/lib/time-format";
 
 type Props = { params: Promise<{ code: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -21,6 +21,12 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 /** ?page= as a page number; anything else reads as the first page. */
 const pageOf = (value: unknown) => (typeof value === "string" && /^[1-9]\d{0,5}$/.test(value) ? Number(value) : 1);
+
+/** Now on the structure's clock, as a date-and-time field shows it ("2026-07-01T13:00"): the form's default. */
+function clockNow(zone: string): string {
+  const now = Date.now();
+  return `${dayOf(now, zone)}T${axisText(now, zone, "minute")}`;
+}
 
 /** The structure's site-visit log, newest first, and for technicians and engineers the form that records a visit. */
 export default async function SiteVisitsPage({ params, searchParams }: Props) {
@@ -49,7 +55,7 @@ export default async function SiteVisitsPage({ params, searchParams }: Props) {
           <h2 id="add-visit-heading" className="text-lg font-semibold">
             Record a visit
           </h2>
-          <SiteVisitForm code={structure.code} timeZone={zone} gauges={gauges.map((gauge) => ({ tag: gauge.tag, label: gauge.label ?? null }))} visitor={user.name} now={clockInputValue(new Date(), zone)} />
+          <SiteVisitForm code={structure.code} timeZone={zone} gauges={gauges.map((gauge) => ({ tag: gauge.tag, label: gauge.label ?? null }))} visitor={user.name} now={clockNow(zone)} />
         </section>
       )}
       <section aria-labelledby="visits-heading" className="space-y-3">

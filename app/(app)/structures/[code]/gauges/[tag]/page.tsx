@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { format } from "date-fns";
 import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { DynamicChannel } from "@/components/dynamic/dynamic-channel";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -43,7 +42,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: `${decodeURIComponent(tag)} · ${code}` };
 }
 
-const when = (date: Date | string) => format(typeof date === "string" ? new Date(date) : date, "yyyy-MM-dd HH:mm");
+const when = (date: Date | string, timeZone: string) => formatInTimeZone(new Date(date), timeZone);
 
 /** Each changed field on a line of its own: name, old → new, in words and units. */
 function ChangeList({ before, after }: { before: unknown; after: unknown }) {
@@ -138,7 +137,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
           <span className="font-medium text-critical">Its readings are in doubt: check the gauge, its bond and the logger channel before trusting them.</span>
         )}
         <span className={`rounded-full px-2.5 py-0.5 font-medium ${active ? "bg-emerald-100 text-emerald-900 dark:bg-emerald-950 dark:text-emerald-200" : "bg-slate-200 text-slate-700 dark:bg-slate-800 dark:text-slate-300"}`}>
-          {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt) : ""}`}
+          {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt, structure.timezone) : ""}`}
         </span>
         {gauge.replaces && (
           <span>
@@ -146,7 +145,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
             <Link className="text-accent underline" href={`${base}/${encodeURIComponent(gauge.replaces)}`}>
               {gauge.replaces}
             </Link>{" "}
-            at this location on {when(gauge.createdAt)}.
+            at this location on {when(gauge.createdAt, structure.timezone)}.
           </span>
         )}
         {gauge.replacedBy && (
@@ -226,10 +225,10 @@ export default async function GaugePage({ params, searchParams }: Props) {
           </h2>
           <p className="text-sm">
             In force: <span className="font-mono">{gauge.zero.value} {inputUnit(gauge.input)}</span>
-            {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!)}. Strain is measured from this state;
+            {gauge.zero.temperature != null && <> at {gauge.zero.temperature} °C</>}, read {when(gauge.zero.time!, structure.timezone)}. Strain is measured from this state;
             stress already present then is the initial stress above.
           </p>
-          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={inputUnit(gauge.input)} recordZero={recordZeroAction} />}
+          {active && canZero && <ZeroForm structureCode={code} tag={tag} rawUnit={inputUnit(gauge.input)} timeZone={structure.timezone} recordZero={recordZeroAction} />}
           <div className="overflow-x-auto">
             <table className={tableClass} aria-label="Zero history">
               <thead>
@@ -244,12 +243,12 @@ export default async function GaugePage({ params, searchParams }: Props) {
                 {zeros.map((zero) => (
                   <tr key={zero.id} data-testid="zero-row">
                     <td className={tdClass}>
-                      {when(zero.setAt)}
+                      {when(zero.setAt, structure.timezone)}
                       <span className="block text-xs text-slate-500">{zero.setByLabel}</span>
                     </td>
                     <td className={`${tdClass} font-mono`}>
                       {zero.value.toLocaleString("en-US", { maximumFractionDigits: 6 })} {inputUnit(gauge.input)}
-                      <span className="block font-sans text-xs text-slate-500">read {when(zero.time)}</span>
+                      <span className="block font-sans text-xs text-slate-500">read {when(zero.time, structure.timezone)}</span>
                     </td>
                     <td className={tdClass}>{zero.temperature != null ? `${zero.temperature.toFixed(1)} °C` : "—"}</td>
                     <td className={tdClass}>
@@ -264,7 +263,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         </section>
       </div>
       <div className="mt-6">
-        <GaugePhotos structureCode={code} tag={tag} canUpload={active && canEdit} initialPhotos={photos} />
+        <GaugePhotos structureCode={code} tag={tag} timeZone={structure.timezone} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
       <GaugeFieldRecords user={user} code={code} tag={gauge.tag} timeZone={structure.timezone} />
       {canAudit && (
@@ -288,7 +287,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
                 {audit.map((entry) => (
                   <tr key={entry.id} data-testid="audit-row" className={stackedTable.row}>
                     <td className={`${stackedTable.cell} whitespace-nowrap`} data-label="When">
-                      {when(entry.at)}
+                      {when(entry.at, structure.timezone)}
                     </td>
                     <td className={stackedTable.cell} data-label="Who">
                       {entry.actorLabel}

@@ -20,7 +20,7 @@ export default async function NewGaugePage({ params }: { params: Promise<{ code:
   return (
     <>
       <PageHeader title="Register a gauge" subtitle={`${structure.name} (${structure.code})`} />
-      <GaugeForm mode="register" structureCode={code} initial={initial} submit={registerGaugeAction.bind(null, code)} />
+      <GaugeForm mode="register" structureCode={code} timeZone={structure.timezone} initial={initial} submit={registerGaugeAction.bind(null, code)} />
     </>
   );
 }

@@ -22,7 +22,7 @@ export default async function EditGaugePage({ params }: Props) {
         title={`Edit gauge ${gauge.tag}`}
         subtitle={`${structure.name}. Readings already stored keep the values they were converted with; the zero has its own form on the gauge page.`}
       />
-      <GaugeForm mode="edit" structureCode={code} initial={formValuesOf(gaugeFieldsOf(gauge))} submit={editGaugeAction.bind(null, code, gauge.tag)} />
+      <GaugeForm mode="edit" structureCode={code} timeZone={structure.timezone} initial={formValuesOf(gaugeFieldsOf(gauge))} submit={editGaugeAction.bind(null, code, gauge.tag)} />
     </>
   );
 }

@@ -6,6 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { getGauge } from "@/lib/services/gauges";
+import { getVisibleStructure } from "@/lib/services/structures";
 
 type Props = { params: Promise<{ code: string; tag: string }> };
 
@@ -19,7 +20,7 @@ export default async function GaugeFatiguePage({ params }: Props) {
   const { code, tag: rawTag } = await params;
   const tag = decodeURIComponent(rawTag);
   const user = await requireUser();
-  const gauge = await pageGuard(getGauge(user, code, tag));
+  const [structure, gauge] = await pageGuard(Promise.all([getVisibleStructure(user, code), getGauge(user, code, tag)]));
   const gaugePath = `/structures/${code}/gauges/${encodeURIComponent(tag)}`;
   return (
     <>
@@ -34,7 +35,7 @@ export default async function GaugeFatiguePage({ params }: Props) {
           </>
         }
       />
-      <FatigueView apiPath={`/api/v1${gaugePath}/fatigue`} gaugeCategory={gauge.detailCategory} />
+      <FatigueView apiPath={`/api/v1${gaugePath}/fatigue`} gaugeCategory={gauge.detailCategory} timeZone={structure.timezone} />
       <div className="mt-6">
         <MonitoringCaution>
           <li>

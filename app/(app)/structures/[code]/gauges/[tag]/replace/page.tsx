@@ -25,7 +25,7 @@ export default async function ReplaceGaugePage({ params }: Props) {
         title={`Replace gauge ${gauge.tag}`}
         subtitle={`${structure.name}. ${gauge.tag} is retired and the new gauge takes its place, linked to it, so the location's record stays continuous with the changeover marked.`}
       />
-      <GaugeForm mode="replace" structureCode={code} initial={initial} submit={replaceGaugeAction.bind(null, code, gauge.tag)} />
+      <GaugeForm mode="replace" structureCode={code} timeZone={structure.timezone} initial={initial} submit={replaceGaugeAction.bind(null, code, gauge.tag)} />
     </>
   );
 }
