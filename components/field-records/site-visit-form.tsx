@@ -6,7 +6,7 @@ import type { SiteVisitView } from "@/lib/api/field-record-schemas";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import { MAX_VISIT_PHOTOS } from "@/lib/field-records/site-visits";
 import { acceptAttribute, UPLOAD_LIMIT_BYTES, megabytes, uploadRule } from "@/lib/storage/upload-rules";
-import { wallClockInputToIso } from "@/lib/time-format";
+import { dayOf, wallClockInputToIso } from "@/lib/time-format";
 import { postForm } from "@/components/files/post-form";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, cardClass, inputClass } from "@/components/ui/styles";
@@ -43,7 +43,7 @@ export function SiteVisitForm({ code, timeZone, gauges, visitor, now }: { code: 
     setSent(null);
     if (!answer.ok) return fail(answer.message, answer.field);
     form.current?.reset();
-    setOutcome({ status: "ok", message: `Visit of ${answer.body.visitedAt.slice(0, 10)} recorded${answer.body.photos.length ? ` with ${answer.body.photos.length} photo${answer.body.photos.length > 1 ? "s" : ""}` : ""}.` });
+    setOutcome({ status: "ok", message: `Visit of ${dayOf(Date.parse(answer.body.visitedAt), timeZone)} recorded${answer.body.photos.length ? ` with ${answer.body.photos.length} photo${answer.body.photos.length > 1 ? "s" : ""}` : ""}.` });
     router.refresh();
   }
 
