@@ -139,8 +139,8 @@ export type AuditEntry = typeof auditLog.$inferSelect;
 export const GAUGE_STATUSES = ["active", "retired"] as const;
 export type GaugeStatus = (typeof GAUGE_STATUSES)[number];
 
-/** Host material as stored with a gauge (E and yield MPa, alpha µε/°C). */
-export type StoredMaterial = { name?: string; E: number; nu: number; alpha: number; yield?: number | null };
+/** Host material as stored with a gauge (E, yield and concrete's compressive strength MPa, alpha µε/°C); gauges stored before compressive strength was asked for have none. */
+export type StoredMaterial = { name?: string; E: number; nu: number; alpha: number; yield?: number | null; compressiveStrength?: number | null };
 export type StoredThermal =
   | { method: "none" }
   | { method: "polynomial"; coefficients: number[] }
@@ -233,6 +233,41 @@ export const zeroReadings = sqliteTable(
   },
   (t) => [index("zero_readings_gauge").on(t.gaugeId, t.setAt)],
 );
+
+/**
+ * Shunt-calibration checks of a foil gauge's bridge: a known resistor across the gauge, the output
+ * the logger showed, and what the circuit says it should have shown when the check was made.
+ */
+export const shuntChecks = sqliteTable(
+  "shunt_checks",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+    /** When the shunt was applied on site. */
+    time: integer("time", { mode: "timestamp_ms" }).notNull(),
+    /** Ω across the gauge. */
+    shuntResistance: real("shunt_resistance").notNull(),
+    /** Change of the logger's reading with the shunt applied, in `unit`. */
+    measuredOutput: real("measured_output").notNull(),
+    /** What the gauge's bridge should have shown, in `unit`, from its configuration at the time. */
+    expectedOutput: real("expected_output").notNull(),
+    /** The gauge's input unit at the time: "mV/V" or "microstrain". */
+    unit: text("unit").notNull(),
+    /** µε the shunt simulates, as the gauge's conversion reads the expected output. */
+    simulatedStrain: real("simulated_strain").notNull(),
+    tolerancePercent: real("tolerance_percent").notNull(),
+    passed: integer("passed", { mode: "boolean" }).notNull(),
+    note: text("note"),
+    checkedById: integer("checked_by_id").references(() => users.id, { onDelete: "set null" }),
+    checkedByLabel: text("checked_by_label").notNull(),
+    recordedAt: createdAt(),
+  },
+  (t) => [index("shunt_checks_gauge").on(t.gaugeId, t.time)],
+);
+
+export type ShuntCheck = typeof shuntChecks.$inferSelect;
 
 export const ROSETTE_LAYOUTS = ["rectangular", "delta"] as const;
 

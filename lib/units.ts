@@ -3,6 +3,8 @@
  * applied only when showing values.
  */
 
+import type { StressRating } from "@/lib/mechanics/stress-rating";
+
 /** 1 psi = 6 894.757 293 168 Pa (NIST SP 811, Appendix B; exact from the international pound and inch). */
 export const MPA_PER_KSI = 6.894757293168361;
 
@@ -75,6 +77,17 @@ export function formatInUnit(value: number | null | undefined, unit: DisplayUnit
 export function formatShareOfYield(ratio: number | null | undefined): string {
   if (ratio === null || ratio === undefined || !Number.isFinite(ratio)) return "—";
   return `${Math.round(ratio * 100)} % of yield`;
+}
+
+/**
+ * A stress rating in words: "87 % of yield", "42 % of f_ck in compression", or why concrete in
+ * tension has no figure; a dash when the material states no strength.
+ */
+export function formatStressRating(rating: StressRating | null | undefined): string {
+  if (!rating) return "—";
+  if (rating.basis === "yield") return formatShareOfYield(rating.ratio);
+  if (rating.ratio === null) return "not rated: concrete in tension cracks";
+  return Number.isFinite(rating.ratio) ? `${Math.round(rating.ratio * 100)} % of f_ck in compression` : "—";
 }
 
 export type UnitSystem = "si" | "us";

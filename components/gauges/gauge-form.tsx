@@ -12,6 +12,7 @@ import { DETAIL_CATEGORY_VALUES } from "@/lib/fatigue";
 import { CALIBRATION_FACTOR_LABEL, WIRE_GAUGE_FACTOR_UNIT, gaugeFactorLabel, inputName, inputUnit } from "@/lib/gauges/labels";
 import { BRIDGES, FOIL_INPUTS, MATERIALS, STEEL_WIRE_CTE, VIBRATING_WIRE_INPUTS } from "@/lib/mechanics";
 import { wallClockInputToIso } from "@/lib/time-format";
+import { formatStressRating } from "@/lib/units";
 
 export type GaugeFormMode = "register" | "edit" | "replace";
 
@@ -70,6 +71,7 @@ export function GaugeForm({ mode, structureCode, timeZone, initial, submit }: Pr
       "material.nu": String(material.nu),
       "material.alpha": String(material.alpha),
       "material.yield": "yield" in material ? String(material.yield) : "",
+      "material.compressiveStrength": "compressiveStrength" in material ? String(material.compressiveStrength) : "",
     }));
   }
 
@@ -216,9 +218,9 @@ export function GaugeForm({ mode, structureCode, timeZone, initial, submit }: Pr
                   {values.wiring
                     ? input("leadResistance", "Resistance of one lead", { unit: "Ω", hint: "Measured or from cable length; empty for no correction." })
                     : input("leadResistance", "Lead resistance in the gauge's arm", { unit: "Ω", hint: "Both leads for 2-wire, one for 3-wire; empty for no correction." })}
-                  {input("gaugeResistance", "Gauge resistance", { unit: "Ω", hint: "e.g. 120 or 350." })}
                 </>
               )}
+              {applies.gaugeResistance && input("gaugeResistance", "Gauge resistance", { unit: "Ω", hint: "e.g. 120 or 350; a shunt check needs it." })}
               {applies.excitationVoltage && input("excitationVoltage", "Bridge excitation", { unit: "V", hint: "As set in the logger, e.g. 2.5 or 5; empty if not known." })}
               {input("ratedRange", "Rated range", { unit: "µε", hint: "Either side of zero; readings beyond are flagged." })}
               {input("expectedInterval", "Expected interval between readings", { unit: "s", hint: "Used to tell when data stop arriving." })}
@@ -295,6 +297,10 @@ export function GaugeForm({ mode, structureCode, timeZone, initial, submit }: Pr
               {input("material.nu", "Poisson's ratio ν", { required: true })}
               {input("material.alpha", "Expansion coefficient α", { unit: "µε/°C", required: true })}
               {input("material.yield", "Yield / proportional limit", { unit: "MPa", hint: "Stresses beyond it are flagged; empty for concrete." })}
+              {input("material.compressiveStrength", "Concrete compressive strength f_ck", {
+                unit: "MPa",
+                hint: "Concrete only, empty for metals: utilisation is then compressive stress ÷ f_ck; tension is not rated.",
+              })}
               {input("initialStress", "Initial (dead-load) stress", { unit: "MPa", hint: "Present when the gauge was zeroed; added to computed stress." })}
               {select(
                 "detailCategory",
@@ -374,10 +380,10 @@ export function GaugeForm({ mode, structureCode, timeZone, initial, submit }: Pr
               )}
               <dt>Stress</dt>
               <dd className="text-right font-mono" data-testid="preview-stress">{format(preview.stress, 2)} MPa</dd>
-              {preview.utilisation !== null && (
+              {preview.rating !== null && (
                 <>
-                  <dt>Of yield</dt>
-                  <dd className="text-right font-mono">{format(preview.utilisation * 100, 1)} %</dd>
+                  <dt>Utilisation</dt>
+                  <dd className="text-right font-mono">{formatStressRating(preview.rating)}</dd>
                 </>
               )}
               {preview.flags.length > 0 && <dd className="col-span-2 text-xs font-medium text-warning">Flagged: {preview.flags.join(", ")}</dd>}

@@ -34,7 +34,9 @@ export function GaugeSummary({ gauge }: { gauge: GaugeView }) {
     ["Temperature compensation", thermalText(gauge)],
     ["Material", gauge.material.name ?? "—"],
     ["E / ν / α", `${num(gauge.material.E, "MPa")} / ${num(gauge.material.nu)} / ${num(gauge.material.alpha, "µε/°C")}`],
-    ["Yield", num(gauge.material.yield, "MPa")],
+    gauge.material.compressiveStrength
+      ? ["Compressive strength f_ck", num(gauge.material.compressiveStrength, "MPa")]
+      : ["Yield", num(gauge.material.yield, "MPa")],
     ["Initial stress", num(gauge.initialStress, "MPa")],
     ["Rated range", gauge.ratedRange ? `± ${num(gauge.ratedRange, "µε")}` : "—"],
     ["Expected interval", num(gauge.expectedInterval, "s")],

@@ -16,7 +16,8 @@ import { useUnits } from "@/components/units/units-context";
 import { cardClass, inputClass, tableClass, tdClass, thClass } from "@/components/ui/styles";
 import { bySeverity, type GaugeCondition } from "@/lib/alerting/condition";
 import { conditionText } from "@/lib/alerting/condition-display";
-import { inDisplayUnits } from "@/lib/units";
+import type { StressRating } from "@/lib/mechanics";
+import { formatStressRating, inDisplayUnits } from "@/lib/units";
 import { formatInTimeZone } from "@/lib/time-format";
 
 /** One row: the gauge, how it is read, and its latest converted reading (SI, as stored). */
@@ -31,7 +32,8 @@ export type GaugeTableRow = {
   time: number | null;
   strain: number | null;
   stress: number | null;
-  utilisation: number | null;
+  /** Latest stress against the material's yield or concrete's compressive strength. */
+  rating: StressRating | null;
   temperature: number | null;
 };
 
@@ -78,7 +80,13 @@ export function GaugeTable({ structureCode, timeZone, rows }: { structureCode: s
         header: `Stress (${stressUnit})`,
         cell: (info) => (info.getValue() === null ? "—" : fixed(inDisplayUnits(units, "stress", info.getValue()!).value, units === "us" ? 2 : 1)),
       }),
-      column.accessor("utilisation", { header: "Of yield (%)", cell: (info) => (info.getValue() === null ? "—" : fixed(info.getValue()! * 100, 0)) }),
+      // Sorted by the share; concrete in tension (no share) and gauges without a strength sort below every figure.
+      column.accessor((row) => row.rating?.ratio ?? -1, {
+        id: "utilisation",
+        header: "Utilisation",
+        meta: { cellClass: WRAPPED_CELL },
+        cell: (info) => formatStressRating(info.row.original.rating),
+      }),
       column.accessor("temperature", {
         header: `Temp. (${temperatureUnit})`,
         cell: (info) => (info.getValue() === null ? "—" : fixed(inDisplayUnits(units, "temperature", info.getValue()!).value, 1)),

@@ -1,3 +1,5 @@
+import { CONCRETE_CAUTION } from "@/lib/mechanics";
+
 /** The cautions every screen with results on it carries (linear elasticity, reference state, local codes); `children` adds a screen's own items first. */
 export function MonitoringCaution({ children }: { children?: React.ReactNode }) {
   return (
@@ -17,4 +19,9 @@ export function MonitoringCaution({ children }: { children?: React.ReactNode }) 
       </ul>
     </aside>
   );
+}
+
+/** The item a screen adds to its cautions when it shows a concrete gauge's utilisation. */
+export function ConcreteCaution() {
+  return <li data-testid="concrete-caution">{CONCRETE_CAUTION}</li>;
 }

@@ -20,6 +20,8 @@ import {
   rosetteListSchema,
   rosetteSchema,
   photoListSchema,
+  shuntCheckListSchema,
+  shuntCheckSchema,
   structureDetailSchema,
   structureListSchema,
   structureSchema,
@@ -37,7 +39,7 @@ import { certificateListSchema, certificateSchema, siteVisitPageSchema, siteVisi
 import { MAX_VISIT_PHOTOS, siteVisitInput, siteVisitQuery } from "@/lib/field-records/site-visits";
 import { PDF_TYPE } from "@/lib/storage/pdf-type";
 import { loadTestInput } from "@/lib/load-tests";
-import { gaugeInput, gaugePatch, rosetteInput, zeroRequest } from "@/lib/gauges/schema";
+import { gaugeInput, gaugePatch, rosetteInput, shuntCheckInput, zeroRequest } from "@/lib/gauges/schema";
 import { thermalFitPreviewSchema, thermalModelSchema } from "./thermal-schemas";
 import { thermalModelInput } from "@/lib/thermal/schema";
 import { acknowledgeBody, backtestBody, limitsBody, resolveFaultBody, rosetteBacktestBody, rosetteLimitsBody } from "@/lib/alerting/schema";
@@ -208,6 +210,23 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       parameters: [codeParameter, tagParameter],
       request: zeroRequest,
       response: { status: 200, schema: gaugeSchema, description: "The gauge with its new zero" },
+      errors: [400, 401, 403, 404, 409, 413, 415],
+    },
+  },
+  "/structures/{code}/gauges/{tag}/shunt-checks": {
+    get: {
+      summary: "The gauge's shunt-calibration checks, newest first",
+      parameters: [codeParameter, tagParameter],
+      response: { status: 200, schema: shuntCheckListSchema, description: "The checks" },
+      errors: [401, 404],
+    },
+    post: {
+      summary:
+        "Record a shunt-calibration check: the resistor placed across the gauge and the output change the logger showed; the expected output is computed from the gauge's bridge and judged against the tolerance. Refused (400) for a gauge that is not a foil bridge or has no gauge resistance recorded; nothing is stored then",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter, tagParameter],
+      request: shuntCheckInput,
+      response: { status: 201, schema: shuntCheckSchema, description: "The check with its expected output and verdict" },
       errors: [400, 401, 403, 404, 409, 413, 415],
     },
   },
@@ -770,7 +789,7 @@ function operationId(method: string, path: string) {
 /** Groups of operations in the reference, by the collection a path starts with (or the one under a structure). */
 const TAGS: Record<string, string> = {
   structures: "The monitored structures",
-  gauges: "A structure's strain gauges: configuration, zero, limits, readings, series, fatigue, photos and placement",
+  gauges: "A structure's strain gauges: configuration, zero, shunt checks, limits, readings, series, fatigue, photos and placement",
   rosettes: "Three gauges read together as a rosette: principal and von Mises stresses",
   alerts: "Limit and sensor alerts and their acknowledgement",
   drawings: "Elevations and plans the gauges are placed on",

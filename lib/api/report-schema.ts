@@ -53,9 +53,23 @@ export const reportGaugeSchema = z.object({
   strain: extremes("µε", "stress-producing strain"),
   temperature: extremes("°C", "temperature"),
   utilisationPeak: z
-    .object({ ratio: z.number().meta({ description: "max |σ| ÷ yield over the period (1 = at yield)" }), yield: z.number().meta({ description: "Yield stress, MPa" }) })
+    .discriminatedUnion("basis", [
+      z.object({
+        basis: z.literal("yield"),
+        ratio: z.number().meta({ description: "max |σ| ÷ yield over the period (1 = at yield)" }),
+        yield: z.number().meta({ description: "Yield stress, MPa" }),
+      }),
+      z.object({
+        basis: z.literal("compressive-strength"),
+        ratio: z
+          .number()
+          .nullable()
+          .meta({ description: "Concrete: largest compressive stress ÷ f_ck over the period (1 = at f_ck); null when it was only in tension, which is not rated" }),
+        compressiveStrength: z.number().meta({ description: "Characteristic compressive strength f_ck, MPa" }),
+      }),
+    ])
     .nullable()
-    .meta({ description: "null when the gauge's material has no yield stress or there were no readings" }),
+    .meta({ description: "null when the gauge's material has neither a yield nor a compressive strength, or there were no readings" }),
   gaps: z.object({
     list: z
       .array(z.object({ start: z.string(), end: z.string(), hours: z.number() }))

@@ -27,6 +27,7 @@ export const ROUTE_RULES = {
   "/structures/{code}/gauges/{tag}/placement": { PUT: "gauge:register" },
   "/structures/{code}/gauges/{tag}/readings": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/series": { GET: "structure:view" },
+  "/structures/{code}/gauges/{tag}/shunt-checks": { GET: "structure:view", POST: "shunt-check:record" },
   "/structures/{code}/gauges/{tag}/summaries": { GET: "structure:view" },
   "/structures/{code}/gauges/{tag}/thermal-model": { GET: "structure:view", PUT: "thermal-model:edit", DELETE: "thermal-model:edit" },
   "/structures/{code}/gauges/{tag}/thermal-model/fit": { POST: "structure:view" },

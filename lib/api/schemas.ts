@@ -73,6 +73,27 @@ export const fileSchema = z
 export const drawingListSchema = z.object({ drawings: z.array(fileSchema) }).meta({ id: "DrawingList" });
 export const photoListSchema = z.object({ photos: z.array(fileSchema) }).meta({ id: "PhotoList" });
 
+export const shuntCheckSchema = z
+  .object({
+    id: z.number().int(),
+    time: z.string().meta({ description: "When the shunt was applied, UTC" }),
+    shuntResistance: z.number().meta({ description: "Ω across the gauge" }),
+    measuredOutput: z.number().meta({ description: "Change of the logger's reading with the shunt applied, in `unit`" }),
+    expectedOutput: z.number().meta({
+      description: "What the bridge should show, in `unit`: the Wheatstone circuit with the shunted gauge arm at ΔR/R = −R_g²/((R_g + R_s)·(R_g + R_L)), from the gauge's configuration when the check was recorded",
+    }),
+    unit: z.string().meta({ description: "The gauge's input unit at the time: mV/V or microstrain" }),
+    simulatedStrain: z.number().meta({ description: "µε the shunt simulates, as the gauge's conversion reads the expected output" }),
+    differencePercent: z.number().meta({ description: "(measured − expected) ÷ expected, %" }),
+    tolerancePercent: z.number().meta({ description: "Pass band, % of the expected output" }),
+    passed: z.boolean().meta({ description: "Whether |difference| is within the tolerance" }),
+    checkedBy: z.string().meta({ description: "Who recorded it" }),
+    note: z.string().nullable(),
+  })
+  .meta({ id: "ShuntCheck" });
+
+export const shuntCheckListSchema = z.object({ shuntChecks: z.array(shuntCheckSchema).meta({ description: "Newest first" }) }).meta({ id: "ShuntCheckList" });
+
 export const gaugeFatigueSchema = z
   .object({
     cycles: z

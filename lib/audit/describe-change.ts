@@ -77,6 +77,9 @@ const BRIDGE_WORDS: Record<string, string> = {
 
 const rawValue = (value: unknown, context: Json) => `${number(value)} ${inputUnit(String(context.input ?? ""))}`.trim();
 
+/** A shunt check's outputs are in the gauge's input unit at the time, recorded beside them. */
+const shuntOutput = (value: unknown, context: Json) => `${number(value)} ${inputUnit(String(context["shuntCheck.unit"] ?? ""))}`.trim();
+
 const FIELDS: Record<string, FieldWording> = {
   tag: { name: "Tag" },
   label: { name: "Location" },
@@ -98,6 +101,7 @@ const FIELDS: Record<string, FieldWording> = {
   "material.nu": { name: "Poisson's ratio ν" },
   "material.alpha": { name: "Expansion coefficient α", show: withUnit("µε/°C") },
   "material.yield": { name: "Yield", show: withUnit("MPa") },
+  "material.compressiveStrength": { name: "Compressive strength f_ck", show: withUnit("MPa") },
   initialStress: { name: "Initial stress", show: withUnit("MPa") },
   "zero.value": { name: "Zero reading", show: rawValue },
   "zero.temperature": { name: "Temperature at zero", show: withUnit("°C") },
@@ -115,10 +119,16 @@ const FIELDS: Record<string, FieldWording> = {
   source: { name: "Zero taken from" },
   replaces: { name: "Replaces gauge" },
   replacedBy: { name: "Replaced by gauge" },
+  "shuntCheck.unit": { name: "Shunt check read in", show: (value) => inputName(String(value)) },
+  "shuntCheck.shuntResistance": { name: "Shunt resistance", show: withUnit("Ω") },
+  "shuntCheck.measuredOutput": { name: "Measured output", show: shuntOutput },
+  "shuntCheck.expectedOutput": { name: "Expected output", show: shuntOutput },
+  "shuntCheck.tolerancePercent": { name: "Tolerance", show: withUnit("%") },
+  "shuntCheck.result": { name: "Result" },
 };
 
 /** Objects whose fields change one by one; other objects (thermal, limits) read as one value. */
-const NESTED = new Set(["material", "zero", "drawing"]);
+const NESTED = new Set(["material", "zero", "drawing", "shuntCheck"]);
 
 function flatten(value: unknown): Json {
   if (!value || typeof value !== "object" || Array.isArray(value)) return {};
@@ -176,6 +186,7 @@ const ACTION_WORDS: Record<string, string> = {
   "gauge.place": "placed on a drawing",
   "gauge.photo.upload": "photo added",
   "gauge.photo.delete": "photo removed",
+  "gauge.shunt-check": "shunt check",
   "limits.replace": "limits saved",
   "rosette.create": "rosette grouped",
 };

@@ -6,6 +6,7 @@ export const ACTIONS = {
   "structure:create": "Create a structure",
   "gauge:register": "Register and edit gauges, photos and drawings",
   "zero:record": "Record a zero (reference) reading",
+  "shunt-check:record": "Record shunt-calibration checks of a gauge's bridge",
   "readings:ingest": "Send or upload readings",
   "limits:edit": "Change limits",
   "thermal-model:edit": "Fit, save and remove gauges' thermal models",
@@ -26,6 +27,7 @@ const STRUCTURE_SCOPED: ReadonlySet<Action> = new Set<Action>([
   "structure:view",
   "gauge:register",
   "zero:record",
+  "shunt-check:record",
   "readings:ingest",
   "limits:edit",
   "thermal-model:edit",
@@ -46,6 +48,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "structure:create",
     "gauge:register",
     "zero:record",
+    "shunt-check:record",
     "readings:ingest",
     "limits:edit",
     "thermal-model:edit",
@@ -55,7 +58,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "token:manage",
     "audit:view",
   ]),
-  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "readings:ingest", "field-record:add"]),
+  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "shunt-check:record", "readings:ingest", "field-record:add"]),
   owner: new Set<Action>(["structure:view"]),
 };
 

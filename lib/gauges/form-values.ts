@@ -33,6 +33,7 @@ export function formValuesOf(gauge: Partial<GaugeFields>): GaugeFormValues {
     "material.nu": text(gauge.material?.nu),
     "material.alpha": text(gauge.material?.alpha),
     "material.yield": text(gauge.material?.yield),
+    "material.compressiveStrength": text(gauge.material?.compressiveStrength),
     initialStress: text(gauge.initialStress ?? 0),
     "zero.value": text(gauge.zero?.value),
     "zero.temperature": text(gauge.zero?.temperature),
@@ -89,6 +90,8 @@ export function applicableFields(values: GaugeFormValues) {
     loggerGaugeFactor: foil && values.input === "microstrain",
     calibrationFactor: !foil,
     leadResistances: bridged && values.bridge === "quarter",
+    // Any bridge: a shunt check needs the resistance of the gauge it shunts.
+    gaugeResistance: bridged,
     excitationVoltage: foil,
     coefficients: values["thermal.method"] === "polynomial",
     gaugeCte: values["thermal.method"] === "cte",
@@ -134,7 +137,7 @@ export function gaugePayloadOf(values: GaugeFormValues) {
     polarity: numberOrText(values.polarity),
     wiring: applies.leadResistances ? values.wiring || null : null,
     leadResistance: applies.leadResistances ? (numberOrText(values.leadResistance) ?? null) : null,
-    gaugeResistance: applies.leadResistances ? (numberOrText(values.gaugeResistance) ?? null) : null,
+    gaugeResistance: applies.gaugeResistance ? (numberOrText(values.gaugeResistance) ?? null) : null,
     excitationVoltage: applies.excitationVoltage ? (numberOrText(values.excitationVoltage) ?? null) : null,
     thermal: thermalOf(values),
     material: {
@@ -143,6 +146,7 @@ export function gaugePayloadOf(values: GaugeFormValues) {
       nu: numberOrText(values["material.nu"]),
       alpha: numberOrText(values["material.alpha"]),
       yield: numberOrText(values["material.yield"]) ?? null,
+      compressiveStrength: numberOrText(values["material.compressiveStrength"]) ?? null,
     },
     initialStress: numberOrText(values.initialStress) ?? 0,
     zero: {

@@ -1,8 +1,8 @@
-import { flagWords, prepareGauge } from "@/lib/mechanics";
+import { flagWords, prepareGauge, rateStress, type StressRating } from "@/lib/mechanics";
 import { gaugeInput, toGaugeConfig } from "./schema";
 
 export type ConversionPreview =
-  | { ok: true; indicatedStrain: number; strain: number; totalStrain: number | null; stress: number; utilisation: number | null; flags: string[] }
+  | { ok: true; indicatedStrain: number; strain: number; totalStrain: number | null; stress: number; rating: StressRating | null; flags: string[] }
   | { ok: false; message: string };
 
 /** The form's fields in words, as the preview names what it still needs. */
@@ -24,6 +24,7 @@ const FIELD_WORDS: Record<string, string> = {
   "material.nu": "Poisson's ratio",
   "material.alpha": "material's expansion coefficient",
   "material.yield": "yield",
+  "material.compressiveStrength": "compressive strength",
   initialStress: "initial stress",
   "zero.value": "zero reading",
   "zero.temperature": "temperature at zero",
@@ -56,7 +57,8 @@ export function previewConversion(payload: Record<string, unknown>, sampleValue:
     const issue = parsed.error.issues[0]!;
     return { ok: false, message: problemInWords(withTag, issue.path, issue.message) };
   }
-  const gauge = prepareGauge(toGaugeConfig(parsed.data));
+  const config = toGaugeConfig(parsed.data);
+  const gauge = prepareGauge(config);
   if (!gauge.ok) return { ok: false, message: gauge.message };
   const result = gauge.convert(sampleValue, sampleTemperature);
   if (!result.ok) return { ok: false, message: result.message };
@@ -66,7 +68,7 @@ export function previewConversion(payload: Record<string, unknown>, sampleValue:
     strain: result.strain,
     totalStrain: result.totalStrain,
     stress: result.stress,
-    utilisation: result.utilisation,
+    rating: rateStress(result.stress, config.material),
     flags: flagWords(result.flags),
   };
 }

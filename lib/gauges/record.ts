@@ -47,7 +47,12 @@ export function gaugeFieldsOf(row: Gauge): GaugeFields {
     gaugeResistance: row.gaugeResistance,
     excitationVoltage: row.excitationVoltage,
     thermal: row.thermal,
-    material: { ...row.material, name: row.material.name ?? undefined, yield: row.material.yield ?? null },
+    material: {
+      ...row.material,
+      name: row.material.name ?? undefined,
+      yield: row.material.yield ?? null,
+      compressiveStrength: row.material.compressiveStrength ?? null,
+    },
     initialStress: row.initialStress,
     zero: { value: row.zeroValue, temperature: row.zeroTemperature, time: row.zeroTime.toISOString() },
     expectedInterval: row.expectedInterval,

@@ -29,6 +29,8 @@ export const PLAUSIBLE = {
   poisson: { min: 0.05, max: 0.49 },
   /** MPa: up to prestressing strand, about 1 860. */
   yield: { min: 1, max: 2_500 },
+  /** MPa: EN 1992-1-1 classes run from C12/15 to C90/105; 150 leaves room for ultra-high-performance mixes. */
+  compressiveStrength: { min: 5, max: 150 },
   /** Metallic foil and wire gauges: about 2.0 (constantan, Karma) to 3.6 (isoelastic alloy). */
   foilGaugeFactor: { min: 1, max: 5 },
   /** Vibrating-wire gauge constants are a fraction of a µε to a few µε per digit. */
@@ -39,6 +41,8 @@ export const PLAUSIBLE = {
   leadResistance: { min: 0, max: 200 },
   /** V: bridge excitation of strain-gauge loggers is about 0.5 to 10 V (common practice); 25 V leaves room for unusual units. */
   excitationVoltage: { min: 0.1, max: 25 },
+  /** Ω: calibration shunts are about 10 kΩ to 1 MΩ (common practice); a shunt near the gauge's own resistance would simulate tens of thousands of µε. */
+  shuntResistance: { min: 1_000, max: 100_000_000 },
 } as const;
 
 const within = (range: { min: number; max: number }, what: string) =>
@@ -56,6 +60,13 @@ export const materialInput = z.object({
   nu: within(PLAUSIBLE.poisson, "Poisson's ratio of structural materials"),
   alpha: number.refine((v) => Math.abs(v) < 100, "Expansion coefficient in µε/°C; structural materials lie well under 100."),
   yield: optional(within(PLAUSIBLE.yield, "The yield in MPa")).meta({ description: "Yield or proportional limit, MPa" }),
+  // Optional in the output too: gauges stored before it was asked for, and every metal, have none.
+  compressiveStrength: within(PLAUSIBLE.compressiveStrength, "The concrete's compressive strength in MPa").nullish().meta({
+    description: "Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated",
+  }),
+}).refine((material) => material.yield === null || material.compressiveStrength == null, {
+  message: "Give a yield (steel, aluminium) or a compressive strength (concrete), not both.",
+  path: ["compressiveStrength"],
 });
 
 export const thermalInput = z.discriminatedUnion(
@@ -249,6 +260,26 @@ export const zeroRequest = z.union([
   zeroInput.extend({ reason: optionalText(500) }),
 ]).meta({ id: "ZeroInput" });
 export type ZeroRequest = z.output<typeof zeroRequest>;
+
+/** 1 % of the expected output is the usual acceptance band of a shunt check (common practice). */
+export const DEFAULT_SHUNT_TOLERANCE_PERCENT = 1;
+
+export const shuntCheckInput = z
+  .object({
+    shuntResistance: within(PLAUSIBLE.shuntResistance, "The shunt resistance in Ω").meta({ description: "Ω of the resistor placed across the gauge" }),
+    // A dead channel reading 0 is a real, failed check; beyond 100 000 (µε or mV/V) is a typing error.
+    measuredOutput: number.refine((v) => Math.abs(v) <= 100_000, "The measured output change lies within ±100,000 of the gauge's input unit.").meta({
+      description: "Change of the logger's reading when the shunt was applied, in the gauge's input unit (mV/V, or µε for a logger that reports microstrain)",
+    }),
+    tolerancePercent: number
+      .refine((v) => v > 0 && v <= 50, "A tolerance above 0 and at most 50 % of the expected output.")
+      .default(DEFAULT_SHUNT_TOLERANCE_PERCENT)
+      .meta({ description: "Pass band, % of the expected output (default 1, common practice)" }),
+    time: isoTime.optional().meta({ description: "When the shunt was applied; default now" }),
+    note: optionalText(500),
+  })
+  .meta({ id: "ShuntCheckInput" });
+export type ShuntCheckInput = z.output<typeof shuntCheckInput>;
 
 export const rosetteInput = z.object({
   tag: gaugeTag,

@@ -45,13 +45,15 @@ export type ThermalCompensation =
    */
   | { method: "cte"; gaugeCte?: number | null };
 
-/** Host material. E in MPa, alpha in µε/°C, yield in MPa. */
+/** Host material. E in MPa, alpha in µε/°C, yield and compressive strength in MPa. */
 export interface Material {
   name?: string;
   E: number;
   nu: number;
   alpha: number;
   yield?: number | null;
+  /** Concrete: characteristic cylinder strength f_ck (EN 1992-1-1) or specified f'c (ACI 318). */
+  compressiveStrength?: number | null;
 }
 
 /** The reference reading: strain is measured from this state. */

@@ -13,7 +13,17 @@ export { prepareGauge, type Conversion, type ConversionResult, type GaugeConvert
 export type { GaugeConfigErrorCode, ReadingErrorCode } from "./errors";
 export type { Failure, Result } from "./result";
 export { Flag, flagWords, isOutOfRange, type FlagWord } from "./validity";
-export { MATERIALS, concreteModulus, normalWeightConcrete, type MaterialId } from "./materials";
+export {
+  EN_CONCRETE_CLASSES,
+  MATERIALS,
+  concreteMeanModulus,
+  concreteModulus,
+  concreteOfClass,
+  normalWeightConcrete,
+  type ConcreteClass,
+  type MaterialId,
+} from "./materials";
+export { CONCRETE_CAUTION, peakRating, rateStress, type RatingBasis, type StressRating } from "./stress-rating";
 export {
   ROSETTE_LAYOUTS,
   analyseRosette,

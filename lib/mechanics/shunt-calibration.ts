@@ -8,8 +8,15 @@ export type ShuntCalibrationErrorCode = "not-a-foil-bridge" | "gauge-resistance-
 export interface ShuntCalibrationExpectation {
   /** ΔR/R of the shunted arm (negative: a shunt lowers the arm's resistance, as compression does). */
   armResistanceChange: number;
-  /** mV/V the logger should show, polarity applied. */
+  /** mV/V the bridge should show, polarity applied. */
   expectedOutput: number;
+  /**
+   * Change the logger should show in the gauge's input unit: the mV/V above, or for a logger that
+   * reports microstrain the strain it computes from that output with its own gauge factor and the
+   * same arrangement (lead correction not applied: the logger does not know the leads). The gauge's
+   * conversion reads this value back as `equivalentStrain`.
+   */
+  expectedReading: number;
   /** µε the gauge's own conversion gives that output: the strain the shunt simulates. */
   equivalentStrain: number;
 }
@@ -42,11 +49,14 @@ export function expectedShuntOutput(
   const bridgeOutput = bridgeOutputFor("quarter")(armResistanceChange, config.material.nu);
   const polarity = config.polarity ?? 1;
   const lead = armLead > 0 ? leadWireCorrection(armLead, gaugeResistance) : 1;
+  const expectedOutput = 1000 * polarity * bridgeOutput;
+  const loggerGaugeFactor = config.loggerGaugeFactor ?? config.gaugeFactor;
   return {
     ok: true,
     value: {
       armResistanceChange,
-      expectedOutput: 1000 * polarity * bridgeOutput,
+      expectedOutput,
+      expectedReading: config.input === "microstrain" ? formula(polarity * bridgeOutput, loggerGaugeFactor, config.material.nu) / MICRO : expectedOutput,
       equivalentStrain: (lead * formula(bridgeOutput, config.gaugeFactor, config.material.nu)) / MICRO,
     },
   };

@@ -1,7 +1,7 @@
 import type { ReportAlert, ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatScientific } from "@/lib/fatigue";
 import { formatInTimeZone } from "@/lib/time-format";
-import { formatForDisplay, formatMicrostrain, formatShareOfYield, type UnitSystem } from "@/lib/units";
+import { formatForDisplay, formatMicrostrain, formatShareOfYield, formatStressRating, type UnitSystem } from "@/lib/units";
 import { STATE_LOOK, conditionText, faultWord } from "@/lib/alerting/condition-display";
 import { formatHours } from "./gaps";
 import { formatPercent } from "./status";
@@ -20,8 +20,12 @@ function formatExtremes(extremes: { min: number; max: number } | null, format: (
 
 export function formatUtilisation(gauge: Pick<ReportGauge, "utilisationPeak" | "stress">, units: UnitSystem): string {
   const peak = gauge.utilisationPeak;
-  if (peak) return `${formatShareOfYield(peak.ratio)} (${formatForDisplay(units, "stress", peak.yield)})`;
-  return gauge.stress ? "no yield stress set for the material" : "no readings";
+  if (peak?.basis === "yield") return `${formatShareOfYield(peak.ratio)} (${formatForDisplay(units, "stress", peak.yield)})`;
+  if (peak) {
+    const rating = formatStressRating({ basis: peak.basis, ratio: peak.ratio, strength: peak.compressiveStrength });
+    return `${rating} (f_ck ${formatForDisplay(units, "stress", peak.compressiveStrength)})`;
+  }
+  return gauge.stress ? "no yield or compressive strength set for the material" : "no readings";
 }
 
 function formatReadings(readings: ReportGauge["readings"], intervalS?: number): string {

@@ -151,7 +151,7 @@ export async function createGauge(actor: Actor, code: string, input: GaugeInput)
   return getGauge(actor, code, input.tag);
 }
 
-function refuseIfRetired(gauge: Gauge) {
+export function refuseIfRetired(gauge: Gauge) {
   if (gauge.status === "retired") {
     throw new AppError("conflict", `Gauge "${gauge.tag}" is retired; its record is kept as it was.`);
   }

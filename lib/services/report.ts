@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, gt, gte, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { alertEvents, alerts, readings, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
+import { CONCRETE_CAUTION, peakRating, type StressRating } from "@/lib/mechanics";
 import { Flag } from "@/lib/mechanics/validity";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
 import type { ReportAlert, ReportDrawing, ReportGauge, StructureReport } from "@/lib/api/report-schema";
@@ -149,7 +150,6 @@ function gaugeSection(gauge: Gauge, { chart, totals: allTotals, believed, span, 
     intervalS,
   );
   const listed = firstOf(gaps, GAPS_LISTED);
-  const yieldStress = gauge.material.yield ?? null;
   const totals = believed ?? allTotals;
   const has = totals !== undefined && Number(totals.count) > 0;
   return {
@@ -168,8 +168,7 @@ function gaugeSection(gauge: Gauge, { chart, totals: allTotals, believed, span, 
       has && totals.temperatureMin !== null && totals.temperatureMax !== null
         ? { min: totals.temperatureMin, max: totals.temperatureMax, unit: "°C" }
         : null,
-    utilisationPeak:
-      has && yieldStress ? { ratio: Math.max(Math.abs(totals.stressMin), Math.abs(totals.stressMax)) / yieldStress, yield: yieldStress } : null,
+    utilisationPeak: has ? utilisationPeakOf(peakRating(totals.stressMin, totals.stressMax, gauge.material)) : null,
     gaps: {
       list: listed.shown.map((gap) => ({ start: iso(gap.start), end: iso(gap.end), hours: gap.hours })),
       more: listed.more,
@@ -224,6 +223,13 @@ const readingShare = (received: number, expected: number) => ({
   completeness: completeness(received, expected),
   surplus: Math.max(0, received - expected),
 });
+
+function utilisationPeakOf(rating: StressRating | null): ReportGauge["utilisationPeak"] {
+  if (!rating) return null;
+  return rating.basis === "yield"
+    ? { basis: "yield", ratio: rating.ratio!, yield: rating.strength }
+    : { basis: "compressive-strength", ratio: rating.ratio, compressiveStrength: rating.strength };
+}
 
 const ALERT_UNITS: Record<string, string> = { stress: "MPa", strain: "µε", utilisation: "ratio" };
 
@@ -367,6 +373,6 @@ export async function structureReport(actor: Actor, code: string, requested?: Pe
     alerts: reportAlerts,
     drawings: (await listDrawings(actor, code)).map(drawingOf),
     loadTests: await loadTestsOfPeriod(structure, span),
-    cautions: REPORT_CAUTIONS,
+    cautions: gauges.some((gauge) => gauge.utilisationPeak?.basis === "compressive-strength") ? [...REPORT_CAUTIONS, CONCRETE_CAUTION] : REPORT_CAUTIONS,
   };
 }

@@ -4,12 +4,14 @@ import { getDb } from "@/db/client";
 import { alerts, gaugeLimits, gauges, readings, rollups, type Gauge, type Structure } from "@/db/schema";
 import { gaugeCondition, worstCondition, type ConditionState, type GaugeCondition } from "@/lib/alerting/condition";
 import { DEFAULT_EXPECTED_INTERVAL_S, isStale } from "@/lib/alerting/gauge-state";
+import { rateStress, type StressRating } from "@/lib/mechanics";
 import { ROLLUP_RESOLUTIONS } from "@/lib/series";
 import { gaugeRowsOf, listGauges, resolveGauge } from "./gauges";
 import { getVisibleStructure } from "./structures";
 import type { Actor } from "@/lib/auth/actor";
 
-export type LatestReading = { time: number; strain: number; stress: number; temperature: number | null; utilisation: number | null; flags: number };
+/** `rating` is the stress against the material's yield or, for concrete, its compressive strength. */
+export type LatestReading = { time: number; strain: number; stress: number; temperature: number | null; rating: StressRating | null; flags: number };
 
 export type GaugeStatus = {
   tag: string;
@@ -23,16 +25,13 @@ export type GaugeStatus = {
   openAlerts: number;
 };
 
-const withUtilisation = (gauge: Gauge, row: Omit<LatestReading, "utilisation">): LatestReading => {
-  const yieldStress = gauge.material.yield ?? null;
-  return { ...row, utilisation: yieldStress ? Math.abs(row.stress) / yieldStress : null };
-};
+const withRating = (gauge: Gauge, row: Omit<LatestReading, "rating">): LatestReading => ({ ...row, rating: rateStress(row.stress, gauge.material) });
 
 /** One gauge's latest reading, for pages about that gauge alone. */
 export async function latestReadingOf(actor: Actor, code: string, tag: string): Promise<LatestReading | null> {
   const { gauge } = await resolveGauge(actor, code, tag, "structure:view");
   const latest = (await readingEnds(eq(gauges.id, gauge.id))).get(gauge.id)?.latest;
-  return latest ? withUtilisation(gauge, latest) : null;
+  return latest ? withRating(gauge, latest) : null;
 }
 
 /**
@@ -119,7 +118,7 @@ async function statusesOf(structureIds: number[], gaugeRows: Gauge[], now: numbe
   ]);
   const statuses = gaugeRows.map((gauge): GaugeStatus => {
     const end = ends.get(gauge.id);
-    const latest = end?.latest ? withUtilisation(gauge, end.latest) : null;
+    const latest = end?.latest ? withRating(gauge, end.latest) : null;
     const condition = gaugeCondition({
       openLimitAlerts: open.limitAlerts(gauge.id),
       openSensorAlerts: open.sensorFaults(gauge.id),

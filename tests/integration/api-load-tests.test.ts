@@ -140,11 +140,12 @@ describe("load tests through the API", () => {
     const period = { month: { year: 2026, month: 6 } };
     const report = await structureReport(team.users.owner, "LT", period, new Date(Date.UTC(2026, 6, 2)));
     expect(report.loadTests.map((test) => test.id)).toContain(id);
-    const pdf = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText();
+    // Read as printed: pdf.js would otherwise turn the micro sign µ into the Greek letter μ.
+    const pdf = await new PDFParse({ data: new Uint8Array(await renderReportPdf(report)) }).getText({ disableNormalization: true });
     const text = pdf.text.replace(/\s+/g, " ");
     expect(text).toContain("Load test: Static test, truck at midspan");
-    expect(text).toContain("S1: measured 120.0 microstrain from a baseline of 40.0 microstrain, predicted 100.0 microstrain, ratio 1.20.");
-    expect(text).toContain("S3: predicted 50.0 microstrain. No data in window");
+    expect(text).toContain("S1: measured 120.0 µε from a baseline of 40.0 µε, predicted 100.0 µε, ratio 1.20.");
+    expect(text).toContain("S3: predicted 50.0 µε. No data in window");
     const july = await structureReport(team.users.owner, "LT", { month: { year: 2026, month: 7 } }, new Date(Date.UTC(2026, 7, 2)));
     expect(july.loadTests).toEqual([]);
   });

@@ -52,7 +52,7 @@ describe("structure summaries in one batch", () => {
       ["A", 50],
       ["B", 10],
     ]);
-    expect(statuses[0]!.latest!.utilisation).toBeCloseTo(50 / YIELD, 12);
+    expect(statuses[0]!.latest!.rating).toEqual({ basis: "yield", strength: YIELD, ratio: expect.closeTo(50 / YIELD, 12) });
   });
 
   it("asks the database the same number of times for one structure as for several", async () => {

@@ -93,6 +93,15 @@ function corpus(): Case[] {
   for (const zero of [{ value: "NaN", temperature: 10, time: "2026-01-01T00:00:00Z" }, { value: 1, temperature: 10, time: far[0] }, { value: 1, temperature: "warm", time: "2026-01-01T00:00:00Z" }, { fromReadings: 0 }, { fromReadings: -3 }, { fromReadings: 1.5 }, { fromReadings: 1e308 }, {}])
     add({ label: `zero ${json(zero)}`, method: "POST", path: `${G}/LC-M1/zero`, body: json(zero) });
 
+  // Shunt checks: bad numbers, and gauges the check does not apply to (TC-M1 reports microstrain with
+  // no bridge recorded; LC-Q1 is a full bridge without its gauge resistance).
+  const shunt = { shuntResistance: 174_650, measuredOutput: -0.52 };
+  for (const check of [{}, { ...shunt, shuntResistance: 0 }, { ...shunt, shuntResistance: -174_650 }, { ...shunt, shuntResistance: 1e308 }, { ...shunt, shuntResistance: "174650" }, { ...shunt, measuredOutput: null }, { ...shunt, tolerancePercent: 0 }, { ...shunt, tolerancePercent: 500 }, { ...shunt, time: far[0] }, { ...shunt, time: "9999-12-31T23:59:59Z" }, { ...shunt, note: 5 }])
+    add({ label: `shunt check ${json(check)}`, method: "POST", path: `${G}/LC-M1/shunt-checks`, body: json(check) });
+  // −0 is a reading a dead channel can give: a real (failed) check, so not in this corpus.
+  for (const raw of numbersJson.filter((raw) => raw !== "-0")) add({ label: `shunt check measured ${raw}`, method: "POST", path: `${G}/LC-M1/shunt-checks`, body: json(shunt).replace('"measuredOutput":-0.52', `"measuredOutput":${raw}`) });
+  for (const tag of ["TC-M1", "LC-Q1"]) add({ label: `shunt check on ${tag}`, method: "POST", path: `${G}/${tag}/shunt-checks`, body: json(shunt) });
+
   // Readings: each bad on its own; the request stores none of them.
   const readings = `${S}/MILL-FB/readings`;
   for (const time of far) add({ label: `reading at ${time}`, method: "POST", path: readings, perReading: true, body: json({ readings: [{ gauge: "LC-M1", time, value: 0.1, temperature: 10 }] }) });

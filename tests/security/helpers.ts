@@ -57,7 +57,7 @@ export async function expectContractError(response: Response, label: string): Pr
  * row counts of the time series. Tables the background jobs write on their own (alerts raised by
  * the stale watch, the outbox, leases, roll-ups, token last-use) are left out.
  */
-const CONTENT_TABLES = ["users", "structures", "structure_members", "gauges", "zero_readings", "rosettes", "files", "gauge_limits", "rosette_limits", "load_tests", "load_test_predictions", "thermal_models", "calibration_certificates", "site_visits", "site_visit_gauges", "site_visit_photos"];
+const CONTENT_TABLES = ["users", "structures", "structure_members", "gauges", "zero_readings", "rosettes", "files", "gauge_limits", "rosette_limits", "load_tests", "load_test_predictions", "thermal_models", "shunt_checks", "calibration_certificates", "site_visits", "site_visit_gauges", "site_visit_photos"];
 const COUNTED_TABLES = ["readings", "audit_log", "api_tokens"];
 
 export async function storedFingerprint(): Promise<string> {

@@ -12,6 +12,8 @@ const EXPECTED: Record<Action, Record<Role, boolean>> = {
   "structure:create": { admin: true, engineer: true, technician: false, owner: false },
   "gauge:register": { admin: true, engineer: true, technician: true, owner: false },
   "zero:record": { admin: true, engineer: true, technician: true, owner: false },
+  // Checking a gauge's bridge with a shunt is field work beside the zero reading (the shunt-check issue).
+  "shunt-check:record": { admin: true, engineer: true, technician: true, owner: false },
   "readings:ingest": { admin: true, engineer: true, technician: true, owner: false },
   "limits:edit": { admin: true, engineer: true, technician: false, owner: false },
   "thermal-model:edit": { admin: true, engineer: true, technician: false, owner: false },

@@ -103,6 +103,27 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/gauges/{tag}/shunt-checks": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The gauge's shunt-calibration checks, newest first */
+        get: operations["getStructuresByCodeGaugesByTagShuntChecks"];
+        put?: never;
+        /**
+         * Record a shunt-calibration check: the resistor placed across the gauge and the output change the logger showed; the expected output is computed from the gauge's bridge and judged against the tolerance. Refused (400) for a gauge that is not a foil bridge or has no gauge resistance recorded; nothing is stored then
+         * @description Roles: admin, engineer, technician.
+         */
+        post: operations["postStructuresByCodeGaugesByTagShuntChecks"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/structures/{code}/gauges/{tag}/limits": {
         parameters: {
             query?: never;
@@ -1102,6 +1123,8 @@ export interface components {
                 alpha: number;
                 /** @description Yield or proportional limit, MPa */
                 yield?: number | null;
+                /** @description Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated */
+                compressiveStrength?: number | null;
             };
             /**
              * @description MPa
@@ -1207,6 +1230,8 @@ export interface components {
                 alpha: number;
                 /** @description Yield or proportional limit, MPa */
                 yield?: number | null;
+                /** @description Concrete: characteristic cylinder strength f_ck (or specified f'c), MPa; utilisation is then compressive stress ÷ this, and tension is not rated */
+                compressiveStrength?: number | null;
             };
             /**
              * @description MPa
@@ -1540,6 +1565,51 @@ export interface components {
             mean: number[];
             count: number[];
         };
+        ShuntCheck: {
+            id: number;
+            /** @description When the shunt was applied, UTC */
+            time: string;
+            /** @description Ω across the gauge */
+            shuntResistance: number;
+            /** @description Change of the logger's reading with the shunt applied, in `unit` */
+            measuredOutput: number;
+            /** @description What the bridge should show, in `unit`: the Wheatstone circuit with the shunted gauge arm at ΔR/R = −R_g²/((R_g + R_s)·(R_g + R_L)), from the gauge's configuration when the check was recorded */
+            expectedOutput: number;
+            /** @description The gauge's input unit at the time: mV/V or microstrain */
+            unit: string;
+            /** @description µε the shunt simulates, as the gauge's conversion reads the expected output */
+            simulatedStrain: number;
+            /** @description (measured − expected) ÷ expected, % */
+            differencePercent: number;
+            /** @description Pass band, % of the expected output */
+            tolerancePercent: number;
+            /** @description Whether |difference| is within the tolerance */
+            passed: boolean;
+            /** @description Who recorded it */
+            checkedBy: string;
+            note: string | null;
+        };
+        ShuntCheckInput: {
+            /** @description Ω of the resistor placed across the gauge */
+            shuntResistance: number;
+            /** @description Change of the logger's reading when the shunt was applied, in the gauge's input unit (mV/V, or µε for a logger that reports microstrain) */
+            measuredOutput: number;
+            /**
+             * @description Pass band, % of the expected output (default 1, common practice)
+             * @default 1
+             */
+            tolerancePercent?: number;
+            /**
+             * Format: date-time
+             * @description When the shunt was applied; default now
+             */
+            time?: string;
+            note?: string;
+        };
+        ShuntCheckList: {
+            /** @description Newest first */
+            shuntChecks: components["schemas"]["ShuntCheck"][];
+        };
         SiteVisit: {
             id: number;
             /** @description UTC, ISO-8601 with milliseconds */
@@ -1729,13 +1799,22 @@ export interface components {
                     /** @constant */
                     unit: "°C";
                 } | null;
-                /** @description null when the gauge's material has no yield stress or there were no readings */
-                utilisationPeak: {
+                /** @description null when the gauge's material has neither a yield nor a compressive strength, or there were no readings */
+                utilisationPeak: ({
+                    /** @constant */
+                    basis: "yield";
                     /** @description max |σ| ÷ yield over the period (1 = at yield) */
                     ratio: number;
                     /** @description Yield stress, MPa */
                     yield: number;
-                } | null;
+                } | {
+                    /** @constant */
+                    basis: "compressive-strength";
+                    /** @description Concrete: largest compressive stress ÷ f_ck over the period (1 = at f_ck); null when it was only in tension, which is not rated */
+                    ratio: number | null;
+                    /** @description Characteristic compressive strength f_ck, MPa */
+                    compressiveStrength: number;
+                }) | null;
                 gaps: {
                     /** @description Runs of whole hours without readings (longer than the expected interval), oldest first, at most 10; start and end UTC */
                     list: {
@@ -2439,6 +2518,141 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["Gauge"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Conflict with what is stored */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeGaugesByTagShuntChecks: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The checks */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ShuntCheckList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeGaugesByTagShuntChecks: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Gauge tag */
+                tag: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ShuntCheckInput"];
+            };
+        };
+        responses: {
+            /** @description The check with its expected output and verdict */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ShuntCheck"];
                 };
             };
             /** @description Malformed or invalid request */

@@ -22,6 +22,16 @@ describe("audit trail in words", () => {
     expect(changes).toContainEqual({ field: "Why", from: "—", to: "after repair" });
   });
 
+  it("reads a shunt check in words, its outputs in the gauge's input unit", () => {
+    const changes = describeChange(undefined, {
+      shuntCheck: { unit: "mV/V", shuntResistance: 174_650, measuredOutput: 0.4963, expectedOutput: 0.499215, tolerancePercent: 1, result: "passed" },
+    });
+    expect(changes).toContainEqual({ field: "Shunt resistance", from: "—", to: "174,650 Ω" });
+    expect(changes).toContainEqual({ field: "Measured output", from: "—", to: "0.4963 mV/V" });
+    expect(changes).toContainEqual({ field: "Expected output", from: "—", to: "0.499215 mV/V" });
+    expect(changes).toContainEqual({ field: "Result", from: "—", to: "passed" });
+  });
+
   it("reads a change of sampling mode in words, not as stored JSON", () => {
     const [change] = describeChange(
       { sampling: { mode: "static" } },

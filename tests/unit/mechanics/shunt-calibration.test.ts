@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { expectedShuntOutput, shuntCheckVerdict } from "@/lib/mechanics/shunt-calibration";
-import { expectClose, foilGauge, vibratingWireGauge } from "./fixtures";
+import { converted, expectClose, foilGauge, prepared, vibratingWireGauge } from "./fixtures";
 
 /** The Wheatstone circuit Vout/Vex = R1/(R1+R2) − R4/(R3+R4) (Dally & Riley, Experimental Stress Analysis, bridge chapter). */
 function bridgeOutput([r1, r2, r3, r4]: readonly number[]): number {
@@ -51,6 +51,19 @@ describe("shunt calibration", () => {
     expectClose(value.expectedOutput, circuit, 1e-12);
     // full bending: ε = Vr / GF
     expectClose(value.equivalentStrain, (circuit / 1000 / 2) * 1e6, 1e-12);
+  });
+
+  it("expects of a microstrain logger the strain it computes from the shunted output with its own gauge factor", () => {
+    // Full bending, GF 2.0 at the gauge, 2.1 set in the logger: the logger reads Vr / 2.1 and the
+    // gauge's conversion rescales by 2.1 / 2.0 (ε = ε_logger × GF_logger / GF_gauge), back to Vr / 2.0.
+    const shunt = 175_000;
+    const vr = bridgeOutput([parallel(350, shunt), 350, 350, 350]) - bridgeOutput([350, 350, 350, 350]);
+    const config = foilGauge({ input: "microstrain", bridge: "full-bending", gaugeResistance: 350, gaugeFactor: 2, loggerGaugeFactor: 2.1, zero: { value: 0 } });
+    const value = expected(config, shunt);
+    expectClose(value.expectedReading, (vr / 2.1) * 1e6, 1e-12);
+    expectClose(converted(prepared(config).convert(value.expectedReading)).indicatedStrain, value.equivalentStrain, 1e-12);
+    // read in mV/V the expected reading is the bridge output itself
+    expect(expected(foilGauge({ gaugeResistance: 350 }), shunt).expectedReading).toBe(expected(foilGauge({ gaugeResistance: 350 }), shunt).expectedOutput);
   });
 
   it("refuses a gauge that is not a foil bridge, and one without its resistance", () => {

@@ -32,10 +32,22 @@ describe("report wording", () => {
     expect(alertTitle({ ...sensor, code: "flat-line" }, "si")).toBe("G1: Watch, sensor alert (flat line)");
   });
 
-  it("tells a missing yield stress from missing readings", () => {
-    expect(formatUtilisation({ utilisationPeak: { ratio: 250 / 355, yield: 355 }, stress: { min: 0, max: 250, unit: "MPa" } }, "si")).toBe("70 % of yield (355.0 MPa)");
-    expect(formatUtilisation({ utilisationPeak: null, stress: { min: 0, max: 2, unit: "MPa" } }, "si")).toBe("no yield stress set for the material");
+  it("tells a missing strength from missing readings", () => {
+    expect(formatUtilisation({ utilisationPeak: { basis: "yield", ratio: 250 / 355, yield: 355 }, stress: { min: 0, max: 250, unit: "MPa" } }, "si")).toBe(
+      "70 % of yield (355.0 MPa)",
+    );
+    expect(formatUtilisation({ utilisationPeak: null, stress: { min: 0, max: 2, unit: "MPa" } }, "si")).toBe("no yield or compressive strength set for the material");
     expect(formatUtilisation({ utilisationPeak: null, stress: null }, "si")).toBe("no readings");
+  });
+
+  it("rates concrete against f_ck in compression and says in words that tension is not rated", () => {
+    // 12 MPa of compression on f_ck = 30 MPa is 40 % (compressive stress ÷ f_ck, EN 1992-1-1 §3.1.2 names f_ck).
+    const compression = { basis: "compressive-strength" as const, ratio: 12 / 30, compressiveStrength: 30 };
+    expect(formatUtilisation({ utilisationPeak: compression, stress: { min: -12, max: 1, unit: "MPa" } }, "si")).toBe("40 % of f_ck in compression (f_ck 30.0 MPa)");
+    const tensionOnly = { basis: "compressive-strength" as const, ratio: null, compressiveStrength: 30 };
+    expect(formatUtilisation({ utilisationPeak: tensionOnly, stress: { min: 0.5, max: 1, unit: "MPa" } }, "si")).toBe(
+      "not rated: concrete in tension cracks (f_ck 30.0 MPa)",
+    );
   });
 
   it("says who acknowledged, with the comment, and whether the alert is over", () => {

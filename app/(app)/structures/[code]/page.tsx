@@ -9,7 +9,7 @@ import { RosetteSection } from "@/components/gauges/rosette-section";
 import { TokenTable } from "@/components/tokens/token-table";
 import { ActionForm, SecretOnce } from "@/components/ui/action-form";
 import { EmptyState } from "@/components/ui/empty-state";
-import { MonitoringCaution } from "@/components/ui/caution";
+import { ConcreteCaution, MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { ChartSkeleton } from "@/components/ui/skeleton";
@@ -70,7 +70,7 @@ function gaugeTableRows(gauges: GaugeView[], statuses: GaugeStatus[]): GaugeTabl
       time: latest?.time ?? null,
       strain: latest?.strain ?? null,
       stress: latest?.stress ?? null,
-      utilisation: latest?.utilisation ?? null,
+      rating: latest?.rating ?? null,
       temperature: latest?.temperature ?? null,
     };
   });
@@ -222,7 +222,7 @@ export default async function StructurePage({ params }: Props) {
           </div>
         </Section>
       )}
-      <MonitoringCaution />
+      <MonitoringCaution>{gauges.some((gauge) => gauge.material.compressiveStrength) && <ConcreteCaution />}</MonitoringCaution>
     </div>
   );
 }

@@ -3,7 +3,10 @@
 import { z } from "zod";
 import { formAction, objectAction } from "@/lib/actions/form-action";
 import type { ActionState } from "@/lib/actions/action-state";
-import { gaugeInput, gaugePatch, rosetteInput, zeroInput } from "@/lib/gauges/schema";
+import { formatDifference, formatShuntOutput } from "@/lib/gauges/shunt-display";
+import { inputUnit } from "@/lib/gauges/labels";
+import { gaugeInput, gaugePatch, rosetteInput, shuntCheckInput, zeroInput } from "@/lib/gauges/schema";
+import { recordShuntCheck } from "@/lib/services/shunt-checks";
 import { createRosette } from "@/lib/services/rosettes";
 import { limitsBody, rosetteLimitsBody } from "@/lib/alerting/schema";
 import { replaceLimits } from "@/lib/services/limits";
@@ -76,6 +79,35 @@ export const recordZeroAction = formAction(
         : { ...parseWith(zeroInput, { value: numberOrBlank(value), temperature: numberOrBlank(temperature) ?? null, time: time || undefined }), reason };
     await recordZero(user, code, tag, request);
     return { message: "New zero recorded; earlier results keep the zero they were computed with." };
+  },
+  "/structures",
+);
+
+/** The form's text fields as the shared schema reads them: numbers, and blanks as not given. */
+const shuntCheckForm = z.preprocess(
+  (raw) => {
+    const fields = raw as Record<string, string | undefined>;
+    return {
+      ...fields,
+      shuntResistance: numberOrBlank(fields.shuntResistance),
+      measuredOutput: numberOrBlank(fields.measuredOutput),
+      tolerancePercent: numberOrBlank(fields.tolerancePercent),
+      time: fields.time || undefined,
+    };
+  },
+  shuntCheckInput.extend({ code: z.string(), tag: z.string() }),
+);
+
+export const recordShuntCheckAction = formAction(
+  shuntCheckForm,
+  async ({ code, tag, ...input }, user) => {
+    const check = await recordShuntCheck(user, code, tag, input);
+    const figures = `measured ${formatShuntOutput(check.measuredOutput, inputUnit(check.unit))}, expected ${formatShuntOutput(check.expectedOutput, inputUnit(check.unit))}, difference ${formatDifference(check.differencePercent)} (tolerance ±${check.tolerancePercent} %)`;
+    return {
+      message: check.passed
+        ? `Shunt check recorded: passed, ${figures}.`
+        : `Shunt check recorded: FAILED, ${figures}. Check the bridge completion, the leads and the gauge's bond before trusting its readings.`,
+    };
   },
   "/structures",
 );

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { PrintButton } from "@/components/report/print-button";
 import { ReportPeriodPicker } from "@/components/report/report-period-picker";
 import { ReportView } from "@/components/report/report-view";
-import { MonitoringCaution } from "@/components/ui/caution";
+import { ConcreteCaution, MonitoringCaution } from "@/components/ui/caution";
 import { PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/styles";
 import { reportQuery } from "@/lib/api/report-query";
@@ -74,6 +74,7 @@ export default async function StructureReportPage({ params, searchParams }: Prop
         {REPORT_NOTES.map((note) => (
           <li key={note}>{note}</li>
         ))}
+        {report.gauges.some((gauge) => gauge.utilisationPeak?.basis === "compressive-strength") && <ConcreteCaution />}
       </MonitoringCaution>
     </div>
   );

@@ -6,10 +6,12 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
 import { GaugeFieldRecords } from "@/components/field-records/gauge-field-records";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
+import { ShuntCheckForm } from "@/components/gauges/shunt-check-form";
+import { ShuntVerdict } from "@/components/gauges/shunt-verdict";
 import { ZeroForm } from "@/components/gauges/zero-form";
 import { recordZeroAction } from "../actions";
 import { ActionForm } from "@/components/ui/action-form";
-import { MonitoringCaution } from "@/components/ui/caution";
+import { ConcreteCaution, MonitoringCaution } from "@/components/ui/caution";
 import { Field } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { ConfirmSubmitButton } from "@/components/ui/confirm-submit-button";
@@ -19,6 +21,10 @@ import { pageGuard } from "@/lib/auth/page-guard";
 import { requireUser } from "@/lib/auth/session";
 import { actionInWords, describeChange } from "@/lib/audit/describe-change";
 import { inputUnit } from "@/lib/gauges/labels";
+import { toGaugeConfig } from "@/lib/gauges/schema";
+import { formatDifference, formatShuntOutput } from "@/lib/gauges/shunt-display";
+import { listShuntChecks } from "@/lib/services/shunt-checks";
+import { formatStressRating } from "@/lib/units";
 import { listGaugePhotos } from "@/lib/services/files";
 import { listAlerts, listGaugeEpisodes } from "@/lib/services/alerts";
 import { AlertFilters } from "@/components/alerts/alert-filters";
@@ -33,7 +39,7 @@ import { gaugeStatuses } from "@/lib/services/status";
 import { gaugeAuditTrail, getGauge, zeroHistory } from "@/lib/services/gauges";
 import { getVisibleStructure } from "@/lib/services/structures";
 import { unitsOf } from "@/lib/services/users";
-import { retireGaugeAction } from "../actions";
+import { recordShuntCheckAction, retireGaugeAction } from "../actions";
 
 type Props = { params: Promise<{ code: string; tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -70,14 +76,16 @@ export default async function GaugePage({ params, searchParams }: Props) {
   const user = await requireUser();
   const structure = await pageGuard(getVisibleStructure(user, code));
   const gauge = await pageGuard(getGauge(user, code, tag));
-  const [canEdit, canZero, canAudit, canLabel] = await Promise.all([
+  const [canEdit, canZero, canShunt, canAudit, canLabel] = await Promise.all([
     may(user, "gauge:register", structure),
     may(user, "zero:record", structure),
+    may(user, "shunt-check:record", structure),
     may(user, "audit:view", structure),
     may(user, "alert:acknowledge", structure),
   ]);
-  const [zeros, audit, photos, limits, alerts, episodes, statuses, units, thermalModel] = await Promise.all([
+  const [zeros, shuntChecks, audit, photos, limits, alerts, episodes, statuses, units, thermalModel] = await Promise.all([
     zeroHistory(user, code, tag),
+    listShuntChecks(user, code, tag),
     canAudit ? gaugeAuditTrail(user, code, tag) : Promise.resolve([]),
     listGaugePhotos(user, code, tag),
     getLimits(user, code, tag),
@@ -94,6 +102,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
     ...(gauge.replaces ? [{ time: Date.parse(gauge.createdAt), label: `replaced ${gauge.replaces}` }] : []),
   ];
   const active = gauge.status === "active";
+  const shuntApplies = gauge.kind === "foil" && gauge.bridge != null;
   const base = `/structures/${code}/gauges`;
   return (
     <>
@@ -139,6 +148,11 @@ export default async function GaugePage({ params, searchParams }: Props) {
         <span className={`rounded-full px-2.5 py-0.5 font-medium ${active ? "bg-emerald-100 text-emerald-900 dark:bg-emerald-950 dark:text-emerald-200" : "bg-slate-200 text-slate-700 dark:bg-slate-800 dark:text-slate-300"}`}>
           {active ? "Active" : `Retired ${gauge.retiredAt ? when(gauge.retiredAt, structure.timezone) : ""}`}
         </span>
+        {latest?.rating && (
+          <span data-testid="gauge-utilisation">
+            Utilisation at the latest reading: <span className="font-medium">{formatStressRating(latest.rating)}</span>
+          </span>
+        )}
         {gauge.replaces && (
           <span>
             Replaced gauge{" "}
@@ -262,6 +276,68 @@ export default async function GaugePage({ params, searchParams }: Props) {
           </div>
         </section>
       </div>
+      <section className={`${cardClass} mt-6 space-y-4 p-4`} aria-labelledby="shunt-checks">
+        <h2 id="shunt-checks" className="font-semibold">
+          Shunt checks
+        </h2>
+        <p className="text-sm text-slate-600 dark:text-slate-400">
+          A known resistor placed across the gauge lowers its arm by ΔR/R = R_g/(R_g + R_shunt) (leads in the arm included), so the bridge should show a
+          known output: a check that the gauge, its leads, the bridge completion and the logger channel still read as configured.
+        </p>
+        {!shuntApplies ? (
+          <p className="text-sm" data-testid="shunt-not-applicable">
+            Shunt checks apply to foil gauges with a bridge arrangement recorded; this gauge has none, so there is no bridge to shunt.
+          </p>
+        ) : (
+          active &&
+          canShunt && (
+            <ShuntCheckForm structureCode={code} tag={tag} unit={inputUnit(gauge.input)} config={toGaugeConfig(gauge)} timeZone={structure.timezone} recordShuntCheck={recordShuntCheckAction} />
+          )
+        )}
+        {shuntChecks.length === 0 ? (
+          <p className="text-sm text-slate-600 dark:text-slate-400">No shunt checks recorded yet.</p>
+        ) : (
+          <table className={stackedTable.table} aria-label="Shunt check history">
+            <thead className={stackedTable.head}>
+              <tr>
+                <th className={thClass}>Applied</th>
+                <th className={thClass}>Shunt</th>
+                <th className={thClass}>Measured</th>
+                <th className={thClass}>Expected</th>
+                <th className={thClass}>Difference</th>
+                <th className={thClass}>Result</th>
+              </tr>
+            </thead>
+            <tbody className={stackedTable.body}>
+              {shuntChecks.map((check) => (
+                <tr key={check.id} data-testid="shunt-row" className={stackedTable.row}>
+                  <td className={`${stackedTable.cell} whitespace-nowrap`} data-label="Applied">
+                    {formatInTimeZone(new Date(check.time), structure.timezone)}
+                    <span className="block text-xs text-slate-500">{check.checkedBy}</span>
+                  </td>
+                  <td className={`${stackedTable.cell} font-mono`} data-label="Shunt">
+                    {check.shuntResistance.toLocaleString("en-US")} Ω
+                  </td>
+                  <td className={`${stackedTable.cell} font-mono`} data-label="Measured">
+                    {formatShuntOutput(check.measuredOutput, inputUnit(check.unit))}
+                  </td>
+                  <td className={`${stackedTable.cell} font-mono`} data-label="Expected">
+                    {formatShuntOutput(check.expectedOutput, inputUnit(check.unit))}
+                  </td>
+                  <td className={`${stackedTable.cell} font-mono`} data-label="Difference">
+                    {formatDifference(check.differencePercent)}
+                    <span className="block font-sans text-xs text-slate-500">tolerance ±{check.tolerancePercent} %</span>
+                  </td>
+                  <td className={stackedTable.cell} data-label="Result">
+                    <ShuntVerdict passed={check.passed} />
+                    {check.note && <span className="mt-1 block text-xs">{check.note}</span>}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
       <div className="mt-6">
         <GaugePhotos structureCode={code} tag={tag} timeZone={structure.timezone} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
@@ -324,7 +400,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
         </section>
       )}
       <div className="mt-6">
-        <MonitoringCaution />
+        <MonitoringCaution>{gauge.material.compressiveStrength ? <ConcreteCaution /> : null}</MonitoringCaution>
       </div>
     </>
   );
