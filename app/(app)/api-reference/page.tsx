@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { ApiReference } from "@/components/api-reference/api-reference";
 import { PageHeader } from "@/components/ui/page-header";
-import { openApiDocument } from "@/lib/api/openapi";
 
 export const metadata: Metadata = { title: "API reference" };
 
@@ -17,7 +16,10 @@ export default function ApiReferencePage() {
           </>
         }
       />
-      <ApiReference document={openApiDocument()} />
+      {/* The document built with the app (a static route), not here: a server process that has loaded
+          the API's schemas from several bundles holds each named schema more than once, and zod then
+          refuses to convert them together ("Duplicate schema id"). */}
+      <ApiReference documentUrl="/api/v1/openapi.json" />
     </>
   );
 }
