@@ -706,21 +706,21 @@ type Direction = "input" | "output";
  * (defaults optional), a response as the server answers it. Every path refers to them by `$ref`.
  */
 class Components {
-  readonly used = { input: new Set<string>(), output: new Set<string>() };
+  readonly used = { input: new Map<string, z.ZodType>(), output: new Map<string, z.ZodType>() };
 
   ref(schema: z.ZodType, io: Direction, where: string) {
     const id = z.globalRegistry.get(schema)?.id;
     if (typeof id !== "string") throw new Error(`${where}: give its schema .meta({ id: "Name" }) so the document can name it once.`);
-    this.used[io].add(id);
+    this.used[io].set(id, schema);
     return { $ref: componentRef(id) };
   }
 
   /** The used schemas and those they refer to; a schema read both ways must read the same. */
   schemas() {
-    const emitted = { input: registrySchemas("input"), output: registrySchemas("output") };
+    const emitted = { input: registrySchemas("input", this.used.input.values()), output: registrySchemas("output", this.used.output.values()) };
     const result: Record<string, JsonSchema> = {};
     for (const io of ["input", "output"] as const) {
-      for (const id of reachable(this.used[io], emitted[io])) {
+      for (const id of reachable(this.used[io].keys(), emitted[io])) {
         const schema = emitted[io][id]!;
         if (id in result && !isDeepStrictEqual(result[id], schema))
           throw new Error(`Schema ${id} differs between request and response: give each its own id.`);
@@ -735,8 +735,22 @@ type JsonSchema = Record<string, unknown>;
 
 const componentRef = (id: string) => `#/components/schemas/${id}`;
 
-function registrySchemas(io: Direction): Record<string, JsonSchema> {
-  const { schemas } = z.toJSONSchema(z.globalRegistry, { target: "draft-2020-12", io, unrepresentable: "any", uri: componentRef });
+/**
+ * The named schemas that `roots` reach, converted together. Not the whole global registry: zod
+ * keeps it on globalThis, so a server that has loaded the schema modules in several bundles (pages,
+ * route handlers, server actions) holds each id once per copy, and converting them together
+ * fails with "Duplicate schema id". The schemas these operations reach are this copy's own.
+ */
+function registrySchemas(io: Direction, roots: Iterable<z.ZodType>): Record<string, JsonSchema> {
+  const params = { target: "draft-2020-12", io, unrepresentable: "any" } as const;
+  const walk = new z.core.JSONSchemaGenerator({ ...params, metadata: z.globalRegistry });
+  for (const root of roots) walk.process(root);
+  const own = z.registry<{ id: string }>();
+  for (const schema of walk.seen.keys()) {
+    const id = z.globalRegistry.get(schema)?.id;
+    if (typeof id === "string") own.add(schema, { id });
+  }
+  const { schemas } = z.toJSONSchema(own, { ...params, uri: componentRef });
   return Object.fromEntries(
     Object.entries(schemas).map(([id, schema]) => {
       const { $schema: _dialect, $id: _uri, ...body } = schema as JsonSchema;
