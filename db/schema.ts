@@ -288,10 +288,11 @@ export const rosettes = sqliteTable(
   (t) => [uniqueIndex("rosettes_structure_tag").on(t.structureId, t.tag)],
 );
 
-export const FILE_KINDS = ["photo", "drawing"] as const;
+/** A gauge's installation photo, a drawing, a calibration certificate (PDF or image), a photo taken on a site visit. */
+export const FILE_KINDS = ["photo", "drawing", "certificate", "visit-photo"] as const;
 export type FileKind = (typeof FILE_KINDS)[number];
 
-/** Uploaded images; the bytes live in the storage folder under a key the server made. */
+/** Uploaded images and documents; the bytes live in the storage folder under a key the server made. */
 export const files = sqliteTable(
   "files",
   {
@@ -545,6 +546,105 @@ export const loadTestPredictions = sqliteTable(
 
 export type LoadTest = typeof loadTests.$inferSelect;
 
+/**
+ * A calibration certificate of a gauge or of a logger. Loggers are known to Hookeline only through
+ * their tokens, which are revoked and made anew when one leaks, so a logger's certificate names it
+ * (its token's name or its serial number) rather than pointing at a token. Dates are calendar days
+ * on the structure's clock, "YYYY-MM-DD", as the certificate prints them; it is valid through its
+ * expiry day.
+ */
+export const calibrationCertificates = sqliteTable(
+  "calibration_certificates",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    /** Exactly one of gauge_id and logger_name is set. */
+    gaugeId: integer("gauge_id").references(() => gauges.id, { onDelete: "cascade" }),
+    loggerName: text("logger_name"),
+    certificateNumber: text("certificate_number").notNull(),
+    issuedBy: text("issued_by").notNull(),
+    issuedOn: text("issued_on").notNull(),
+    expiresOn: text("expires_on").notNull(),
+    fileId: integer("file_id")
+      .notNull()
+      .references(() => files.id),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdByLabel: text("created_by_label").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("calibration_certificates_structure").on(t.structureId, t.expiresOn), index("calibration_certificates_gauge").on(t.gaugeId)],
+);
+
+/** Reminders queued for a certificate, one per threshold (days before expiry), so each goes out once. */
+export const certificateReminders = sqliteTable(
+  "certificate_reminders",
+  {
+    certificateId: integer("certificate_id")
+      .notNull()
+      .references(() => calibrationCertificates.id, { onDelete: "cascade" }),
+    thresholdDays: integer("threshold_days").notNull(),
+    /** Days left when it was queued: a threshold passed while no job ran is reminded late, with the true count. */
+    daysLeft: integer("days_left").notNull(),
+    recipients: integer("recipients").notNull(),
+    queuedAt: writtenAt("queued_at"),
+  },
+  (t) => [primaryKey({ columns: [t.certificateId, t.thresholdDays] })],
+);
+
+/** A technician's visit to the structure: who, when, what was done. */
+export const siteVisits = sqliteTable(
+  "site_visits",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    structureId: integer("structure_id")
+      .notNull()
+      .references(() => structures.id, { onDelete: "cascade" }),
+    /** Epoch ms of the visit. */
+    visitedAt: integer("visited_at", { mode: "timestamp_ms" }).notNull(),
+    /** Who went: the signed-in person by default, or the names of a crew. */
+    visitor: text("visitor").notNull(),
+    workDone: text("work_done").notNull(),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdByLabel: text("created_by_label").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("site_visits_structure").on(t.structureId, t.visitedAt)],
+);
+
+/** The gauges a visit names (checked, replaced, re-zeroed …). */
+export const siteVisitGauges = sqliteTable(
+  "site_visit_gauges",
+  {
+    visitId: integer("visit_id")
+      .notNull()
+      .references(() => siteVisits.id, { onDelete: "cascade" }),
+    gaugeId: integer("gauge_id")
+      .notNull()
+      .references(() => gauges.id, { onDelete: "cascade" }),
+  },
+  (t) => [primaryKey({ columns: [t.visitId, t.gaugeId] }), index("site_visit_gauges_gauge").on(t.gaugeId)],
+);
+
+/** Photos taken on a visit, stored as files of kind visit-photo. */
+export const siteVisitPhotos = sqliteTable(
+  "site_visit_photos",
+  {
+    visitId: integer("visit_id")
+      .notNull()
+      .references(() => siteVisits.id, { onDelete: "cascade" }),
+    fileId: integer("file_id")
+      .notNull()
+      .unique()
+      .references(() => files.id),
+  },
+  (t) => [primaryKey({ columns: [t.visitId, t.fileId] })],
+);
+
+export type CalibrationCertificate = typeof calibrationCertificates.$inferSelect;
+export type SiteVisit = typeof siteVisits.$inferSelect;
+
 export type Gauge = typeof gauges.$inferSelect;
 export type BurstSummaryRow = typeof burstSummaries.$inferSelect;
 export type DynamicEventRow = typeof dynamicEvents.$inferSelect;
@@ -700,7 +800,7 @@ export type RosetteLimit = typeof rosetteLimits.$inferSelect;
 export type Alert = typeof alerts.$inferSelect;
 export type AlertEvent = typeof alertEvents.$inferSelect;
 
-export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report", "sign-in-lock"] as const;
+export const MAIL_KINDS = ["alert", "digest", "invitation", "password-reset", "report", "sign-in-lock", "certificate-reminder"] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 export const MAIL_STATES = ["queued", "sending", "sent", "failed"] as const;

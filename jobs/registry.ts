@@ -8,6 +8,7 @@ import { runMonthlyReport } from "./monthly-report";
 import { runStaleWatch } from "./stale-watch";
 import { sweepFileStore } from "@/lib/services/files";
 import { runFlappingSettle } from "./flapping-settle";
+import { runCertificateReminders } from "./certificate-reminders";
 import { digestTimeZone } from "@/lib/time-zone-config";
 
 /**
@@ -38,6 +39,8 @@ export const JOBS: Job[] = [
   { name: "daily-digest", schedule: "0 0 6 * * *", timezone: digestTimeZone(), leaseMs: 15 * 60_000, run: () => runDailyDigest() },
   { name: "rollup-maintenance", schedule: "0 30 2 * * *", timezone: "UTC", leaseMs: 30 * 60_000, run: () => runRollupMaintenance() },
   { name: "file-store-sweep", schedule: "0 45 2 * * *", timezone: "UTC", leaseMs: 15 * 60_000, run: () => sweepFileStore() },
+  // Daily at 06:30 UTC; each certificate's days are counted on its structure's clock.
+  { name: "certificate-reminders", schedule: "0 30 6 * * *", timezone: "UTC", leaseMs: 15 * 60_000, run: () => runCertificateReminders() },
   // Every half hour: each structure's report leaves at 07:00 on the 1st of its own clocks (runMonthlyReport decides which are due).
   { name: "monthly-report", schedule: "0 */30 * * * *", timezone: "UTC", leaseMs: 25 * 60_000, run: (signal) => runMonthlyReport(Date.now(), signal) },
   // Loaded only when enabled: it carries the whole demo scenario.

@@ -5,9 +5,9 @@ import "swagger-ui-dist/swagger-ui.css";
 
 /**
  * The API's OpenAPI document drawn by Swagger UI, bundled with the app so that it works without
- * reaching any other site (no validator badge, no remote document).
+ * reaching any other site (no validator badge; the document is this app's own, built with it).
  */
-export function ApiReference({ document }: { document: object }) {
+export function ApiReference({ documentUrl }: { documentUrl: string }) {
   const container = useRef<HTMLDivElement>(null);
   const [state, setState] = useState<"loading" | "ready" | "failed">("loading");
 
@@ -18,7 +18,7 @@ export function ApiReference({ document }: { document: object }) {
         if (cancelled || !container.current) return;
         SwaggerUI({
           domNode: container.current,
-          spec: document,
+          url: documentUrl,
           validatorUrl: null,
           deepLinking: true,
           defaultModelsExpandDepth: 0,
@@ -30,7 +30,7 @@ export function ApiReference({ document }: { document: object }) {
     return () => {
       cancelled = true;
     };
-  }, [document]);
+  }, [documentUrl]);
 
   return (
     <div className="rounded-lg border border-slate-200 bg-white dark:border-slate-700" data-state={state}>

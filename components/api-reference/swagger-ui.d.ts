@@ -2,7 +2,8 @@
 declare module "swagger-ui-dist/swagger-ui-es-bundle.js" {
   type Options = {
     domNode: HTMLElement;
-    spec: object;
+    /** The document's address, same origin. */
+    url: string;
     validatorUrl: string | null;
     deepLinking?: boolean;
     defaultModelsExpandDepth?: number;

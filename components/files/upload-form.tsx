@@ -3,29 +3,13 @@
 import { useId, useRef, useState } from "react";
 import type { FileKind } from "@/db/schema";
 import type { FileView } from "@/lib/services/files";
-import { ACCEPT_ATTRIBUTE, UPLOAD_LIMIT_BYTES, megabytes, uploadRule } from "@/lib/storage/upload-rules";
+import { acceptAttribute, UPLOAD_LIMIT_BYTES, megabytes, uploadRule } from "@/lib/storage/upload-rules";
 import { IDLE, type ActionState } from "@/lib/actions/action-state";
 import { FormMessage } from "@/components/ui/form-message";
 import { buttonClass, inputClass } from "@/components/ui/styles";
+import { postForm } from "./post-form";
 
 type TitleField = { label: string; hint: string; required: boolean };
-
-/** Sends the form with XMLHttpRequest, because fetch cannot report upload progress. */
-function send(url: string, data: FormData, onProgress: (fraction: number) => void): Promise<{ ok: true; file: FileView } | { ok: false; message: string }> {
-  return new Promise((resolve) => {
-    const request = new XMLHttpRequest();
-    request.open("POST", url);
-    request.responseType = "json";
-    request.upload.onprogress = (event) => event.lengthComputable && onProgress(event.loaded / event.total);
-    request.onload = () => {
-      if (request.status === 201) return resolve({ ok: true, file: request.response as FileView });
-      const message = (request.response as { error?: { message?: string } } | null)?.error?.message;
-      resolve({ ok: false, message: message ?? `The server refused the upload (HTTP ${request.status}).` });
-    };
-    request.onerror = () => resolve({ ok: false, message: "The upload did not reach the server. Check the connection and try again." });
-    request.send(data);
-  });
-}
 
 /**
  * An image upload form with a progress bar. The server judges the file by its content; the size
@@ -64,12 +48,12 @@ export function UploadForm({
     if (file.size > limit) return fail(`This file is ${megabytes(file.size)}; the limit is ${megabytes(limit)}. Export it smaller and try again.`);
     setOutcome(IDLE);
     setSent(0);
-    const answer = await send(url, data, setSent);
+    const answer = await postForm<FileView>(url, data, setSent);
     setSent(null);
     if (!answer.ok) return fail(answer.message);
     form.current?.reset();
-    setOutcome({ status: "ok", message: `"${answer.file.title}" uploaded.` });
-    onUploaded(answer.file);
+    setOutcome({ status: "ok", message: `"${answer.body.title}" uploaded.` });
+    onUploaded(answer.body);
   }
 
   return (
@@ -82,7 +66,7 @@ export function UploadForm({
           id={`${id}-file`}
           name="file"
           type="file"
-          accept={ACCEPT_ATTRIBUTE}
+          accept={acceptAttribute(kind)}
           required
           aria-describedby={`${id}-rule`}
           aria-invalid={outcome.status === "error" ? true : undefined}

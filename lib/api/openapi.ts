@@ -35,6 +35,9 @@ import { reportQuery } from "./report-query";
 import { alertListQuery } from "./alert-query";
 import { structureReportSchema } from "./report-schema";
 import { loadTestListSchema, loadTestResultsSchema } from "./load-test-schemas";
+import { certificateListSchema, certificateSchema, siteVisitPageSchema, siteVisitSchema } from "./field-record-schemas";
+import { MAX_VISIT_PHOTOS, siteVisitInput, siteVisitQuery } from "@/lib/field-records/site-visits";
+import { PDF_TYPE } from "@/lib/storage/pdf-type";
 import { loadTestInput } from "@/lib/load-tests";
 import { gaugeInput, gaugePatch, rosetteInput, shuntCheckInput, zeroRequest } from "@/lib/gauges/schema";
 import { thermalFitPreviewSchema, thermalModelSchema } from "./thermal-schemas";
@@ -113,6 +116,30 @@ const imageUpload = (kind: FileKind, title: { description: string; required: boo
   },
   required: title.required ? ["file", "title"] : ["file"],
 });
+
+const certificateUpload: MultipartRequest = {
+  fields: {
+    file: { description: `The certificate: ${uploadRule("certificate")} The type is read from the content, not the name; a PDF must be whole (end with %%EOF).`, binary: true },
+    gauge: { description: "Tag of the structure's gauge the certificate is for; give this or `logger`" },
+    logger: { description: "Name of the logger the certificate is for (its token's name or serial number); give this or `gauge`" },
+    number: { description: "Certificate number as printed" },
+    issuedBy: { description: "The calibration laboratory" },
+    issuedOn: { description: "YYYY-MM-DD" },
+    expiresOn: { description: "YYYY-MM-DD, after issuedOn: the last day the certificate is valid, on the structure's clock" },
+  },
+  required: ["file", "number", "issuedBy", "issuedOn", "expiresOn"],
+};
+const siteVisitUpload: MultipartRequest = {
+  fields: {
+    visitedAt: { description: "When the visit began, ISO-8601 with Z or an offset; not in the future" },
+    visitor: { description: "Who went; default the sender" },
+    work: { description: "What was done" },
+    gauges: { description: "A gauge tag the visit touched; repeat the field for each" },
+    photos: { description: `A photo taken on the visit: ${uploadRule("visit-photo")} Repeat the field for each, at most ${MAX_VISIT_PHOTOS}.`, binary: true },
+  },
+  required: ["visitedAt", "work"],
+};
+const certificateParameter = { name: "id", in: "path" as const, description: "Certificate id" };
 
 const OPERATIONS: Record<string, Record<string, Operation>> = {
   "/structures": {
@@ -597,6 +624,54 @@ const OPERATIONS: Record<string, Record<string, Operation>> = {
       errors: [400, 401, 404],
     },
   },
+  "/structures/{code}/certificates": {
+    get: {
+      summary: "Calibration certificates of the structure's gauges and loggers, soonest expiry first, each with where it stands today on the structure's clock",
+      parameters: [codeParameter],
+      response: { status: 200, schema: certificateListSchema, description: "The certificates" },
+      errors: [401, 404],
+    },
+    post: {
+      summary: "Record a calibration certificate of a gauge or a logger, with its file. Audited",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      notes:
+        "The expiry must fall after the issue date; an unknown gauge tag is a 400 naming it; a file that is not a whole PDF or a PNG, JPEG or WebP image is refused (415, or 400 for a damaged one). " +
+        "Nothing is stored unless all of it is. Reminders: once a day, each certificate that has come within a threshold of its expiry (CERTIFICATE_REMINDER_DAYS, default 30 days) is e-mailed once per threshold to the structure's technicians and engineers, " +
+        "unless a later certificate of the same instrument expires after it.",
+      multipart: certificateUpload,
+      response: { status: 201, schema: certificateSchema, description: "The stored certificate" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
+  "/structures/{code}/certificates/{id}/file": {
+    get: {
+      summary: "The certificate's file as the type detected at upload (a PDF as an attachment)",
+      parameters: [codeParameter, certificateParameter],
+      response: { status: 200, description: "The file", binary: [PDF_TYPE, ...Object.keys(IMAGE_TYPES)] },
+      errors: [400, 401, 404],
+    },
+  },
+  "/structures/{code}/site-visits": {
+    get: {
+      summary: "The structure's site visits, newest first, a page at a time; `?gauge=` keeps those naming one gauge",
+      parameters: [codeParameter, ...queryParameters(siteVisitQuery)],
+      response: { status: 200, schema: siteVisitPageSchema, description: "A page of visits" },
+      errors: [400, 401, 404],
+    },
+    post: {
+      summary: "Record a site visit: when, who, what was done, the gauges it touched and its photos. Audited",
+      roles: "admin, engineer, technician",
+      parameters: [codeParameter],
+      notes:
+        "Send JSON (no photos) or multipart/form-data with the photos. Every gauge named must be the structure's (unknown tags are all named in one 400, `details.unknownGauges`); " +
+        "every photo must be a PNG, JPEG or WebP image (415 otherwise). Nothing is stored unless all of it is.",
+      request: siteVisitInput,
+      multipart: siteVisitUpload,
+      response: { status: 201, schema: siteVisitSchema, description: "The stored visit" },
+      errors: [400, 401, 403, 404, 413, 415],
+    },
+  },
   "/files/{id}": {
     get: {
       summary: "The bytes of a photo or drawing, as the type detected at upload (X-Content-Type-Options: nosniff)",
@@ -631,21 +706,21 @@ type Direction = "input" | "output";
  * (defaults optional), a response as the server answers it. Every path refers to them by `$ref`.
  */
 class Components {
-  readonly used = { input: new Set<string>(), output: new Set<string>() };
+  readonly used = { input: new Map<string, z.ZodType>(), output: new Map<string, z.ZodType>() };
 
   ref(schema: z.ZodType, io: Direction, where: string) {
     const id = z.globalRegistry.get(schema)?.id;
     if (typeof id !== "string") throw new Error(`${where}: give its schema .meta({ id: "Name" }) so the document can name it once.`);
-    this.used[io].add(id);
+    this.used[io].set(id, schema);
     return { $ref: componentRef(id) };
   }
 
   /** The used schemas and those they refer to; a schema read both ways must read the same. */
   schemas() {
-    const emitted = { input: registrySchemas("input"), output: registrySchemas("output") };
+    const emitted = { input: registrySchemas("input", this.used.input.values()), output: registrySchemas("output", this.used.output.values()) };
     const result: Record<string, JsonSchema> = {};
     for (const io of ["input", "output"] as const) {
-      for (const id of reachable(this.used[io], emitted[io])) {
+      for (const id of reachable(this.used[io].keys(), emitted[io])) {
         const schema = emitted[io][id]!;
         if (id in result && !isDeepStrictEqual(result[id], schema))
           throw new Error(`Schema ${id} differs between request and response: give each its own id.`);
@@ -660,8 +735,22 @@ type JsonSchema = Record<string, unknown>;
 
 const componentRef = (id: string) => `#/components/schemas/${id}`;
 
-function registrySchemas(io: Direction): Record<string, JsonSchema> {
-  const { schemas } = z.toJSONSchema(z.globalRegistry, { target: "draft-2020-12", io, unrepresentable: "any", uri: componentRef });
+/**
+ * The named schemas that `roots` reach, converted together. Not the whole global registry: zod
+ * keeps it on globalThis, so a server that has loaded the schema modules in several bundles (pages,
+ * route handlers, server actions) holds each id once per copy, and converting them together
+ * fails with "Duplicate schema id". The schemas these operations reach are this copy's own.
+ */
+function registrySchemas(io: Direction, roots: Iterable<z.ZodType>): Record<string, JsonSchema> {
+  const params = { target: "draft-2020-12", io, unrepresentable: "any" } as const;
+  const walk = new z.core.JSONSchemaGenerator({ ...params, metadata: z.globalRegistry });
+  for (const root of roots) walk.process(root);
+  const own = z.registry<{ id: string }>();
+  for (const schema of walk.seen.keys()) {
+    const id = z.globalRegistry.get(schema)?.id;
+    if (typeof id === "string") own.add(schema, { id });
+  }
+  const { schemas } = z.toJSONSchema(own, { ...params, uri: componentRef });
   return Object.fromEntries(
     Object.entries(schemas).map(([id, schema]) => {
       const { $schema: _dialect, $id: _uri, ...body } = schema as JsonSchema;
@@ -682,8 +771,8 @@ function reachable(roots: Iterable<string>, schemas: Record<string, JsonSchema>)
 }
 
 function requestBodyOf(operation: Operation, components: Components, where: string) {
-  if (operation.multipart) return { required: true, content: { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } };
   const content = {
+    ...(operation.multipart ? { "multipart/form-data": { schema: multipartSchema(operation.multipart) } } : {}),
     ...(operation.request ? { "application/json": { schema: components.ref(operation.request, "input", where) } } : {}),
     ...(operation.csvRequest ? { "text/csv": { schema: { type: "string", description: operation.csvRequest } } } : {}),
     ...(operation.binaryRequest ? { "application/octet-stream": { schema: { type: "string", format: "binary", description: operation.binaryRequest } } } : {}),
@@ -724,6 +813,8 @@ const TAGS: Record<string, string> = {
   uploads: "Sending a logger file of any size, streamed",
   report: "The periodic structure report",
   "load-tests": "Diagnostic load tests: measured against predicted strain per gauge",
+  certificates: "Calibration certificates of gauges and loggers, with their expiry and reminders",
+  "site-visits": "The log of visits to the structure: who, when, what was done, gauges touched, photos",
   files: "Stored photos and drawings",
 };
 

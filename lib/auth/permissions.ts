@@ -12,6 +12,7 @@ export const ACTIONS = {
   "thermal-model:edit": "Fit, save and remove gauges' thermal models",
   "alert:acknowledge": "Acknowledge and clear alerts",
   "load-test:record": "Record load tests and their predicted strains",
+  "field-record:add": "Add calibration certificates and site visits",
   "token:manage": "Create and revoke logger tokens of the structure",
   "audit:view": "Read the audit trail",
   "users:manage": "Add, change and deactivate users",
@@ -32,6 +33,7 @@ const STRUCTURE_SCOPED: ReadonlySet<Action> = new Set<Action>([
   "thermal-model:edit",
   "alert:acknowledge",
   "load-test:record",
+  "field-record:add",
   "token:manage",
   "audit:view",
 ]);
@@ -52,10 +54,11 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
     "thermal-model:edit",
     "alert:acknowledge",
     "load-test:record",
+    "field-record:add",
     "token:manage",
     "audit:view",
   ]),
-  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "shunt-check:record", "readings:ingest"]),
+  technician: new Set<Action>(["structure:view", "gauge:register", "zero:record", "shunt-check:record", "readings:ingest", "field-record:add"]),
   owner: new Set<Action>(["structure:view"]),
 };
 
@@ -78,6 +81,9 @@ export const ALERT_MAIL_ROLES = ["owner", "engineer"] as const satisfies readonl
 export function receivesAlertMail(role: Role): boolean {
   return (ALERT_MAIL_ROLES as readonly Role[]).includes(role);
 }
+
+/** Roles whose members are reminded of the structure's calibration certificates before they expire: those who keep the instruments. */
+export const CERTIFICATE_REMINDER_ROLES = ["technician", "engineer"] as const satisfies readonly Role[];
 
 /**
  * Whether a role's sensor-fault e-mails go to the digest when the member has not chosen: an owner's

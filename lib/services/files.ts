@@ -8,7 +8,6 @@ import { parseWith } from "@/lib/validation";
 import { AppError } from "@/lib/errors";
 import { drawingFields, photoFields, type PlacementInput } from "@/lib/files/schema";
 import { deleteFile, readFile, saveFile, sweepStore } from "@/lib/storage/file-store";
-import type { ImageInfo } from "@/lib/storage/image-type";
 import { checkUpload } from "@/lib/storage/upload-rules";
 import { recordAudit } from "./audit";
 import { gaugeKey, getGauge, resolveGauge, type GaugeView } from "./gauges";
@@ -35,7 +34,7 @@ export type UploadRequest = { bytes: Uint8Array; fields: Record<string, string> 
 
 const fileUrl = (id: number) => `/api/v1/files/${id}`;
 
-function toFileView(row: StoredFile, gaugeTag: string | null): FileView {
+export function toFileView(row: StoredFile, gaugeTag: string | null): FileView {
   return {
     id: row.id,
     kind: row.kind,
@@ -50,39 +49,46 @@ function toFileView(row: StoredFile, gaugeTag: string | null): FileView {
   };
 }
 
-const auditedFile = (row: StoredFile) => ({ id: row.id, title: row.title, contentType: row.contentType, bytes: row.bytes, width: row.width, height: row.height });
+export const auditedFile = (row: StoredFile) => ({ id: row.id, title: row.title, contentType: row.contentType, bytes: row.bytes, width: row.width, height: row.height });
 
-type NewFile = { structure: Structure; gauge: Gauge | null; kind: FileKind; title: string };
+/** A file to store: its kind, its title, its bytes and, for a gauge's photo, the gauge. */
+export type NewUpload = { kind: FileKind; title: string; bytes: Uint8Array; gauge?: Gauge | null };
 
 /**
- * Checks the content, stores the bytes, then records the row and its audit entry. Nothing is
- * left half-saved: a failed write leaves no row, and a failed insert removes the stored bytes.
+ * Checks every file's content (all before any is stored, so a bad third photo stores nothing),
+ * stores the bytes, then records the rows and whatever `write` adds (the record they belong to,
+ * its audit entry) in one transaction. Nothing is left half-saved: a failed write leaves no row,
+ * and a failed transaction removes the stored bytes.
  */
-async function storeUpload(actor: Actor, target: NewFile, bytes: Uint8Array, audit: (tx: WriteTx, row: StoredFile) => Promise<unknown>) {
-  const image: ImageInfo = checkUpload(bytes, target.kind);
-  const storageKey = await saveFile(bytes, image.type);
+export async function storeUploads<T>(actor: Actor, structure: Structure, uploads: NewUpload[], write: (tx: WriteTx, rows: StoredFile[]) => Promise<T>): Promise<T> {
+  const checked = uploads.map((upload) => ({ upload, info: checkUpload(upload.bytes, upload.kind) }));
+  const keys: string[] = [];
   try {
+    for (const { upload, info } of checked) keys.push(await saveFile(upload.bytes, info.type));
     return await writeTransaction(async (tx) => {
-      const [row] = await tx
-        .insert(files)
-        .values({
-          structureId: target.structure.id,
-          gaugeId: target.gauge?.id ?? null,
-          kind: target.kind,
-          title: target.title,
-          storageKey,
-          contentType: image.type,
-          bytes: bytes.byteLength,
-          width: image.width,
-          height: image.height,
-          uploadedById: actor.kind === "user" ? actor.id : null,
-        })
-        .returning();
-      await audit(tx, row!);
-      return row!;
+      const rows: StoredFile[] = [];
+      for (const [i, { upload, info }] of checked.entries()) {
+        const [row] = await tx
+          .insert(files)
+          .values({
+            structureId: structure.id,
+            gaugeId: upload.gauge?.id ?? null,
+            kind: upload.kind,
+            title: upload.title,
+            storageKey: keys[i]!,
+            contentType: info.type,
+            bytes: upload.bytes.byteLength,
+            width: info.width,
+            height: info.height,
+            uploadedById: actor.kind === "user" ? actor.id : null,
+          })
+          .returning();
+        rows.push(row!);
+      }
+      return write(tx, rows);
     });
   } catch (error) {
-    await deleteFile(storageKey);
+    await Promise.all(keys.map((key) => deleteFile(key)));
     throw error;
   }
 }
@@ -91,18 +97,20 @@ export async function uploadDrawing(actor: Actor, code: string, upload: UploadRe
   const structure = await getVisibleStructure(actor, code);
   await requirePermission(actor, "gauge:register", structure);
   const { title } = parseWith(drawingFields, upload.fields);
-  const row = await storeUpload(actor, { structure, gauge: null, kind: "drawing", title }, upload.bytes, (tx, row) =>
-    recordAudit(tx, { actor, action: "structure.drawing.upload", entityType: "structure", entityKey: structure.code, structureId: structure.id, after: auditedFile(row) }),
-  );
+  const row = await storeUploads(actor, structure, [{ kind: "drawing", title, bytes: upload.bytes }], async (tx, [row]) => {
+    await recordAudit(tx, { actor, action: "structure.drawing.upload", entityType: "structure", entityKey: structure.code, structureId: structure.id, after: auditedFile(row!) });
+    return row!;
+  });
   return toFileView(row, null);
 }
 
 export async function uploadGaugePhoto(actor: Actor, code: string, tag: string, upload: UploadRequest): Promise<FileView> {
   const { structure, gauge } = await resolveGauge(actor, code, tag, "gauge:register");
   const title = parseWith(photoFields, upload.fields).title ?? `Installation photo of ${gauge.tag}`;
-  const row = await storeUpload(actor, { structure, gauge, kind: "photo", title }, upload.bytes, (tx, row) =>
-    recordAudit(tx, { actor, action: "gauge.photo.upload", entityType: "gauge", entityKey: gaugeKey(structure, gauge.tag), structureId: structure.id, after: auditedFile(row) }),
-  );
+  const row = await storeUploads(actor, structure, [{ kind: "photo", title, bytes: upload.bytes, gauge }], async (tx, [row]) => {
+    await recordAudit(tx, { actor, action: "gauge.photo.upload", entityType: "gauge", entityKey: gaugeKey(structure, gauge.tag), structureId: structure.id, after: auditedFile(row!) });
+    return row!;
+  });
   return toFileView(row, gauge.tag);
 }
 
@@ -153,8 +161,13 @@ export async function getDrawing(actor: Actor, code: string, id: number): Promis
 /** The stored bytes of a file the actor may see, with what to serve them as. */
 export async function openFile(actor: Actor, id: number) {
   const { file } = await visibleFile(actor, id);
+  return openStored(file);
+}
+
+/** The bytes of a stored file row the caller has already been allowed to read. */
+export async function openStored(file: StoredFile) {
   const stream = await readFile(file.storageKey);
-  if (!stream) throw new AppError("not_found", `The image of file ${id} is missing from storage; upload it again.`);
+  if (!stream) throw new AppError("not_found", `The bytes of file ${file.id} are missing from storage; upload it again.`);
   return { contentType: file.contentType, bytes: file.bytes, stream };
 }
 
@@ -183,6 +196,10 @@ async function writePlacement(tx: WriteTx, actor: Actor, structure: Pick<Structu
 export async function removeFile(actor: Actor, id: number): Promise<void> {
   const { file, structure, gaugeTag } = await visibleFile(actor, id);
   await requirePermission(actor, "gauge:register", structure);
+  if (file.kind === "certificate" || file.kind === "visit-photo") {
+    // A field record is evidence of what was done on site: its files stay with it.
+    throw new AppError("conflict", `File ${id} belongs to a ${file.kind === "certificate" ? "calibration certificate" : "site visit"} and is kept with that record; it cannot be deleted on its own.`);
+  }
   await writeTransaction(async (tx) => {
     await tx.delete(files).where(eq(files.id, file.id));
     if (file.kind === "drawing") {

@@ -3,7 +3,9 @@ import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { Readable } from "node:stream";
-import { IMAGE_TYPES, type ImageType } from "./image-type";
+import { IMAGE_TYPES } from "./image-type";
+import { PDF_TYPE } from "./pdf-type";
+import type { StoredType } from "./upload-rules";
 
 /**
  * The one place uploaded bytes are kept: a local folder (FILE_STORAGE_DIR, default data/files).
@@ -12,7 +14,8 @@ import { IMAGE_TYPES, type ImageType } from "./image-type";
  */
 
 const DEFAULT_FOLDER = path.join("data", "files");
-const KEY_PATTERN = /^[0-9a-f]{32}\.(png|jpg|webp)$/;
+const KEY_PATTERN = /^[0-9a-f]{32}\.(png|jpg|webp|pdf)$/;
+const extensionOf = (type: StoredType) => (type === PDF_TYPE ? "pdf" : IMAGE_TYPES[type].extension);
 
 // The folder is chosen at run time, so the bundler is told not to trace it as a source folder.
 function storageFolder(): string {
@@ -35,8 +38,8 @@ const INCOMING = ".incoming";
  * Writes the bytes under a new key: first to the incoming folder, flushed to disk, then renamed
  * into place (one step on one file system), so a key names whole bytes or nothing.
  */
-export async function saveFile(bytes: Uint8Array, contentType: ImageType): Promise<string> {
-  const key = `${randomBytes(16).toString("hex")}.${IMAGE_TYPES[contentType].extension}`;
+export async function saveFile(bytes: Uint8Array, contentType: StoredType): Promise<string> {
+  const key = `${randomBytes(16).toString("hex")}.${extensionOf(contentType)}`;
   const incoming = path.join(/*turbopackIgnore: true*/ storageFolder(), INCOMING, key);
   await fs.promises.mkdir(path.dirname(incoming), { recursive: true });
   // "wx" never overwrites: a clash of 128 random bits would fail loudly rather than lose a file.

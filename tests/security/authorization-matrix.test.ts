@@ -23,7 +23,7 @@ function pathFor(pattern: string, method: HttpMethod): string {
   return `/api/v1${pattern}`
     .replace("{code}", "MILL-FB")
     .replace("{tag}", destructive ? "NO-SUCH" : pattern.includes("rosettes") ? "R1" : "LC-M1")
-    .replace("{id}", String(destructive ? 999_999 : pattern.startsWith("/alerts") ? ids.alert : pattern.includes("/load-tests/") ? ids.loadTest : ids.file));
+    .replace("{id}", String(destructive ? 999_999 : pattern.startsWith("/alerts") ? ids.alert : pattern.includes("/load-tests/") ? ids.loadTest : pattern.includes("/certificates/") ? ids.certificate : ids.file));
 }
 
 // "out of sight": a 404, or for a route addressed by id a 400 about the body given before the id is

@@ -165,6 +165,40 @@ function corpus(): Case[] {
     add({ label: `load test CSV numbered ${id}`, method: "GET", path: `${L}/${id}/results.csv` });
   }
 
+  // Calibration certificates: dates out of order or not dates, an unknown gauge, files that are no PDF or image.
+  const C = `${S}/MILL-FB/certificates`;
+  const certificate = (fields: Record<string, string>, part: Uint8Array<ArrayBuffer> | string | null = "%PDF-1.7\n1 0 obj\n<<>>\nendobj\n%%EOF\n") => {
+    const form = new FormData();
+    for (const [name, value] of Object.entries({ gauge: "LC-M1", number: "PROBE-C", issuedBy: "Probe lab", issuedOn: "2026-01-10", expiresOn: "2027-01-10", ...fields })) form.set(name, value);
+    if (part !== null) form.set("file", new Blob([typeof part === "string" ? new TextEncoder().encode(part) : part], { type: "application/pdf" }), "certificate.pdf");
+    return form;
+  };
+  for (const dates of [{ expiresOn: "2026-01-09" }, { expiresOn: "2026-01-10" }, { issuedOn: "2026-02-30" }, { expiresOn: "tomorrow" }, { issuedOn: "99999-01-01" }, { expiresOn: "" }] as Record<string, string>[])
+    add({ label: `certificate dates ${json(dates)}`, method: "POST", path: C, body: certificate(dates) });
+  for (const subject of [{ gauge: "NO-SUCH" }, { gauge: "<script>" }, { gauge: "", logger: "" }, { logger: "Probe logger" }, { gauge: "", logger: "x".repeat(500) }] as Record<string, string>[])
+    add({ label: `certificate for ${json(subject).slice(0, 40)}`, method: "POST", path: C, body: certificate(subject) });
+  for (const [label, part] of [["text named .pdf", "just text, not a PDF"], ["PDF cut short", "%PDF-1.7\n1 0 obj\n<<"], ["HTML", "<html><script>alert(1)</script></html>"], ["empty", new Uint8Array()]] as const)
+    add({ label: `certificate file ${label}`, method: "POST", path: C, body: certificate({}, part) });
+  add({ label: "certificate without a file", method: "POST", path: C, body: certificate({}, null) });
+  add({ label: "certificate without a number", method: "POST", path: C, body: certificate({ number: "" }) });
+  add({ label: "certificate as JSON", method: "POST", path: C, body: json({ gauge: "LC-M1" }) });
+  for (const id of ["NaN", "0", "-1", "1.5", "1e308", "999999"]) add({ label: `certificate file numbered ${id}`, method: "GET", path: `${C}/${id}/file` });
+
+  // Site visits, as JSON and as a form with photos: times, unknown gauges, photos that are no image.
+  const V = `${S}/MILL-FB/site-visits`;
+  const visit = { visitedAt: "2026-01-10T09:00:00Z", work: "Probe visit", gauges: ["LC-M1"] };
+  for (const visitedAt of [...far.slice(0, 3), "yesterday", "2999-01-01T00:00:00Z", 1e308]) add({ label: `site visit at ${json(visitedAt)}`, method: "POST", path: V, body: json({ ...visit, visitedAt }) });
+  for (const gauges of [["NO-SUCH"], ["LC-M1", "LC-M1"], "LC-M1", [7], [...hostile.slice(0, 3)]]) add({ label: `site visit gauges ${json(gauges).slice(0, 40)}`, method: "POST", path: V, body: json({ ...visit, gauges }) });
+  for (const work of ["", null, 5, "x".repeat(5000)]) add({ label: `site visit work ${json(work).slice(0, 30)}`, method: "POST", path: V, body: json({ ...visit, work }) });
+  const visitForm = (photo: FormData) => {
+    const form = new FormData();
+    for (const [name, value] of Object.entries({ visitedAt: visit.visitedAt, work: visit.work, gauges: "LC-M1" })) form.set(name, value);
+    form.set("photos", photo.get("file")!);
+    return form;
+  };
+  disguised.slice(0, 4).forEach((body, i) => add({ label: `site visit with disguised photo ${i}`, method: "POST", path: V, body: visitForm(body) }));
+  for (const query of ["page=0", "page=-1", "page=1e308", "page=NaN", "gauge=NO-SUCH", "gauge=%3Cscript%3E"]) add({ label: `site visits ?${query}`, method: "GET", path: `${V}?${query}` });
+
   // Names in the path and the query.
   const pathNames = ["%3Cscript%3E", "'%20OR%201%3D1--", "%00", "..%2F..%2Fetc%2Fpasswd", "x".repeat(3000), "MILL-FB%E2%80%AE", "%F0%9F%92%A5", "1e308"];
   for (const name of pathNames) {

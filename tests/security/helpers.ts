@@ -57,7 +57,7 @@ export async function expectContractError(response: Response, label: string): Pr
  * row counts of the time series. Tables the background jobs write on their own (alerts raised by
  * the stale watch, the outbox, leases, roll-ups, token last-use) are left out.
  */
-const CONTENT_TABLES = ["users", "structures", "structure_members", "gauges", "zero_readings", "rosettes", "files", "gauge_limits", "rosette_limits", "load_tests", "load_test_predictions", "thermal_models", "shunt_checks"];
+const CONTENT_TABLES = ["users", "structures", "structure_members", "gauges", "zero_readings", "rosettes", "files", "gauge_limits", "rosette_limits", "load_tests", "load_test_predictions", "thermal_models", "shunt_checks", "calibration_certificates", "site_visits", "site_visit_gauges", "site_visit_photos"];
 const COUNTED_TABLES = ["readings", "audit_log", "api_tokens"];
 
 export async function storedFingerprint(): Promise<string> {
@@ -127,14 +127,19 @@ export async function makeCallers(suffix: string): Promise<Caller[]> {
   ];
 }
 
-/** Ids the id-addressed routes need: an alert and a file of MILL-FB. */
-export async function millIds(): Promise<{ alert: number; file: number; loadTest: number }> {
+/** Ids the id-addressed routes need: an alert, a file, a load test and a calibration certificate of MILL-FB. */
+export async function millIds(): Promise<{ alert: number; file: number; loadTest: number; certificate: number }> {
   const one = async (sql: string) => Number((await serverDb().execute(sql)).rows[0]?.id ?? 999_999);
   // The demo records no load test: one without gauges gives the routes addressed by its id something to find.
   await serverDb().execute(
     "insert into load_tests (structure_id, title, load, start, end, created_by_label) select id, 'Matrix probe', 'none', 0, 1, 'security suite' from structures where code = 'MILL-FB' and not exists (select 1 from load_tests)",
   );
+  // Nor any certificate: one of a logger, pointing at a stored file of MILL-FB, gives its file route something to serve.
+  await serverDb().execute(
+    "insert into calibration_certificates (structure_id, logger_name, certificate_number, issued_by, issued_on, expires_on, file_id, created_by_label) select s.id, 'Matrix probe logger', 'PROBE-1', 'security suite', '2026-01-01', '2027-01-01', f.id, 'security suite' from structures s join files f on f.structure_id = s.id where s.code = 'MILL-FB' and not exists (select 1 from calibration_certificates) order by f.id limit 1",
+  );
   return {
+    certificate: await one("select c.id from calibration_certificates c join structures s on s.id = c.structure_id where s.code = 'MILL-FB' order by c.id limit 1"),
     loadTest: await one("select t.id from load_tests t join structures s on s.id = t.structure_id where s.code = 'MILL-FB' order by t.id limit 1"),
     alert: await one("select a.id from alerts a join structures s on s.id = a.structure_id where s.code = 'MILL-FB' order by a.id limit 1"),
     file: await one("select f.id from files f join structures s on s.id = f.structure_id where s.code = 'MILL-FB' order by f.id limit 1"),

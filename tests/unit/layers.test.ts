@@ -27,6 +27,7 @@ const PURE = [
   "lib/files/",
   "lib/thermal/",
   "lib/load-tests/",
+  "lib/field-records/",
   "lib/units.ts",
   "lib/errors.ts",
   "lib/time-format.ts",

@@ -19,6 +19,8 @@ const EXPECTED: Record<Action, Record<Role, boolean>> = {
   "thermal-model:edit": { admin: true, engineer: true, technician: false, owner: false },
   "alert:acknowledge": { admin: true, engineer: true, technician: false, owner: false },
   "load-test:record": { admin: true, engineer: true, technician: false, owner: false },
+  // The field records issue: technicians and engineers of the structure add certificates and visits.
+  "field-record:add": { admin: true, engineer: true, technician: true, owner: false },
   "token:manage": { admin: true, engineer: true, technician: false, owner: false },
   "audit:view": { admin: true, engineer: true, technician: false, owner: false },
   "users:manage": { admin: true, engineer: false, technician: false, owner: false },

@@ -669,6 +669,69 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/structures/{code}/certificates": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Calibration certificates of the structure's gauges and loggers, soonest expiry first, each with where it stands today on the structure's clock */
+        get: operations["getStructuresByCodeCertificates"];
+        put?: never;
+        /**
+         * Record a calibration certificate of a gauge or a logger, with its file. Audited
+         * @description Roles: admin, engineer, technician.
+         *
+         *     The expiry must fall after the issue date; an unknown gauge tag is a 400 naming it; a file that is not a whole PDF or a PNG, JPEG or WebP image is refused (415, or 400 for a damaged one). Nothing is stored unless all of it is. Reminders: once a day, each certificate that has come within a threshold of its expiry (CERTIFICATE_REMINDER_DAYS, default 30 days) is e-mailed once per threshold to the structure's technicians and engineers, unless a later certificate of the same instrument expires after it.
+         */
+        post: operations["postStructuresByCodeCertificates"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/certificates/{id}/file": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The certificate's file as the type detected at upload (a PDF as an attachment) */
+        get: operations["getStructuresByCodeCertificatesByIdFile"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/structures/{code}/site-visits": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The structure's site visits, newest first, a page at a time; `?gauge=` keeps those naming one gauge */
+        get: operations["getStructuresByCodeSiteVisits"];
+        put?: never;
+        /**
+         * Record a site visit: when, who, what was done, the gauges it touched and its photos. Audited
+         * @description Roles: admin, engineer, technician.
+         *
+         *     Send JSON (no photos) or multipart/form-data with the photos. Every gauge named must be the structure's (unknown tags are all named in one 400, `details.unknownGauges`); every photo must be a PNG, JPEG or WebP image (415 otherwise). Nothing is stored unless all of it is.
+         */
+        post: operations["postStructuresByCodeSiteVisits"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/files/{id}": {
         parameters: {
             query?: never;
@@ -810,6 +873,49 @@ export interface components {
                 cycles: number;
             }[];
         };
+        CalibrationCertificate: {
+            id: number;
+            /** @description Tag of the gauge the certificate is for; null for a logger's */
+            gauge: string | null;
+            /** @description Name of the logger the certificate is for; null for a gauge's */
+            logger: string | null;
+            /** @description Certificate number as printed */
+            number: string;
+            /** @description The calibration laboratory */
+            issuedBy: string;
+            /** @description YYYY-MM-DD */
+            issuedOn: string;
+            /** @description YYYY-MM-DD, the last day it is valid on the structure's clock */
+            expiresOn: string;
+            /**
+             * @description `expired` after the expiry day; `expiring` within the longest reminder threshold; else `valid`
+             * @enum {string}
+             */
+            state: "expired" | "expiring" | "valid";
+            /** @description Days from the structure's today to the expiry day (negative once expired) */
+            daysLeft: number;
+            /** @description The state in words with the date, e.g. "Expires in 12 days, on 2026-07-01" */
+            standing: string;
+            /** @description Number of a later certificate of the same instrument that expires later, which takes this one's place (no reminders then) */
+            replacedBy: string | null;
+            file: {
+                url: string;
+                /** @description application/pdf or an image type, detected from the content */
+                contentType: string;
+                bytes: number;
+            };
+            createdBy: string;
+            /** @description UTC, ISO-8601 with milliseconds */
+            createdAt: string;
+        };
+        CertificateList: {
+            /** @description The structure's date now, YYYY-MM-DD: what `daysLeft` counts from */
+            today: string;
+            /** @description Days before expiry a reminder goes to the structure's technicians and engineers (CERTIFICATE_REMINDER_DAYS) */
+            reminderDays: number[];
+            /** @description Soonest expiry first */
+            certificates: components["schemas"]["CalibrationCertificate"][];
+        };
         DrawingList: {
             drawings: components["schemas"]["File"][];
         };
@@ -874,7 +980,7 @@ export interface components {
         File: {
             id: number;
             /** @enum {string} */
-            kind: "photo" | "drawing";
+            kind: "photo" | "drawing" | "certificate" | "visit-photo";
             title: string;
             /**
              * @description Detected from the content, not the name
@@ -1503,6 +1609,43 @@ export interface components {
         ShuntCheckList: {
             /** @description Newest first */
             shuntChecks: components["schemas"]["ShuntCheck"][];
+        };
+        SiteVisit: {
+            id: number;
+            /** @description UTC, ISO-8601 with milliseconds */
+            visitedAt: string;
+            /** @description Who went */
+            visitor: string;
+            /** @description What was done */
+            work: string;
+            /** @description Tags of the gauges the visit touched */
+            gauges: string[];
+            photos: components["schemas"]["File"][];
+            createdBy: string;
+            createdAt: string;
+        };
+        SiteVisitInput: {
+            /**
+             * Format: date-time
+             * @description When the visit began, ISO-8601 with Z or an offset; not in the future
+             */
+            visitedAt: string;
+            /** @description Who went (names of the crew); default the person whose token or session sends it */
+            visitor?: string;
+            work: string;
+            /**
+             * @description Tags of the structure's gauges the visit touched
+             * @default []
+             */
+            gauges?: string[];
+        };
+        SiteVisitPage: {
+            /** @description Newest visit first */
+            visits: components["schemas"]["SiteVisit"][];
+            /** @description Visits that match in all */
+            total: number;
+            page: number;
+            perPage: number;
         };
         Structure: {
             code: string;
@@ -4971,6 +5114,352 @@ export interface operations {
             };
             /** @description Unknown, or not visible to the caller */
             404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeCertificates: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The certificates */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CertificateList"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeCertificates: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The certificate: PDF, PNG, JPEG or WebP file, at most 20 MB. The type is read from the content, not the name; a PDF must be whole (end with %%EOF).
+                     */
+                    file: string;
+                    /** @description Tag of the structure's gauge the certificate is for; give this or `logger` */
+                    gauge?: string;
+                    /** @description Name of the logger the certificate is for (its token's name or serial number); give this or `gauge` */
+                    logger?: string;
+                    /** @description Certificate number as printed */
+                    number: string;
+                    /** @description The calibration laboratory */
+                    issuedBy: string;
+                    /** @description YYYY-MM-DD */
+                    issuedOn: string;
+                    /** @description YYYY-MM-DD, after issuedOn: the last day the certificate is valid, on the structure's clock */
+                    expiresOn: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The stored certificate */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CalibrationCertificate"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeCertificatesByIdFile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+                /** @description Certificate id */
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The file */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/pdf": string;
+                    "image/png": string;
+                    "image/jpeg": string;
+                    "image/webp": string;
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    getStructuresByCodeSiteVisits: {
+        parameters: {
+            query?: {
+                /** @description Page of 20 visits, newest first (default 1) */
+                page?: string;
+                /** @description Only the visits that name this gauge */
+                gauge?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of visits */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SiteVisitPage"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+        };
+    };
+    postStructuresByCodeSiteVisits: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description Structure code */
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /** @description When the visit began, ISO-8601 with Z or an offset; not in the future */
+                    visitedAt: string;
+                    /** @description Who went; default the sender */
+                    visitor?: string;
+                    /** @description What was done */
+                    work: string;
+                    /** @description A gauge tag the visit touched; repeat the field for each */
+                    gauges?: string;
+                    /**
+                     * Format: binary
+                     * @description A photo taken on the visit: PNG, JPEG or WebP image, at most 10 MB. Repeat the field for each, at most 8.
+                     */
+                    photos?: string;
+                };
+                "application/json": components["schemas"]["SiteVisitInput"];
+            };
+        };
+        responses: {
+            /** @description The stored visit */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SiteVisit"];
+                };
+            };
+            /** @description Malformed or invalid request */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description No token, or an unknown or revoked one */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Authenticated, but the role may not do this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unknown, or not visible to the caller */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Body over the limit */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Error"];
+                };
+            };
+            /** @description Unsupported content type */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -3,6 +3,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AlertTable } from "@/components/alerts/alert-table";
 import { StructureDrawings } from "@/components/drawings/structure-drawings";
+import { CertificatesSection } from "@/components/field-records/certificates-section";
 import { GaugeTable, type GaugeTableRow } from "@/components/gauges/gauge-table";
 import { RosetteSection } from "@/components/gauges/rosette-section";
 import { TokenTable } from "@/components/tokens/token-table";
@@ -103,6 +104,12 @@ export default async function StructurePage({ params }: Props) {
             <Link href={`/structures/${code}/load-tests`} className={buttonClass("secondary")}>
               Load tests
             </Link>
+            <Link href={`/structures/${code}/certificates`} className={buttonClass("secondary")}>
+              Certificates
+            </Link>
+            <Link href={`/structures/${code}/site-visits`} className={buttonClass("secondary")}>
+              Site visits
+            </Link>
             {canIngest && (
               <Link href={`/structures/${structure.code}/upload`} className={buttonClass("secondary")}>
                 Upload logger file
@@ -189,6 +196,9 @@ export default async function StructurePage({ params }: Props) {
             stateText: conditionText(row.condition, row.retired),
           }))}
         />
+      </Suspense>
+      <Suspense fallback={<ChartSkeleton />}>
+        <CertificatesSection user={user} code={structure.code} />
       </Suspense>
       <Section title="Rosettes" id="rosettes-heading">
         <div className={`${cardClass} p-4`}>

@@ -4,6 +4,7 @@ import { GaugeCharts } from "@/components/charts/gauge-charts";
 import { DynamicChannel } from "@/components/dynamic/dynamic-channel";
 import { EmptyState } from "@/components/ui/empty-state";
 import { GaugePhotos } from "@/components/gauges/gauge-photos";
+import { GaugeFieldRecords } from "@/components/field-records/gauge-field-records";
 import { GaugeSummary } from "@/components/gauges/gauge-summary";
 import { ShuntCheckForm } from "@/components/gauges/shunt-check-form";
 import { ShuntVerdict } from "@/components/gauges/shunt-verdict";
@@ -340,6 +341,7 @@ export default async function GaugePage({ params, searchParams }: Props) {
       <div className="mt-6">
         <GaugePhotos structureCode={code} tag={tag} timeZone={structure.timezone} canUpload={active && canEdit} initialPhotos={photos} />
       </div>
+      <GaugeFieldRecords user={user} code={code} tag={gauge.tag} timeZone={structure.timezone} />
       {canAudit && (
         <section className={`${cardClass} mt-6 p-4`} aria-labelledby="audit">
           <h2 id="audit" className="mb-3 font-semibold">
