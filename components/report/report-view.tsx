@@ -10,6 +10,7 @@ import { shownState } from "@/lib/alerting/condition-display";
 import type { ReportGauge, StructureReport } from "@/lib/api/report-schema";
 import { formatInTimeZone } from "@/lib/time-format";
 import { alertEventLine, alertHandling, alertTitle, formatCondition, formatGap, gaugeFacts, summaryFacts } from "@/lib/report/format";
+import { fieldRecordSections } from "@/lib/report/field-records";
 import { periodState } from "@/lib/report/status";
 import type { UnitSystem } from "@/lib/units";
 import { ReportStressChart } from "./report-chart";
@@ -120,6 +121,20 @@ export function ReportView({ report }: { report: StructureReport }) {
           </ul>
         )}
       </Section>
+
+      {fieldRecordSections(report).map((section) => (
+        <Section key={section.id} id={section.id} title={section.title}>
+          {section.lines.length === 0 ? (
+            <p className="text-sm text-slate-600 dark:text-slate-400">{section.empty}</p>
+          ) : (
+            <ul className="list-inside list-disc space-y-1 text-sm">
+              {section.lines.map((line, i) => (
+                <li key={i}>{line}</li>
+              ))}
+            </ul>
+          )}
+        </Section>
+      ))}
     </div>
   );
 }

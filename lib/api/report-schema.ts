@@ -145,6 +145,37 @@ export const reportAlertSchema = z.object({
     .meta({ description: "The alert's whole history up to when the report was made, oldest first" }),
 });
 
+export const reportShuntCheckSchema = z.object({
+  gauge: z.string(),
+  time: z.string(),
+  expectedOutput: z.number().meta({ description: "Output the shunt should give, in unit" }),
+  measuredOutput: z.number(),
+  unit: z.string().meta({ description: "Unit of the outputs: the gauge's input (mV/V, µε, …)" }),
+  differencePercent: z.number().meta({ description: "(measured − expected) ÷ expected, %" }),
+  tolerancePercent: z.number(),
+  passed: z.boolean(),
+});
+
+export const reportCertificateSchema = z.object({
+  gauge: z.string().nullable(),
+  logger: z.string().nullable(),
+  number: z.string(),
+  expiresOn: z.string().meta({ description: "Last day of validity, YYYY-MM-DD" }),
+  expiredInPeriod: z.boolean().meta({ description: "true: expired by the period's end; false: expires within the reminder window after it" }),
+});
+
+export const reportThermalModelSchema = z.object({
+  gauge: z.string(),
+  slope: z.number().meta({ description: "µε/°C" }),
+  lagMinutes: z.number(),
+  r2: z.number(),
+  residualStd: z.number().meta({ description: "σ of the fit's residuals, µε" }),
+  residual: z
+    .object({ min: z.number(), max: z.number(), unit: z.literal("µε") })
+    .nullable()
+    .meta({ description: "Lowest and highest thermal residual of the period's readings not found faulty; null when none has a residual" }),
+});
+
 export const structureReportSchema = z
   .object({
     structure: z.object({ code: z.string(), name: z.string(), location: z.string().nullable(), timezone: z.string() }),
@@ -176,6 +207,14 @@ export const structureReportSchema = z
     alerts: z.array(reportAlertSchema).meta({ description: "Alerts open at any time in the period, newest first" }),
     drawings: z.array(reportDrawingSchema).meta({ description: "The structure's drawings, oldest first; the gauges' placements point into them" }),
     loadTests: z.array(loadTestResultsSchema).meta({ description: "Load tests whose window overlaps the period, oldest first, with their results" }),
+    shuntChecks: z.array(reportShuntCheckSchema).optional().meta({ description: "Shunt-calibration checks recorded in the period, oldest first" }),
+    certificates: z
+      .array(reportCertificateSchema)
+      .optional()
+      .meta({
+        description: "Calibration certificates that expired in the period or expire within the reminder window (CERTIFICATE_REMINDER_DAYS, largest) after its last day, soonest first",
+      }),
+    thermalModels: z.array(reportThermalModelSchema).optional().meta({ description: "The thermal model in force of each gauge in the report that has one, by tag" }),
     cautions: z.array(z.string()),
   })
   .meta({ id: "StructureReport" });
@@ -184,3 +223,6 @@ export type StructureReport = z.output<typeof structureReportSchema>;
 export type ReportGauge = z.output<typeof reportGaugeSchema>;
 export type ReportAlert = z.output<typeof reportAlertSchema>;
 export type ReportDrawing = z.output<typeof reportDrawingSchema>;
+export type ReportShuntCheck = z.output<typeof reportShuntCheckSchema>;
+export type ReportCertificate = z.output<typeof reportCertificateSchema>;
+export type ReportThermalModel = z.output<typeof reportThermalModelSchema>;

@@ -32,3 +32,8 @@ export const calendarDate = z
 export function daysBetween(from: string, to: string): number {
   return dayNumber(to)! - dayNumber(from)!;
 }
+
+/** The date `days` whole days after `date` (before, when negative). `date` must be a valid date. */
+export function addDays(date: string, days: number): string {
+  return new Date((dayNumber(date)! + days) * DAY_MS).toISOString().slice(0, 10);
+}

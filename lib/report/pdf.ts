@@ -8,6 +8,7 @@ import { STATE_LOOK, conditionText, shownState } from "@/lib/alerting/condition-
 import { loadTestReportLines } from "@/lib/load-tests/results";
 import { labelSlots } from "@/lib/drawings/label-slots";
 import { reportStressChart } from "./chart";
+import { fieldRecordSections } from "./field-records";
 import { drawChart } from "./pdf-chart";
 import { periodLevelText } from "./status";
 
@@ -261,6 +262,14 @@ function loadTestSection(doc: Doc, report: StructureReport) {
   }
 }
 
+function fieldRecords(doc: Doc, report: StructureReport) {
+  for (const section of fieldRecordSections(report)) {
+    heading(doc, section.title);
+    if (section.lines.length === 0) paragraph(doc, section.empty);
+    for (const line of section.lines) paragraph(doc, `- ${line}`, { size: 9 });
+  }
+}
+
 function cautions(doc: Doc, report: StructureReport) {
   heading(doc, "Read with care");
   for (const caution of report.cautions) paragraph(doc, `- ${caution}`);
@@ -305,6 +314,7 @@ export function renderReportPdf(report: StructureReport, drawingImages: Readonly
   gaugeTables(doc, report);
   alertSection(doc, report);
   loadTestSection(doc, report);
+  fieldRecords(doc, report);
   cautions(doc, report);
   footers(doc, report);
   doc.end();

@@ -1,11 +1,13 @@
 import "server-only";
-import { and, asc, desc, eq, gt, gte, inArray, isNull, lt, or, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, gte, inArray, isNull, lt, lte, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { alertEvents, alerts, readings, rollups, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
+import { alertEvents, alerts, calibrationCertificates, gauges as gaugeTable, readings, rollups, shuntChecks, thermalModels, users, zeroReadings, type Alert, type AlertEvent, type Gauge } from "@/db/schema";
 import { CONCRETE_CAUTION, peakRating, type StressRating } from "@/lib/mechanics";
 import { Flag } from "@/lib/mechanics/validity";
 import { DEFAULT_EXPECTED_INTERVAL_S } from "@/lib/alerting/gauge-state";
-import type { ReportAlert, ReportDrawing, ReportGauge, StructureReport } from "@/lib/api/report-schema";
+import type { ReportAlert, ReportCertificate, ReportDrawing, ReportGauge, ReportShuntCheck, ReportThermalModel, StructureReport } from "@/lib/api/report-schema";
+import { addDays } from "@/lib/field-records/calendar";
+import { shuntCheckVerdict } from "@/lib/mechanics/shunt-calibration";
 import type { Actor } from "@/lib/auth/actor";
 import { requirePermission } from "@/lib/auth/authorize";
 import { REPORT_CAUTIONS } from "@/lib/report/cautions";
@@ -17,6 +19,7 @@ import { PDF_IMAGE_TYPES, renderReportPdf } from "@/lib/report/pdf";
 import { limitLines } from "@/lib/limits";
 import { ROLLUP_RESOLUTIONS } from "@/lib/series";
 import { gaugeFatigue } from "./fatigue";
+import { reminderDays } from "./certificates";
 import { listDrawings, openFile } from "./files";
 import { limitsOfGauge } from "./limits";
 import { getSeries } from "./readings";
@@ -286,6 +289,78 @@ function alertSection(alert: Alert, acknowledgedBy: string | null, events: Alert
   };
 }
 
+/** The shunt checks of the report's gauges taken in the period, oldest first. */
+async function shuntChecksOf(gaugeIds: number[], period: Span, tagOf: Map<number, string>): Promise<ReportShuntCheck[]> {
+  if (gaugeIds.length === 0) return [];
+  const rows = await getDb()
+    .select()
+    .from(shuntChecks)
+    .where(and(inArray(shuntChecks.gaugeId, gaugeIds), gte(shuntChecks.time, new Date(period.start)), lt(shuntChecks.time, new Date(period.end))))
+    .orderBy(asc(shuntChecks.time), asc(shuntChecks.id));
+  return rows.map((row) => ({
+    gauge: tagOf.get(row.gaugeId)!,
+    time: row.time.toISOString(),
+    expectedOutput: row.expectedOutput,
+    measuredOutput: row.measuredOutput,
+    unit: row.unit,
+    differencePercent: shuntCheckVerdict(row.measuredOutput, row.expectedOutput, row.tolerancePercent).deviationPercent,
+    tolerancePercent: row.tolerancePercent,
+    passed: row.passed,
+  }));
+}
+
+/**
+ * The structure's certificates that expired in the period (on its days) or expire within the
+ * largest reminder window after its last day: what the owner must have renewed, or soon must.
+ */
+async function certificatesDue(structureId: number, firstDay: string, lastDay: string): Promise<ReportCertificate[]> {
+  const windowEnd = addDays(lastDay, reminderDays()[0] ?? 0);
+  const rows = await getDb()
+    .select({ certificate: calibrationCertificates, gaugeTag: gaugeTable.tag })
+    .from(calibrationCertificates)
+    .leftJoin(gaugeTable, eq(gaugeTable.id, calibrationCertificates.gaugeId))
+    .where(and(eq(calibrationCertificates.structureId, structureId), gte(calibrationCertificates.expiresOn, firstDay), lte(calibrationCertificates.expiresOn, windowEnd)))
+    .orderBy(asc(calibrationCertificates.expiresOn), asc(calibrationCertificates.id));
+  return rows.map(({ certificate, gaugeTag }) => ({
+    gauge: gaugeTag,
+    logger: certificate.loggerName,
+    number: certificate.certificateNumber,
+    expiresOn: certificate.expiresOn,
+    expiredInPeriod: certificate.expiresOn <= lastDay,
+  }));
+}
+
+/** The thermal models of the report's gauges, with the residual range of the period from the hourly roll-ups (which leave faulty readings out). */
+async function thermalModelsOf(gaugeRows: Gauge[], period: Span): Promise<ReportThermalModel[]> {
+  const ids = gaugeRows.map((gauge) => gauge.id);
+  if (ids.length === 0) return [];
+  const [models, residuals] = await Promise.all([
+    getDb().select().from(thermalModels).where(inArray(thermalModels.gaugeId, ids)),
+    getDb()
+      .select({ gaugeId: rollups.gaugeId, min: sql<number>`min(${rollups.residualMin})`, max: sql<number>`max(${rollups.residualMax})` })
+      .from(rollups)
+      .where(and(hoursWithin(ids, period), gt(rollups.residualCount, 0)))
+      .groupBy(rollups.gaugeId),
+  ]);
+  const modelOf = new Map(models.map((model) => [model.gaugeId, model]));
+  const residualOf = new Map(residuals.map((row) => [row.gaugeId, row]));
+  return gaugeRows.flatMap((gauge) => {
+    const model = modelOf.get(gauge.id);
+    if (!model) return [];
+    const residual = residualOf.get(gauge.id);
+    return [
+      {
+        gauge: gauge.tag,
+        slope: model.slope,
+        lagMinutes: model.lagMinutes,
+        r2: model.r2,
+        residualStd: model.residualStd,
+        residual: residual ? { min: Number(residual.min), max: Number(residual.max), unit: "µε" as const } : null,
+      },
+    ];
+  });
+}
+
 /**
  * The periodic report of a structure: how the period went, per gauge the extremes, utilisation,
  * completeness and gaps, the alerts and how they were handled, and the fatigue damage of the
@@ -345,7 +420,9 @@ export async function structureReport(actor: Actor, code: string, requested?: Pe
     );
   }
 
-  const reportAlerts = await alertsOf(structure.id, span, new Map(allGauges.map((gauge) => [gauge.id, gauge.tag])));
+  const tagOf = new Map(allGauges.map((gauge) => [gauge.id, gauge.tag]));
+  const reportAlerts = await alertsOf(structure.id, span, tagOf);
+  const days = periodDays(period);
   const received = gauges.reduce((sum, gauge) => sum + gauge.readings.received, 0);
   const expected = gauges.reduce((sum, gauge) => sum + gauge.readings.expected, 0);
   // A gauge sending too often does not make up for one that is silent.
@@ -355,7 +432,7 @@ export async function structureReport(actor: Actor, code: string, requested?: Pe
   const share = completeness(onSchedule, expected);
   return {
     structure: { code: structure.code, name: structure.name, location: structure.location, timezone: structure.timezone },
-    period: { from: period.from.toISOString(), to: period.to.toISOString(), ...periodDays(period), name: periodName(period) },
+    period: { from: period.from.toISOString(), to: period.to.toISOString(), ...days, name: periodName(period) },
     generatedAt: now.toISOString(),
     summary: {
       level,
@@ -373,6 +450,9 @@ export async function structureReport(actor: Actor, code: string, requested?: Pe
     alerts: reportAlerts,
     drawings: (await listDrawings(actor, code)).map(drawingOf),
     loadTests: await loadTestsOfPeriod(structure, span),
+    shuntChecks: await shuntChecksOf(inPeriod.map((gauge) => gauge.id), span, tagOf),
+    certificates: await certificatesDue(structure.id, days.firstDay, days.lastDay),
+    thermalModels: await thermalModelsOf(inPeriod, span),
     cautions: gauges.some((gauge) => gauge.utilisationPeak?.basis === "compressive-strength") ? [...REPORT_CAUTIONS, CONCRETE_CAUTION] : REPORT_CAUTIONS,
   };
 }
