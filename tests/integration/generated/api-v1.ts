@@ -1917,6 +1917,47 @@ export interface components {
             }[];
             /** @description Load tests whose window overlaps the period, oldest first, with their results */
             loadTests: components["schemas"]["LoadTestResults"][];
+            /** @description Shunt-calibration checks recorded in the period, oldest first */
+            shuntChecks?: {
+                gauge: string;
+                time: string;
+                /** @description Output the shunt should give, in unit */
+                expectedOutput: number;
+                measuredOutput: number;
+                /** @description Unit of the outputs: the gauge's input (mV/V, µε, …) */
+                unit: string;
+                /** @description (measured − expected) ÷ expected, % */
+                differencePercent: number;
+                tolerancePercent: number;
+                passed: boolean;
+            }[];
+            /** @description Calibration certificates that expired in the period or expire within the reminder window (CERTIFICATE_REMINDER_DAYS, largest) after its last day, soonest first */
+            certificates?: {
+                gauge: string | null;
+                logger: string | null;
+                number: string;
+                /** @description Last day of validity, YYYY-MM-DD */
+                expiresOn: string;
+                /** @description true: expired by the period's end; false: expires within the reminder window after it */
+                expiredInPeriod: boolean;
+            }[];
+            /** @description The thermal model in force of each gauge in the report that has one, by tag */
+            thermalModels?: {
+                gauge: string;
+                /** @description µε/°C */
+                slope: number;
+                lagMinutes: number;
+                r2: number;
+                /** @description σ of the fit's residuals, µε */
+                residualStd: number;
+                /** @description Lowest and highest thermal residual of the period's readings not found faulty; null when none has a residual */
+                residual: {
+                    min: number;
+                    max: number;
+                    /** @constant */
+                    unit: "µε";
+                } | null;
+            }[];
             cautions: string[];
         };
         ThermalFitPreview: {
