@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { daysBetween } from "@/lib/field-records/calendar";
+import { addDays, daysBetween } from "@/lib/field-records/calendar";
 import { dayOf } from "@/lib/time-format";
 import { certificateFields, certificateStanding, parseReminderDays, thresholdsDue } from "@/lib/field-records/certificates";
 
@@ -8,6 +8,14 @@ describe("calendar days on the structure's clock", () => {
     expect(daysBetween("2026-02-28", "2026-03-01")).toBe(1);
     expect(daysBetween("2028-02-28", "2028-03-01")).toBe(2); // 2028 is a leap year
     expect(daysBetween("2026-07-01", "2026-06-01")).toBe(-30);
+  });
+
+  it("adds whole days across month ends, year ends and leap days (Gregorian calendar)", () => {
+    expect(addDays("2026-10-31", 30)).toBe("2026-11-30"); // November has 30 days
+    expect(addDays("2028-02-28", 1)).toBe("2028-02-29"); // 2028 is a leap year
+    expect(addDays("2026-02-28", 1)).toBe("2026-03-01");
+    expect(addDays("2026-12-31", 1)).toBe("2027-01-01");
+    expect(addDays("2026-03-01", -1)).toBe("2026-02-28");
   });
 
   it("reads today's date in the structure's zone (IANA tz: New Zealand is UTC+12 in June, from memory)", () => {
