@@ -3,6 +3,7 @@ import * as collection from "@/app/api/v1/structures/[code]/gauges/route";
 import * as shuntRoute from "@/app/api/v1/structures/[code]/gauges/[tag]/shunt-checks/route";
 import { getDb } from "@/db/client";
 import { auditLog, shuntChecks } from "@/db/schema";
+import { shuntableFoilGauge } from "../fixtures/gauges";
 import { apiRequest, makeTeam, params } from "./helpers";
 
 let tokens: Awaited<ReturnType<typeof makeTeam>>["tokens"];
@@ -16,17 +17,7 @@ const parallel = (a: number, b: number) => (a * b) / (a + b);
 /** A quarter bridge of 350 Ω arms with the gauge (R1) shunted: the change of output. */
 const QUARTER_SHUNTED = circuit([parallel(R_GAUGE, R_SHUNT), R_GAUGE, R_GAUGE, R_GAUGE]) - circuit([R_GAUGE, R_GAUGE, R_GAUGE, R_GAUGE]);
 
-const foil = (tag: string, fields: object = {}) => ({
-  tag,
-  kind: "foil",
-  input: "mV/V",
-  bridge: "quarter",
-  gaugeFactor: 2,
-  gaugeResistance: R_GAUGE,
-  material: { E: 200_000, nu: 0.3, alpha: 12, yield: 355 },
-  zero: { value: 0, temperature: 12, time: "2026-01-01T00:00:00Z" },
-  ...fields,
-});
+const foil = (tag: string, fields: object = {}) => shuntableFoilGauge(tag, R_GAUGE, fields);
 
 const path = (tag: string) => `/structures/SH/gauges/${tag}/shunt-checks`;
 const post = (tag: string, body: unknown, token = tokens.technician) => shuntRoute.POST(apiRequest(path(tag), { token, body }), params({ code: "SH", tag }));

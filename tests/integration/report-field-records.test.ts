@@ -14,7 +14,7 @@ import { recordShuntCheck } from "@/lib/services/shunt-checks";
 import { saveThermalModel } from "@/lib/services/thermal";
 import { thermalModelInput } from "@/lib/thermal/schema";
 import { pdfDocument } from "../fixtures/documents";
-import { microstrainGauge } from "../fixtures/gauges";
+import { microstrainGauge, shuntableFoilGauge } from "../fixtures/gauges";
 import { storeReadings, type StoredReading } from "../fixtures/readings";
 import { makeStructure, makeUser } from "./helpers";
 
@@ -67,16 +67,7 @@ beforeAll(async () => {
   await createGauge(
     engineer,
     "REC",
-    gaugeInput.parse({
-      tag: "S1",
-      kind: "foil",
-      input: "mV/V",
-      bridge: "quarter",
-      gaugeFactor: 2,
-      gaugeResistance: R_GAUGE,
-      material: { E: 200_000, nu: 0.3, alpha: 12, yield: 355 },
-      zero: { value: 0, temperature: 12, time: "2026-01-01T00:00:00Z" },
-    }),
+    gaugeInput.parse(shuntableFoilGauge("S1", R_GAUGE)),
   );
   await createGauge(engineer, "REC", microstrainGauge("T1"));
   const shunt = (measuredOutput: number, time: string) => recordShuntCheck(engineer, "REC", "S1", shuntCheckInput.parse({ shuntResistance: R_SHUNT, measuredOutput, time }), NOW.getTime());
