@@ -32,16 +32,25 @@ export function storedStateOf(row: { state: unknown; lastTime: number | null } |
   return { stored: fresh, rebuildAfter: row.lastTime ?? 0 };
 }
 
-/** What a gauge's evaluation starts from; loaded for every gauge of a request at once. */
-type GaugeContext = { limits: Limit[]; stored: StoredState; rebuildAfter: number | null };
+/**
+ * What a gauge's evaluation starts from; loaded for every gauge of a request at once.
+ * `flapping`: the gauge has a flapping alert not settled yet, so a batch without limit events
+ * still has to look for one to settle (alerts start flapping only through limit events).
+ */
+type GaugeContext = { limits: Limit[]; stored: StoredState; rebuildAfter: number | null; flapping: boolean };
 
 async function loadContexts(tx: WriteTx, gaugeIds: number[]): Promise<Map<number, GaugeContext>> {
   const limitRows = await tx.select().from(gaugeLimits).where(inArray(gaugeLimits.gaugeId, gaugeIds));
   const stateRows = await tx.select().from(evaluationStates).where(inArray(evaluationStates.gaugeId, gaugeIds));
+  const flappingRows = await tx
+    .selectDistinct({ gaugeId: alerts.gaugeId })
+    .from(alerts)
+    .where(and(inArray(alerts.gaugeId, gaugeIds), unsettledFlappingAlerts()));
+  const flapping = new Set(flappingRows.map((row) => row.gaugeId));
   const contexts = new Map<number, GaugeContext>();
   for (const gaugeId of gaugeIds) {
     const { stored, rebuildAfter } = storedStateOf(stateRows.find((row) => row.gaugeId === gaugeId));
-    contexts.set(gaugeId, { limits: limitRows.filter((row) => row.gaugeId === gaugeId).map(limitOfRow), stored, rebuildAfter });
+    contexts.set(gaugeId, { limits: limitRows.filter((row) => row.gaugeId === gaugeId).map(limitOfRow), stored, rebuildAfter, flapping: flapping.has(gaugeId) });
   }
   return contexts;
 }
@@ -232,9 +241,14 @@ export async function followOpenPeaks(tx: WriteTx, subject: AlertSubject, before
   }
 }
 
+/** Limit alerts that have flapped and whose settling summary has not gone out yet. */
+function unsettledFlappingAlerts() {
+  return and(eq(alerts.kind, "limit"), isNotNull(alerts.flappingSince), isNull(alerts.settledAt));
+}
+
 /** Flapping alerts that have stayed cleared for a whole window by `upTo`: settled, their summary due. */
 export function quietFlappingAlerts(upTo: number) {
-  return and(eq(alerts.kind, "limit"), isNotNull(alerts.flappingSince), isNull(alerts.settledAt), lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)));
+  return and(unsettledFlappingAlerts(), lte(alerts.clearedAt, new Date(upTo - FLAP_WINDOW_MS)));
 }
 
 /**
@@ -385,7 +399,7 @@ async function applyEvaluation(
   await followOpenPeaks(tx, subject, from.current.episodes, result.state.episodes);
   for (const finding of result.findings) await applySensorFinding(tx, gauge, finding, notifications);
   await storeVerdicts(tx, gauge.id, result.verdicts, replayed ? batch : []);
-  if (batch.length > 0) await settleFlapping(tx, gauge.id, batch.at(-1)!.time, notifications);
+  if (batch.length > 0 && (context.flapping || result.events.length > 0)) await settleFlapping(tx, gauge.id, batch.at(-1)!.time, notifications);
   await queueAlertMails(tx, gauge, notifications);
   return { update: stateUpdate(gauge.id, from, result.state), faults: result.faultTimes, verdicts: result.verdicts };
 }
