@@ -289,14 +289,20 @@ export let staticReadingsPerSecond: number | null = null;
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 const spread = (rates: number[]) => `${Math.round(Math.min(...rates) / 1000)}k–${Math.round(Math.max(...rates) / 1000)}k`;
 
-/** A year of 1-minute readings for gauge YEAR, with one planted spike, sent through ingestion; answers the year's span. */
+/**
+ * A year of 1-minute readings for gauge YEAR, with one planted load peak, sent through ingestion;
+ * answers the year's span. The peak rises and falls over 20 minutes: a lone reading far from its
+ * neighbours is set aside as a sensor spike and rightly kept out of the series.
+ */
 export async function loadYear(baseUrl: string, token: string): Promise<{ from: number; to: number }> {
-  const spikeIndex = 200_000;
+  const peakIndex = 200_000;
+  const peakHalfWidth = 10;
   const yearBodies = Array.from({ length: YEAR_READINGS / BATCH }, (_, b) => () => {
     const batch: Reading[] = [];
     for (let i = b * BATCH; i < (b + 1) * BATCH; i++) {
       const r = reading("YEAR", i, MINUTE, 0);
-      if (i === spikeIndex) r.value = 5_000;
+      const fromPeak = Math.abs(i - peakIndex);
+      if (fromPeak < peakHalfWidth) r.value = 5_000 * (1 - fromPeak / peakHalfWidth);
       batch.push(r);
     }
     return jsonBody(batch);
@@ -321,7 +327,7 @@ async function seriesFigures(baseUrl: string, token: string, reader: string, url
     series = await query();
     times.push(performance.now() - started);
   }
-  const spikeShows = Math.max(...series.max) > 4_000;
+  const peakShows = Math.max(...series.max) > 4_000;
 
   const client: Client = createClient({ url });
   const gauge = (await client.execute("SELECT id FROM gauges WHERE tag = 'YEAR'")).rows[0]![0] as number;
@@ -340,7 +346,7 @@ async function seriesFigures(baseUrl: string, token: string, reader: string, url
     naiveTimes.push(performance.now() - started);
   }
   client.close();
-  return { median: median(times), naive: median(naiveTimes), spikeShows, buckets: series.t.length, source: series.source };
+  return { median: median(times), naive: median(naiveTimes), peakShows, buckets: series.t.length, source: series.source };
 }
 
 /**
@@ -458,7 +464,7 @@ export async function benchIngestion(): Promise<BenchResult[]> {
       { label: `ingest: HTTP, ${CLIENTS} clients sharing ${GAUGES_PER_LOGGER} gauges (out-of-order batches, replays)`, value: Math.round(sharedRate), unit: `readings/s (${(sharedRate / rawRate).toFixed(2)} of raw)` },
       { label: `series: year of 1-min readings, 1000 points, median warm (target < 50 ms; ${series.buckets} buckets from ${series.source})`, value: Number(series.median.toFixed(1)), unit: `ms ${verdict(series.median < 50)}` },
       { label: "series: naive read of every row, median", value: Number(series.naive.toFixed(1)), unit: "ms" },
-      { label: `series: naive / series (target ≥ 20; planted spike shown: ${series.spikeShows ? "yes" : "NO"})`, value: Number(seriesRatio.toFixed(1)), unit: verdict(seriesRatio >= 20 && series.spikeShows) },
+      { label: `series: naive / series (target ≥ 20; planted peak shown: ${series.peakShows ? "yes" : "NO"})`, value: Number(seriesRatio.toFixed(1)), unit: verdict(seriesRatio >= 20 && series.peakShows) },
       { label: `upload: ${UPLOAD_ROWS.toLocaleString("en-US")}-row CSV streamed, ${upload.accepted.toLocaleString("en-US")} stored`, value: Math.round(upload.accepted / upload.seconds), unit: "rows/s" },
       { label: "upload: server peak RSS while uploading (sampled every 100 ms)", value: Math.round(upload.peakRss / 1024), unit: "MB" },
       { label: "upload: server RSS high-water mark over the whole run (target < 512 MB)", value: Math.round(peakMb), unit: `MB ${verdict(peakMb < 512)}` },
