@@ -307,15 +307,24 @@ export async function storedReadingsAfter(tx: WriteTx, gaugeId: number, after: n
   }));
 }
 
+/** A reading judged again by a replay, with the verdict stored for it when it is known. */
+type RejudgedReading = { time: number; faultBits?: number };
+
 /**
- * Stores each reading's verdict with it. A replay judges its readings again, so their verdicts are
- * all written (healthy ones back to 0); a batch in time only has its faulty ones to mark.
+ * Stores each reading's verdict with it. A replay judges its readings again, so the ones found
+ * healthy go back to 0 where a fault was stored (or is not known); a batch in time only has its
+ * faulty ones to mark.
  */
-export async function storeVerdicts(tx: WriteTx, gaugeId: number, verdicts: ReadonlyMap<number, number>, rejudged: readonly { time: number }[] = []) {
+export async function storeVerdicts(tx: WriteTx, gaugeId: number, verdicts: ReadonlyMap<number, number>, rejudged: readonly RejudgedReading[] = []) {
   const raw = bulkSql(tx);
   const byBits = new Map<number, number[]>();
-  for (const { time } of rejudged) if (!verdicts.has(time)) byBits.set(0, [...(byBits.get(0) ?? []), time]);
-  for (const [time, bits] of verdicts) byBits.set(bits, [...(byBits.get(bits) ?? []), time]);
+  const record = (bits: number, time: number) => {
+    const times = byBits.get(bits);
+    if (times) times.push(time);
+    else byBits.set(bits, [time]);
+  };
+  for (const { time, faultBits } of rejudged) if (!verdicts.has(time) && faultBits !== 0) record(0, time);
+  for (const [time, bits] of verdicts) record(bits, time);
   for (const [bits, times] of byBits) {
     await raw.rows("UPDATE readings SET fault = ? WHERE gauge_id = ? AND t IN (SELECT value FROM json_each(?)) RETURNING 1", [bits, gaugeId, JSON.stringify(times)]);
   }
@@ -388,7 +397,7 @@ async function applyEvaluation(
   setup: GaugeAlertSetup,
   context: GaugeContext,
   from: StoredState,
-  batch: EvaluatedReading[],
+  batch: (EvaluatedReading & RejudgedReading)[],
   counts: AlertCounts,
   replayed = false,
 ): Promise<{ update: StateUpdate; faults: number[]; verdicts: Map<number, number> }> {
